@@ -1,0 +1,248 @@
+#pragma once
+/// The project as plain structs, units resolved: what `load` produces and every engine reads.
+#include <map>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "sifter/quantity.hpp"
+
+namespace sifter {
+
+/// IEC 61508-2 element type: A (simple, well-known failure modes) or B (complex).
+enum class ElementType { kA, kB };
+
+/// Lognormal state-of-knowledge uncertainty on a component's rates (the stated rates are means).
+struct RateUncertainty {
+  double error_factor = 1.0;  ///< 95th percentile / median
+};
+
+/// Field experience from which lambda_du is estimated at a one-sided confidence (chi-squared).
+struct FieldData {
+  int failures = 0;             ///< dangerous undetected failures counted
+  Duration device_hours;        ///< cumulated operating time of the population
+  double confidence = 0.7;      ///< one-sided confidence level, 0..1
+};
+
+/// The four failure rates of one element, per hour (IEC 61508-6 notation).
+struct FailureRates {
+  Rate lambda_du;  ///< dangerous undetected
+  Rate lambda_dd;  ///< dangerous detected
+  Rate lambda_su;  ///< safe undetected
+  Rate lambda_sd;  ///< safe detected
+
+  [[nodiscard]] double lambda_d() const { return lambda_du.per_hour + lambda_dd.per_hour; }
+  [[nodiscard]] double lambda_s() const { return lambda_su.per_hour + lambda_sd.per_hour; }
+  FailureRates& operator+=(const FailureRates& o) {
+    lambda_du.per_hour += o.lambda_du.per_hour;
+    lambda_dd.per_hour += o.lambda_dd.per_hour;
+    lambda_su.per_hour += o.lambda_su.per_hour;
+    lambda_sd.per_hour += o.lambda_sd.per_hour;
+    return *this;
+  }
+};
+
+/// One field device or element (a transmitter, a logic solver, a solenoid, a valve).
+struct Component {
+  std::string id;
+  std::string model;  ///< library model it takes its data from, empty if none
+  FailureRates rates;
+  std::optional<ElementType> element_type;
+  std::optional<int> systematic_capability;  ///< SC 1..4
+  std::optional<double> sff_declared;        ///< from the safety manual, used instead of the rates
+  std::optional<double> data_confidence;     ///< confidence of the failure data (Route 2H), 0..1
+  std::optional<RateUncertainty> uncertainty;
+  std::optional<FieldData> field_data;
+  std::string pointer;  ///< where it is defined, e.g. "/components/3"
+};
+
+/// A vote: the group works while K of its N channels work. 1oo2D is K=1, N=2 with diagnostics.
+struct Vote {
+  int k = 1;
+  int n = 1;
+  bool diagnostic = false;  ///< 1oo2D
+  [[nodiscard]] std::string text() const {
+    return std::to_string(k) + "oo" + std::to_string(n) + (diagnostic ? "D" : "");
+  }
+  /// Number of channel failures that fail the group (N - K + 1).
+  [[nodiscard]] int failures_to_fail() const { return n - k + 1; }
+};
+
+/// How beta is adjusted for groups other than 1oo2.
+enum class CcfScaling { kNone, kIec61508TableD5 };
+
+/// A subsystem's role in the signal path.
+enum class Role { kSensor, kLogic, kFinal };
+
+/// The partial stroke test of final elements.
+struct PartialStroke {
+  Duration interval;
+  double coverage = 0.0;  ///< share of lambda_du the partial stroke reveals
+};
+
+/// A channel of a voting group: component indices (into Project::components) in series.
+struct Channel {
+  std::vector<std::size_t> components;
+};
+
+/// A voting group of channels, or a vendor figure from a safety manual.
+struct Subsystem {
+  std::string name;
+  Role role = Role::kSensor;
+  Vote vote;
+  std::vector<Channel> channels;
+  double beta = 0.0;    ///< common-cause fraction of undetected failures, as entered (1oo2 value)
+  double beta_d = 0.0;  ///< common-cause fraction of detected failures, as entered
+  bool beta_d_defaulted = false;  ///< beta_D was not given and equals beta
+  CcfScaling ccf_scaling = CcfScaling::kNone;
+  Duration proof_test_interval;
+  Duration mttr;  ///< mean time to restoration after a detected failure
+  Duration mrt;   ///< mean repair time after a failure found by the proof test
+  bool mrt_defaulted = false;
+  bool interval_defaulted = false;
+  bool mttr_defaulted = false;
+  double proof_test_coverage = 1.0;  ///< PTC, 0..1
+  std::optional<PartialStroke> partial_stroke;
+  std::optional<Duration> test_duration;  ///< channel bypassed while tested (exact engine)
+  bool staggered = false;                 ///< tests spread evenly over the interval (exact engine)
+  bool trip_on_detected = false;          ///< a detected dangerous failure trips the process
+  // Vendor figures (instead of channels).
+  std::optional<double> vendor_pfd_avg;
+  std::optional<Rate> vendor_pfh;
+  // Declarations used by the architectural constraints.
+  std::optional<int> hft_declared;
+  std::optional<int> sc_declared;
+  std::optional<int> sil_capability;
+  bool diverse = false;
+  std::string diversity_note;
+  std::string pointer;  ///< e.g. "/sifs/0/subsystems/1"
+
+  [[nodiscard]] bool is_vendor() const { return vendor_pfd_avg.has_value() || vendor_pfh.has_value(); }
+};
+
+/// Low demand: PFDavg is the measure; high demand (or continuous): PFH.
+enum class DemandMode { kLow, kHigh };
+
+/// The basis of the architectural constraints.
+enum class ConstraintBasis { kIec61511, kRoute1H, kRoute2H };
+
+/// A SIF's own target, as written in the project.
+struct Target {
+  enum class Kind { kSil, kRrf, kPfdAvg, kPfh } kind = Kind::kSil;
+  double value = 0.0;  ///< SIL number, RRF, PFDavg, or PFH per hour
+};
+
+/// One safety instrumented function: subsystems in series.
+struct Sif {
+  std::string id;
+  std::string title;
+  std::optional<DemandMode> demand_mode_stated;
+  std::optional<Target> target;
+  std::optional<ConstraintBasis> constraints;
+  std::vector<Subsystem> subsystems;
+  std::string pointer;
+
+  [[nodiscard]] DemandMode demand_mode() const { return demand_mode_stated.value_or(DemandMode::kLow); }
+};
+
+/// Project-wide defaults applied where a subsystem leaves a value out.
+struct Defaults {
+  std::optional<Duration> proof_test_interval;
+  std::optional<Duration> mttr;
+  std::optional<Duration> mrt;
+  Duration mission_time{20.0 * kHoursPerYear};
+  bool mission_time_defaulted = true;
+};
+
+// ---- Layer of protection analysis -------------------------------------------------------
+
+/// A condition that must hold for a cause to lead to the hazard.
+struct EnablingCondition {
+  std::string title;
+  double probability = 1.0;
+};
+
+/// An initiating cause with its frequency.
+struct Cause {
+  std::string id;
+  std::string title;
+  Rate frequency;  ///< initiating event frequency (stored per hour; reported per year)
+  std::vector<std::string> devices;
+  std::vector<EnablingCondition> enabling;
+  std::string pointer;
+};
+
+/// A conditional modifier (ignition, occupancy, injury) applied after the release.
+struct Modifier {
+  std::string title;
+  double probability = 1.0;
+  std::vector<std::string> applies_to;  ///< consequence categories; empty = all
+  std::string pointer;
+};
+
+/// The kind of a protection layer.
+enum class LayerKind { kBpcsFunction, kOperatorResponse, kReliefDevice, kMechanical, kSif, kOther };
+
+/// A protection layer in the order it acts; one of them may be the SIF under assessment.
+struct Layer {
+  std::string id;
+  std::string title;
+  LayerKind kind = LayerKind::kOther;
+  double pfd = 1.0;
+  std::string sif;  ///< for a SIF layer: the SIF's id
+  std::vector<std::string> devices;
+  std::optional<Duration> response_time;
+  std::optional<Duration> time_available;
+  std::string independence_note;
+  std::string pointer;
+};
+
+/// A consequence of a scenario, rated in the risk criteria.
+struct Consequence {
+  std::string category;
+  std::string severity;
+};
+
+/// A layer considered but not credited, kept for the record.
+struct NotCredited {
+  std::string title;
+  std::string reason;
+};
+
+/// One LOPA scenario.
+struct Scenario {
+  std::string id;
+  std::string title;
+  std::vector<Consequence> consequences;
+  std::optional<Rate> target_frequency;  ///< given directly instead of consequences
+  std::vector<Cause> causes;
+  std::vector<Modifier> modifiers;
+  std::vector<Layer> layers;
+  std::vector<NotCredited> not_credited;
+  std::string pointer;
+};
+
+/// Tolerable frequencies: category -> severity -> frequency.
+using RiskCriteria = std::map<std::string, std::map<std::string, Rate>>;
+
+/// The whole project file, resolved.
+struct Project {
+  std::string format;
+  std::string title;
+  std::string file;  ///< path as given
+  Defaults defaults;
+  std::optional<ConstraintBasis> constraints;
+  double operator_time_multiple = 2.0;  ///< time available must be at least this x response time
+  std::vector<Component> components;
+  std::vector<Sif> sifs;
+  RiskCriteria risk_criteria;
+  std::vector<Scenario> scenarios;
+};
+
+/// The readable name of a role, a demand mode, a basis, a layer kind.
+std::string to_string(Role role);
+std::string to_string(DemandMode mode);
+std::string to_string(ConstraintBasis basis);
+std::string to_string(LayerKind kind);
+
+}  // namespace sifter

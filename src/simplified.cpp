@@ -1,0 +1,147 @@
+// IEC 61508-6:2010 Annex B simplified PFDavg and PFH (see ../shared/REFERENCES.md §1-§3).
+#include "sifter/simplified.hpp"
+
+#include <array>
+#include <cassert>
+#include <cmath>
+
+namespace sifter {
+namespace {
+
+constexpr const char* kPfdSource = "IEC 61508-6:2010 B.3.2.2";
+constexpr const char* kPfhSource = "IEC 61508-6:2010 B.3.3.2";
+
+// Number of ordered ways to pick m failing channels of N: N!/(N-m)!.
+double falling_factorial(int n, int m) {
+  double v = 1.0;
+  for (int i = 0; i < m; ++i) v *= static_cast<double>(n - i);
+  return v;
+}
+
+// The undetected-failure term of a down time: sum over slices of share lDU (T/(j+1) + MRT).
+double undetected_time_term(const GroupData& g, int j) {
+  double sum = 0.0;
+  for (const auto& s : g.tests)
+    sum += s.share * g.channel.lambda_du.per_hour * (s.interval.hours / (j + 1) + g.mrt.hours);
+  return sum;
+}
+
+// The common-cause term: beta_D lDD MTTR + beta sum(share lDU (T/2 + MRT)).
+double ccf_term(const GroupData& g) {
+  return g.beta_d * g.channel.lambda_dd.per_hour * g.mttr.hours + g.beta * undetected_time_term(g, 1);
+}
+
+std::string equation_name(const GroupData& g, const char* source) {
+  const bool named = (g.vote.k == 1 && g.vote.n <= 3) || (g.vote.k == 2 && g.vote.n <= 3);
+  std::string out = std::string(source) + ", " + g.vote.text();
+  if (!named) out += " (general KooN form of the Annex B construction)";
+  if (g.tests.size() > 1) out += "; imperfect or partial tests as weighted intervals (B.3.2.5 generalised)";
+  return out;
+}
+
+GroupPfd one_oo_two_d(const GroupData& g) {
+  // IEC 61508-6:2010 B.3.2.2.5.
+  const double ldu = g.channel.lambda_du.per_hour;
+  const double ldd = g.channel.lambda_dd.per_hour;
+  const double lsd = g.channel.lambda_sd.per_hour;
+  GroupPfd out;
+  out.equation = std::string(kPfdSource) + ", 1oo2D";
+  const double total = ldu + ldd + lsd;
+  if (total <= 0.0) return out;
+  const double t_ce = (undetected_time_term(g, 1) + (ldd + lsd) * g.mttr.hours) / total;
+  double t_ge = g.mrt.hours;
+  for (const auto& s : g.tests) t_ge += s.share * s.interval.hours / 3.0;
+  const double independent = 2.0 * (1.0 - g.beta) * ldu * ((1.0 - g.beta) * ldu + (1.0 - g.beta_d) * ldd + lsd) * t_ce * t_ge;
+  out.common_cause = ccf_term(g);
+  const double detected_share = (ldd + lsd) * g.mttr.hours / (total * t_ce);
+  out.independent_detected = independent * detected_share;
+  out.independent_undetected = independent - out.independent_detected;
+  out.pfd_avg = independent + out.common_cause;
+  return out;
+}
+
+}  // namespace
+
+double binomial(int n, int k) {
+  if (k < 0 || k > n) return 0.0;
+  double v = 1.0;
+  for (int i = 1; i <= k; ++i) v = v * static_cast<double>(n - k + i) / i;
+  return v;
+}
+
+double mean_down_time_hours(const GroupData& g, int j) {
+  const double ld = g.channel.lambda_d();
+  if (ld <= 0.0) return 0.0;
+  return (undetected_time_term(g, j) + g.channel.lambda_dd.per_hour * g.mttr.hours) / ld;
+}
+
+GroupPfd group_pfd_avg(const GroupData& g) {
+  assert(g.vote.k >= 1 && g.vote.k <= g.vote.n);
+  if (g.vote.diagnostic) return one_oo_two_d(g);
+  GroupPfd out;
+  out.equation = equation_name(g, kPfdSource);
+  const double ld = g.channel.lambda_d();
+  if (ld <= 0.0) return out;
+  const int m = g.vote.failures_to_fail();
+  double independent = 0.0;
+  if (m == 1) {
+    // 1oo1, 2oo2, NooN: any one failure fails the group; no separate common-cause term.
+    independent = g.vote.n * ld * mean_down_time_hours(g, 1);
+  } else {
+    const double x = (1.0 - g.beta_d) * g.channel.lambda_dd.per_hour + (1.0 - g.beta) * g.channel.lambda_du.per_hour;
+    independent = falling_factorial(g.vote.n, m) * std::pow(x, m);
+    for (int j = 1; j <= m; ++j) independent *= mean_down_time_hours(g, j);
+    out.common_cause = ccf_term(g);
+  }
+  // Attribute the independent term by the detected share of the first down time.
+  const double detected_share = g.channel.lambda_dd.per_hour * g.mttr.hours / (ld * mean_down_time_hours(g, 1));
+  out.independent_detected = std::isfinite(detected_share) ? independent * detected_share : 0.0;
+  out.independent_undetected = independent - out.independent_detected;
+  out.pfd_avg = independent + out.common_cause;
+  return out;
+}
+
+GroupPfh group_pfh(const GroupData& g) {
+  GroupPfh out;
+  out.equation = equation_name(g, kPfhSource);
+  const double ldu = g.channel.lambda_du.per_hour;
+  const double ldd = g.channel.lambda_dd.per_hour;
+  const int m = g.vote.failures_to_fail();
+  if (m == 1 && !g.vote.diagnostic) {
+    out.pfh_per_hour = g.vote.n * ldu;
+    return out;
+  }
+  out.common_cause_per_hour = g.beta_d * ldd + g.beta * ldu;
+  double independent = 0.0;
+  if (g.vote.diagnostic) {
+    // IEC 61508-6:2010 B.3.3.2.5, 1oo2D.
+    const double lsd = g.channel.lambda_sd.per_hour;
+    const double total = ldu + ldd + lsd;
+    const double t_ce = total > 0.0 ? (undetected_time_term(g, 1) + (ldd + lsd) * g.mttr.hours) / total : 0.0;
+    independent = 2.0 * (1.0 - g.beta) * ldu * ((1.0 - g.beta) * ldu + (1.0 - g.beta_d) * ldd + lsd) * t_ce;
+    out.equation = std::string(kPfhSource) + ", 1oo2D";
+  } else {
+    const double x = (1.0 - g.beta_d) * ldd + (1.0 - g.beta) * ldu;
+    independent = falling_factorial(g.vote.n, m) * std::pow(x, m - 1) * (1.0 - g.beta) * ldu;
+    for (int j = 1; j <= m - 1; ++j) independent *= mean_down_time_hours(g, j);
+  }
+  out.pfh_per_hour = independent + out.common_cause_per_hour;
+  return out;
+}
+
+bool table_d5_covers(int k, int n) { return k >= 1 && k <= n && (n <= 5 || k == n); }
+
+double ccf_multiplier_table_d5(int k, int n) {
+  // IEC 61508-6:2010 Annex D, Table D.5 (REFERENCES.md §1, from memory); rows M = K, columns N.
+  static constexpr std::array<std::array<double, 4>, 4> kTable{{
+      {1.0, 0.5, 0.3, 0.2},   // M = 1: N = 2, 3, 4, 5
+      {0.0, 1.5, 0.6, 0.4},   // M = 2
+      {0.0, 0.0, 1.75, 0.8},  // M = 3
+      {0.0, 0.0, 0.0, 2.0},   // M = 4
+  }};
+  assert(table_d5_covers(k, n));
+  if (k == n) return 1.0;
+  return kTable[static_cast<std::size_t>(k - 1)][static_cast<std::size_t>(n - 2)];
+}
+
+}  // namespace sifter
