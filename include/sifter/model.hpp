@@ -53,6 +53,7 @@ struct Component {
   std::optional<double> data_confidence;     ///< confidence of the failure data (Route 2H), 0..1
   std::optional<RateUncertainty> uncertainty;
   std::optional<FieldData> field_data;
+  std::string data_source;  ///< where the failure data come from (a safety manual, a database)
   std::string pointer;  ///< where it is defined, e.g. "/components/3"
 };
 
@@ -80,9 +81,11 @@ struct PartialStroke {
   double coverage = 0.0;  ///< share of lambda_du the partial stroke reveals
 };
 
-/// A channel of a voting group: component indices (into Project::components) in series.
+/// A channel of a voting group: components in series (a solenoid and its valve).
 struct Channel {
-  std::vector<std::size_t> components;
+  std::vector<std::string> component_ids;  ///< as written in the project file
+  std::vector<std::size_t> components;     ///< indices into Project::components, set by validation
+  std::string pointer;                     ///< e.g. "/sifs/0/subsystems/2/channels/0"
 };
 
 /// A voting group of channels, or a vendor figure from a safety manual.

@@ -1,1 +1,44 @@
-int main() { return 0; }
+// The sifter program: parse the command line, run one subcommand, map errors to exit codes.
+#include <iostream>
+#include <map>
+
+#include "commands.hpp"
+#include "sifter/diagnostics.hpp"
+
+int main(int argc, char** argv) {
+  CLI::App app{"sifter: LOPA and SIL verification of safety instrumented functions (IEC 61511 / IEC 61508)"};
+  app.set_version_flag("--version", std::string("sifter ") + SIFTER_VERSION);
+  app.require_subcommand(1);
+  app.footer(
+      "Exit status: 0 every SIF meets its target; 1 at least one falls short; 2 bad input or usage.\n"
+      "sifter is a calculation aid: results must be reviewed by a competent functional-safety practitioner.");
+  std::map<const CLI::App*, sifter::cli::Action> actions;
+  auto add = [&](sifter::cli::Action (*adder)(CLI::App&)) {
+    auto action = adder(app);
+    actions[app.get_subcommands({}).back()] = std::move(action);
+  };
+  add(&sifter::cli::add_check_command);
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::CallForHelp& e) {
+    return app.exit(e);
+  } catch (const CLI::CallForAllHelp& e) {
+    return app.exit(e);
+  } catch (const CLI::CallForVersion& e) {
+    return app.exit(e);
+  } catch (const CLI::ParseError& e) {
+    app.exit(e);
+    return static_cast<int>(sifter::ExitCode::kBadInput);
+  }
+  try {
+    for (auto* sub : app.get_subcommands())
+      if (auto it = actions.find(sub); it != actions.end()) return it->second();
+    return static_cast<int>(sifter::ExitCode::kBadInput);
+  } catch (const sifter::Error& e) {
+    std::cerr << "sifter: " << e.what() << "\n";
+    return static_cast<int>(e.exit_code());
+  } catch (const std::exception& e) {
+    std::cerr << "sifter: internal error: " << e.what() << "\n";
+    return static_cast<int>(sifter::ExitCode::kInternal);
+  }
+}

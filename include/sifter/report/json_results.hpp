@@ -1,0 +1,18 @@
+#pragma once
+/// The `sifter-results/1` JSON writer.
+#include <nlohmann/json.hpp>
+
+#include "sifter/verify.hpp"
+
+namespace sifter::report {
+
+/// The format name of the results file.
+inline constexpr const char* kResultsFormat = "sifter-results/1";
+
+/// The results as JSON; keys are a contract (extend, never rename).
+nlohmann::json results_json(const ProjectResult& result);
+
+/// One SIF's results as JSON (also used by the what-if commands).
+nlohmann::json sif_json(const SifResult& sif);
+
+}  // namespace sifter::report

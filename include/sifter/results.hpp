@@ -1,0 +1,105 @@
+#pragma once
+/// Result structs: the numbers and the reasons, so that every writer can show them without computing.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "sifter/diagnostics.hpp"
+#include "sifter/model.hpp"
+#include "sifter/plant_graph.hpp"
+
+namespace sifter {
+
+/// The caution every output people read carries.
+inline constexpr const char* kCaution =
+    "sifter is a calculation aid, not a substitute for engineering judgement. Every result must be "
+    "reviewed by a competent functional-safety practitioner before it is used; IEC 61511, local codes "
+    "and licensed engineering practice take precedence. Failure data must be credible and traceable "
+    "to their source.";
+
+/// One thing that keeps a SIF below its required SIL, and what would lift it.
+struct Limit {
+  std::string kind;                       ///< "probability", "architecture" or "systematic"
+  std::optional<std::string> subsystem;   ///< the subsystem's name, where one limits
+  std::optional<std::string> element;     ///< the element's tag, where one limits
+  int sil = 0;                            ///< the SIL this result allows
+  std::string message;                    ///< what limits it and what would lift it
+};
+
+/// The result of one subsystem (voting group or vendor figure).
+struct SubsystemResult {
+  std::string name;
+  Role role = Role::kSensor;
+  std::string vote;                 ///< "2oo3", or "vendor" for a safety-manual figure
+  std::vector<std::vector<std::string>> channels;  ///< component tags of each channel
+  std::optional<double> pfd_avg;
+  std::optional<double> pfh_per_hour;
+  double share = 0.0;               ///< of the SIF's PFDavg (or PFH)
+  double independent_undetected = 0.0;
+  double independent_detected = 0.0;
+  double common_cause = 0.0;
+  double beta_effective = 0.0;
+  double beta_d_effective = 0.0;
+  std::string equation;
+  FailureRates channel_rates;       ///< one channel's rates, series elements added
+  Duration proof_test_interval;
+  // Architectural constraints and systematic capability.
+  std::optional<int> hft;
+  std::optional<double> sff;
+  int sil_architecture = 0;
+  std::optional<int> systematic_capability;
+  std::vector<std::string> constraint_notes;
+  // Exact cross-check.
+  std::optional<double> pfd_avg_exact;
+  std::optional<double> pfh_exact_per_hour;
+  // Spurious trips.
+  double spurious_trip_rate_per_yr = 0.0;
+  std::optional<double> mttf_spurious_yr;
+};
+
+/// Monte Carlo summary of a SIF's PFDavg (or PFH).
+struct UncertaintyResult {
+  double mean = 0.0;
+  double p05 = 0.0;
+  double p50 = 0.0;
+  double p95 = 0.0;
+  double probability_meets_target = 0.0;
+  int samples = 0;
+  std::string method;
+};
+
+/// The verification of one SIF.
+struct SifResult {
+  std::string id;
+  std::string title;
+  DemandMode demand_mode = DemandMode::kLow;
+  std::string demand_mode_basis;  ///< why this mode: stated, default, or from the LOPA demand rate
+  std::optional<double> pfd_avg;
+  std::optional<double> pfh_per_hour;
+  std::optional<double> rrf;
+  int sil_probability = 0;
+  std::optional<int> sil_required;
+  std::optional<double> required_rrf;
+  std::optional<double> required_pfd;
+  std::optional<double> required_pfh_per_hour;
+  std::string target_text;  ///< the target as a reviewer reads it
+  std::optional<bool> meets_target;
+  int sil_architecture = 0;
+  int sil_systematic = 0;
+  int sil_achieved = 0;
+  ConstraintBasis constraints = ConstraintBasis::kIec61511;
+  std::vector<Limit> limits;
+  std::vector<SubsystemResult> subsystems;
+  std::vector<std::string> assumptions;
+  std::vector<std::string> scenarios;  ///< ids of the scenarios that feed it
+  // Exact cross-check.
+  std::optional<double> pfd_avg_exact;
+  std::optional<double> pfh_exact_per_hour;
+  std::optional<double> simplified_over_exact;
+  // Spurious trips.
+  double spurious_trip_rate_per_yr = 0.0;
+  std::optional<double> mttf_spurious_yr;
+  std::optional<UncertaintyResult> uncertainty;
+};
+
+}  // namespace sifter

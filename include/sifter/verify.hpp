@@ -1,0 +1,48 @@
+#pragma once
+/// Per-SIF orchestration: the one place that decides a SIF's verdict.
+#include <vector>
+
+#include "sifter/load.hpp"
+#include "sifter/results.hpp"
+#include "sifter/simplified.hpp"
+
+namespace sifter {
+
+/// How the simplified equations see one subsystem: effective beta (Table D.5), test slices
+/// for imperfect and partial stroke tests, one channel's rates.
+GroupData group_data_for(const Project& project, const Subsystem& sub);
+
+/// The SIF requirement from the risk analysis, when scenarios feed it.
+struct RequirementFromLopa {
+  double required_rrf = 0.0;            ///< the largest over the scenarios (low demand)
+  std::optional<double> required_pfh_per_hour;  ///< high demand: the smallest over the scenarios
+  DemandMode demand_mode = DemandMode::kLow;
+  std::vector<std::string> scenarios;
+  std::string demand_basis;
+};
+
+/// Options of a verification run.
+struct VerifyOptions {
+  bool exact = true;  ///< run the exact time-dependent cross-check
+};
+
+/// Verifies one SIF: PFDavg or PFH of every subsystem and of the SIF, RRF, the SIL from
+/// probability, the target and the verdict, with the assumptions applied.
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+                     const VerifyOptions& options, std::vector<Warning>& warnings);
+
+/// The whole project's results.
+struct ProjectResult {
+  std::string title;
+  std::string file;
+  std::string sha256;
+  std::vector<SifResult> sifs;
+  std::vector<SharedComponent> shared_components;
+  std::vector<Warning> warnings;
+  [[nodiscard]] bool all_met() const;
+};
+
+/// Verifies every SIF of a loaded project (and, once scenarios exist, its LOPA).
+ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& options = {});
+
+}  // namespace sifter

@@ -1,0 +1,110 @@
+// The sifter-results/1 JSON writer: every number finite, absent values as null.
+#include "sifter/report/json_results.hpp"
+
+#include "sifter/report/format.hpp"
+
+namespace sifter::report {
+namespace {
+
+using nlohmann::json;
+
+json opt(const std::optional<double>& v, const char* what) { return v ? json(checked(*v, what)) : json(nullptr); }
+json opt(const std::optional<int>& v) { return v ? json(*v) : json(nullptr); }
+json opt(const std::optional<bool>& v) { return v ? json(*v) : json(nullptr); }
+
+json subsystem_json(const SubsystemResult& s) {
+  json j;
+  j["name"] = s.name;
+  j["role"] = to_string(s.role);
+  j["vote"] = s.vote;
+  j["channels"] = s.channels;
+  j["pfd_avg"] = opt(s.pfd_avg, "pfd_avg");
+  j["pfh"] = opt(s.pfh_per_hour, "pfh");
+  j["share"] = checked(s.share, "share");
+  j["terms"] = {{"independent_undetected", checked(s.independent_undetected, "term")},
+                {"independent_detected", checked(s.independent_detected, "term")},
+                {"common_cause", checked(s.common_cause, "term")}};
+  j["beta_effective"] = s.beta_effective;
+  j["beta_d_effective"] = s.beta_d_effective;
+  j["equation"] = s.equation;
+  j["hft"] = opt(s.hft);
+  j["sff"] = opt(s.sff, "sff");
+  j["sil_architecture"] = s.sil_architecture;
+  j["systematic_capability"] = opt(s.systematic_capability);
+  j["constraint_notes"] = s.constraint_notes;
+  j["pfd_avg_exact"] = opt(s.pfd_avg_exact, "pfd_avg_exact");
+  j["pfh_exact"] = opt(s.pfh_exact_per_hour, "pfh_exact");
+  j["spurious_trip_rate_per_yr"] = checked(s.spurious_trip_rate_per_yr, "spurious trip rate");
+  j["mttf_spurious_yr"] = opt(s.mttf_spurious_yr, "mttf_spurious_yr");
+  return j;
+}
+
+}  // namespace
+
+json sif_json(const SifResult& s) {
+  json j;
+  j["id"] = s.id;
+  j["title"] = s.title;
+  j["demand_mode"] = to_string(s.demand_mode);
+  j["demand_mode_basis"] = s.demand_mode_basis;
+  j["pfd_avg"] = opt(s.pfd_avg, "pfd_avg");
+  j["pfh"] = opt(s.pfh_per_hour, "pfh");
+  j["rrf"] = opt(s.rrf, "rrf");
+  j["sil_probability"] = s.sil_probability;
+  j["sil_required"] = opt(s.sil_required);
+  j["required_rrf"] = opt(s.required_rrf, "required_rrf");
+  j["required_pfd"] = opt(s.required_pfd, "required_pfd");
+  j["required_pfh"] = opt(s.required_pfh_per_hour, "required_pfh");
+  j["target"] = s.target_text;
+  j["meets_target"] = opt(s.meets_target);
+  j["sil_architecture"] = s.sil_architecture;
+  j["sil_systematic"] = s.sil_systematic;
+  j["sil_achieved"] = s.sil_achieved;
+  j["constraints"] = to_string(s.constraints);
+  j["limits"] = json::array();
+  for (const auto& l : s.limits)
+    j["limits"].push_back({{"kind", l.kind},
+                           {"subsystem", l.subsystem ? json(*l.subsystem) : json(nullptr)},
+                           {"element", l.element ? json(*l.element) : json(nullptr)},
+                           {"sil", l.sil},
+                           {"message", l.message}});
+  j["subsystems"] = json::array();
+  for (const auto& sub : s.subsystems) j["subsystems"].push_back(subsystem_json(sub));
+  j["assumptions"] = s.assumptions;
+  j["scenarios"] = s.scenarios;
+  j["pfd_avg_exact"] = opt(s.pfd_avg_exact, "pfd_avg_exact");
+  j["pfh_exact"] = opt(s.pfh_exact_per_hour, "pfh_exact");
+  j["simplified_over_exact"] = opt(s.simplified_over_exact, "ratio");
+  j["spurious_trip_rate_per_yr"] = checked(s.spurious_trip_rate_per_yr, "spurious trip rate");
+  j["mttf_spurious_yr"] = opt(s.mttf_spurious_yr, "mttf_spurious_yr");
+  if (s.uncertainty) {
+    const auto& u = *s.uncertainty;
+    j["uncertainty"] = {{"mean", checked(u.mean, "mean")},
+                        {"p05", checked(u.p05, "p05")},
+                        {"p50", checked(u.p50, "p50")},
+                        {"p95", checked(u.p95, "p95")},
+                        {"probability_meets_target", checked(u.probability_meets_target, "probability")},
+                        {"samples", u.samples},
+                        {"method", u.method}};
+  } else {
+    j["uncertainty"] = nullptr;
+  }
+  return j;
+}
+
+json results_json(const ProjectResult& r) {
+  json j;
+  j["format"] = kResultsFormat;
+  j["tool"] = {{"name", "sifter"}, {"version", SIFTER_VERSION}};
+  j["project"] = {{"title", r.title}, {"file", r.file}, {"sha256", r.sha256}};
+  j["sifs"] = json::array();
+  for (const auto& s : r.sifs) j["sifs"].push_back(sif_json(s));
+  j["shared_components"] = json::array();
+  for (const auto& s : r.shared_components) j["shared_components"].push_back({{"component", s.component}, {"sifs", s.sifs}});
+  j["warnings"] = json::array();
+  for (const auto& w : r.warnings) j["warnings"].push_back({{"where", w.where}, {"message", w.message}});
+  j["caution"] = kCaution;
+  return j;
+}
+
+}  // namespace sifter::report

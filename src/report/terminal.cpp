@@ -1,0 +1,89 @@
+// The terminal summary: one block per SIF, then warnings, shared devices and the caution.
+#include "sifter/report/terminal.hpp"
+
+#include "sifter/report/format.hpp"
+#include "sifter/report/text_table.hpp"
+#include "sifter/sil.hpp"
+
+namespace sifter::report {
+namespace {
+
+std::string verdict_words(const std::optional<bool>& meets) {
+  if (!meets) return "NOT JUDGED (no target)";
+  return *meets ? "MEETS TARGET" : "FALLS SHORT";
+}
+
+std::string sil_text(int sil) { return sil == 0 ? "below SIL 1" : "SIL " + std::to_string(sil); }
+
+}  // namespace
+
+std::string wrapped_caution(std::size_t width) { return wrap(std::string("CAUTION: ") + kCaution, width, ""); }
+
+std::string render_sif(const SifResult& s) {
+  const bool low = s.demand_mode == DemandMode::kLow;
+  std::string out = s.id + (s.title.empty() ? "" : "  " + s.title) + "\n";
+  out += "  demand mode  " + to_string(s.demand_mode) + " (" + s.demand_mode_basis + ")\n";
+  out += "  target       " + (s.target_text.empty() ? std::string("none") : s.target_text) + "\n\n";
+
+  TextTable t({"subsystem", "role", "vote", low ? "PFDavg" : "PFH [1/h]", "share", "HFT", "SIL arch", "SC"},
+              {false, false, false, true, true, true, true, true});
+  for (const auto& sub : s.subsystems) {
+    t.add_row({sub.name, to_string(sub.role), sub.vote, sci_or_dash(low ? sub.pfd_avg : sub.pfh_per_hour),
+               percent(sub.share), sub.hft ? std::to_string(*sub.hft) : "-", std::to_string(sub.sil_architecture),
+               sub.systematic_capability ? std::to_string(*sub.systematic_capability) : "-"});
+  }
+  t.add_rule();
+  t.add_row({"SIF (sum)", "", "", sci_or_dash(low ? s.pfd_avg : s.pfh_per_hour), percent(1.0), "", "", ""});
+  out += t.render("  ");
+  out += "\n";
+  if (low) out += "  RRF " + (s.rrf ? plain(*s.rrf) : std::string("-"));
+  if (s.required_rrf && low) out += "   required RRF " + plain(*s.required_rrf);
+  out += "\n";
+  out += "  SIL  probability " + sil_text(s.sil_probability) + " | architecture " + sil_text(s.sil_architecture) +
+         " | systematic " + sil_text(s.sil_systematic) + "  ->  achieved " + sil_text(s.sil_achieved);
+  out += s.sil_required ? ", required " + sil_text(*s.sil_required) + "\n" : "\n";
+  out += "  verdict  " + verdict_words(s.meets_target) + "\n";
+  if (!s.limits.empty()) {
+    out += "  limited by\n";
+    for (const auto& l : s.limits) out += wrap("[" + l.kind + "] " + l.message, 92, "    ");
+  }
+  if (!s.assumptions.empty()) {
+    out += "  assumptions\n";
+    for (const auto& a : s.assumptions) out += wrap("- " + a, 92, "    ");
+  }
+  return out;
+}
+
+std::string render_terminal(const ProjectResult& r) {
+  std::string out = "sifter " SIFTER_VERSION " check: " + r.file + "\n";
+  if (!r.title.empty()) out += r.title + "\n";
+  out += "\n";
+  for (const auto& s : r.sifs) out += render_sif(s) + "\n";
+  if (!r.shared_components.empty()) {
+    out += "Components shared between SIFs (check their independence)\n";
+    for (const auto& c : r.shared_components) {
+      std::string users;
+      for (const auto& s : c.sifs) users += (users.empty() ? "" : ", ") + s;
+      out += "  " + c.component + ": " + users + "\n";
+    }
+    out += "\n";
+  }
+  if (!r.warnings.empty()) {
+    out += "Warnings\n";
+    for (const auto& w : r.warnings) out += wrap(w.where + ": " + w.message, 92, "  ");
+    out += "\n";
+  }
+  int met = 0, judged = 0;
+  for (const auto& s : r.sifs)
+    if (s.meets_target) {
+      ++judged;
+      met += *s.meets_target ? 1 : 0;
+    }
+  out += "Summary: " + std::to_string(met) + " of " + std::to_string(judged) + " judged SIFs meet their targets";
+  if (judged < static_cast<int>(r.sifs.size()))
+    out += " (" + std::to_string(r.sifs.size() - static_cast<std::size_t>(judged)) + " without a target)";
+  out += "\n\n" + wrapped_caution();
+  return out;
+}
+
+}  // namespace sifter::report

@@ -1,0 +1,275 @@
+// Per-SIF verification: subsystem figures, the SIF sum, the target and the verdict.
+#include "sifter/verify.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+#include "sifter/sil.hpp"
+
+namespace sifter {
+namespace {
+
+std::string num(double v) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.3g", v);
+  return buf;
+}
+
+std::vector<TestSlice> test_slices(const Subsystem& sub, Duration mission) {
+  // Shares of lambda_du and the interval that reveals each (IEC 61508-6:2010 B.3.2.5 for an
+  // imperfect proof test; the partial stroke test adds its own slice before it).
+  std::vector<TestSlice> slices;
+  double rest = 1.0;
+  if (sub.partial_stroke) {
+    slices.push_back({sub.partial_stroke->coverage, sub.partial_stroke->interval});
+    rest -= sub.partial_stroke->coverage;
+  }
+  const double ptc = sub.proof_test_coverage;
+  if (rest * ptc > 0.0) slices.push_back({rest * ptc, sub.proof_test_interval});
+  if (rest * (1.0 - ptc) > 0.0) slices.push_back({rest * (1.0 - ptc), mission});
+  if (slices.empty()) slices.push_back({1.0, sub.proof_test_interval});
+  return slices;
+}
+
+std::string describe_target(const Target& t, DemandMode mode) {
+  switch (t.kind) {
+    case Target::Kind::kSil: return "SIL " + num(t.value) + (mode == DemandMode::kLow ? " (PFDavg < " : " (PFH < ") +
+                                    num(sil_upper_limit(static_cast<int>(t.value), mode)) + ")";
+    case Target::Kind::kRrf: return "RRF " + num(t.value) + " (PFDavg <= " + num(1.0 / t.value) + ")";
+    case Target::Kind::kPfdAvg: return "PFDavg <= " + num(t.value);
+    case Target::Kind::kPfh: return "PFH <= " + num(t.value) + "/h";
+  }
+  return {};
+}
+
+// Defaults applied, gathered per kind so that the output names each once with its subsystems.
+struct DefaultsApplied {
+  std::vector<std::string> interval, mttr, mrt_equals_mttr, beta_d_equals_beta;
+};
+
+std::string joined(const std::vector<std::string>& names) {
+  std::string out;
+  for (const auto& n : names) out += (out.empty() ? "" : ", ") + n;
+  return out;
+}
+
+void describe_defaults(const Project& project, const DefaultsApplied& d, std::vector<std::string>& assumptions) {
+  if (!d.interval.empty() && project.defaults.proof_test_interval)
+    assumptions.push_back("proof-test interval " + format_duration(*project.defaults.proof_test_interval) +
+                          " from the project defaults: " + joined(d.interval));
+  if (!d.mttr.empty() && project.defaults.mttr)
+    assumptions.push_back("MTTR " + format_duration(*project.defaults.mttr) + " from the project defaults: " + joined(d.mttr));
+  if (!d.mrt_equals_mttr.empty())
+    assumptions.push_back("MRT taken equal to MTTR (not given): " + joined(d.mrt_equals_mttr));
+  if (!d.beta_d_equals_beta.empty())
+    assumptions.push_back("beta_D taken equal to beta (not given): " + joined(d.beta_d_equals_beta));
+}
+
+SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub, DemandMode mode,
+                                   std::vector<std::string>& assumptions, DefaultsApplied& defaults) {
+  SubsystemResult r;
+  r.name = sub.name;
+  r.role = sub.role;
+  r.proof_test_interval = sub.proof_test_interval;
+  for (const auto& ch : sub.channels) {
+    std::vector<std::string> tags;
+    for (auto c : ch.components) tags.push_back(project.components[c].id);
+    r.channels.push_back(std::move(tags));
+  }
+  if (sub.is_vendor()) {
+    r.vote = sub.hft_declared ? "vendor (HFT " + std::to_string(*sub.hft_declared) + ")" : "vendor";
+    r.pfd_avg = sub.vendor_pfd_avg;
+    if (sub.vendor_pfh) r.pfh_per_hour = sub.vendor_pfh->per_hour;
+    r.equation = "figure from the safety manual";
+    assumptions.push_back(sub.name + ": " + (sub.vendor_pfd_avg ? "PFDavg" : "PFH") +
+                          " taken from the supplier's safety manual; its proof-test and repair assumptions apply");
+    return r;
+  }
+  r.vote = sub.vote.text();
+  const GroupData g = group_data_for(project, sub);
+  r.channel_rates = g.channel;
+  r.beta_effective = g.beta;
+  r.beta_d_effective = g.beta_d;
+  if (mode == DemandMode::kLow) {
+    const GroupPfd p = group_pfd_avg(g);
+    r.pfd_avg = p.pfd_avg;
+    r.independent_undetected = p.independent_undetected;
+    r.independent_detected = p.independent_detected;
+    r.common_cause = p.common_cause;
+    r.equation = p.equation;
+  } else {
+    const GroupPfh p = group_pfh(g);
+    r.pfh_per_hour = p.pfh_per_hour;
+    r.common_cause = p.common_cause_per_hour;
+    r.independent_undetected = p.pfh_per_hour - p.common_cause_per_hour;
+    r.equation = p.equation;
+  }
+  const bool redundant = sub.vote.failures_to_fail() > 1 || sub.vote.diagnostic;
+  if (redundant && sub.beta_d_defaulted) defaults.beta_d_equals_beta.push_back(sub.name);
+  if (sub.mrt_defaulted) defaults.mrt_equals_mttr.push_back(sub.name);
+  if (sub.interval_defaulted) defaults.interval.push_back(sub.name);
+  if (sub.mttr_defaulted) defaults.mttr.push_back(sub.name);
+  if (sub.ccf_scaling == CcfScaling::kIec61508TableD5 && redundant)
+    assumptions.push_back(sub.name + ": beta scaled by " + num(ccf_multiplier_table_d5(sub.vote.k, sub.vote.n)) +
+                          " for " + sub.vote.text() + " (IEC 61508-6:2010 Table D.5)");
+  if (sub.proof_test_coverage < 1.0)
+    assumptions.push_back(sub.name + ": proof-test coverage " + num(sub.proof_test_coverage * 100) +
+                          "%; failures the test misses stay until the end of the mission (" +
+                          format_duration(project.defaults.mission_time) + ")");
+  if (sub.partial_stroke)
+    assumptions.push_back(sub.name + ": partial stroke test every " + format_duration(sub.partial_stroke->interval) +
+                          " reveals " + num(sub.partial_stroke->coverage * 100) + "% of lambda_du");
+  return r;
+}
+
+}  // namespace
+
+GroupData group_data_for(const Project& project, const Subsystem& sub) {
+  GroupData g;
+  g.vote = sub.vote;
+  if (!sub.channels.empty())
+    for (auto c : sub.channels.front().components) g.channel += project.components[c].rates;
+  const double multiplier = sub.ccf_scaling == CcfScaling::kIec61508TableD5 && table_d5_covers(sub.vote.k, sub.vote.n)
+                                ? ccf_multiplier_table_d5(sub.vote.k, sub.vote.n)
+                                : 1.0;
+  g.beta = std::min(1.0, sub.beta * multiplier);
+  g.beta_d = std::min(1.0, sub.beta_d * multiplier);
+  g.tests = test_slices(sub, project.defaults.mission_time);
+  g.mttr = sub.mttr;
+  g.mrt = sub.mrt;
+  return g;
+}
+
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+                     const VerifyOptions& options, std::vector<Warning>& warnings) {
+  (void)options;
+  SifResult r;
+  r.id = sif.id;
+  r.title = sif.title;
+  r.constraints = sif.constraints.value_or(project.constraints.value_or(ConstraintBasis::kIec61511));
+  if (lopa) {
+    r.demand_mode = lopa->demand_mode;
+    r.demand_mode_basis = lopa->demand_basis;
+    r.scenarios = lopa->scenarios;
+  } else {
+    r.demand_mode = sif.demand_mode();
+    r.demand_mode_basis = sif.demand_mode_stated ? "stated in the project" : "not stated; low demand assumed";
+  }
+  const bool low = r.demand_mode == DemandMode::kLow;
+  DefaultsApplied defaults;
+  for (const auto& sub : sif.subsystems)
+    r.subsystems.push_back(evaluate_subsystem(project, sub, r.demand_mode, r.assumptions, defaults));
+  describe_defaults(project, defaults, r.assumptions);
+
+  // Series subsystems: the SIF's PFDavg (PFH) is the sum of theirs (IEC 61508-6:2010 B.2.2,
+  // rare-event approximation of 1 - prod(1 - PFD_i)).
+  double total = 0.0;
+  bool complete = true;
+  for (const auto& s : r.subsystems) {
+    const auto& v = low ? s.pfd_avg : s.pfh_per_hour;
+    if (v) total += *v;
+    else complete = false;
+  }
+  for (auto& s : r.subsystems) {
+    const auto& v = low ? s.pfd_avg : s.pfh_per_hour;
+    s.share = v && total > 0.0 ? *v / total : 0.0;
+  }
+  r.assumptions.insert(r.assumptions.begin(),
+                       std::string("SIF ") + (low ? "PFDavg" : "PFH") +
+                           " = sum over its subsystems in series (IEC 61508-6:2010 Annex B simplified equations)");
+  if (!complete) {
+    for (std::size_t i = 0; i < r.subsystems.size(); ++i)
+      if (!(low ? r.subsystems[i].pfd_avg : r.subsystems[i].pfh_per_hour))
+        warnings.push_back({sif.subsystems[i].pointer,
+                            "the supplier gives no " + std::string(low ? "PFDavg" : "PFH") + " for " +
+                                r.demand_mode_basis + " operation; the SIF cannot be verified"});
+  } else if (low) {
+    r.pfd_avg = total;
+    r.rrf = total > 0.0 ? std::optional<double>(1.0 / total) : std::nullopt;
+    r.sil_probability = sil_from_pfd_avg(total);
+  } else {
+    r.pfh_per_hour = total;
+    r.sil_probability = sil_from_pfh(total);
+  }
+
+  // The requirement: the SIF's own target and, where scenarios feed it, the risk analysis;
+  // the stricter applies.
+  std::optional<double> required_pfd;  // low demand
+  std::optional<double> required_pfh;  // high demand
+  std::optional<int> required_sil;
+  if (sif.target) {
+    const Target& t = *sif.target;
+    r.target_text = describe_target(t, r.demand_mode);
+    switch (t.kind) {
+      case Target::Kind::kSil: required_sil = static_cast<int>(t.value); break;
+      case Target::Kind::kRrf:
+        required_pfd = 1.0 / t.value;
+        r.required_rrf = t.value;
+        required_sil = sil_required_from_rrf(t.value);
+        break;
+      case Target::Kind::kPfdAvg:
+        required_pfd = t.value;
+        r.required_rrf = 1.0 / t.value;
+        required_sil = sil_required_from_rrf(1.0 / t.value);
+        break;
+      case Target::Kind::kPfh:
+        required_pfh = t.value;
+        required_sil = sil_required_from_pfh(t.value);
+        break;
+    }
+  }
+  if (lopa) {
+    const int lopa_sil = low || !lopa->required_pfh_per_hour ? sil_required_from_rrf(lopa->required_rrf)
+                                                              : sil_required_from_pfh(*lopa->required_pfh_per_hour);
+    if (required_sil && *required_sil != lopa_sil)
+      warnings.push_back({sif.pointer + "/target", "the stated target (" + r.target_text + ") differs from the SIL " +
+                                                        std::to_string(lopa_sil) +
+                                                        " the LOPA requires; the stricter applies"});
+    const double lopa_pfd = 1.0 / lopa->required_rrf;
+    if (!required_pfd || lopa_pfd < *required_pfd) {
+      required_pfd = lopa_pfd;
+      r.required_rrf = lopa->required_rrf;
+    }
+    if (lopa->required_pfh_per_hour && (!required_pfh || *lopa->required_pfh_per_hour < *required_pfh))
+      required_pfh = lopa->required_pfh_per_hour;
+    required_sil = std::max(required_sil.value_or(0), lopa_sil);
+    r.target_text = (r.target_text.empty() ? "" : r.target_text + "; ") + "LOPA: " +
+                    (low ? "RRF " + num(lopa->required_rrf) : "PFH <= " + num(required_pfh.value_or(0.0)) + "/h");
+  }
+  r.sil_required = required_sil;
+  r.required_pfd = low ? required_pfd : std::nullopt;
+  r.required_pfh_per_hour = low ? std::nullopt : required_pfh;
+  if (required_sil && complete) {
+    bool met = r.sil_probability >= *required_sil;
+    if (low && required_pfd) met = at_most(total, *required_pfd);
+    if (!low && required_pfh) met = at_most(total, *required_pfh);
+    r.meets_target = met;
+  }
+  if (!sif.target && !lopa)
+    warnings.push_back({sif.pointer, "no target and no scenario names this SIF; it is computed but not judged"});
+  r.sil_architecture = r.sil_probability;
+  r.sil_systematic = r.sil_probability;
+  r.sil_achieved = r.sil_probability;
+  return r;
+}
+
+bool ProjectResult::all_met() const {
+  for (const auto& s : sifs)
+    if (s.meets_target.has_value() && !*s.meets_target) return false;
+  return true;
+}
+
+ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& options) {
+  const Project& project = loaded.project;
+  ProjectResult out;
+  out.title = project.title;
+  out.file = project.file;
+  out.sha256 = loaded.sha256;
+  out.warnings = loaded.warnings;
+  out.shared_components = PlantGraph(project).shared_components();
+  out.sifs.reserve(project.sifs.size());
+  for (const auto& sif : project.sifs) out.sifs.push_back(verify_sif(project, sif, std::nullopt, options, out.warnings));
+  return out;
+}
+
+}  // namespace sifter
