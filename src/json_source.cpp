@@ -126,7 +126,11 @@ std::vector<StructureProblem> scan_json_structure(
       const char c = cur.peek();
       if (c == '{' || c == '[') {
         if (static_cast<int>(stack.size()) >= kMaxNestingDepth) {
-          problems.push_back({pointer, cur.position(),
+          // Name the place by its first levels only; the full pointer would be unreadable.
+          std::size_t cut = 0;
+          for (int level = 0; level < 6 && cut != std::string::npos; ++level) cut = pointer.find('/', cut + 1);
+          const std::string shown = cut == std::string::npos ? pointer : pointer.substr(0, cut) + "/...";
+          problems.push_back({shown, cur.position(),
                               "nesting no deeper than " + std::to_string(kMaxNestingDepth) + " levels",
                               "deeper nesting", "a project file needs only a few levels; check the brackets"});
           return problems;

@@ -83,6 +83,15 @@ std::optional<Json> parse_source(LoadContext& ctx, int source, const std::string
     report(position_of_offset(text, offset), "", "valid JSON", detail,
            "check for a missing comma, quote or bracket near this place");
     return std::nullopt;
+  } catch (const Json::out_of_range& e) {
+    // nlohmann: "number overflow parsing '1e400'": locate the number in the text.
+    const std::string what = e.what();
+    const auto q1 = what.find('\''), q2 = what.rfind('\'');
+    const std::string token = q1 != std::string::npos && q2 > q1 ? what.substr(q1 + 1, q2 - q1 - 1) : "";
+    const auto at = token.empty() ? std::string::npos : text.find(token);
+    report(position_of_offset(text, at == std::string::npos ? 0 : at), "", "numbers within the range of finite values",
+           token.empty() ? "a number out of range" : "the number " + token, "write a finite number");
+    return std::nullopt;
   }
 }
 

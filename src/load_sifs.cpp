@@ -144,10 +144,11 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
   sub.beta = beta.value_or(0.0);
   sub.beta_d = beta_d.value_or(sub.beta);
   sub.beta_d_defaulted = beta.has_value() && !beta_d.has_value();
-  if (!vendor && sub.vote.n > 1 && !sub.vote.diagnostic && sub.vote.k < sub.vote.n && !beta)
+  const bool beta_written = r.has("beta");
+  if (!vendor && sub.vote.n > 1 && !sub.vote.diagnostic && sub.vote.k < sub.vote.n && !beta_written)
     ctx.error(0, pointer, "\"beta\" on a redundant group (" + sub.vote.text() + ")", "no beta",
               "estimate beta with IEC 61508-6 Annex D; 2% to 10% is usual for field devices");
-  if (sub.vote.diagnostic && !beta)
+  if (sub.vote.diagnostic && !beta_written)
     ctx.error(0, pointer, "\"beta\" on a redundant group (1oo2D)", "no beta",
               "estimate beta with IEC 61508-6 Annex D; 2% to 10% is usual");
   if (auto scaling = r.choice("ccf_scaling", {"none", "iec61508-6-d5"})) {
@@ -205,9 +206,11 @@ std::optional<Target> read_target(LoadContext& ctx, ObjectReader& sif) {
   }
   if (auto pfh = t.rate("pfh")) found.push_back({Target::Kind::kPfh, pfh->per_hour});
   t.finish();
-  if (found.size() > 1 || (found.empty() && v->is_object() && !v->empty()))
+  int written = 0;
+  for (const char* key : {"sil", "rrf", "pfd_avg", "pfh"}) written += t.has(key) ? 1 : 0;
+  if (written != 1 && v->is_object())
     ctx.error(0, sif.at("target"), "exactly one of {\"sil\": n}, {\"rrf\": x}, {\"pfd_avg\": x}, {\"pfh\": \"…/h\"}",
-              std::to_string(found.size()) + " targets");
+              std::to_string(written) + " targets");
   if (found.size() != 1) return std::nullopt;
   return found.front();
 }

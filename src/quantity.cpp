@@ -22,6 +22,7 @@ std::string_view trim(std::string_view s) {
 // independent of the locale, so "0,5" is never read as 0.
 struct NumberAndUnit {
   bool ok = false;
+  bool out_of_range = false;
   double number = 0.0;
   std::string_view unit;
 };
@@ -33,8 +34,9 @@ NumberAndUnit split_number(std::string_view text) {
   const char* last = text.data() + text.size();
   if (first != last && *first == '+') ++first;
   auto [ptr, ec] = std::from_chars(first, last, value);
+  if (ec == std::errc::result_out_of_range) return {false, true, 0.0, {}};
   if (ec != std::errc() || ptr == first) return {};
-  return {true, value, trim(std::string_view(ptr, static_cast<std::size_t>(last - ptr)))};
+  return {true, false, value, trim(std::string_view(ptr, static_cast<std::size_t>(last - ptr)))};
 }
 
 struct UnitFactor {
@@ -66,6 +68,7 @@ bool finite_non_negative(double v) { return std::isfinite(v) && v >= 0.0; }
 Parsed<Rate> parse_rate(std::string_view text) {
   const std::string hint = "write a rate with its unit, for example " + std::string(kRateForms);
   auto nu = split_number(text);
+  if (nu.out_of_range) return {std::nullopt, "a number beyond the range of finite values", hint};
   if (!nu.ok) return {std::nullopt, "no number at the start", hint};
   if (!finite_non_negative(nu.number))
     return {std::nullopt, "a rate must be a finite number of zero or more", hint};
@@ -82,6 +85,7 @@ Parsed<Rate> parse_rate(std::string_view text) {
 Parsed<Duration> parse_duration(std::string_view text) {
   const std::string hint = "write a duration with its unit, for example " + std::string(kDurationForms);
   auto nu = split_number(text);
+  if (nu.out_of_range) return {std::nullopt, "a number beyond the range of finite values", hint};
   if (!nu.ok) return {std::nullopt, "no number at the start", hint};
   if (!finite_non_negative(nu.number))
     return {std::nullopt, "a duration must be a finite number of zero or more", hint};

@@ -1,6 +1,7 @@
 // SIL bands and tolerant comparisons (REFERENCES.md §4, IEC 61508-1:2010 Tables 2/3, seen).
 #include "sifter/sil.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 namespace sifter {
@@ -14,32 +15,23 @@ double snap_to_decade(double value) {
 bool at_most(double value, double limit) { return value <= limit * (1.0 + kEdgeRelTol); }
 
 namespace {
-// Low demand bands start at 1e-1 (SIL 1 upper edge, exclusive); high demand at 1e-5 per hour.
-int band(double value, double sil1_upper) {
+// Which band a value falls in, counted in decades below the SIL 1 upper edge; decades are
+// compared in log space after snapping, so that 1e-6 is exactly six decades down.
+int decades_below(double value, double sil1_upper) {
   const double v = snap_to_decade(value);
-  int sil = 0;
-  double upper = sil1_upper;
-  while (sil < 4 && v < upper) {
-    ++sil;
-    upper /= 10.0;
-  }
-  return sil;
+  if (!(v > 0.0)) return 4;
+  const double e = std::log10(sil1_upper) - std::log10(v);
+  return static_cast<int>(std::clamp(std::ceil(e), 0.0, 4.0));
 }
 }  // namespace
 
-int sil_from_pfd_avg(double pfd_avg) { return band(pfd_avg, 1e-1); }
-int sil_from_pfh(double pfh_per_hour) { return band(pfh_per_hour, 1e-5); }
+int sil_from_pfd_avg(double pfd_avg) { return decades_below(pfd_avg, 1e-1); }
+int sil_from_pfh(double pfh_per_hour) { return decades_below(pfh_per_hour, 1e-5); }
 
 int sil_required_from_rrf(double rrf) {
   // RRF in (10^n, 10^(n+1)] needs SIL n; an RRF of exactly 100 is SIL 1.
-  const double v = snap_to_decade(rrf);
-  int sil = 0;
-  double lower = 10.0;
-  while (sil < 4 && v > lower) {
-    ++sil;
-    lower *= 10.0;
-  }
-  return sil;
+  if (!(rrf > 0.0)) return 0;
+  return decades_below(1.0 / snap_to_decade(rrf), 1e-1);
 }
 
 int sil_required_from_pfh(double required_pfh_per_hour) {

@@ -70,3 +70,152 @@ INSTANTIATE_TEST_SUITE_P(
 
 }  // namespace
 }  // namespace sifter
+
+namespace sifter {
+namespace {
+
+GroupData hand_group(int k, int n, double ldu, double ldd, double beta, double beta_d, double t1, double mttr,
+                     double mrt) {
+  GroupData g;
+  g.vote.k = k;
+  g.vote.n = n;
+  g.channel.lambda_du.per_hour = ldu;
+  g.channel.lambda_dd.per_hour = ldd;
+  g.beta = beta;
+  g.beta_d = beta_d;
+  g.tests = {{1.0, Duration{t1}}};
+  g.mttr = Duration{mttr};
+  g.mrt = Duration{mrt};
+  return g;
+}
+
+// The Annex B forms written out by hand (IEC 61508-6:2010 B.3.2.2, REFERENCES.md §1, from
+// memory), evaluated independently of the general construction in simplified.cpp.
+struct HandForms {
+  double ldu, ldd, beta, beta_d, t1, mttr, mrt;
+  [[nodiscard]] double ld() const { return ldu + ldd; }
+  [[nodiscard]] double t(double divisor) const { return ldu / ld() * (t1 / divisor + mrt) + ldd / ld() * mttr; }
+  [[nodiscard]] double x() const { return (1 - beta_d) * ldd + (1 - beta) * ldu; }
+  [[nodiscard]] double ccf() const { return beta_d * ldd * mttr + beta * ldu * (t1 / 2 + mrt); }
+};
+
+constexpr HandForms kHand{2e-6, 8e-6, 0.05, 0.02, 8760.0, 8.0, 24.0};
+
+TEST(AnnexB, TwoOutOfTwoIsTwiceTheSingleChannel) {
+  const auto& h = kHand;
+  const auto r = group_pfd_avg(hand_group(2, 2, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt));
+  expect_relative(r.pfd_avg, 2 * h.ld() * h.t(2), kExactRelTol);
+}
+
+TEST(AnnexB, OneOutOfThreeMatchesTheHandComputedForm) {
+  const auto& h = kHand;
+  const auto r = group_pfd_avg(hand_group(1, 3, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt));
+  expect_relative(r.pfd_avg, 6 * std::pow(h.x(), 3) * h.t(2) * h.t(3) * h.t(4) + h.ccf(), kExactRelTol);
+}
+
+TEST(AnnexB, OneOutOfTwoAndTwoOutOfThreeMatchTheHandComputedForms) {
+  const auto& h = kHand;
+  const auto r12 = group_pfd_avg(hand_group(1, 2, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt));
+  expect_relative(r12.pfd_avg, 2 * h.x() * h.x() * h.t(2) * h.t(3) + h.ccf(), kExactRelTol);
+  const auto r23 = group_pfd_avg(hand_group(2, 3, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt));
+  expect_relative(r23.pfd_avg, 6 * h.x() * h.x() * h.t(2) * h.t(3) + h.ccf(), kExactRelTol);
+  EXPECT_NEAR(r23.common_cause, h.ccf(), h.ccf() * kExactRelTol);
+}
+
+TEST(AnnexB, OneOutOfTwoDMatchesTheHandComputedForm) {
+  // IEC 61508-6:2010 B.3.2.2.5 (REFERENCES.md §1, from memory).
+  const double ldu = 2e-6, ldd = 8e-6, lsd = 5e-6, beta = 0.05, beta_d = 0.02, t1 = 8760, mttr = 8, mrt = 24;
+  auto g = hand_group(1, 2, ldu, ldd, beta, beta_d, t1, mttr, mrt);
+  g.vote.diagnostic = true;
+  g.channel.lambda_sd.per_hour = lsd;
+  const double t_ce = (ldu * (t1 / 2 + mrt) + (ldd + lsd) * mttr) / (ldu + ldd + lsd);
+  const double t_ge = t1 / 3 + mrt;
+  const double expected = 2 * (1 - beta) * ldu * ((1 - beta) * ldu + (1 - beta_d) * ldd + lsd) * t_ce * t_ge +
+                          beta_d * ldd * mttr + beta * ldu * (t1 / 2 + mrt);
+  expect_relative(group_pfd_avg(g).pfd_avg, expected, kExactRelTol);
+}
+
+class GeneralKooN : public ::testing::TestWithParam<std::pair<int, int>> {};
+
+// With beta = DC = MRT = 0 the Annex B construction reduces to the undetected-only KooN
+// form C(N, N-K+1) (lDU T1)^(N-K+1) / (N-K+2) (Rausand 2014; REFERENCES.md §1, from memory).
+TEST_P(GeneralKooN, EqualsTheUndetectedOnlyFormWithoutCommonCauseOrRepair) {
+  const auto [k, n] = GetParam();
+  const double ldu = 3e-6, t1 = 8760.0;
+  const auto r = group_pfd_avg(hand_group(k, n, ldu, 0.0, 0.0, 0.0, t1, 0.0, 0.0));
+  const int m = n - k + 1;
+  expect_relative(r.pfd_avg, binomial(n, m) * std::pow(ldu * t1, m) / (m + 1), kExactRelTol);
+}
+
+INSTANTIATE_TEST_SUITE_P(Votes, GeneralKooN,
+                         ::testing::Values(std::pair{1, 1}, std::pair{1, 2}, std::pair{2, 2}, std::pair{2, 3},
+                                           std::pair{1, 3}, std::pair{3, 3}, std::pair{2, 4}, std::pair{3, 5},
+                                           std::pair{1, 4}, std::pair{4, 8}));
+
+TEST(AnnexBPfh, SingleAndSeriesChannelsAreTheirUndetectedRate) {
+  // IEC 61508-6:2010 B.3.3.2 (REFERENCES.md §3, from memory): 1oo1 PFH = lDU, 2oo2 = 2 lDU.
+  expect_relative(group_pfh(hand_group(1, 1, 2e-7, 5e-7, 0, 0, 8760, 8, 8)).pfh_per_hour, 2e-7, kExactRelTol);
+  expect_relative(group_pfh(hand_group(2, 2, 2e-7, 5e-7, 0, 0, 8760, 8, 8)).pfh_per_hour, 4e-7, kExactRelTol);
+}
+
+TEST(AnnexBPfh, RedundantGroupsMatchTheHandComputedForms) {
+  const auto& h = kHand;
+  const double ccf = h.beta_d * h.ldd + h.beta * h.ldu;
+  const auto g12 = hand_group(1, 2, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt);
+  expect_relative(group_pfh(g12).pfh_per_hour, 2 * h.x() * (1 - h.beta) * h.ldu * h.t(2) + ccf, kExactRelTol);
+  const auto g23 = hand_group(2, 3, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt);
+  expect_relative(group_pfh(g23).pfh_per_hour, 6 * h.x() * (1 - h.beta) * h.ldu * h.t(2) + ccf, kExactRelTol);
+  const auto g13 = hand_group(1, 3, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt);
+  expect_relative(group_pfh(g13).pfh_per_hour, 6 * h.x() * h.x() * (1 - h.beta) * h.ldu * h.t(2) * h.t(3) + ccf,
+                  kExactRelTol);
+}
+
+TEST(AnnexBPfh, PfhCheckValueForOneOutOfTwoAtTwoPercentBeta) {
+  // Hand check: lDU = 5e-7, lDD = 0, beta = 2%, T1 = 1 yr, MRT = 8 h: tCE = 4388 h;
+  // PFH = 2 (0.98 x 5e-7)^2 x 4388 + 0.02 x 5e-7 = 2.1076e-9 + 1e-8 = 1.2108e-8 per hour.
+  const auto r = group_pfh(hand_group(1, 2, 5e-7, 0.0, 0.02, 0.02, 8760.0, 8.0, 8.0));
+  expect_relative(r.pfh_per_hour, 1.21076e-8, 1e-4);
+}
+
+TEST(TableD5, MultipliersOfTheOneOutOfTwoBeta) {
+  // IEC 61508-6:2010 Table D.5 (REFERENCES.md §1, from memory).
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(1, 2), 1.0);
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(1, 3), 0.5);
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(2, 3), 1.5);
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(1, 4), 0.3);
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(2, 4), 0.6);
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(3, 4), 1.75);
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(1, 5), 0.2);
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(2, 5), 0.4);
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(3, 5), 0.8);
+  EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(4, 5), 2.0);
+  EXPECT_FALSE(table_d5_covers(2, 6));
+}
+
+TEST(ImperfectProofTest, OneOutOfOneMatchesClauseB325) {
+  // IEC 61508-6:2010 B.3.2.5 (REFERENCES.md §2, from memory, low confidence):
+  // PFD = PTC lDU (T1/2 + MRT) + (1 - PTC) lDU (T2/2 + MRT) + lDD MTTR.
+  const double ldu = 1e-6, ldd = 2e-6, ptc = 0.9, t1 = 8760, t2 = 20 * 8760.0, mttr = 8, mrt = 16;
+  auto g = hand_group(1, 1, ldu, ldd, 0, 0, t1, mttr, mrt);
+  g.tests = {{ptc, Duration{t1}}, {1 - ptc, Duration{t2}}};
+  const double expected = ptc * ldu * (t1 / 2 + mrt) + (1 - ptc) * ldu * (t2 / 2 + mrt) + ldd * mttr;
+  expect_relative(group_pfd_avg(g).pfd_avg, expected, kExactRelTol);
+}
+
+TEST(PartialStrokeTest, OneOutOfOneMatchesTheWeightedForm) {
+  // Partial stroke (REFERENCES.md §2, from memory): C lDU T_PST/2 + (1 - C) lDU T_FT/2 with MRT = 0.
+  const double ldu = 2e-6, c = 0.6, t_pst = 730, t_ft = 8760;
+  auto g = hand_group(1, 1, ldu, 0, 0, 0, t_ft, 0, 0);
+  g.tests = {{c, Duration{t_pst}}, {1 - c, Duration{t_ft}}};
+  expect_relative(group_pfd_avg(g).pfd_avg, c * ldu * t_pst / 2 + (1 - c) * ldu * t_ft / 2, kExactRelTol);
+}
+
+TEST(AnnexB, TermsAddUpToThePfdAvg) {
+  const auto& h = kHand;
+  const auto r = group_pfd_avg(hand_group(2, 3, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt));
+  expect_relative(r.independent_undetected + r.independent_detected + r.common_cause, r.pfd_avg, kExactRelTol);
+  EXPECT_GT(r.independent_detected, 0.0);
+}
+
+}  // namespace
+}  // namespace sifter
