@@ -45,7 +45,6 @@ GroupPfd one_oo_two_d(const GroupData& g) {
   const double ldd = g.channel.lambda_dd.per_hour;
   const double lsd = g.channel.lambda_sd.per_hour;
   GroupPfd out;
-  out.equation = std::string(kPfdSource) + ", 1oo2D";
   const double total = ldu + ldd + lsd;
   if (total <= 0.0) return out;
   const double t_ce = (undetected_time_term(g, 1) + (ldd + lsd) * g.mttr.hours) / total;
@@ -75,11 +74,13 @@ double mean_down_time_hours(const GroupData& g, int j) {
   return (undetected_time_term(g, j) + g.channel.lambda_dd.per_hour * g.mttr.hours) / ld;
 }
 
-GroupPfd group_pfd_avg(const GroupData& g) {
+namespace {
+
+// The terms of group_pfd_avg without the equation text, so that Monte Carlo loops build no string.
+GroupPfd pfd_terms(const GroupData& g) {
   assert(g.vote.k >= 1 && g.vote.k <= g.vote.n);
   if (g.vote.diagnostic) return one_oo_two_d(g);
   GroupPfd out;
-  out.equation = equation_name(g, kPfdSource);
   const double ld = g.channel.lambda_d();
   if (ld <= 0.0) return out;
   const int m = g.vote.failures_to_fail();
@@ -100,6 +101,16 @@ GroupPfd group_pfd_avg(const GroupData& g) {
   out.pfd_avg = independent + out.common_cause;
   return out;
 }
+
+}  // namespace
+
+GroupPfd group_pfd_avg(const GroupData& g) {
+  GroupPfd out = pfd_terms(g);
+  out.equation = g.vote.diagnostic ? std::string(kPfdSource) + ", 1oo2D" : equation_name(g, kPfdSource);
+  return out;
+}
+
+double group_pfd_avg_value(const GroupData& g) { return pfd_terms(g).pfd_avg; }
 
 GroupPfh group_pfh(const GroupData& g) {
   GroupPfh out;

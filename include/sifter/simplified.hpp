@@ -47,6 +47,9 @@ struct GroupPfh {
 /// N!/(N-m)! X^m prod t_j + CCF, m = N-K+1, which reproduces every Annex B form exactly.
 GroupPfd group_pfd_avg(const GroupData& group);
 
+/// group_pfd_avg(group).pfd_avg without the terms' text: the fast path for Monte Carlo loops.
+double group_pfd_avg_value(const GroupData& group);
+
 /// PFH of a KooN group (high demand), IEC 61508-6:2010 B.3.3.2, generalised as above.
 GroupPfh group_pfh(const GroupData& group);
 
