@@ -1,0 +1,123 @@
+// Specification of the command line: exit statuses, outputs written whole, the examples.
+#include <gtest/gtest.h>
+#include <nlohmann/json.hpp>
+
+#include "cli_support.hpp"
+
+namespace sifter {
+namespace {
+
+using nlohmann::json;
+using testing::fresh_folder;
+using testing::run_sifter;
+using testing::slurp;
+
+TEST(Cli, VersionAndHelpExitZero) {
+  const auto v = run_sifter("--version");
+  EXPECT_EQ(v.exit_code, 0);
+  EXPECT_EQ(v.out, "sifter " SIFTER_VERSION "\n");
+  const auto h = run_sifter("check --help");
+  EXPECT_EQ(h.exit_code, 0);
+  EXPECT_NE(h.out.find("--json"), std::string::npos);
+}
+
+TEST(Cli, UnknownOptionIsAUsageErrorWithStatusTwo) {
+  const auto r = run_sifter("check examples/unit40.json --jsn out.json");
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_NE(r.err.find("--jsn"), std::string::npos);
+}
+
+TEST(Cli, TheShippedExampleMeetsEveryTargetAndExitsZero) {
+  const auto r = run_sifter("check examples/unit40.json");
+  EXPECT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.out.find("SIF-401"), std::string::npos);
+  EXPECT_NE(r.out.find("MEETS TARGET"), std::string::npos);
+  EXPECT_NE(r.out.find("CAUTION: sifter is a calculation aid"), std::string::npos);
+  EXPECT_NE(r.out.find("LS-40: SIF-401, SIF-403"), std::string::npos);  // a shared logic solver
+}
+
+TEST(Cli, JsonResultsCarryTheContractKeys) {
+  const auto r = run_sifter("check examples/unit40.json --json -");
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const json j = json::parse(r.out);
+  EXPECT_EQ(j["format"], "sifter-results/1");
+  ASSERT_EQ(j["sifs"].size(), 3u);
+  const json& s = j["sifs"][0];
+  EXPECT_EQ(s["id"], "SIF-401");
+  EXPECT_EQ(s["demand_mode"], "low");
+  EXPECT_TRUE(s["pfd_avg"].is_number());
+  EXPECT_TRUE(s["pfh"].is_null());
+  EXPECT_NEAR(s["rrf"].get<double>(), 1.0 / s["pfd_avg"].get<double>(), 1e-9 * s["rrf"].get<double>());
+  EXPECT_EQ(s["sil_required"], 2);
+  EXPECT_TRUE(s["required_rrf"].is_null());  // the target is a SIL, not an RRF
+  EXPECT_EQ(s["meets_target"], true);
+  ASSERT_EQ(s["subsystems"].size(), 3u);
+  double shares = 0.0, sum = 0.0;
+  for (const auto& sub : s["subsystems"]) {
+    shares += sub["share"].get<double>();
+    sum += sub["pfd_avg"].get<double>();
+  }
+  EXPECT_NEAR(shares, 1.0, 1e-12);
+  EXPECT_NEAR(sum, s["pfd_avg"].get<double>(), 1e-15);  // the SIF is the sum of its subsystems
+  EXPECT_EQ(s["subsystems"][0]["vote"], "2oo3");
+  EXPECT_FALSE(s["assumptions"].empty());
+  EXPECT_TRUE(j["warnings"].is_array());
+  EXPECT_NE(j["caution"].get<std::string>().find("competent functional-safety practitioner"), std::string::npos);
+  EXPECT_EQ(j["sifs"][1]["required_rrf"], 300);
+}
+
+TEST(Cli, AFunctionThatFallsShortExitsOne) {
+  const auto r = run_sifter("check examples/unit50_shortfall.json --json -");
+  EXPECT_EQ(r.exit_code, 1);
+  const json j = json::parse(r.out);
+  EXPECT_EQ(j["sifs"][0]["meets_target"], false);
+  EXPECT_EQ(j["sifs"][1]["meets_target"], true);
+}
+
+TEST(Cli, BadInputExitsTwoAndWritesNothing) {
+  const auto dir = fresh_folder("bad_input");
+  const auto out = dir / "results.json";
+  const auto r = run_sifter("check tests/data/bad/typo_in_key.json --json " + out.string());
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_NE(r.err.find("proof_test_intervall"), std::string::npos);
+  EXPECT_FALSE(std::filesystem::exists(out));
+  EXPECT_TRUE(std::filesystem::is_empty(dir));  // no temporary file left behind either
+}
+
+TEST(Cli, BadInputLeavesAnEarlierResultsFileUntouched) {
+  const auto dir = fresh_folder("keep_old");
+  const auto out = dir / "results.json";
+  std::ofstream(out) << "earlier results";
+  run_sifter("check tests/data/bad/unknown_component.json --json " + out.string());
+  EXPECT_EQ(slurp(out), "earlier results");
+}
+
+TEST(Cli, ResultsFileIsWrittenWhole) {
+  const auto dir = fresh_folder("whole");
+  const auto out = dir / "results.json";
+  const auto r = run_sifter("check examples/unit40.json --quiet --json " + out.string());
+  EXPECT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_TRUE(r.out.empty());
+  EXPECT_EQ(json::parse(slurp(out))["sifs"].size(), 3u);
+}
+
+TEST(Cli, RefusesToOverwriteItsOwnInput) {
+  const auto dir = fresh_folder("self");
+  const auto project = dir / "p.json";
+  std::filesystem::copy_file(std::string(SIFTER_SOURCE_DIR) + "/tests/data/bad/typo_in_key.json", project);
+  const std::string before = slurp(project);
+  const auto r = run_sifter("check " + project.string() + " --json " + project.string());
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_NE(r.err.find("refusing to write"), std::string::npos);
+  EXPECT_EQ(slurp(project), before);
+}
+
+TEST(Cli, AMissingProjectFileIsNamed) {
+  const auto r = run_sifter("check no/such/file.json");
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_EQ(r.err, "sifter: no/such/file.json: expected a readable file, found no file at \"no/such/file.json\"\n"
+                   "  hint: check the path\n1 problem in the input; nothing was computed or written\n");
+}
+
+}  // namespace
+}  // namespace sifter
