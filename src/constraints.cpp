@@ -433,10 +433,14 @@ SubsystemConstraints subsystem_constraints(const Subsystem& subsystem, const std
 }
 
 SifConstraints sif_constraints(const Sif& sif, const std::vector<Component>& components, ConstraintBasis basis) {
+  return sif_constraints(sif, components, basis, sif.demand_mode());
+}
+
+SifConstraints sif_constraints(const Sif& sif, const std::vector<Component>& components, ConstraintBasis basis,
+                               DemandMode mode) {
   SifConstraints out;
   out.basis = basis;
-  for (const auto& s : sif.subsystems)
-    out.subsystems.push_back(subsystem_constraints(s, components, basis, sif.demand_mode()));
+  for (const auto& s : sif.subsystems) out.subsystems.push_back(subsystem_constraints(s, components, basis, mode));
   if (out.subsystems.empty()) return out;
   // Subsystems act in series: the lowest result governs (IEC 61508-2:2010 7.4.4.2.3, 7.4.3).
   out.sil_architecture = 4;

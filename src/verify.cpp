@@ -1,9 +1,11 @@
 // Per-SIF verification: subsystem figures, the SIF sum, the target and the verdict.
 #include "sifter/verify.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
+#include "sifter/constraints.hpp"
 #include "sifter/sil.hpp"
 
 namespace sifter {
@@ -11,7 +13,7 @@ namespace {
 
 std::string num(double v) {
   char buf[32];
-  std::snprintf(buf, sizeof buf, "%.3g", v);
+  std::snprintf(buf, sizeof buf, "%.4g", v);
   return buf;
 }
 
@@ -120,6 +122,39 @@ SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub,
     assumptions.push_back(sub.name + ": partial stroke test every " + format_duration(sub.partial_stroke->interval) +
                           " reveals " + num(sub.partial_stroke->coverage * 100) + "% of lambda_du");
   return r;
+}
+
+// Architectural constraints and systematic capability; the achieved SIL is the lowest of the
+// three results (IEC 61508-2:2010 7.4.4, 7.4.3; IEC 61511-1:2016 11.4), and the verdict needs all three.
+void apply_constraints(const Project& project, const Sif& sif, SifResult& r, const std::optional<double>& required,
+                       const std::optional<double>& achieved) {
+  const SifConstraints c = sif_constraints(sif, project.components, r.constraints, r.demand_mode);
+  r.sil_architecture = c.sil_architecture;
+  r.sil_systematic = c.sil_systematic;
+  r.sil_achieved = std::min({r.sil_probability, r.sil_architecture, r.sil_systematic});
+  for (std::size_t i = 0; i < c.subsystems.size() && i < r.subsystems.size(); ++i) {
+    const auto& sc = c.subsystems[i];
+    auto& sub = r.subsystems[i];
+    sub.hft = sc.hft;
+    sub.sff = sc.sff;
+    sub.sil_architecture = sc.sil_architecture;
+    sub.systematic_capability = sc.systematic_capability;
+    sub.constraint_notes = sc.findings;
+  }
+  r.assumptions.push_back("architectural constraints on the basis " + to_string(r.constraints) + " (" +
+                          (r.constraints == ConstraintBasis::kIec61511 ? "IEC 61511-1:2016 11.4, Table 6"
+                           : r.constraints == ConstraintBasis::kRoute1H ? "IEC 61508-2:2010 7.4.4.2, Tables 2 and 3"
+                                                                         : "IEC 61508-2:2010 7.4.4.3") +
+                          ")");
+  if (!r.sil_required) return;
+  ProbabilityCheck p;
+  p.mode = r.demand_mode;
+  p.sil = r.sil_probability;
+  p.achieved = achieved.value_or(0.0);
+  p.required = required.value_or(sil_upper_limit(*r.sil_required, r.demand_mode));
+  if (achieved) r.limits = limits_for(p, c, *r.sil_required);
+  if (r.meets_target)
+    r.meets_target = *r.meets_target && r.sil_architecture >= *r.sil_required && r.sil_systematic >= *r.sil_required;
 }
 
 }  // namespace
@@ -247,9 +282,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   }
   if (!sif.target && !lopa)
     warnings.push_back({sif.pointer, "no target and no scenario names this SIF; it is computed but not judged"});
-  r.sil_architecture = r.sil_probability;
-  r.sil_systematic = r.sil_probability;
-  r.sil_achieved = r.sil_probability;
+  apply_constraints(project, sif, r, low ? required_pfd : required_pfh, complete ? std::optional(total) : std::nullopt);
   return r;
 }
 

@@ -32,7 +32,11 @@ inline Subsystem group(std::string name, Vote v, std::vector<std::vector<std::si
   Subsystem s;
   s.name = std::move(name);
   s.vote = v;
-  for (auto& c : channels) s.channels.push_back(Channel{std::move(c)});
+  for (auto& c : channels) {
+    Channel ch;
+    ch.components = std::move(c);
+    s.channels.push_back(std::move(ch));
+  }
   return s;
 }
 

@@ -160,6 +160,9 @@ struct SifConstraints {
 };
 SifConstraints sif_constraints(const Sif& sif, const std::vector<Component>& components,
                                ConstraintBasis basis);
+/// The same in a demand mode decided elsewhere (by the LOPA demand rate).
+SifConstraints sif_constraints(const Sif& sif, const std::vector<Component>& components, ConstraintBasis basis,
+                               DemandMode mode);
 
 // ---- Limits ----------------------------------------------------------------------------
 

@@ -4,6 +4,7 @@
 #include <string>
 #include <vector>
 
+#include "sifter/constraints.hpp"
 #include "sifter/diagnostics.hpp"
 #include "sifter/model.hpp"
 #include "sifter/plant_graph.hpp"
@@ -16,15 +17,6 @@ inline constexpr const char* kCaution =
     "reviewed by a competent functional-safety practitioner before it is used; IEC 61511, local codes "
     "and licensed engineering practice take precedence. Failure data must be credible and traceable "
     "to their source.";
-
-/// One thing that keeps a SIF below its required SIL, and what would lift it.
-struct Limit {
-  std::string kind;                       ///< "probability", "architecture" or "systematic"
-  std::optional<std::string> subsystem;   ///< the subsystem's name, where one limits
-  std::optional<std::string> element;     ///< the element's tag, where one limits
-  int sil = 0;                            ///< the SIL this result allows
-  std::string message;                    ///< what limits it and what would lift it
-};
 
 /// The result of one subsystem (voting group or vendor figure).
 struct SubsystemResult {

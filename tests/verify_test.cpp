@@ -1,0 +1,128 @@
+// Specification of the per-SIF verdict: the three SILs, the limits and what would lift them.
+#include "sifter/verify.hpp"
+
+#include <gtest/gtest.h>
+
+namespace sifter {
+namespace {
+
+constexpr double kRelTol = 1e-12;
+
+ProjectResult verify_text(const std::string& text) {
+  return verify_project(load_project_text(text, "inline.json", std::string(SIFTER_SOURCE_DIR) + "/examples"));
+}
+
+// A SIF of three 1oo1 subsystems; the caller fills in the target and the final element.
+std::string project(const std::string& sif_extra, const std::string& final_vote, const std::string& final_channels,
+                    const std::string& logic = R"("vote": "1oo1", "channels": ["LS-1"])") {
+  return R"({
+  "format": "sifter-project/1",
+  "defaults": { "proof_test_interval": "1 yr", "mttr": "8 h" },
+  "components": [
+    { "id": "PT-1", "lambda_du": "50 FIT", "lambda_dd": "450 FIT", "lambda_sd": "300 FIT", "element_type": "B", "systematic_capability": 3 },
+    { "id": "LS-1", "lambda_du": "5 FIT", "lambda_dd": "1000 FIT", "lambda_sd": "1000 FIT", "element_type": "B", "systematic_capability": 3 },
+    { "id": "XV-1", "lambda_du": "500 FIT", "lambda_su": "500 FIT", "element_type": "A", "systematic_capability": 3 },
+    { "id": "XV-2", "lambda_du": "500 FIT", "lambda_su": "500 FIT", "element_type": "A", "systematic_capability": 3 }
+  ],
+  "sifs": [ { "id": "S1", )" + sif_extra + R"(, "subsystems": [
+    { "name": "sensor", "role": "sensor", "vote": "1oo1", "channels": ["PT-1"] },
+    { "name": "logic", "role": "logic", )" + logic + R"( },
+    { "name": "valves", "role": "final", "vote": ")" + final_vote + R"(", "channels": )" + final_channels + R"(, "beta": "10%" } ] } ]
+})";
+}
+
+TEST(Verify, ASifMeetingEverythingHasNoLimits) {
+  const auto r = verify_text(project(R"("target": {"sil": 1})", "1oo1", R"(["XV-1"])"));
+  const auto& s = r.sifs[0];
+  EXPECT_EQ(s.sil_probability, 2);
+  EXPECT_EQ(s.sil_achieved, 2);  // IEC 61511-1:2016 Table 6 [seen]: SIL 2 needs no HFT in low demand
+  EXPECT_EQ(s.meets_target, true);
+  EXPECT_TRUE(s.limits.empty());
+}
+
+TEST(Verify, TheSifPfdIsTheSumOfItsSubsystems) {
+  const auto r = verify_text(project(R"("target": {"sil": 1})", "1oo1", R"(["XV-1"])"));
+  const auto& s = r.sifs[0];
+  double sum = 0.0;
+  for (const auto& sub : s.subsystems) sum += *sub.pfd_avg;
+  EXPECT_NEAR(*s.pfd_avg, sum, sum * kRelTol);
+  // The valve alone: lDU (T1/2 + MRT) = 5e-7 x (4380 + 8) h (REFERENCES.md §1, 1oo1).
+  EXPECT_NEAR(*s.subsystems[2].pfd_avg, 5e-7 * 4388.0, 5e-7 * 4388.0 * kRelTol);
+}
+
+// IEC 61511-1:2016 Table 6 [seen]: SIL 3 needs HFT 1, so a 1oo1 valve caps the SIF at SIL 2.
+TEST(Verify, TooLittleFaultToleranceLimitsTheArchitecture) {
+  const auto r = verify_text(project(R"("target": {"sil": 3})", "1oo1", R"(["XV-1"])"));
+  const auto& s = r.sifs[0];
+  EXPECT_EQ(s.sil_architecture, 2);
+  EXPECT_EQ(s.meets_target, false);
+  bool found = false;
+  for (const auto& l : s.limits)
+    if (l.kind == "architecture" && l.subsystem == "valves") {
+      found = true;
+      EXPECT_EQ(l.sil, 2);
+      EXPECT_NE(l.message.find("1oo2"), std::string::npos) << l.message;
+    }
+  EXPECT_TRUE(found);
+}
+
+TEST(Verify, ALogicSolverOfSystematicCapabilityTwoCapsASilThreeFunction) {
+  const auto r = verify_text(project(R"("target": {"sil": 3})", "1oo2", R"(["XV-1", "XV-2"])",
+                                     R"("pfd_avg": 1e-5, "hft": 1, "systematic_capability": 2)"));
+  const auto& s = r.sifs[0];
+  EXPECT_EQ(s.sil_systematic, 2);
+  EXPECT_EQ(s.sil_achieved, 2);
+  EXPECT_EQ(s.meets_target, false);
+  ASSERT_FALSE(s.limits.empty());
+  bool found = false;
+  for (const auto& l : s.limits)
+    if (l.kind == "systematic") {
+      found = true;
+      EXPECT_EQ(l.subsystem, "logic");
+      EXPECT_EQ(l.sil, 2);
+    }
+  EXPECT_TRUE(found);
+}
+
+TEST(Verify, APfdAboveTheRequiredValueFallsShortEvenInsideTheSameBand) {
+  // REFERENCES.md §4: a target by RRF is met only when PFDavg <= 1/RRF, not by the band.
+  const auto r = verify_text(project(R"("target": {"rrf": 500})", "1oo1", R"(["XV-1"])"));
+  const auto& s = r.sifs[0];
+  EXPECT_EQ(s.sil_probability, 2);
+  EXPECT_EQ(s.sil_required, 2);
+  EXPECT_GT(*s.pfd_avg, 1.0 / 500);
+  EXPECT_EQ(s.meets_target, false);
+  ASSERT_FALSE(s.limits.empty());
+  EXPECT_EQ(s.limits[0].kind, "probability");
+}
+
+TEST(Verify, Route1HUsesTheSafeFailureFractionTables) {
+  // PT-1: SFF = (300 + 450) / 800 = 93.75 %, Type B, HFT 0 -> SIL 2 (IEC 61508-2:2010 Table 3, seen).
+  const auto r = verify_text(project(R"("target": {"sil": 1}, "constraints": "route_1h")", "1oo1", R"(["XV-1"])"));
+  const auto& s = r.sifs[0];
+  EXPECT_EQ(s.constraints, ConstraintBasis::kRoute1H);
+  EXPECT_EQ(s.subsystems[0].sil_architecture, 2);
+  EXPECT_NEAR(*s.subsystems[0].sff, 0.9375, 1e-12);
+}
+
+TEST(Verify, HighDemandSifsAreVerifiedOnPfh) {
+  const auto r = verify_text(project(R"("demand_mode": "high", "target": {"pfh": "1e-6/h"})", "1oo2",
+                                     R"(["XV-1", "XV-2"])"));
+  const auto& s = r.sifs[0];
+  EXPECT_FALSE(s.pfd_avg);
+  ASSERT_TRUE(s.pfh_per_hour);
+  // 1oo1 sensor: PFH = lDU = 5e-8 per hour (IEC 61508-6:2010 B.3.3.2, from memory).
+  EXPECT_NEAR(*s.subsystems[0].pfh_per_hour, 5e-8, 5e-8 * kRelTol);
+  EXPECT_EQ(s.meets_target, true);
+}
+
+TEST(Verify, ASifWithoutTargetIsComputedButNotJudged) {
+  const auto r = verify_text(project(R"("title": "no target")", "1oo1", R"(["XV-1"])"));
+  EXPECT_FALSE(r.sifs[0].meets_target);
+  EXPECT_TRUE(r.all_met());
+  ASSERT_FALSE(r.warnings.empty());
+  EXPECT_EQ(r.warnings.back().message, "no target and no scenario names this SIF; it is computed but not judged");
+}
+
+}  // namespace
+}  // namespace sifter
