@@ -30,7 +30,7 @@ std::string format_number(double value) {
   if (!std::isfinite(value)) return std::isnan(value) ? "nan" : (value > 0 ? "inf" : "-inf");
   std::array<char, 48> buf{};
   const double a = std::fabs(value);
-  if (a >= 1e-3 && a < 1e5) {
+  if (a >= 1e-3 && a < 1e6) {
     const int decimals = std::max(0, 2 - static_cast<int>(std::floor(std::log10(a))));
     std::snprintf(buf.data(), buf.size(), "%.*f", decimals, value);
     std::string s = buf.data();

@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <map>
 
 #include "sifter/constraints.hpp"
 #include "sifter/sil.hpp"
@@ -275,9 +276,10 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   r.required_pfd = low ? required_pfd : std::nullopt;
   r.required_pfh_per_hour = low ? std::nullopt : required_pfh;
   if (required_sil && complete) {
+    // The band of the required SIL must be reached, and the value itself where one is required.
     bool met = r.sil_probability >= *required_sil;
-    if (low && required_pfd) met = at_most(total, *required_pfd);
-    if (!low && required_pfh) met = at_most(total, *required_pfh);
+    if (low && required_pfd) met = met && at_most(total, *required_pfd);
+    if (!low && required_pfh) met = met && at_most(total, *required_pfh);
     r.meets_target = met;
   }
   if (!sif.target && !lopa)
@@ -289,8 +291,36 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
 bool ProjectResult::all_met() const {
   for (const auto& s : sifs)
     if (s.meets_target.has_value() && !*s.meets_target) return false;
+  for (const auto& s : scenarios)
+    if (s.meets_target.has_value() && !*s.meets_target) return false;
   return true;
 }
+
+namespace {
+
+// What the risk analysis asks of each SIF, from the scenarios that credit it.
+std::map<std::string, RequirementFromLopa> requirements_from(const std::vector<ScenarioResult>& scenarios,
+                                                             std::vector<Warning>& warnings) {
+  std::map<std::string, RequirementFromLopa> out;
+  for (const auto& req : sif_requirements(scenarios)) {
+    RequirementFromLopa r;
+    r.required_rrf = req.required_rrf;
+    r.required_pfh_per_hour = req.required_pfh_per_hour;
+    r.demand_mode = req.demand_mode;
+    r.scenarios = req.scenarios;
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.3g", req.demand_rate_per_yr);
+    r.demand_basis = std::string("demand rate ") + buf + "/yr from scenario" + (req.scenarios.size() > 1 ? "s " : " ");
+    for (std::size_t i = 0; i < req.scenarios.size(); ++i) r.demand_basis += (i ? ", " : "") + req.scenarios[i];
+    r.demand_basis += req.demand_mode == DemandMode::kLow ? "; at most once a year is low demand (IEC 61511-1:2016 3.2.39)"
+                                                         : "; above once a year is high demand (IEC 61511-1:2016 3.2.39)";
+    for (const auto& f : req.findings) warnings.push_back({req.sif, to_string(f.kind) + ": " + f.message});
+    out.emplace(req.sif, std::move(r));
+  }
+  return out;
+}
+
+}  // namespace
 
 ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& options) {
   const Project& project = loaded.project;
@@ -299,9 +329,28 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   out.file = project.file;
   out.sha256 = loaded.sha256;
   out.warnings = loaded.warnings;
+  out.risk_criteria = project.risk_criteria;
   out.shared_components = PlantGraph(project).shared_components();
+  // The risk analysis first: it sets each SIF's requirement and demand mode, which do not
+  // depend on the SIF's own figures; then the SIFs; then the scenarios again with the SIFs'
+  // computed PFDavg (or PFH) for the mitigated frequencies.
+  LopaContext context = lopa_context_from_project(project);
+  const auto requirements = project.scenarios.empty() ? std::map<std::string, RequirementFromLopa>{}
+                                                      : requirements_from(evaluate_scenarios(project, context), out.warnings);
   out.sifs.reserve(project.sifs.size());
-  for (const auto& sif : project.sifs) out.sifs.push_back(verify_sif(project, sif, std::nullopt, options, out.warnings));
+  for (const auto& sif : project.sifs) {
+    auto it = requirements.find(sif.id);
+    out.sifs.push_back(verify_sif(project, sif, it == requirements.end() ? std::nullopt : std::optional(it->second),
+                                  options, out.warnings));
+    const SifResult& r = out.sifs.back();
+    auto& figures = context.sifs[sif.id];
+    figures.pfd_avg = r.pfd_avg;
+    if (r.pfh_per_hour) figures.pfh = Rate{*r.pfh_per_hour};
+  }
+  if (!project.scenarios.empty()) {
+    out.scenarios = evaluate_scenarios(project, context);
+    out.shared_devices = shared_devices(project);
+  }
   return out;
 }
 

@@ -49,7 +49,9 @@ TEST(Cli, JsonResultsCarryTheContractKeys) {
   EXPECT_TRUE(s["pfh"].is_null());
   EXPECT_NEAR(s["rrf"].get<double>(), 1.0 / s["pfd_avg"].get<double>(), 1e-9 * s["rrf"].get<double>());
   EXPECT_EQ(s["sil_required"], 2);
-  EXPECT_TRUE(s["required_rrf"].is_null());  // the target is a SIL, not an RRF
+  // LOPA-401-1 feeds SIF-401 (CCPS 2001 arithmetic): (0.1 x 0.9 [IPL-1 no credit: shares DCS-4]
+  // + 0.3 x 0.9 x 0.1) x 0.01 x 0.5 = 5.85e-4 /yr against 1e-5 /yr: RRF 58.5.
+  EXPECT_NEAR(s["required_rrf"].get<double>(), 58.5, 58.5 * 1e-9);
   EXPECT_EQ(s["meets_target"], true);
   ASSERT_EQ(s["subsystems"].size(), 3u);
   double shares = 0.0, sum = 0.0;
@@ -63,7 +65,27 @@ TEST(Cli, JsonResultsCarryTheContractKeys) {
   EXPECT_FALSE(s["assumptions"].empty());
   EXPECT_TRUE(j["warnings"].is_array());
   EXPECT_NE(j["caution"].get<std::string>().find("competent functional-safety practitioner"), std::string::npos);
-  EXPECT_EQ(j["sifs"][1]["required_rrf"], 300);
+  // SIF-402's own target is RRF 300; LOPA-402-1 asks 0.1 x 0.1 x 0.2 x 0.3 / 1e-6 = 600: the stricter applies.
+  EXPECT_NEAR(j["sifs"][1]["required_rrf"].get<double>(), 600.0, 600.0 * 1e-9);
+  ASSERT_EQ(j["scenarios"].size(), 3u);
+  EXPECT_EQ(j["scenarios"][0]["sif"], "SIF-401");
+  EXPECT_EQ(j["scenarios"][0]["demand_mode"], "low");
+  EXPECT_EQ(j["scenarios"][0]["findings"][0]["kind"], "not_independent");
+  EXPECT_EQ(j["scenarios"][1]["findings"][0]["kind"], "bpcs_credit_capped");
+  EXPECT_EQ(j["scenarios"][2]["findings"][0]["kind"], "response_time");
+  EXPECT_NEAR(j["scenarios"][0]["mitigated_frequency_per_yr"].get<double>(),
+              5.85e-4 * j["sifs"][0]["pfd_avg"].get<double>(), 1e-15);
+}
+
+TEST(Cli, WorksheetCsvHasOneRowPerStep) {
+  const auto dir = fresh_folder("worksheet");
+  const auto out = dir / "ws.csv";
+  const auto r = run_sifter("check examples/unit40.json --quiet --worksheet-csv " + out.string());
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const std::string csv = slurp(out);
+  EXPECT_EQ(csv.rfind("scenario,consequence,step,cause,item,title,value,credited,frequency_per_yr,required_rrf,note\r\n", 0), 0u);
+  // A title with a comma is quoted (RFC 4180).
+  EXPECT_NE(csv.find("\"high level alarm, operator closes the inlet\""), std::string::npos);
 }
 
 TEST(Cli, AFunctionThatFallsShortExitsOne) {

@@ -2,7 +2,9 @@
 /// Per-SIF orchestration: the one place that decides a SIF's verdict.
 #include <vector>
 
+#include "sifter/dependency_graph.hpp"
 #include "sifter/load.hpp"
+#include "sifter/lopa.hpp"
 #include "sifter/results.hpp"
 #include "sifter/simplified.hpp"
 
@@ -37,8 +39,12 @@ struct ProjectResult {
   std::string file;
   std::string sha256;
   std::vector<SifResult> sifs;
+  std::vector<ScenarioResult> scenarios;
   std::vector<SharedComponent> shared_components;
+  std::vector<SharedDevice> shared_devices;  ///< devices several SIFs or scenarios rely on
+  RiskCriteria risk_criteria;
   std::vector<Warning> warnings;
+  /// Every judged SIF meets its target and every scenario its tolerable frequency.
   [[nodiscard]] bool all_met() const;
 };
 

@@ -39,6 +39,51 @@ json subsystem_json(const SubsystemResult& s) {
   return j;
 }
 
+json scenario_json(const ScenarioResult& s) {
+  json j;
+  j["id"] = s.id;
+  j["title"] = s.title;
+  j["sif"] = s.sif ? json(*s.sif) : json(nullptr);
+  j["target_frequency_per_yr"] = checked(s.target_frequency_per_yr, "target frequency");
+  j["frequency_without_sif_per_yr"] = checked(s.frequency_without_sif_per_yr, "frequency");
+  j["required_pfd"] = checked(s.required_pfd, "required_pfd");
+  j["required_rrf"] = checked(s.required_rrf, "required_rrf");
+  j["required_sil"] = s.required_sil;
+  // Without a SIF the demand is the one on the first layer: the causes with their enabling conditions.
+  double demand = 0.0;
+  for (const auto& c : s.causes) demand += c.frequency_per_yr * c.enabling_product;
+  j["demand_rate_per_yr"] = checked(s.demand_rate_per_yr.value_or(demand), "demand rate");
+  j["demand_mode"] = to_string(s.demand_mode.value_or(demand > 1.0 ? DemandMode::kHigh : DemandMode::kLow));
+  j["required_pfh"] = opt(s.required_pfh_per_hour, "required_pfh");
+  j["mitigated_frequency_per_yr"] = opt(s.mitigated_frequency_per_yr, "mitigated frequency");
+  j["meets_target"] = opt(s.meets_target);
+  j["consequences"] = json::array();
+  for (const auto& c : s.consequences)
+    j["consequences"].push_back({{"category", c.category},
+                                 {"severity", c.severity},
+                                 {"target_frequency_per_yr", checked(c.target_frequency_per_yr, "target")},
+                                 {"modifier_product", checked(c.modifier_product, "modifiers")},
+                                 {"frequency_without_sif_per_yr", checked(c.frequency_without_sif_per_yr, "frequency")},
+                                 {"required_pfd", checked(c.required_pfd, "required_pfd")},
+                                 {"required_rrf", checked(c.required_rrf, "required_rrf")},
+                                 {"required_sil", c.required_sil},
+                                 {"required_pfh", opt(c.required_pfh_per_hour, "required_pfh")},
+                                 {"mitigated_frequency_per_yr", opt(c.mitigated_frequency_per_yr, "mitigated")},
+                                 {"meets_target", opt(c.meets_target)}});
+  j["causes"] = json::array();
+  for (const auto& c : s.causes)
+    j["causes"].push_back({{"id", c.id},
+                           {"frequency_per_yr", checked(c.frequency_per_yr, "frequency")},
+                           {"enabling_product", checked(c.enabling_product, "enabling")},
+                           {"demand_rate_per_yr", checked(c.demand_rate_per_yr, "demand")},
+                           {"frequency_without_sif_per_yr", checked(c.frequency_without_sif_per_yr, "frequency")},
+                           {"sif_credited", c.sif_credited}});
+  j["findings"] = json::array();
+  for (const auto& f : s.findings) j["findings"].push_back({{"kind", to_string(f.kind)}, {"message", f.message}});
+  j["assumptions"] = s.assumptions;
+  return j;
+}
+
 }  // namespace
 
 json sif_json(const SifResult& s) {
@@ -99,6 +144,13 @@ json results_json(const ProjectResult& r) {
   j["project"] = {{"title", r.title}, {"file", r.file}, {"sha256", r.sha256}};
   j["sifs"] = json::array();
   for (const auto& s : r.sifs) j["sifs"].push_back(sif_json(s));
+  j["scenarios"] = json::array();
+  for (const auto& s : r.scenarios) j["scenarios"].push_back(scenario_json(s));
+  j["risk_criteria"] = json::object();
+  for (const auto& [category, levels] : r.risk_criteria)
+    for (const auto& [severity, rate] : levels) j["risk_criteria"][category][severity] = rate.per_year();
+  j["shared_devices"] = json::array();
+  for (const auto& d : r.shared_devices) j["shared_devices"].push_back({{"device", d.tag}, {"users", d.users}});
   j["shared_components"] = json::array();
   for (const auto& s : r.shared_components) j["shared_components"].push_back({{"component", s.component}, {"sifs", s.sifs}});
   j["warnings"] = json::array();

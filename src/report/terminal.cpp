@@ -3,6 +3,7 @@
 
 #include "sifter/report/format.hpp"
 #include "sifter/report/text_table.hpp"
+#include "sifter/report/worksheet.hpp"
 #include "sifter/sil.hpp"
 
 namespace sifter::report {
@@ -58,6 +59,7 @@ std::string render_terminal(const ProjectResult& r) {
   std::string out = "sifter " SIFTER_VERSION " check: " + r.file + "\n";
   if (!r.title.empty()) out += r.title + "\n";
   out += "\n";
+  for (const auto& s : r.scenarios) out += render_worksheet(s) + "\n";
   for (const auto& s : r.sifs) out += render_sif(s) + "\n";
   if (!r.shared_components.empty()) {
     out += "Components shared between SIFs (check their independence)\n";
@@ -65,6 +67,15 @@ std::string render_terminal(const ProjectResult& r) {
       std::string users;
       for (const auto& s : c.sifs) users += (users.empty() ? "" : ", ") + s;
       out += "  " + c.component + ": " + users + "\n";
+    }
+    out += "\n";
+  }
+  if (!r.shared_devices.empty()) {
+    out += "Devices several SIFs or scenarios rely on\n";
+    for (const auto& d : r.shared_devices) {
+      std::string users;
+      for (const auto& u : d.users) users += (users.empty() ? "" : ", ") + u;
+      out += "  " + d.tag + ": " + users + "\n";
     }
     out += "\n";
   }
@@ -79,6 +90,12 @@ std::string render_terminal(const ProjectResult& r) {
       ++judged;
       met += *s.meets_target ? 1 : 0;
     }
+  if (!r.scenarios.empty()) {
+    int tolerable = 0;
+    for (const auto& s : r.scenarios) tolerable += s.meets_target.value_or(false) ? 1 : 0;
+    out += "Scenarios: " + std::to_string(tolerable) + " of " + std::to_string(r.scenarios.size()) +
+           " reach their tolerable frequency\n";
+  }
   out += "Summary: " + std::to_string(met) + " of " + std::to_string(judged) + " judged SIFs meet their targets";
   if (judged < static_cast<int>(r.sifs.size()))
     out += " (" + std::to_string(r.sifs.size() - static_cast<std::size_t>(judged)) + " without a target)";
