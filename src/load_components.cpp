@@ -4,6 +4,7 @@
 
 #include "sifter/detail/load_parts.hpp"
 #include "sifter/json_source.hpp"
+#include "sifter/uncertainty.hpp"
 
 namespace sifter::detail {
 namespace {
@@ -207,6 +208,11 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
       }
     }
     c.rates = resolve_rates(fields);
+    if (fields.field_data) {
+      // Field experience replaces the stated lambda_du by its one-sided upper confidence bound.
+      c.rates.lambda_du = lambda_du_from_field_data(*fields.field_data);
+      if (!fields.data_confidence) fields.data_confidence = fields.field_data->confidence;
+    }
     c.element_type = fields.element_type;
     c.systematic_capability = fields.systematic_capability;
     c.sff_declared = fields.sff;

@@ -1,5 +1,7 @@
 #pragma once
 /// Per-SIF orchestration: the one place that decides a SIF's verdict.
+#include <cstdint>
+#include <functional>
 #include <vector>
 
 #include "sifter/dependency_graph.hpp"
@@ -26,6 +28,11 @@ struct RequirementFromLopa {
 /// Options of a verification run.
 struct VerifyOptions {
   bool exact = true;  ///< run the exact time-dependent cross-check
+  int samples = 0;    ///< Monte Carlo samples per SIF on the uncertain failure data; 0 = none
+  std::uint64_t seed = 1;
+  int threads = 0;    ///< 0 = every core
+  /// Called with (samples done, samples in all) during the Monte Carlo, for a progress bar.
+  std::function<void(long long, long long)> progress;
 };
 
 /// Verifies one SIF: PFDavg or PFH of every subsystem and of the SIF, RRF, the SIL from

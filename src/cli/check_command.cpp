@@ -1,4 +1,6 @@
 // `sifter check`: verify a project and write the summary, JSON and CSV.
+#include <unistd.h>
+
 #include <iostream>
 #include <memory>
 
@@ -18,7 +20,25 @@ struct CheckOptions {
   std::string worksheet_csv_path;
   bool quiet = false;
   bool no_exact = false;
+  int samples = 0;
+  std::uint64_t seed = 1;
+  int threads = 0;
 };
+
+// A progress bar on stderr, only when it is a terminal and the run is long enough to need one.
+std::function<void(long long, long long)> progress_bar() {
+  if (!::isatty(STDERR_FILENO)) return {};
+  auto last = std::make_shared<int>(-1);
+  return [last](long long done, long long total) {
+    const int percent = total > 0 ? static_cast<int>(100 * done / total) : 100;
+    if (percent == *last) return;
+    *last = percent;
+    const int width = 40, filled = percent * width / 100;
+    std::cerr << "\rMonte Carlo [" << std::string(static_cast<std::size_t>(filled), '#')
+              << std::string(static_cast<std::size_t>(width - filled), '.') << "] " << percent << "%"
+              << (done >= total ? "\n" : "") << std::flush;
+  };
+}
 }  // namespace
 
 Action add_check_command(CLI::App& app) {
@@ -29,11 +49,20 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("--worksheet-csv", opts->worksheet_csv_path, "write the LOPA worksheet rows as CSV to FILE");
   cmd->add_flag("--quiet,-q", opts->quiet, "print no summary (errors and warnings still go to stderr)");
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
+  cmd->add_option("--samples", opts->samples, "Monte Carlo samples per SIF on the uncertain failure data")
+      ->check(CLI::Range(0, 10000000));
+  cmd->add_option("--seed", opts->seed, "seed of the Monte Carlo (same seed, same results)");
+  cmd->add_option("--threads", opts->threads, "threads for the Monte Carlo (default: every core)")
+      ->check(CLI::Range(0, 256));
   return [opts]() {
     report::refuse_overwriting_inputs({opts->json_path, opts->worksheet_csv_path}, {opts->project});
     const LoadedProject loaded = load_project_file(opts->project);
     VerifyOptions vo;
     vo.exact = !opts->no_exact;
+    vo.samples = opts->samples;
+    vo.seed = opts->seed;
+    vo.threads = opts->threads;
+    if (opts->samples > 0) vo.progress = progress_bar();
     const ProjectResult result = verify_project(loaded, vo);
     // Render everything before writing anything, so that a failure leaves no partial output.
     const std::string json_text = opts->json_path.empty() ? "" : report::results_json(result).dump(2) + "\n";
