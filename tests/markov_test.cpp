@@ -392,7 +392,8 @@ TEST(ExactGroup, InputFromSubsystemAddsComponentsAndScalesBeta) {
   parts[1].rates.lambda_dd = Rate{5e-7};
   Subsystem s;
   s.vote = {2, 3, false};
-  s.channels = {Channel{{0, 1}}, Channel{{0, 1}}, Channel{{0, 1}}};
+  s.channels.resize(3);
+  for (auto& ch : s.channels) ch.components = {0, 1};
   s.beta = 0.1;
   s.beta_d = 0.05;
   s.ccf_scaling = CcfScaling::kIec61508TableD5;
