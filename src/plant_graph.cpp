@@ -9,14 +9,6 @@
 
 namespace sifter {
 
-namespace {
-bool same_rates(const FailureRates& a, const FailureRates& b) {
-  auto eq = [](double x, double y) { return std::abs(x - y) <= 1e-12 * std::max(std::abs(x), std::abs(y)); };
-  return eq(a.lambda_du.per_hour, b.lambda_du.per_hour) && eq(a.lambda_dd.per_hour, b.lambda_dd.per_hour) &&
-         eq(a.lambda_su.per_hour, b.lambda_su.per_hour) && eq(a.lambda_sd.per_hour, b.lambda_sd.per_hour);
-}
-}  // namespace
-
 PlantGraph::PlantGraph(const Project& project) {
   for (std::size_t c = 0; c < project.components.size(); ++c) component_index_.emplace(project.components[c].id, c);
   for (std::size_t c = 0; c < project.components.size(); ++c)
@@ -82,26 +74,13 @@ void PlantGraph::check_groups(const Project& project) {
                            std::to_string(n_channels) + " channels", "make the vote's N equal to the channel count"});
     // Walk group -> channels -> components to find a component used twice in the group.
     std::map<std::size_t, int> uses;
-    std::vector<FailureRates> channel_rates;
     for (auto cv : channels) {
-      FailureRates rates;
       for (auto ke : boost::make_iterator_range(boost::out_edges(cv, graph_))) {
         const std::size_t comp = graph_[boost::target(ke, graph_)].index;
-        rates += project.components[comp].rates;
         if (++uses[comp] == 2)
           problems_.push_back({sub.pointer + "/channels", "each component once in a group",
                                "\"" + project.components[comp].id + "\" more than once",
                                "redundant channels need their own devices"});
-      }
-      channel_rates.push_back(rates);
-    }
-    for (std::size_t c = 1; c < channel_rates.size(); ++c) {
-      if (!same_rates(channel_rates[c], channel_rates[0])) {
-        problems_.push_back({sub.pointer + "/channels/" + std::to_string(c),
-                             "channels with the same failure rates as channel 0 (the simplified equations assume "
-                             "identical channels)",
-                             "different rates", "give the channels the same model, or split the group"});
-        break;
       }
     }
   }

@@ -7,6 +7,7 @@
 #include <map>
 
 #include "sifter/constraints.hpp"
+#include "sifter/cross_check.hpp"
 #include "sifter/sif_uncertainty.hpp"
 #include "sifter/sil.hpp"
 
@@ -170,8 +171,21 @@ void apply_constraints(const Project& project, const Sif& sif, SifResult& r, con
 GroupData group_data_for(const Project& project, const Subsystem& sub) {
   GroupData g;
   g.vote = sub.vote;
-  if (!sub.channels.empty())
-    for (auto c : sub.channels.front().components) g.channel += project.components[c].rates;
+  // Identical channels: one channel's rates (series elements added). Different channels: the
+  // largest of each rate over the channels, a conservative stand-in for the Annex B forms,
+  // which assume identical channels (the exact engine models each channel).
+  for (std::size_t i = 0; i < sub.channels.size(); ++i) {
+    FailureRates rates;
+    for (auto c : sub.channels[i].components) rates += project.components[c].rates;
+    if (i == 0) {
+      g.channel = rates;
+      continue;
+    }
+    g.channel.lambda_du.per_hour = std::max(g.channel.lambda_du.per_hour, rates.lambda_du.per_hour);
+    g.channel.lambda_dd.per_hour = std::max(g.channel.lambda_dd.per_hour, rates.lambda_dd.per_hour);
+    g.channel.lambda_su.per_hour = std::max(g.channel.lambda_su.per_hour, rates.lambda_su.per_hour);
+    g.channel.lambda_sd.per_hour = std::max(g.channel.lambda_sd.per_hour, rates.lambda_sd.per_hour);
+  }
   const double multiplier = sub.ccf_scaling == CcfScaling::kIec61508TableD5 && table_d5_covers(sub.vote.k, sub.vote.n)
                                 ? ccf_multiplier_table_d5(sub.vote.k, sub.vote.n)
                                 : 1.0;
@@ -185,7 +199,6 @@ GroupData group_data_for(const Project& project, const Subsystem& sub) {
 
 SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings) {
-  (void)options;
   SifResult r;
   r.id = sif.id;
   r.title = sif.title;
@@ -291,6 +304,30 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   }
   if (!sif.target && !lopa)
     warnings.push_back({sif.pointer, "no target and no scenario names this SIF; it is computed but not judged"});
+  if (options.exact && complete) {
+    apply_exact_cross_check(project, sif, r, warnings);
+    // Groups of different channels take their exact value: the SIF's figure follows.
+    double revised = 0.0;
+    for (const auto& sub : r.subsystems) revised += (low ? sub.pfd_avg : sub.pfh_per_hour).value_or(0.0);
+    if (revised != total) {
+      total = revised;
+      for (auto& sub : r.subsystems) sub.share = total > 0.0 ? (low ? sub.pfd_avg : sub.pfh_per_hour).value_or(0.0) / total : 0.0;
+      if (low) {
+        r.pfd_avg = total;
+        r.rrf = 1.0 / total;
+        r.sil_probability = sil_from_pfd_avg(total);
+      } else {
+        r.pfh_per_hour = total;
+        r.sil_probability = sil_from_pfh(total);
+      }
+      if (r.meets_target && required_sil) {
+        bool met = r.sil_probability >= *required_sil;
+        if (low && required_pfd) met = met && at_most(total, *required_pfd);
+        if (!low && required_pfh) met = met && at_most(total, *required_pfh);
+        r.meets_target = met;
+      }
+    }
+  }
   apply_constraints(project, sif, r, low ? required_pfd : required_pfh, complete ? std::optional(total) : std::nullopt);
   return r;
 }

@@ -143,3 +143,47 @@ TEST(Cli, AMissingProjectFileIsNamed) {
 
 }  // namespace
 }  // namespace sifter
+
+namespace sifter {
+namespace {
+
+TEST(CliCurve, WritesTheExactSawtoothWithEveryTestInstant) {
+  const auto r = run_sifter("curve examples/unit40.json --sif SIF-401 --points 20 --json -");
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const auto j = nlohmann::json::parse(r.out);
+  const auto& t = j["time_h"];
+  ASSERT_GT(t.size(), 20u);
+  EXPECT_DOUBLE_EQ(t.front().get<double>(), 0.0);
+  EXPECT_DOUBLE_EQ(t.back().get<double>(), 20 * 8760.0);
+  // The outlet valve is tested every 6 mo (4380 h): the curve holds that instant (twice: before and after).
+  int at_first_test = 0;
+  for (const auto& v : t) at_first_test += v.get<double>() == 4380.0 ? 1 : 0;
+  EXPECT_EQ(at_first_test, 2);
+  EXPECT_EQ(j["subsystems"].size(), 3u);
+  // The average of the curve's engine is the check's pfd_avg_exact.
+  const auto check = nlohmann::json::parse(run_sifter("check examples/unit40.json --json -").out);
+  EXPECT_NEAR(j["pfd_avg_exact"].get<double>(), check["sifs"][0]["pfd_avg_exact"].get<double>(), 1e-12);
+}
+
+TEST(CliCurve, AnUnknownSifIsAUsageErrorListingTheKnownOnes) {
+  const auto r = run_sifter("curve examples/unit40.json --sif SIF-9");
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_EQ(r.err, "sifter: no SIF \"SIF-9\" in examples/unit40.json; its SIFs are: SIF-401, SIF-402, SIF-403\n");
+}
+
+TEST(CliCheck, NoExactSkipsTheCrossCheck) {
+  const auto j = nlohmann::json::parse(run_sifter("check examples/unit40.json --no-exact --json -").out);
+  EXPECT_TRUE(j["sifs"][0]["pfd_avg_exact"].is_null());
+  const auto k = nlohmann::json::parse(run_sifter("check examples/unit40.json --json -").out);
+  EXPECT_TRUE(k["sifs"][0]["pfd_avg_exact"].is_number());
+}
+
+TEST(CliCheck, TheSameSeedGivesTheSameUncertaintyWhateverTheThreads) {
+  const auto one = nlohmann::json::parse(run_sifter("check examples/unit40.json --samples 4000 --seed 7 --threads 1 --json -").out);
+  const auto two = nlohmann::json::parse(run_sifter("check examples/unit40.json --samples 4000 --seed 7 --threads 2 --json -").out);
+  EXPECT_EQ(one["sifs"][1]["uncertainty"], two["sifs"][1]["uncertainty"]);
+  EXPECT_EQ(one["sifs"][1]["uncertainty"]["samples"], 4000);
+}
+
+}  // namespace
+}  // namespace sifter

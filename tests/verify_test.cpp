@@ -126,3 +126,52 @@ TEST(Verify, ASifWithoutTargetIsComputedButNotJudged) {
 
 }  // namespace
 }  // namespace sifter
+
+namespace sifter {
+namespace {
+
+TEST(VerifyExact, EverySifGetsAnExactValueCloseToTheSimplifiedOneForSmallRates) {
+  const auto r = verify_text(project(R"("target": {"sil": 1})", "1oo2", R"(["XV-1", "XV-2"])"));
+  const auto& s = r.sifs[0];
+  ASSERT_TRUE(s.pfd_avg_exact);
+  ASSERT_TRUE(s.simplified_over_exact);
+  // lDU T1 <= 4.4e-3 here: Annex B and the exact average agree within 1 % (the exact-engine
+  // tests check the same limit group by group).
+  EXPECT_NEAR(*s.simplified_over_exact, 1.0, 0.01);
+  for (const auto& sub : s.subsystems) EXPECT_TRUE(sub.pfd_avg_exact);
+}
+
+TEST(VerifyExact, DifferentChannelsAreAcceptedAndTakeTheExactValue) {
+  // A 1oo2 of a transmitter and a valve: no Annex B form applies to different channels.
+  const auto r = verify_text(project(R"("target": {"sil": 1})", "1oo2", R"(["XV-1", "PT-1"])"));
+  const auto& valves = r.sifs[0].subsystems[2];
+  ASSERT_TRUE(valves.pfd_avg_exact);
+  EXPECT_DOUBLE_EQ(*valves.pfd_avg, *valves.pfd_avg_exact);
+  EXPECT_EQ(valves.equation, "exact multi-phase Markov model (channels differ, so no Annex B form applies)");
+}
+
+TEST(VerifyExact, WithoutTheExactEngineDifferentChannelsUseTheirLargestRates) {
+  VerifyOptions no_exact;
+  no_exact.exact = false;
+  const auto mixed = verify_project(load_project_text(project(R"("target": {"sil": 1})", "1oo2", R"(["PT-1", "XV-1"])"),
+                                                      "inline.json", "."),
+                                    no_exact);
+  const auto same = verify_project(load_project_text(project(R"("target": {"sil": 1})", "1oo2", R"(["XV-1", "XV-2"])"),
+                                                     "inline.json", "."),
+                                   no_exact);
+  // XV-1 has the larger lambda_du, PT-1 the larger lambda_dd: the stand-in is at least the pair of valves.
+  EXPECT_GE(*mixed.sifs[0].subsystems[2].pfd_avg, *same.sifs[0].subsystems[2].pfd_avg);
+  EXPECT_FALSE(mixed.sifs[0].pfd_avg_exact);
+}
+
+TEST(VerifyExact, AStretchedIntervalWarnsThatTheSimplifiedEquationsLoseAccuracy) {
+  std::string text = project(R"("target": {"sil": 1})", "1oo1", R"(["XV-1"])");
+  text.replace(text.find("\"1 yr\""), 6, "\"30 yr\"");  // lDU T1 = 5e-7 x 262800 h = 0.13
+  const auto r = verify_text(text);
+  bool warned = false;
+  for (const auto& w : r.warnings) warned = warned || w.message.find("exceeds 0.1") != std::string::npos;
+  EXPECT_TRUE(warned);
+}
+
+}  // namespace
+}  // namespace sifter

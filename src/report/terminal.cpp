@@ -26,15 +26,17 @@ std::string render_sif(const SifResult& s) {
   out += "  demand mode  " + to_string(s.demand_mode) + " (" + s.demand_mode_basis + ")\n";
   out += "  target       " + (s.target_text.empty() ? std::string("none") : s.target_text) + "\n\n";
 
-  TextTable t({"subsystem", "role", "vote", low ? "PFDavg" : "PFH [1/h]", "share", "HFT", "SIL arch", "SC"},
-              {false, false, false, true, true, true, true, true});
+  TextTable t({"subsystem", "role", "vote", low ? "PFDavg" : "PFH [1/h]", "exact", "share", "HFT", "SIL arch", "SC"},
+              {false, false, false, true, true, true, true, true, true});
   for (const auto& sub : s.subsystems) {
     t.add_row({sub.name, to_string(sub.role), sub.vote, sci_or_dash(low ? sub.pfd_avg : sub.pfh_per_hour),
-               percent(sub.share), sub.hft ? std::to_string(*sub.hft) : "-", std::to_string(sub.sil_architecture),
+               sci_or_dash(low ? sub.pfd_avg_exact : sub.pfh_exact_per_hour), percent(sub.share),
+               sub.hft ? std::to_string(*sub.hft) : "-", std::to_string(sub.sil_architecture),
                sub.systematic_capability ? std::to_string(*sub.systematic_capability) : "-"});
   }
   t.add_rule();
-  t.add_row({"SIF (sum)", "", "", sci_or_dash(low ? s.pfd_avg : s.pfh_per_hour), percent(1.0), "", "", ""});
+  t.add_row({"SIF", "", "", sci_or_dash(low ? s.pfd_avg : s.pfh_per_hour),
+             sci_or_dash(low ? s.pfd_avg_exact : s.pfh_exact_per_hour), percent(1.0), "", "", ""});
   out += t.render("  ");
   out += "\n";
   if (low) out += "  RRF " + (s.rrf ? plain(*s.rrf) : std::string("-"));
@@ -43,6 +45,13 @@ std::string render_sif(const SifResult& s) {
   out += "  SIL  probability " + sil_text(s.sil_probability) + " | architecture " + sil_text(s.sil_architecture) +
          " | systematic " + sil_text(s.sil_systematic) + "  ->  achieved " + sil_text(s.sil_achieved);
   out += s.sil_required ? ", required " + sil_text(*s.sil_required) + "\n" : "\n";
+  if (s.simplified_over_exact)
+    out += "  exact cross-check  simplified/exact = " + plain(*s.simplified_over_exact) +
+           " (multi-phase Markov over the mission)\n";
+  if (s.uncertainty)
+    out += "  uncertainty  mean " + sci(s.uncertainty->mean) + ", 5%-95% " + sci(s.uncertainty->p05) + " to " +
+           sci(s.uncertainty->p95) + ", P(meets target) " + percent(s.uncertainty->probability_meets_target) + " (" +
+           std::to_string(s.uncertainty->samples) + " samples)\n";
   out += "  verdict  " + verdict_words(s.meets_target) + "\n";
   if (!s.limits.empty()) {
     out += "  limited by\n";

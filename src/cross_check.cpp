@@ -1,0 +1,164 @@
+// The exact cross-check of every SIF, and its PFD(t) curve.
+#include "sifter/cross_check.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+#include "sifter/diagnostics.hpp"
+
+namespace sifter {
+namespace {
+
+std::string pct(double v) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.1f%%", v * 100.0);
+  return buf;
+}
+
+bool channels_differ(const Project& project, const Subsystem& sub) {
+  auto rates = [&](const Channel& ch) {
+    FailureRates r;
+    for (auto c : ch.components) r += project.components[c].rates;
+    return r;
+  };
+  const FailureRates first = rates(sub.channels.front());
+  for (const auto& ch : sub.channels) {
+    const FailureRates r = rates(ch);
+    auto same = [](double a, double b) { return std::abs(a - b) <= 1e-12 * std::max(std::abs(a), std::abs(b)); };
+    if (!same(r.lambda_du.per_hour, first.lambda_du.per_hour) || !same(r.lambda_dd.per_hour, first.lambda_dd.per_hour))
+      return true;
+  }
+  return false;
+}
+
+// The exact measure comparable with the simplified one: PFDavg, or the undetected part of the
+// failure frequency plus the detected common-cause term (Annex B takes a detected single
+// failure to a safe state).
+double comparable_pfh(const ExactGroupResult& g, const ExactGroupInput& in) {
+  const double ldd = in.channels.front().lambda_dd.per_hour;
+  return g.undetected_failure_frequency_per_hour + (in.vote.failures_to_fail() > 1 ? in.beta_d * ldd : 0.0);
+}
+
+}  // namespace
+
+std::vector<std::optional<ExactGroupInput>> exact_inputs(const Project& project, const Sif& sif) {
+  std::vector<std::optional<ExactGroupInput>> out;
+  for (const auto& sub : sif.subsystems) {
+    if (sub.is_vendor()) {
+      out.emplace_back();
+      continue;
+    }
+    out.emplace_back(exact_group_input(sub, project.components, project.defaults.mission_time));
+  }
+  return out;
+}
+
+void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& r, std::vector<Warning>& warnings) {
+  const bool low = r.demand_mode == DemandMode::kLow;
+  const auto inputs = exact_inputs(project, sif);
+  std::vector<ExactGroupInput> modelled;
+  double vendor_constant = 0.0;  // PFD of the vendor figures, constant in time
+  for (std::size_t i = 0; i < inputs.size(); ++i) {
+    auto& sub = r.subsystems[i];
+    if (!inputs[i]) {
+      vendor_constant += low ? sub.pfd_avg.value_or(0.0) : sub.pfh_per_hour.value_or(0.0);
+      continue;
+    }
+    const std::string why = exact_group_unsupported(*inputs[i]);
+    if (!why.empty()) {
+      r.assumptions.push_back(sub.name + ": no exact cross-check (" + why + ")");
+      return;
+    }
+    modelled.push_back(*inputs[i]);
+    const auto& in = *inputs[i];
+    for (const auto& ch : in.channels) {
+      const double x = ch.lambda_du.per_hour * in.proof_test_interval.hours;
+      if (x > kSmallRateLimit) {
+        warnings.push_back({sif.subsystems[i].pointer, "lambda_du x T1 = " + std::to_string(x).substr(0, 5) +
+                                                           " exceeds 0.1: the simplified equations lose accuracy; "
+                                                           "rely on the exact cross-check"});
+        break;
+      }
+    }
+  }
+  if (modelled.empty()) return;
+  const SifExactResult exact = sif_exact(modelled);
+  std::size_t k = 0;
+  for (std::size_t i = 0; i < inputs.size(); ++i) {
+    if (!inputs[i]) continue;
+    auto& sub = r.subsystems[i];
+    const ExactGroupResult& g = exact.groups[k++];
+    if (low) sub.pfd_avg_exact = g.pfd_avg;
+    else sub.pfh_exact_per_hour = comparable_pfh(g, *inputs[i]);
+    if (channels_differ(project, sif.subsystems[i])) {
+      // Different channels: the exact value is the subsystem's figure; the simplified
+      // equations would need identical channels.
+      if (low) sub.pfd_avg = g.pfd_avg;
+      else sub.pfh_per_hour = sub.pfh_exact_per_hour;
+      sub.equation = "exact multi-phase Markov model (channels differ, so no Annex B form applies)";
+      r.assumptions.push_back(sub.name + ": the channels differ; its " + (low ? "PFDavg" : "PFH") +
+                              " comes from the exact engine");
+    }
+    for (const auto& note : g.notes) r.assumptions.push_back(sub.name + " (exact engine): " + note);
+  }
+  // The SIF's exact value: the product form of the modelled groups, with the vendor figures
+  // as constants: 1 - (1 - u_vendor)(1 - P(t)) averages to 1 - (1 - u_vendor)(1 - avg P).
+  double sif_exact_value = 0.0;
+  if (low) {
+    sif_exact_value = 1.0 - (1.0 - vendor_constant) * (1.0 - exact.pfd_avg);
+    r.pfd_avg_exact = sif_exact_value;
+  } else {
+    double ccf_detected = 0.0;
+    for (const auto& in : modelled)
+      ccf_detected += in.vote.failures_to_fail() > 1 ? in.beta_d * in.channels.front().lambda_dd.per_hour : 0.0;
+    sif_exact_value = exact.undetected_failure_frequency_per_hour + ccf_detected + vendor_constant;
+    r.pfh_exact_per_hour = sif_exact_value;
+  }
+  const std::optional<double> simplified = low ? r.pfd_avg : r.pfh_per_hour;
+  if (!simplified || !(sif_exact_value > 0.0)) return;
+  const double ratio = *simplified / sif_exact_value;
+  r.simplified_over_exact = ratio;
+  r.assumptions.push_back(std::string("exact cross-check: multi-phase Markov model over the mission of ") +
+                          format_duration(project.defaults.mission_time) + "; simplified/exact = " +
+                          std::to_string(ratio).substr(0, 5));
+  if (ratio < 1.0 - kNonConservativeTolerance)
+    warnings.push_back({sif.pointer, "the simplified " + std::string(low ? "PFDavg" : "PFH") + " is " +
+                                         pct(1.0 - ratio) +
+                                         " below the exact value (non-conservative); judge the SIF on the exact result"});
+  else if (std::abs(ratio - 1.0) > kDisagreementTolerance)
+    warnings.push_back({sif.pointer, "the simplified and exact " + std::string(low ? "PFDavg" : "PFH") + " differ by " +
+                                         pct(std::abs(ratio - 1.0)) + " (simplified/exact = " +
+                                         std::to_string(ratio).substr(0, 5) + ")"});
+}
+
+SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
+  const auto inputs = exact_inputs(project, sif);
+  std::vector<ExactGroupInput> modelled;
+  std::vector<double> vendor;  // constant PFD per vendor subsystem
+  for (std::size_t i = 0; i < inputs.size(); ++i) {
+    if (!inputs[i]) {
+      vendor.push_back(sif.subsystems[i].vendor_pfd_avg.value_or(0.0));
+      continue;
+    }
+    const std::string why = exact_group_unsupported(*inputs[i]);
+    if (!why.empty()) throw UsageError("the exact engine cannot model subsystem \"" + sif.subsystems[i].name + "\": " + why);
+    modelled.push_back(*inputs[i]);
+  }
+  SifCurve c;
+  if (modelled.empty()) throw UsageError("SIF " + sif.id + " has only vendor figures: its PFD is constant");
+  const SifExactResult exact = sif_curve(modelled, points);
+  c.time_hours = exact.curve.time_hours;
+  double vendor_total = 0.0;
+  for (double v : vendor) vendor_total += v;
+  for (double p : exact.curve.pfd) c.pfd_sif.push_back(1.0 - (1.0 - vendor_total) * (1.0 - p));
+  std::size_t k = 0, v = 0;
+  for (std::size_t i = 0; i < inputs.size(); ++i) {
+    c.subsystem_names.push_back(sif.subsystems[i].name);
+    if (!inputs[i]) c.pfd_subsystems.emplace_back(c.time_hours.size(), vendor[v++]);
+    else c.pfd_subsystems.push_back(exact.groups[k++].curve.pfd);
+  }
+  c.pfd_avg_exact = 1.0 - (1.0 - vendor_total) * (1.0 - exact.pfd_avg);
+  return c;
+}
+
+}  // namespace sifter
