@@ -39,7 +39,40 @@ double comparable_pfh(const ExactGroupResult& g, const ExactGroupInput& in) {
   return g.undetected_failure_frequency_per_hour + (in.vote.failures_to_fail() > 1 ? in.beta_d * ldd : 0.0);
 }
 
+// The bytes of every number that defines a group: equal keys, equal exact results.
+void append_key(std::string& key, const ExactGroupInput& g) {
+  auto put = [&key](double v) { key.append(reinterpret_cast<const char*>(&v), sizeof v); };
+  put(g.vote.k);
+  put(g.vote.n);
+  put(g.vote.diagnostic ? 1 : 0);
+  for (const auto& c : g.channels) {
+    put(c.lambda_du.per_hour);
+    put(c.lambda_dd.per_hour);
+    put(c.lambda_su.per_hour);
+    put(c.lambda_sd.per_hour);
+  }
+  for (double v : {g.beta, g.beta_d, g.proof_test_interval.hours, g.mttr.hours, g.mrt.hours, g.proof_test_coverage,
+                   g.mission_time.hours, g.partial_stroke ? g.partial_stroke->interval.hours : -1.0,
+                   g.partial_stroke ? g.partial_stroke->coverage : -1.0, g.test_duration ? g.test_duration->hours : -1.0,
+                   g.staggered ? 1.0 : 0.0, g.track_each_channel ? 1.0 : 0.0})
+    put(v);
+  key += '|';
+}
+
 }  // namespace
+
+std::shared_ptr<const SifExactResult> ExactCache::get(const std::vector<ExactGroupInput>& groups) {
+  std::string key;
+  for (const auto& g : groups) append_key(key, g);
+  {
+    std::lock_guard<std::mutex> lock(mutex_);
+    if (auto it = results_.find(key); it != results_.end()) return it->second;
+  }
+  // Computed outside the lock; two threads may both compute a new key, and both get the same value.
+  auto result = std::make_shared<const SifExactResult>(sif_exact(groups));
+  std::lock_guard<std::mutex> lock(mutex_);
+  return results_.emplace(std::move(key), std::move(result)).first->second;
+}
 
 std::vector<std::optional<ExactGroupInput>> exact_inputs(const Project& project, const Sif& sif) {
   std::vector<std::optional<ExactGroupInput>> out;
@@ -53,7 +86,8 @@ std::vector<std::optional<ExactGroupInput>> exact_inputs(const Project& project,
   return out;
 }
 
-void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& r, std::vector<Warning>& warnings) {
+void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& r, std::vector<Warning>& warnings,
+                             ExactCache& cache) {
   const bool low = r.demand_mode == DemandMode::kLow;
   const auto inputs = exact_inputs(project, sif);
   std::vector<ExactGroupInput> modelled;
@@ -82,7 +116,8 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
     }
   }
   if (modelled.empty()) return;
-  const SifExactResult exact = sif_exact(modelled);
+  const auto exact_ptr = cache.get(modelled);
+  const SifExactResult& exact = *exact_ptr;
   std::size_t k = 0;
   for (std::size_t i = 0; i < inputs.size(); ++i) {
     if (!inputs[i]) continue;

@@ -4,7 +4,10 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <atomic>
 #include <map>
+#include <mutex>
+#include <thread>
 
 #include "sifter/constraints.hpp"
 #include "sifter/cross_check.hpp"
@@ -199,6 +202,12 @@ GroupData group_data_for(const Project& project, const Subsystem& sub) {
 
 SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings) {
+  ExactCache cache;
+  return verify_sif(project, sif, lopa, options, warnings, cache);
+}
+
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+                     const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache) {
   SifResult r;
   r.id = sif.id;
   r.title = sif.title;
@@ -305,7 +314,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   if (!sif.target && !lopa)
     warnings.push_back({sif.pointer, "no target and no scenario names this SIF; it is computed but not judged"});
   if (options.exact && complete) {
-    apply_exact_cross_check(project, sif, r, warnings);
+    apply_exact_cross_check(project, sif, r, warnings, cache);
     // Groups of different channels take their exact value: the SIF's figure follows.
     double revised = 0.0;
     for (const auto& sub : r.subsystems) revised += (low ? sub.pfd_avg : sub.pfh_per_hour).value_or(0.0);
@@ -364,6 +373,35 @@ std::map<std::string, RequirementFromLopa> requirements_from(const std::vector<S
   return out;
 }
 
+// Runs body(i) for i in [0, n) on up to `threads` threads (0 = every core); blocks until done.
+// An exception thrown by body is re-raised here.
+void parallel_for(std::size_t n, int threads, const std::function<void(std::size_t)>& body) {
+  const unsigned cores = std::max(1u, std::thread::hardware_concurrency());
+  const std::size_t workers = std::min<std::size_t>(n, threads > 0 ? static_cast<std::size_t>(threads) : cores);
+  if (workers <= 1) {
+    for (std::size_t i = 0; i < n; ++i) body(i);
+    return;
+  }
+  std::atomic<std::size_t> next{0};
+  std::exception_ptr failure;
+  std::mutex failure_mutex;
+  auto work = [&] {
+    for (std::size_t i = next++; i < n; i = next++) {
+      try {
+        body(i);
+      } catch (...) {
+        std::lock_guard<std::mutex> lock(failure_mutex);
+        if (!failure) failure = std::current_exception();
+      }
+    }
+  };
+  std::vector<std::thread> pool;
+  for (std::size_t w = 1; w < workers; ++w) pool.emplace_back(work);
+  work();
+  for (auto& t : pool) t.join();
+  if (failure) std::rethrow_exception(failure);
+}
+
 // The Monte Carlo of every judged SIF on one plan, so that a library model's factor is the
 // same for every SIF in one sample. Under Route 2H a SIF meets its target only with at least
 // 90 % probability (IEC 61508-2:2010 7.4.4.3.1, from memory).
@@ -416,12 +454,22 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   LopaContext context = lopa_context_from_project(project);
   const auto requirements = project.scenarios.empty() ? std::map<std::string, RequirementFromLopa>{}
                                                       : requirements_from(evaluate_scenarios(project, context), out.warnings);
-  out.sifs.reserve(project.sifs.size());
-  for (const auto& sif : project.sifs) {
+  // SIFs are independent once their requirements are known: verify them on every core, each
+  // with its own warnings, and merge in project order so the output does not depend on threads.
+  const std::size_t n = project.sifs.size();
+  out.sifs.resize(n);
+  std::vector<std::vector<Warning>> sif_warnings(n);
+  ExactCache cache;
+  parallel_for(n, options.threads, [&](std::size_t i) {
+    const Sif& sif = project.sifs[i];
     auto it = requirements.find(sif.id);
-    out.sifs.push_back(verify_sif(project, sif, it == requirements.end() ? std::nullopt : std::optional(it->second),
-                                  options, out.warnings));
-    const SifResult& r = out.sifs.back();
+    out.sifs[i] = verify_sif(project, sif, it == requirements.end() ? std::nullopt : std::optional(it->second), options,
+                             sif_warnings[i], cache);
+  });
+  for (std::size_t i = 0; i < n; ++i) {
+    const Sif& sif = project.sifs[i];
+    out.warnings.insert(out.warnings.end(), sif_warnings[i].begin(), sif_warnings[i].end());
+    const SifResult& r = out.sifs[i];
     auto& figures = context.sifs[sif.id];
     figures.pfd_avg = r.pfd_avg;
     if (r.pfh_per_hour) figures.pfh = Rate{*r.pfh_per_hour};

@@ -40,6 +40,11 @@ struct VerifyOptions {
 SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings);
 
+class ExactCache;
+/// The same, sharing exact results between SIFs of identical architecture and data.
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+                     const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache);
+
 /// The whole project's results.
 struct ProjectResult {
   std::string title;
