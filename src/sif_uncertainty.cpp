@@ -37,6 +37,12 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
   const double required = low ? verified.required_pfd.value_or(sil_upper_limit(verified.sil_required.value_or(0), DemandMode::kLow))
                               : verified.required_pfh_per_hour.value_or(
                                     sil_upper_limit(verified.sil_required.value_or(0), DemandMode::kHigh));
+  MonteCarloOptions used = options;
+  for (const auto& g : groups)
+    for (const auto& [index, rates] : g.channel_components)
+      if (index < plan.source_of_component.size() && plan.source_of_component[index] != kNoSource)
+        used.sources.push_back(plan.source_of_component[index]);
+  if (used.sources.empty()) used.sources.push_back(0);  // nothing uncertain: draw one pair, use none
   const auto evaluate = [&groups, &plan, low](std::span<const double> factors) {
     // Copy-assigning into a per-thread scratch reuses its storage: no allocation per sample.
     thread_local GroupData scratch;
@@ -59,7 +65,7 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
     }
     return total;
   };
-  const UncertaintySummary s = run_monte_carlo(plan, options, evaluate, required);
+  const UncertaintySummary s = run_monte_carlo(plan, used, evaluate, required);
   UncertaintyResult out;
   out.mean = s.mean;
   out.p05 = s.p05;

@@ -113,10 +113,11 @@ constexpr std::uint64_t mix64(std::uint64_t z) {
 
 class SampleStream {
  public:
-  // The stream of one sample starts at a hash of (seed, sample index); with a handful of
-  // draws per sample, streams of different samples do not overlap in practice.
-  SampleStream(std::uint64_t seed, std::uint64_t sample_index)
-      : state_(mix64(mix64(seed + kGolden) + sample_index)) {}
+  // The stream of one pair of sources in one sample starts at a hash of (seed, sample index,
+  // pair); each stream gives two draws, so streams do not overlap in practice. Keying by the
+  // pair lets a SIF draw only the sources it uses and still get the plan's values.
+  SampleStream(std::uint64_t seed, std::uint64_t sample_index, std::uint64_t pair)
+      : state_(mix64(mix64(mix64(seed + kGolden) + sample_index) + pair * kGolden)) {}
 
   // Uniform on [0, 1) with 53 random bits.
   double uniform() {
@@ -135,18 +136,29 @@ FactorSampler::FactorSampler(const UncertaintyPlan& plan) {
   for (const auto& s : plan.sources) sigmas_.push_back(lognormal_sigma(s.error_factor));
 }
 
+void FactorSampler::sample_pair(std::uint64_t seed, std::uint64_t sample_index, std::size_t pair,
+                                std::span<double> factors) const {
+  SampleStream stream(seed, sample_index, pair);
+  // Box-Muller: two uniforms give two independent standard normals, for sources 2p and 2p+1.
+  // Written out rather than std::normal_distribution, whose algorithm differs between
+  // standard libraries.
+  const std::size_t i = 2 * pair;
+  const double u1 = 1.0 - stream.uniform();  // (0, 1]: the logarithm stays finite
+  const double angle = 2.0 * std::numbers::pi * stream.uniform();
+  const double radius = std::sqrt(-2.0 * std::log(u1));
+  factors[i] = lognormal_factor(sigmas_[i], radius * std::cos(angle));
+  if (i + 1 < sigmas_.size()) factors[i + 1] = lognormal_factor(sigmas_[i + 1], radius * std::sin(angle));
+}
+
 void FactorSampler::sample(std::uint64_t seed, std::uint64_t sample_index, std::span<double> factors) const {
   assert(factors.size() == sigmas_.size());
-  SampleStream stream(seed, sample_index);
-  // Box-Muller: two uniforms give two independent standard normals. Written out rather than
-  // std::normal_distribution, whose algorithm differs between standard libraries.
-  for (std::size_t i = 0; i < sigmas_.size(); i += 2) {
-    const double u1 = 1.0 - stream.uniform();  // (0, 1]: the logarithm stays finite
-    const double angle = 2.0 * std::numbers::pi * stream.uniform();
-    const double radius = std::sqrt(-2.0 * std::log(u1));
-    factors[i] = lognormal_factor(sigmas_[i], radius * std::cos(angle));
-    if (i + 1 < sigmas_.size()) factors[i + 1] = lognormal_factor(sigmas_[i + 1], radius * std::sin(angle));
-  }
+  for (std::size_t pair = 0; 2 * pair < sigmas_.size(); ++pair) sample_pair(seed, sample_index, pair, factors);
+}
+
+void FactorSampler::sample_pairs(std::uint64_t seed, std::uint64_t sample_index, std::span<const std::size_t> pairs,
+                                 std::span<double> factors) const {
+  assert(factors.size() == sigmas_.size());
+  for (auto pair : pairs) sample_pair(seed, sample_index, pair, factors);
 }
 
 std::vector<double> sample_factors(const UncertaintyPlan& plan, std::uint64_t sample_index, std::uint64_t seed) {
@@ -219,6 +231,11 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
                                    const SampleEvaluator& evaluate, double required_value) {
   assert(options.samples >= 1);
   const FactorSampler sampler(plan);
+  // Only the pairs of sources the evaluator reads are drawn; the others keep factor 1.
+  std::vector<std::size_t> pairs;
+  for (auto source : options.sources) pairs.push_back(source / 2);
+  std::sort(pairs.begin(), pairs.end());
+  pairs.erase(std::unique(pairs.begin(), pairs.end()), pairs.end());
   std::vector<double> values(static_cast<std::size_t>(options.samples));
   const int chunks = (options.samples + kChunkSamples - 1) / kChunkSamples;
   const int threads = worker_count(options.threads, chunks);
@@ -232,12 +249,13 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
 
   auto work = [&](std::size_t worker) {
     try {
-      std::vector<double> factors(sampler.size());
+      std::vector<double> factors(sampler.size(), 1.0);
       for (int chunk = next_chunk++; chunk < chunks; chunk = next_chunk++) {
         const int begin = chunk * kChunkSamples;
         const int end = std::min(begin + kChunkSamples, options.samples);
         for (int i = begin; i < end; ++i) {
-          sampler.sample(options.seed, static_cast<std::uint64_t>(i), factors);
+          if (pairs.empty()) sampler.sample(options.seed, static_cast<std::uint64_t>(i), factors);
+          else sampler.sample_pairs(options.seed, static_cast<std::uint64_t>(i), pairs, factors);
           values[static_cast<std::size_t>(i)] = evaluate(factors);
         }
         completed += end - begin;

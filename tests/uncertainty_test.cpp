@@ -258,7 +258,7 @@ class OneOoOneMonteCarlo : public ::testing::Test {
   static constexpr int kSamples = 200000;
   static void SetUpTestSuite() {
     const double simplified = kLambdaDu * kOneYear / 2.0;
-    summary_ = run_monte_carlo(one_source(kErrorFactor), {kSamples, 2024, 2, {}}, one_oo_one_pfd, simplified);
+    summary_ = run_monte_carlo(one_source(kErrorFactor), {kSamples, 2024, 2, {}, {}}, one_oo_one_pfd, simplified);
   }
   static UncertaintySummary summary_;
 };
@@ -309,21 +309,21 @@ void expect_identical(const UncertaintySummary& a, const UncertaintySummary& b) 
 TEST(MonteCarlo, SameSeedGivesIdenticalResultsOnOneTwoAndThreeThreads) {
   const auto plan = one_source(kErrorFactor);
   const double required = 1.0e-3;
-  const auto one = run_monte_carlo(plan, {30000, 5, 1, {}}, one_oo_one_pfd, required);
-  expect_identical(one, run_monte_carlo(plan, {30000, 5, 2, {}}, one_oo_one_pfd, required));
-  expect_identical(one, run_monte_carlo(plan, {30000, 5, 3, {}}, one_oo_one_pfd, required));
+  const auto one = run_monte_carlo(plan, {30000, 5, 1, {}, {}}, one_oo_one_pfd, required);
+  expect_identical(one, run_monte_carlo(plan, {30000, 5, 2, {}, {}}, one_oo_one_pfd, required));
+  expect_identical(one, run_monte_carlo(plan, {30000, 5, 3, {}, {}}, one_oo_one_pfd, required));
 }
 
 TEST(MonteCarlo, DifferentSeedsGiveDifferentResults) {
   const auto plan = one_source(kErrorFactor);
-  const auto a = run_monte_carlo(plan, {5000, 1, 2, {}}, one_oo_one_pfd, 1.0e-3);
-  const auto b = run_monte_carlo(plan, {5000, 2, 2, {}}, one_oo_one_pfd, 1.0e-3);
+  const auto a = run_monte_carlo(plan, {5000, 1, 2, {}, {}}, one_oo_one_pfd, 1.0e-3);
+  const auto b = run_monte_carlo(plan, {5000, 2, 2, {}, {}}, one_oo_one_pfd, 1.0e-3);
   EXPECT_NE(a.mean, b.mean);
   EXPECT_NE(a.p95, b.p95);
 }
 
 TEST(MonteCarlo, ErrorFactorOneGivesZeroSpread) {
-  const auto s = run_monte_carlo(one_source(1.0), {5000, 3, 2, {}}, one_oo_one_pfd, 1.0e-3);
+  const auto s = run_monte_carlo(one_source(1.0), {5000, 3, 2, {}, {}}, one_oo_one_pfd, 1.0e-3);
   const double simplified = kLambdaDu * kOneYear / 2.0;
   expect_relative(s.mean, simplified, kExactRelTol);
   EXPECT_EQ(s.p05, s.p95);
@@ -334,7 +334,7 @@ TEST(MonteCarlo, ErrorFactorOneGivesZeroSpread) {
 
 TEST(MonteCarlo, ProgressIsReportedOnTheCallingThreadUpToTheSampleCount) {
   std::vector<int> reported;
-  MonteCarloOptions options{10000, 4, 2, [&](int completed) { reported.push_back(completed); }};
+  MonteCarloOptions options{10000, 4, 2, [&](int completed) { reported.push_back(completed); }, {}};
   run_monte_carlo(one_source(kErrorFactor), options, one_oo_one_pfd, 1.0e-3);
   ASSERT_FALSE(reported.empty());
   EXPECT_EQ(reported.back(), 10000);
@@ -346,7 +346,7 @@ TEST(MonteCarlo, AnEvaluatorErrorReachesTheCaller) {
     if (f[0] > 5.0) throw std::runtime_error("evaluator failed");
     return f[0];
   };
-  EXPECT_THROW(run_monte_carlo(one_source(10.0), {20000, 1, 2, {}}, failing, 1.0), std::runtime_error);
+  EXPECT_THROW(run_monte_carlo(one_source(10.0), {20000, 1, 2, {}, {}}, failing, 1.0), std::runtime_error);
 }
 
 // ---- The fast path of the simplified equations ----------------------------------------------
@@ -367,6 +367,27 @@ TEST(FastPath, GroupPfdValueEqualsTheFullResultForEveryVote) {
     g.mttr = Duration{8.0};
     g.mrt = Duration{24.0};
     EXPECT_EQ(group_pfd_avg_value(g), group_pfd_avg(g).pfd_avg) << g.vote.text();
+  }
+}
+
+}  // namespace
+}  // namespace sifter
+
+namespace sifter {
+namespace {
+
+TEST(FactorSampling, DrawingOnlySomeSourcesGivesTheSameValuesAsDrawingAll) {
+  UncertaintyPlan plan;
+  for (int i = 0; i < 7; ++i) plan.sources.push_back({"s" + std::to_string(i), 2.0 + i, {}});
+  const FactorSampler sampler(plan);
+  std::vector<double> all(7), some(7, 1.0);
+  const std::vector<std::size_t> pairs{1, 3};  // sources 2, 3 and 6
+  for (std::uint64_t i = 0; i < 50; ++i) {
+    sampler.sample(11, i, all);
+    sampler.sample_pairs(11, i, pairs, some);
+    EXPECT_EQ(some[2], all[2]);
+    EXPECT_EQ(some[3], all[3]);
+    EXPECT_EQ(some[6], all[6]);
   }
 }
 

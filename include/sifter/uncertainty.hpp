@@ -86,11 +86,16 @@ class FactorSampler {
   /// uniforms from a SplitMix64 stream keyed by a hash of (seed, sample_index) (Steele, Lea and
   /// Flood, 2014, from memory): a counter-based scheme, identical on every thread count.
   void sample(std::uint64_t seed, std::uint64_t sample_index, std::span<double> factors) const;
+  /// The same for the given pairs of sources only (pair p holds sources 2p and 2p+1): each
+  /// pair has its own stream keyed by (seed, sample, pair), so the values equal sample()'s.
+  void sample_pairs(std::uint64_t seed, std::uint64_t sample_index, std::span<const std::size_t> pairs,
+                    std::span<double> factors) const;
 
   /// Number of sources (and of factors per sample).
   [[nodiscard]] std::size_t size() const { return sigmas_.size(); }
 
  private:
+  void sample_pair(std::uint64_t seed, std::uint64_t sample_index, std::size_t pair, std::span<double> factors) const;
   std::vector<double> sigmas_;
 };
 
@@ -130,6 +135,9 @@ struct MonteCarloOptions {
   std::uint64_t seed = 1;  ///< the same seed gives the same results on any number of threads
   int threads = 0;         ///< worker threads; 0 = std::thread::hardware_concurrency()
   ProgressCallback progress;  ///< optional
+  /// The sources the evaluator reads (indices into the plan); empty = all. Only these are
+  /// drawn, with the same values a full draw would give; the others stay at factor 1.
+  std::vector<std::size_t> sources;
 };
 
 /// Runs `options.samples` evaluations with the plan's factors and summarises them against

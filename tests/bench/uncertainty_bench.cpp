@@ -101,7 +101,7 @@ constexpr int kSamples = 1 << 20;
 
 void run(benchmark::State& state, const SampleEvaluator& evaluate) {
   const int threads = static_cast<int>(state.range(0));
-  const MonteCarloOptions options{kSamples, 42, threads, {}};
+  const MonteCarloOptions options{kSamples, 42, threads, {}, {}};
   for (auto _ : state) {
     const auto summary = run_monte_carlo(demo_sif().plan, options, evaluate, 1e-3);
     benchmark::DoNotOptimize(summary.mean);
