@@ -187,3 +187,52 @@ TEST(CliCheck, TheSameSeedGivesTheSameUncertaintyWhateverTheThreads) {
 
 }  // namespace
 }  // namespace sifter
+
+namespace sifter {
+namespace {
+
+// One function limited by each of the three results: the right limit, exit status 1.
+struct LimitedCase {
+  const char* project;
+  const char* sif;
+  const char* kind;
+  const char* subsystem;  // "" when the limit names no subsystem
+};
+
+class LimitedBy : public ::testing::TestWithParam<LimitedCase> {};
+
+TEST_P(LimitedBy, TheLimitIsNamedAndTheExitStatusIsOne) {
+  const auto& c = GetParam();
+  const auto r = run_sifter(std::string("check ") + c.project + " --json -");
+  ASSERT_EQ(r.exit_code, 1) << r.err;
+  const auto j = nlohmann::json::parse(r.out);
+  const nlohmann::json* sif = nullptr;
+  for (const auto& s : j["sifs"])
+    if (s["id"] == c.sif) sif = &s;
+  ASSERT_NE(sif, nullptr);
+  EXPECT_EQ((*sif)["meets_target"], false);
+  bool found = false;
+  for (const auto& l : (*sif)["limits"])
+    if (l["kind"] == c.kind && (std::string(c.subsystem).empty() || l["subsystem"] == c.subsystem)) found = true;
+  EXPECT_TRUE(found) << (*sif)["limits"].dump(2);
+  EXPECT_LT((*sif)["sil_achieved"].get<int>(), (*sif)["sil_required"].get<int>());
+}
+
+INSTANTIATE_TEST_SUITE_P(
+    ThreeResults, LimitedBy,
+    ::testing::Values(LimitedCase{"examples/unit50_shortfall.json", "SIF-501", "probability", ""},
+                      LimitedCase{"tests/data/good/architecture_limited.json", "S-ARCH", "architecture", "valve"},
+                      LimitedCase{"examples/unit60_existing_logic_solver.json", "SIF-601", "systematic",
+                                  "existing shutdown logic solver"}));
+
+TEST(CliLimits, TheExistingLogicSolverExampleSaysWhatWouldLiftIt) {
+  const auto r = run_sifter("check examples/unit60_existing_logic_solver.json");
+  EXPECT_EQ(r.exit_code, 1);
+  EXPECT_NE(r.out.find("SIL  probability SIL 3 | architecture SIL 3 | systematic SIL 2  ->  achieved SIL 2, required SIL 3"),
+            std::string::npos)
+      << r.out;
+  EXPECT_NE(r.out.find("To lift it: use equipment of SC 3 or"), std::string::npos);
+}
+
+}  // namespace
+}  // namespace sifter
