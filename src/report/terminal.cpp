@@ -39,8 +39,13 @@ std::string render_sif(const SifResult& s) {
              sci_or_dash(low ? s.pfd_avg_exact : s.pfh_exact_per_hour), percent(1.0), "", "", ""});
   out += t.render("  ");
   out += "\n";
-  if (low) out += "  RRF " + (s.rrf ? plain(*s.rrf) : std::string("-"));
-  if (s.required_rrf && low) out += "   required RRF " + plain(*s.required_rrf);
+  if (low) {
+    out += "  RRF " + (s.rrf ? plain(*s.rrf) : std::string("-"));
+    if (s.required_rrf) out += "   required RRF " + plain(*s.required_rrf);
+  } else {
+    out += "  PFH " + sci_or_dash(s.pfh_per_hour) + "/h";
+    if (s.required_pfh_per_hour) out += "   required PFH <= " + sci(*s.required_pfh_per_hour) + "/h";
+  }
   out += "\n";
   out += "  SIL  probability " + sil_text(s.sil_probability) + " | architecture " + sil_text(s.sil_architecture) +
          " | systematic " + sil_text(s.sil_systematic) + "  ->  achieved " + sil_text(s.sil_achieved);
