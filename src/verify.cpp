@@ -8,6 +8,7 @@
 
 #include "sifter/constraints.hpp"
 #include "sifter/sil.hpp"
+#include "sifter/spurious.hpp"
 
 namespace sifter {
 namespace {
@@ -284,6 +285,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   }
   if (!sif.target && !lopa)
     warnings.push_back({sif.pointer, "no target and no scenario names this SIF; it is computed but not judged"});
+  add_spurious_trips(project, sif, r);
   apply_constraints(project, sif, r, low ? required_pfd : required_pfh, complete ? std::optional(total) : std::nullopt);
   return r;
 }
@@ -322,6 +324,11 @@ std::map<std::string, RequirementFromLopa> requirements_from(const std::vector<S
 
 }  // namespace
 
+std::map<std::string, RequirementFromLopa> lopa_requirements(const Project& project, std::vector<Warning>& warnings) {
+  if (project.scenarios.empty()) return {};
+  return requirements_from(evaluate_scenarios(project, lopa_context_from_project(project)), warnings);
+}
+
 ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& options) {
   const Project& project = loaded.project;
   ProjectResult out;
@@ -335,8 +342,7 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   // depend on the SIF's own figures; then the SIFs; then the scenarios again with the SIFs'
   // computed PFDavg (or PFH) for the mitigated frequencies.
   LopaContext context = lopa_context_from_project(project);
-  const auto requirements = project.scenarios.empty() ? std::map<std::string, RequirementFromLopa>{}
-                                                      : requirements_from(evaluate_scenarios(project, context), out.warnings);
+  const auto requirements = lopa_requirements(project, out.warnings);
   out.sifs.reserve(project.sifs.size());
   for (const auto& sif : project.sifs) {
     auto it = requirements.find(sif.id);
