@@ -18,6 +18,11 @@ int main(int argc, char** argv) {
     actions[app.get_subcommands({}).back()] = std::move(action);
   };
   add(&sifter::cli::add_check_command);
+  add(&sifter::cli::add_interval_command);
+  add(&sifter::cli::add_sweep_command);
+  add(&sifter::cli::add_compare_command);
+  add(&sifter::cli::add_sensitivity_command);
+  add(&sifter::cli::add_diff_command);
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
