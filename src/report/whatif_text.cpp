@@ -172,7 +172,7 @@ std::string render_compare(const CompareResult& r) {
   out += t.render("  ");
   std::vector<std::string> notes = r.notes;
   notes.push_back("PFDavg, SIL arch: of the subsystem and of the SIF; trips/yr and MTTF: spurious trips of the whole "
-                  "SIF (" + std::string(kSpuriousTripSource) + ")");
+                  "SIF, " + std::string(kSpuriousTripSource));
   return out + notes_block(notes) + ending();
 }
 
