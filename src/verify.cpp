@@ -13,6 +13,7 @@
 #include "sifter/cross_check.hpp"
 #include "sifter/sif_uncertainty.hpp"
 #include "sifter/sil.hpp"
+#include "sifter/spurious.hpp"
 
 namespace sifter {
 namespace {
@@ -337,6 +338,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
       }
     }
   }
+  add_spurious_trips(project, sif, r);
   apply_constraints(project, sif, r, low ? required_pfd : required_pfh, complete ? std::optional(total) : std::nullopt);
   return r;
 }
@@ -439,6 +441,11 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
 
 }  // namespace
 
+std::map<std::string, RequirementFromLopa> lopa_requirements(const Project& project, std::vector<Warning>& warnings) {
+  if (project.scenarios.empty()) return {};
+  return requirements_from(evaluate_scenarios(project, lopa_context_from_project(project)), warnings);
+}
+
 ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& options) {
   const Project& project = loaded.project;
   ProjectResult out;
@@ -452,8 +459,7 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   // depend on the SIF's own figures; then the SIFs; then the scenarios again with the SIFs'
   // computed PFDavg (or PFH) for the mitigated frequencies.
   LopaContext context = lopa_context_from_project(project);
-  const auto requirements = project.scenarios.empty() ? std::map<std::string, RequirementFromLopa>{}
-                                                      : requirements_from(evaluate_scenarios(project, context), out.warnings);
+  const auto requirements = lopa_requirements(project, out.warnings);
   // SIFs are independent once their requirements are known: verify them on every core, each
   // with its own warnings, and merge in project order so the output does not depend on threads.
   const std::size_t n = project.sifs.size();

@@ -4,3 +4,18 @@ add_test(NAME example_unit40_meets_targets
 add_test(NAME example_unit50_falls_short
          COMMAND sifter check ${PROJECT_SOURCE_DIR}/examples/unit50_shortfall.json)
 set_tests_properties(example_unit50_falls_short PROPERTIES WILL_FAIL TRUE)
+
+# The what-if commands as the README shows them.
+add_test(NAME example_unit40_interval
+         COMMAND sifter interval ${PROJECT_SOURCE_DIR}/examples/unit40.json --sif SIF-401 --subsystem "outlet isolation")
+add_test(NAME example_unit40_sweep
+         COMMAND sifter sweep ${PROJECT_SOURCE_DIR}/examples/unit40.json --sif SIF-401 --subsystem "outlet isolation"
+                 --vary proof_test_interval --from "3 mo" --to "2 yr" --steps 8)
+add_test(NAME example_unit40_compare
+         COMMAND sifter compare ${PROJECT_SOURCE_DIR}/examples/unit40.json --sif SIF-401 --subsystem "level sensing"
+                 --votes 1oo1,1oo2,2oo3,2oo4)
+add_test(NAME example_unit40_sensitivity
+         COMMAND sifter sensitivity ${PROJECT_SOURCE_DIR}/examples/unit40.json --sif SIF-401)
+add_test(NAME example_unit40_diff_worsens
+         COMMAND sifter diff ${PROJECT_SOURCE_DIR}/examples/unit40.json ${PROJECT_SOURCE_DIR}/tests/data/unit40_rev_b.json)
+set_tests_properties(example_unit40_diff_worsens PROPERTIES WILL_FAIL TRUE)

@@ -219,3 +219,75 @@ TEST(AnnexB, TermsAddUpToThePfdAvg) {
 
 }  // namespace
 }  // namespace sifter
+
+// ---- Imperfect and partial tests as the project file states them -----------------------
+
+#include "sifter/load.hpp"
+#include "sifter/verify.hpp"
+
+namespace sifter {
+namespace {
+
+// One subsystem of three identical channels voted as given, with extra keys.
+Project one_group_project(const std::string& vote, const std::string& extra) {
+  const std::string text = R"({
+  "format": "sifter-project/1",
+  "defaults": { "proof_test_interval": "1 yr", "mttr": "8 h", "mission_time": "15 yr" },
+  "components": [
+    { "id": "XV-1", "lambda_du": "2e-6/h", "lambda_dd": "5e-7/h", "lambda_su": "1e-6/h" },
+    { "id": "XV-2", "lambda_du": "2e-6/h", "lambda_dd": "5e-7/h", "lambda_su": "1e-6/h" },
+    { "id": "XV-3", "lambda_du": "2e-6/h", "lambda_dd": "5e-7/h", "lambda_su": "1e-6/h" }
+  ],
+  "sifs": [ { "id": "S1", "subsystems": [
+    { "name": "valves", "role": "final", "vote": ")" + vote + R"(", "channels": )" +
+                           std::string(vote.back() == '1' ? R"(["XV-1"])" : vote.back() == '2' ? R"(["XV-1", "XV-2"])"
+                                                                                                 : R"(["XV-1", "XV-2", "XV-3"])") +
+                           R"(, "beta": "5%", "mrt": "16 h")" + extra + R"( } ] } ]
+})";
+  return load_project_text(text, "inline.json", ".").project;
+}
+
+double pfd_of(const Project& p) { return group_pfd_avg(group_data_for(p, p.sifs[0].subsystems[0])).pfd_avg; }
+
+class TestSlicesPerVote : public ::testing::TestWithParam<const char*> {};
+
+// REFERENCES.md §2 (IEC 61508-6:2010 B.3.2.5, from memory): with PTC = 1 the imperfect-test
+// form is the plain B.3.2.2 equation; our generalisation to every vote keeps that property.
+TEST_P(TestSlicesPerVote, ProofTestCoverageOneGivesBackThePlainEquations) {
+  const std::string vote = GetParam();
+  const double plain = pfd_of(one_group_project(vote, ""));
+  expect_relative(pfd_of(one_group_project(vote, R"(, "proof_test_coverage": 1)")), plain, kExactRelTol);
+  EXPECT_GT(pfd_of(one_group_project(vote, R"(, "proof_test_coverage": 0.9)")), plain);
+}
+
+// REFERENCES.md §2 (partial stroke, from memory): a partial stroke test that reveals nothing
+// leaves the full-test result.
+TEST_P(TestSlicesPerVote, PartialStrokeCoverageZeroGivesBackTheFullTestResult) {
+  const std::string vote = GetParam();
+  const double full = pfd_of(one_group_project(vote, ""));
+  const auto p = one_group_project(vote, R"(, "partial_stroke": {"interval": "1 mo", "coverage": 0})");
+  expect_relative(pfd_of(p), full, kExactRelTol);
+  EXPECT_LT(pfd_of(one_group_project(vote, R"(, "partial_stroke": {"interval": "1 mo", "coverage": 0.6})")), full);
+}
+
+INSTANTIATE_TEST_SUITE_P(Votes, TestSlicesPerVote, ::testing::Values("1oo1", "1oo2", "2oo2", "2oo3", "1oo3"));
+
+TEST(TestSlices, ImperfectProofTestOfOneChannelFollowsClauseB325FromTheProjectFile) {
+  // IEC 61508-6:2010 B.3.2.5 (REFERENCES.md §2, from memory): T2 is the mission time (15 yr).
+  const auto p = one_group_project("1oo1", R"(, "proof_test_coverage": "80%")");
+  const double ldu = 2e-6, ldd = 5e-7, t1 = 8760.0, t2 = 15 * 8760.0, mrt = 16.0, mttr = 8.0;
+  expect_relative(pfd_of(p), 0.8 * ldu * (t1 / 2 + mrt) + 0.2 * ldu * (t2 / 2 + mrt) + ldd * mttr, kExactRelTol);
+}
+
+TEST(TestSlices, PartialStrokeAndImperfectProofTestShareTheUndetectedRate) {
+  // The partial stroke reveals its share at its own interval; the proof test reveals PTC of the
+  // rest, and what both miss stays to the end of the mission (REFERENCES.md §2, generalised).
+  const auto p = one_group_project("1oo1", R"(, "proof_test_coverage": 0.9, "partial_stroke": {"interval": "1 mo", "coverage": 0.6})");
+  const double ldu = 2e-6, ldd = 5e-7, t_pst = 730.0, t1 = 8760.0, t2 = 15 * 8760.0, mrt = 16.0, mttr = 8.0;
+  const double expected = 0.6 * ldu * (t_pst / 2 + mrt) + 0.4 * 0.9 * ldu * (t1 / 2 + mrt) +
+                          0.4 * 0.1 * ldu * (t2 / 2 + mrt) + ldd * mttr;
+  expect_relative(pfd_of(p), expected, kExactRelTol);
+}
+
+}  // namespace
+}  // namespace sifter

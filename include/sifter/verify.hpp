@@ -2,6 +2,7 @@
 /// Per-SIF orchestration: the one place that decides a SIF's verdict.
 #include <cstdint>
 #include <functional>
+#include <map>
 #include <vector>
 
 #include "sifter/dependency_graph.hpp"
@@ -24,6 +25,10 @@ struct RequirementFromLopa {
   std::vector<std::string> scenarios;
   std::string demand_basis;
 };
+
+/// What the risk analysis asks of each SIF its scenarios credit, by SIF id (empty without
+/// scenarios); the LOPA findings go to `warnings`. It does not depend on the SIFs' own figures.
+std::map<std::string, RequirementFromLopa> lopa_requirements(const Project& project, std::vector<Warning>& warnings);
 
 /// Options of a verification run.
 struct VerifyOptions {

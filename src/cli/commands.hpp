@@ -20,5 +20,19 @@ Action add_check_command(CLI::App& app);
 
 /// `sifter curve PROJECT --sif ID`: PFD(t) from the exact engine.
 Action add_curve_command(CLI::App& app);
+/// `sifter interval PROJECT --sif ID`: the longest proof-test interval that meets the target.
+Action add_interval_command(CLI::App& app);
+
+/// `sifter sweep PROJECT --sif ID --vary PARAM --from A --to B`: a parameter over a range.
+Action add_sweep_command(CLI::App& app);
+
+/// `sifter compare PROJECT --sif ID --subsystem NAME --votes LIST`: one subsystem re-voted.
+Action add_compare_command(CLI::App& app);
+
+/// `sifter sensitivity PROJECT --sif ID`: inputs ranked by the swing of the PFDavg.
+Action add_sensitivity_command(CLI::App& app);
+
+/// `sifter diff OLD NEW`: changed inputs, results and verdicts between two revisions.
+Action add_diff_command(CLI::App& app);
 
 }  // namespace sifter::cli

@@ -19,6 +19,11 @@ int main(int argc, char** argv) {
   };
   add(&sifter::cli::add_check_command);
   add(&sifter::cli::add_curve_command);
+  add(&sifter::cli::add_interval_command);
+  add(&sifter::cli::add_sweep_command);
+  add(&sifter::cli::add_compare_command);
+  add(&sifter::cli::add_sensitivity_command);
+  add(&sifter::cli::add_diff_command);
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {

@@ -16,6 +16,20 @@ std::string verdict_words(const std::optional<bool>& meets) {
 
 std::string sil_text(int sil) { return sil == 0 ? "below SIL 1" : "SIL " + std::to_string(sil); }
 
+// The spurious trips in one line: the SIF's rate and MTTF, then each subsystem's rate.
+std::string spurious_line(const SifResult& s) {
+  std::string text = "spurious trips " + sci(s.spurious_trip_rate_per_yr) + "/yr";
+  if (s.mttf_spurious_yr) text += ", MTTF spurious " + plain(*s.mttf_spurious_yr) + " yr";
+  std::string parts;
+  for (const auto& sub : s.subsystems) {
+    // A supplier's figure carries no safe failure rates (spurious.hpp counts it as zero).
+    const bool vendor = sub.vote.rfind("vendor", 0) == 0;
+    parts += (parts.empty() ? "" : ", ") + sub.name + " " + (vendor ? "not given" : sci(sub.spurious_trip_rate_per_yr));
+  }
+  if (!parts.empty()) text += " (" + parts + ")";
+  return wrap(text, 92, "  ");
+}
+
 }  // namespace
 
 std::string wrapped_caution(std::size_t width) { return wrap(std::string("CAUTION: ") + kCaution, width, ""); }
@@ -58,6 +72,7 @@ std::string render_sif(const SifResult& s) {
            sci(s.uncertainty->p95) + ", P(meets target) " + percent(s.uncertainty->probability_meets_target) + " (" +
            std::to_string(s.uncertainty->samples) + " samples)\n";
   out += "  verdict  " + verdict_words(s.meets_target) + "\n";
+  out += spurious_line(s);
   if (!s.limits.empty()) {
     out += "  limited by\n";
     for (const auto& l : s.limits) out += wrap("[" + l.kind + "] " + l.message, 92, "    ");

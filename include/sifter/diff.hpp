@@ -1,0 +1,88 @@
+#pragma once
+/// Revision comparison: what changed between two versions of a project, input by input (on the
+/// resolved model, so that "0.015/yr" and "1.71e-6/h" are the same rate) and result by result,
+/// for every SIF and every scenario. Pure: no I/O.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "sifter/model.hpp"
+#include "sifter/verify.hpp"
+
+namespace sifter {
+
+/// Numbers closer than this (relatively) are the same value: unit conversions round.
+inline constexpr double kDiffRelTol = 1e-9;
+
+/// A compared value: a number in the unit of its change, or a text (a vote, a target, tags).
+struct DiffValue {
+  std::optional<double> number;
+  std::string text;  ///< used when number is empty
+};
+
+/// One input that differs between the revisions.
+struct InputChange {
+  std::string pointer;  ///< JSON pointer in the new revision (the old one for what was removed)
+  std::string what;     ///< "lambda_du of XV-401", "frequency of cause C1"
+  std::string unit;     ///< "/h" component rates, "h" durations, "/yr" frequencies, "" otherwise
+  std::optional<DiffValue> old_value;  ///< empty: added in the new revision
+  std::optional<DiffValue> new_value;  ///< empty: removed in the new revision
+};
+
+/// One result that differs between the revisions.
+struct ResultChange {
+  std::string quantity;  ///< the results key: "required_rrf", "pfd_avg", "sil_achieved", "meets_target", ...
+  std::optional<DiffValue> old_value;
+  std::optional<DiffValue> new_value;
+};
+
+/// How a verdict (meets target, tolerable) moved.
+enum class VerdictChange {
+  kNone,
+  kWorsened,  ///< now falls short (and did not before, or is new)
+  kImproved,  ///< fell short before and now meets it
+  kOther,     ///< judged before and not now, or the other way round
+};
+
+/// "none", "worsened", "improved", "changed".
+std::string to_string(VerdictChange change);
+
+/// Whether a SIF or scenario is in both revisions.
+enum class Presence { kBoth, kAdded, kRemoved };
+
+/// "both", "added", "removed".
+std::string to_string(Presence presence);
+
+/// The changes of one SIF or one scenario.
+struct FunctionDiff {
+  std::string id;
+  Presence presence = Presence::kBoth;
+  std::optional<bool> old_verdict;  ///< meets target (SIF) or tolerable (scenario); empty: not judged
+  std::optional<bool> new_verdict;
+  VerdictChange verdict = VerdictChange::kNone;
+  std::vector<InputChange> inputs;    ///< its own inputs, and for a SIF the components it uses
+  std::vector<ResultChange> results;
+  std::vector<std::string> related;   ///< a SIF: the scenarios feeding it whose inputs changed
+  [[nodiscard]] bool changed() const {
+    return presence != Presence::kBoth || !inputs.empty() || !results.empty();
+  }
+};
+
+/// Two revisions compared.
+struct ProjectDiff {
+  std::string old_file;
+  std::string new_file;
+  /// Verdict changes first (worsened, improved, other), then other changes, then the unchanged,
+  /// each group in the new revision's order.
+  std::vector<FunctionDiff> sifs;
+  std::vector<FunctionDiff> scenarios;
+  std::vector<InputChange> project_inputs;  ///< defaults, basis, risk criteria, components no SIF uses
+  /// Some SIF or scenario verdict worsened.
+  [[nodiscard]] bool any_worsened() const;
+};
+
+/// Compares two loaded revisions and their results (from verify_project).
+ProjectDiff diff_projects(const Project& old_project, const ProjectResult& old_result, const Project& new_project,
+                          const ProjectResult& new_result);
+
+}  // namespace sifter

@@ -1,0 +1,20 @@
+#pragma once
+/// Terminal text and JSON of `sifter diff`.
+#include <string>
+
+#include <nlohmann/json.hpp>
+
+#include "sifter/diff.hpp"
+
+namespace sifter::report {
+
+/// The changed SIFs and scenarios, verdict changes first, then the unchanged by name; ends
+/// with the caution.
+std::string render_diff(const ProjectDiff& diff);
+
+/// {format, old, new, any_worsened, sifs: [{id, presence, changed, verdict_change, old_verdict,
+/// new_verdict, inputs: [{pointer, what, unit, old, new}], results: [{quantity, old, new}],
+/// related_scenarios}], scenarios: [...], project_inputs: [...]}.
+nlohmann::json diff_json(const ProjectDiff& diff);
+
+}  // namespace sifter::report
