@@ -12,4 +12,7 @@ using Action = std::function<int()>;
 /// `sifter check PROJECT`: verify every SIF and scenario.
 Action add_check_command(CLI::App& app);
 
+/// `sifter report PROJECT -o FILE`: write the HTML or Markdown report.
+Action add_report_command(CLI::App& app);
+
 }  // namespace sifter::cli

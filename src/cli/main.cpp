@@ -18,6 +18,7 @@ int main(int argc, char** argv) {
     actions[app.get_subcommands({}).back()] = std::move(action);
   };
   add(&sifter::cli::add_check_command);
+  add(&sifter::cli::add_report_command);
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
