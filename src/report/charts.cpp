@@ -18,14 +18,13 @@ using svg::Plot;
 using svg::Scale;
 
 constexpr double kWidth = 720.0;
-constexpr double kCharPx = 6.6;     // mean advance of a 12 px sans-serif character, for layout
 constexpr std::size_t kMaxLabelChars = 34;
 constexpr int kSubsystemStyles = 4;  // line styles cycled over the subsystems
 
 double label_width(const std::vector<std::string>& labels) {
   std::size_t longest = 0;
   for (const auto& l : labels) longest = std::max(longest, std::min(l.size(), kMaxLabelChars));
-  return 16.0 + kCharPx * static_cast<double>(longest);
+  return 16.0 + svg::kCharPx * static_cast<double>(longest);
 }
 
 Axis log_axis(double lo, double hi, std::string title) {
@@ -42,21 +41,6 @@ Axis linear_axis(double lo, double hi, int count, std::string title, const char*
   for (double t : a.ticks) a.labels.push_back(plain(t) + suffix);
   a.title = std::move(title);
   return a;
-}
-
-// The decades a set of positive values spans, widened to at least one decade, at most `decades`.
-std::pair<double, double> log_range(const std::vector<double>& values, int decades) {
-  double lo = 0.0, hi = 0.0;
-  for (double v : values)
-    if (v > 0.0 && std::isfinite(v)) {
-      lo = lo == 0.0 ? v : std::min(lo, v);
-      hi = std::max(hi, v);
-    }
-  if (hi <= 0.0) return {1e-6, 1.0};
-  hi = svg::decade_ceil(hi * 1.0001);
-  lo = std::max(svg::decade_floor(lo), hi * std::pow(10.0, -decades));
-  if (lo >= hi) lo = hi / 10.0;
-  return {lo, hi};
 }
 
 std::string subsystem_style(std::size_t i) { return "sub sub-" + std::to_string(i % kSubsystemStyles); }
@@ -120,7 +104,7 @@ std::string pfd_curve_svg(const SifResult& sif, const PfdCurve& curve, const std
   std::vector<double> values = curve.pfd_sif;
   if (required_pfd) values.push_back(*required_pfd);
   if (sif.uncertainty) values.push_back(sif.uncertainty->p95);
-  const auto [lo, hi] = log_range(values, 5);
+  const auto [lo, hi] = svg::log_range(values, 5);
   const double mission_yr = curve.t_hours.empty() ? 1.0 : curve.t_hours.back() / kHoursPerYear;
   const std::size_t entries = curve.pfd_subsystems.size() + 3 + (sif.uncertainty ? 1 : 0);
   const double plot_h = 250.0, top = 14.0, left = 80.0;
@@ -155,7 +139,7 @@ std::string pfd_curve_svg(const SifResult& sif, const PfdCurve& curve, const std
 std::string interval_svg(const SifResult& sif, const IntervalSweep& sweep) {
   std::vector<double> values{sweep.required_pfd};
   for (const auto& pt : sweep.points) values.push_back(pt.pfd_avg);
-  const auto [lo, hi] = log_range(values, 6);
+  const auto [lo, hi] = svg::log_range(values, 6);
   const double left = 80.0, top = 14.0, plot_h = 240.0;
   Canvas c(kWidth, top + plot_h + 86.0);
   Plot p{left, top, kWidth - left - 24.0, plot_h, Scale(kSweepMinFactor, kSweepMaxFactor, left, kWidth - 24.0, true),
@@ -203,7 +187,7 @@ std::string sensitivity_svg(const SifResult& sif, const std::vector<SensitivityR
     values.push_back(r.high_pfd);
   }
   if (sif.pfd_avg) values.push_back(*sif.pfd_avg);
-  const auto [lo, hi] = log_range(values, 6);
+  const auto [lo, hi] = svg::log_range(values, 6);
   const double left = label_width(names), top = 12.0, row = 26.0;
   const double plot_h = row * static_cast<double>(rows.size());
   Canvas c(kWidth, top + plot_h + 56.0);

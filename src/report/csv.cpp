@@ -4,6 +4,7 @@
 #include <cstdio>
 
 #include "sifter/report/format.hpp"
+#include "sifter/report/tables.hpp"
 #include "sifter/report/worksheet.hpp"
 
 namespace sifter::report {
@@ -23,17 +24,6 @@ std::string verdict(const std::optional<bool>& meets) {
   return *meets ? "meets target" : "falls short";
 }
 
-std::string limits_text(const SifResult& s) {
-  std::string out;
-  for (const auto& l : s.limits) {
-    std::string item = l.kind;
-    if (l.subsystem) item += " at " + *l.subsystem;
-    if (l.element) item += " (" + *l.element + ")";
-    out += (out.empty() ? "" : "; ") + item;
-  }
-  return out;
-}
-
 }  // namespace
 
 std::string sif_csv(const ProjectResult& result) {
@@ -46,7 +36,7 @@ std::string sif_csv(const ProjectResult& result) {
            number(s.required_pfd) + "," + integer(s.sil_required) + "," + std::to_string(s.sil_probability) + "," +
            std::to_string(s.sil_architecture) + "," + std::to_string(s.sil_systematic) + "," +
            std::to_string(s.sil_achieved) + "," + (s.meets_target ? (*s.meets_target ? "true" : "false") : "") + "," +
-           verdict(s.meets_target) + "," + csv_field(limits_text(s)) + "\r\n";
+           verdict(s.meets_target) + "," + csv_field(limits_words(s)) + "\r\n";
   }
   return out;
 }

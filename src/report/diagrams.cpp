@@ -16,12 +16,11 @@ using svg::Anchor;
 using svg::Canvas;
 
 // Layout of the block drawing, in pixels.
-constexpr double kCharPx = 6.6;  // mean advance of a 12 px sans-serif character
 constexpr double kElementH = 24.0, kElementGap = 18.0, kChannelGap = 10.0, kPad = 16.0, kBadgeH = 26.0;
 // With these, a group's vertical centre is the midpoint of its first and last channel.
 constexpr double kGroupGap = 46.0, kMarginX = 30.0, kHeadH = 40.0;
 
-double text_px(const std::string& s) { return kCharPx * static_cast<double>(s.size()); }
+double text_px(const std::string& s) { return svg::kCharPx * static_cast<double>(s.size()); }
 
 double element_w(const std::string& tag) { return std::max(56.0, text_px(tag) + 16.0); }
 
@@ -223,7 +222,7 @@ void draw_groups(Canvas& c, const svg::Plot& p, const Staircase& st, double colu
     const double x1 = p.left + column_w * static_cast<double>(g.first);
     const double x2 = p.left + column_w * static_cast<double>(g.last + 1);
     if (g.first > 0) c.line(x1, p.top, x1, p.top + p.height, "separator");
-    c.text((x1 + x2) / 2, p.top - 8, svg::shortened(g.name, std::max<std::size_t>(10, static_cast<std::size_t>((x2 - x1) / 6.6))), "label",
+    c.text((x1 + x2) / 2, p.top - 8, svg::shortened(g.name, std::max<std::size_t>(10, static_cast<std::size_t>((x2 - x1) / svg::kCharPx))), "label",
            Anchor::kMiddle);
     if (g.target_per_yr) {
       c.line(x1, p.y(*g.target_per_yr), x2, p.y(*g.target_per_yr), "req-line");
@@ -238,19 +237,12 @@ void draw_groups(Canvas& c, const svg::Plot& p, const Staircase& st, double colu
 }
 
 std::pair<double, double> stair_range(const Staircase& st) {
-  double lo = 0.0, hi = 0.0;
-  const auto take = [&](double v) {
-    if (v <= 0.0) return;
-    lo = lo == 0.0 ? v : std::min(lo, v);
-    hi = std::max(hi, v);
-  };
+  std::vector<double> values;
   for (const auto& stair : st.stairs)
-    for (const auto& pt : stair.points) take(pt.second);
+    for (const auto& pt : stair.points) values.push_back(pt.second);
   for (const auto& g : st.groups)
-    if (g.target_per_yr) take(*g.target_per_yr);
-  if (hi <= 0.0) return {1e-6, 1.0};
-  hi = svg::decade_ceil(hi * 1.0001);
-  return {std::min(svg::decade_floor(lo), hi / 10.0), hi};
+    if (g.target_per_yr) values.push_back(*g.target_per_yr);
+  return svg::log_range(values, 12);  // a staircase shows every step, however far down
 }
 
 }  // namespace

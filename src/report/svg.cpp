@@ -129,6 +129,20 @@ double Scale::operator()(double value) const {
 double decade_floor(double value) { return std::pow(10.0, std::floor(std::log10(value) + 1e-9)); }
 double decade_ceil(double value) { return std::pow(10.0, std::ceil(std::log10(value) - 1e-9)); }
 
+std::pair<double, double> log_range(const std::vector<double>& values, int decades) {
+  double lo = 0.0, hi = 0.0;
+  for (double v : values)
+    if (v > 0.0 && std::isfinite(v)) {
+      lo = lo == 0.0 ? v : std::min(lo, v);
+      hi = std::max(hi, v);
+    }
+  if (hi <= 0.0) return {1e-6, 1.0};
+  hi = decade_ceil(hi * 1.0001);
+  lo = std::max(decade_floor(lo), hi * std::pow(10.0, -decades));
+  if (lo >= hi) lo = hi / 10.0;
+  return {lo, hi};
+}
+
 std::vector<double> decade_ticks(double lo, double hi) {
   std::vector<double> out;
   for (double e = std::round(std::log10(lo)); e <= std::log10(hi) + 1e-9; e += 1.0) out.push_back(std::pow(10.0, e));

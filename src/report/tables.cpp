@@ -20,14 +20,10 @@ std::string joined(const std::vector<std::string>& parts, const std::string& sep
 std::string opt_plain(const std::optional<double>& v) { return v ? plain(*v) : kNone; }
 std::string opt_int(const std::optional<int>& v) { return v ? std::to_string(*v) : kNone; }
 
-std::string figure_text(const SifResult& s) {
-  if (s.demand_mode == DemandMode::kLow) return sci_or_dash(s.pfd_avg);
-  return s.pfh_per_hour ? sci(*s.pfh_per_hour) + "/h" : kNone;
-}
-
-std::string sub_figure_text(const SubsystemResult& s, DemandMode mode) {
-  if (mode == DemandMode::kLow) return sci_or_dash(s.pfd_avg);
-  return s.pfh_per_hour ? sci(*s.pfh_per_hour) + "/h" : kNone;
+// PFDavg in low demand, PFH per hour in high demand.
+std::string measure_text(const std::optional<double>& pfd_avg, const std::optional<double>& pfh, DemandMode mode) {
+  if (mode == DemandMode::kLow) return sci_or_dash(pfd_avg);
+  return pfh ? sci(*pfh) + "/h" : kNone;
 }
 
 std::string channels_text(const SubsystemResult& s) {
@@ -68,8 +64,7 @@ Cell scenario_verdict(const std::optional<bool>& meets) {
 
 std::string sil_words(int sil) { return sil == 0 ? "below SIL 1" : "SIL " + std::to_string(sil); }
 
-std::string limited_by(const SifResult& sif, const SifReportData& data) {
-  if (sif.limits.empty()) return sil_words(sif.sil_achieved) + " set by " + joined(data.limiting, ", ");
+std::string limits_words(const SifResult& sif) {
   std::vector<std::string> parts;
   for (const auto& l : sif.limits) {
     std::string p = l.kind;
@@ -77,7 +72,12 @@ std::string limited_by(const SifResult& sif, const SifReportData& data) {
     if (l.element) p += " (" + *l.element + ")";
     parts.push_back(p + ": " + sil_words(l.sil));
   }
-  return "below target: " + joined(parts, "; ");
+  return joined(parts, "; ");
+}
+
+std::string limited_by(const SifResult& sif, const SifReportData& data) {
+  if (sif.limits.empty()) return sil_words(sif.sil_achieved) + " set by " + joined(data.limiting, ", ");
+  return "below target: " + limits_words(sif);
 }
 
 Table sif_summary_table(const ProjectResult& result, const ReportData& data) {
@@ -89,7 +89,7 @@ Table sif_summary_table(const ProjectResult& result, const ReportData& data) {
   for (std::size_t i = 0; i < result.sifs.size(); ++i) {
     const SifResult& s = result.sifs[i];
     std::vector<Cell> row = cells({s.id, s.title, to_string(s.demand_mode), opt_int(s.sil_required),
-                                   std::to_string(s.sil_achieved), figure_text(s), opt_plain(s.rrf),
+                                   std::to_string(s.sil_achieved), measure_text(s.pfd_avg, s.pfh_per_hour, s.demand_mode), opt_plain(s.rrf),
                                    opt_plain(s.required_rrf)});
     row.push_back(sif_verdict(s.meets_target));
     row.push_back(plain_cell(i < data.sifs.size() ? limited_by(s, data.sifs[i]) : ""));
@@ -128,7 +128,7 @@ Table sil_table(const SifResult& s, const SifReportData& data) {
   const auto sets = [&](const char* kind) {
     return std::find(data.limiting.begin(), data.limiting.end(), kind) != data.limiting.end() ? "yes" : "";
   };
-  std::string probability = low ? "PFDavg " + sci_or_dash(s.pfd_avg) : "PFH " + figure_text(s);
+  std::string probability = low ? "PFDavg " + sci_or_dash(s.pfd_avg) : "PFH " + measure_text(s.pfd_avg, s.pfh_per_hour, s.demand_mode);
   if (low && data.required_pfd) probability += "; required: at most " + sci(*data.required_pfd);
   if (!low && s.required_pfh_per_hour) probability += "; required at most " + sci(*s.required_pfh_per_hour) + "/h";
   Table t{"The three results and the verdict", {"result", "SIL", "from", "sets the achieved SIL"},
@@ -153,7 +153,7 @@ Table subsystem_table(const SifResult& s) {
           {}};
   for (const auto& sub : s.subsystems) {
     const bool vendor = sub.channels.empty();
-    t.rows.push_back(cells({sub.name, to_string(sub.role), sub.vote, channels_text(sub), sub_figure_text(sub, s.demand_mode),
+    t.rows.push_back(cells({sub.name, to_string(sub.role), sub.vote, channels_text(sub), measure_text(sub.pfd_avg, sub.pfh_per_hour, s.demand_mode),
                             percent(sub.share), opt_int(sub.hft), sub.sff ? percent(*sub.sff) : kNone,
                             std::to_string(sub.sil_architecture), opt_int(sub.systematic_capability),
                             vendor ? kNone : format_duration(sub.proof_test_interval)}));

@@ -13,6 +13,9 @@ std::string escape_html(std::string_view text);
 
 namespace svg {
 
+/// Mean advance of a 12 px sans-serif character, in pixels: how the drawings estimate text widths.
+inline constexpr double kCharPx = 6.6;
+
 /// The text cut to at most `max_chars` bytes (never inside a UTF-8 character), with "…" when cut.
 std::string shortened(const std::string& text, std::size_t max_chars);
 
@@ -72,6 +75,9 @@ std::vector<double> linear_ticks(double lo, double hi, int count);
 /// The decade at or below (floor) and at or above (ceil) a positive value.
 double decade_floor(double value);
 double decade_ceil(double value);
+/// The decades spanned by the positive values, widened to one decade at least and cut to
+/// `decades` below the top; {1e-6, 1} when there is no positive value.
+std::pair<double, double> log_range(const std::vector<double>& values, int decades);
 /// "10⁻³" for a power of ten, with Unicode superscripts.
 std::string power_of_ten_label(double value);
 

@@ -35,6 +35,8 @@ Cell sif_verdict(const std::optional<bool>& meets);
 Cell scenario_verdict(const std::optional<bool>& meets);
 /// "SIL 2", or "below SIL 1" for 0.
 std::string sil_words(int sil);
+/// The limits of a SIF in a few words: "architecture at valve (XV-1): SIL 1; ...".
+std::string limits_words(const SifResult& sif);
 /// What keeps a SIF at its achieved SIL: its limits (kind, subsystem, element), else the
 /// results that give the achieved SIL.
 std::string limited_by(const SifResult& sif, const SifReportData& data);
