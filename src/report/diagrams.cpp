@@ -230,7 +230,10 @@ void draw_groups(Canvas& c, const svg::Plot& p, const Staircase& st, double colu
     }
     if (g.meets_target) {
       const auto& last = st.stairs[k].points.back();  // groups and stairs are opened in pairs
-      c.text(p.left + column_w * (static_cast<double>(last.first) + 0.5), p.y(last.second) - 8,
+      // Under the step, where no tolerable line runs; above it when that would leave the plot.
+      const double below = p.y(last.second) + 17;
+      c.text(p.left + column_w * (static_cast<double>(last.first) + 0.5),
+             below < p.top + p.height - 2 ? below : p.y(last.second) - 8,
              *g.meets_target ? "✔" : "✘", *g.meets_target ? "mark-good" : "mark-bad", Anchor::kMiddle);
     }
   }
