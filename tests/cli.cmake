@@ -19,3 +19,12 @@ add_test(NAME example_unit40_sensitivity
 add_test(NAME example_unit40_diff_worsens
          COMMAND sifter diff ${PROJECT_SOURCE_DIR}/examples/unit40.json ${PROJECT_SOURCE_DIR}/tests/data/unit40_rev_b.json)
 set_tests_properties(example_unit40_diff_worsens PROPERTIES WILL_FAIL TRUE)
+add_test(NAME example_unit40_report
+         COMMAND sifter report ${PROJECT_SOURCE_DIR}/examples/unit40.json -o ${CMAKE_CURRENT_BINARY_DIR}/unit40.html)
+
+# The example's report rendered in a real browser (headless chromium): a screenshot that shows a
+# page and an A4 print of 8 to 30 pages. Skipped (77) only where chromium is absent outside CI.
+add_test(NAME browser_renders_the_example_report
+         COMMAND sh ${CMAKE_CURRENT_SOURCE_DIR}/browser_test.sh $<TARGET_FILE:sifter>
+                 ${PROJECT_SOURCE_DIR}/examples/unit40.json ${CMAKE_CURRENT_BINARY_DIR}/browser 8 30)
+set_tests_properties(browser_renders_the_example_report PROPERTIES SKIP_RETURN_CODE 77 TIMEOUT 300)

@@ -6,6 +6,7 @@
 
 #include "commands.hpp"
 #include "sifter/load.hpp"
+#include "sifter/report/csv.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/terminal.hpp"
@@ -18,6 +19,7 @@ struct CheckOptions {
   std::string project;
   std::string json_path;
   std::string worksheet_csv_path;
+  std::string csv_path;
   bool quiet = false;
   bool no_exact = false;
   int samples = 0;
@@ -47,6 +49,7 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("--json", opts->json_path, "write sifter-results/1 JSON to FILE ('-' for stdout)");
   cmd->add_option("--worksheet-csv", opts->worksheet_csv_path, "write the LOPA worksheet rows as CSV to FILE");
+  cmd->add_option("--csv", opts->csv_path, "write one CSV row per SIF with its key results to FILE");
   cmd->add_flag("--quiet,-q", opts->quiet, "print no summary (errors and warnings still go to stderr)");
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
   cmd->add_option("--samples", opts->samples, "Monte Carlo samples per SIF on the uncertain failure data")
@@ -55,7 +58,7 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("--threads", opts->threads, "threads for the Monte Carlo (default: every core)")
       ->check(CLI::Range(0, 256));
   return [opts]() {
-    report::refuse_overwriting_inputs({opts->json_path, opts->worksheet_csv_path}, {opts->project});
+    report::refuse_overwriting_inputs({opts->json_path, opts->worksheet_csv_path, opts->csv_path}, {opts->project});
     const LoadedProject loaded = load_project_file(opts->project);
     VerifyOptions vo;
     vo.exact = !opts->no_exact;
@@ -67,10 +70,12 @@ Action add_check_command(CLI::App& app) {
     // Render everything before writing anything, so that a failure leaves no partial output.
     const std::string json_text = opts->json_path.empty() ? "" : report::results_json(result).dump(2) + "\n";
     const std::string worksheet = opts->worksheet_csv_path.empty() ? "" : report::worksheet_csv(result);
+    const std::string sif_rows = opts->csv_path.empty() ? "" : report::sif_csv(result);
     const bool summary_to_stdout = !opts->quiet && opts->json_path != "-";
     const std::string summary = summary_to_stdout ? report::render_terminal(result) : "";
     if (!opts->json_path.empty()) report::write_output(opts->json_path, json_text);
     if (!opts->worksheet_csv_path.empty()) report::write_output(opts->worksheet_csv_path, worksheet);
+    if (!opts->csv_path.empty()) report::write_output(opts->csv_path, sif_rows);
     if (summary_to_stdout) std::cout << summary;
     return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
   };

@@ -34,5 +34,7 @@ Action add_sensitivity_command(CLI::App& app);
 
 /// `sifter diff OLD NEW`: changed inputs, results and verdicts between two revisions.
 Action add_diff_command(CLI::App& app);
+/// `sifter report PROJECT -o FILE`: write the HTML or Markdown report.
+Action add_report_command(CLI::App& app);
 
 }  // namespace sifter::cli

@@ -1,0 +1,79 @@
+// `sifter report`: verify a project and write the report a reviewer reads, as HTML or Markdown.
+#include <cstdlib>
+#include <ctime>
+#include <filesystem>
+#include <memory>
+
+#include "commands.hpp"
+#include "sifter/diagnostics.hpp"
+#include "sifter/load.hpp"
+#include "sifter/report/html.hpp"
+#include "sifter/report/markdown.hpp"
+#include "sifter/report/output_file.hpp"
+#include "sifter/report_data.hpp"
+#include "sifter/verify.hpp"
+
+namespace sifter::cli {
+namespace {
+
+struct ReportCommandOptions {
+  std::string project;
+  std::string output;
+  bool no_exact = false;
+};
+
+enum class ReportFormat { kHtml, kMarkdown };
+
+// The format from the output's extension: .md (or .markdown) is Markdown; .html, .htm, none or
+// "-" (stdout) is HTML.
+ReportFormat format_of(const std::string& output) {
+  if (output == "-") return ReportFormat::kHtml;
+  const std::string ext = std::filesystem::path(output).extension().string();
+  if (ext == ".md" || ext == ".markdown") return ReportFormat::kMarkdown;
+  if (ext.empty() || ext == ".html" || ext == ".htm") return ReportFormat::kHtml;
+  throw UsageError("cannot tell the format of " + output + ": expected a name ending in .html or .md, found \"" + ext +
+                   "\"");
+}
+
+// Today's date (UTC), or that of SOURCE_DATE_EPOCH when set, so that a report can be reproduced.
+std::string run_date() {
+  std::time_t now = std::time(nullptr);
+  if (const char* epoch = std::getenv("SOURCE_DATE_EPOCH"); epoch && *epoch) {
+    char* end = nullptr;
+    const long long v = std::strtoll(epoch, &end, 10);
+    if (end && *end == '\0' && v >= 0) now = static_cast<std::time_t>(v);
+  }
+  std::tm utc{};
+  gmtime_r(&now, &utc);
+  char buf[16];
+  std::strftime(buf, sizeof buf, "%Y-%m-%d", &utc);
+  return buf;
+}
+
+}  // namespace
+
+Action add_report_command(CLI::App& app) {
+  auto opts = std::make_shared<ReportCommandOptions>();
+  auto* cmd = app.add_subcommand("report", "Write a self-contained report (HTML or Markdown) of a project's verification");
+  cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
+  cmd->add_option("-o,--output", opts->output, "the report file: NAME.html (default format) or NAME.md")->required();
+  cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
+  return [opts]() {
+    report::refuse_overwriting_inputs({opts->output}, {opts->project});
+    const ReportFormat format = format_of(opts->output);
+    const LoadedProject loaded = load_project_file(opts->project);
+    VerifyOptions vo;
+    vo.exact = !opts->no_exact;
+    const ProjectResult result = verify_project(loaded, vo);
+    ReportOptions ro;
+    ro.date = run_date();
+    ro.exact = vo.exact;
+    const ReportData data = build_report_data(loaded.project, result, ro);
+    const std::string text = format == ReportFormat::kMarkdown ? report::render_markdown(result, data)
+                                                               : report::render_html(result, data);
+    report::write_output(opts->output, text);
+    return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
+  };
+}
+
+}  // namespace sifter::cli
