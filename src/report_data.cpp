@@ -4,7 +4,10 @@
 #include <algorithm>
 #include <cassert>
 
+#include "sifter/cross_check.hpp"
+#include "sifter/diagnostics.hpp"
 #include "sifter/sil.hpp"
+#include "sifter/whatif.hpp"
 
 namespace sifter {
 
@@ -30,6 +33,38 @@ std::optional<double> required_line(const SifResult& sif) {
   return line;
 }
 
+// PFD(t) from the exact engine where it models every group; else the simplified sawtooth.
+PfdPlot pfd_plot(const Project& project, const Sif& sif, const ReportOptions& options) {
+  if (options.exact) {
+    try {
+      const SifCurve c = exact_curve(project, sif, static_cast<int>(options.curve_samples));
+      return PfdPlot{c.time_hours, c.pfd_sif, c.pfd_subsystems,
+                     "exact multi-phase Markov model of every group (matrix exponential; Van Loan's form for the "
+                     "integrals); PFD_SIF(t) = 1 - prod(1 - PFD_i(t))"};
+    } catch (const Error&) {
+      // A group the exact engine cannot model: the simplified curve, which says so.
+    }
+  }
+  return simplified_curve(project, sif, options.curve_samples);
+}
+
+// The tornado rows from the what-if engine, widest swing first.
+std::vector<SensitivityRow> sensitivity_rows(const WhatIf& what_if, std::size_t sif) {
+  // The report draws the inputs that matter: the widest dozen, and none that moves the figure
+  // by less than a thousandth of itself (the command `sifter sensitivity` lists them all).
+  constexpr std::size_t kMostRows = 12;
+  constexpr double kLeastRelativeSwing = 1e-3;
+  std::vector<SensitivityRow> rows;
+  try {
+    const SensitivityResult r = sensitivity(what_if, sif, 2.0);
+    for (const auto& in : r.inputs)
+      if (in.swing > kLeastRelativeSwing * r.base && rows.size() < kMostRows) rows.push_back({in.name, in.at_low, in.at_high});
+  } catch (const Error&) {
+    // No requirement to rank against: the section says "not computed".
+  }
+  return rows;
+}
+
 }  // namespace
 
 ReportData build_report_data(const Project& project, const ProjectResult& result, const ReportOptions& options) {
@@ -38,13 +73,15 @@ ReportData build_report_data(const Project& project, const ProjectResult& result
   data.date = options.date;
   data.tool_version = SIFTER_VERSION;
   data.exact_requested = options.exact;
+  const WhatIf what_if(project);
   for (std::size_t i = 0; i < result.sifs.size(); ++i) {
     const SifResult& r = result.sifs[i];
     SifReportData d;
     d.required_pfd = required_line(r);
     d.limiting = limiting_results(r);
     if (r.demand_mode == DemandMode::kLow && r.pfd_avg) {
-      d.pfd_curve = simplified_curve(project, project.sifs[i], options.curve_samples);
+      d.pfd_curve = pfd_plot(project, project.sifs[i], options);
+      if (options.sensitivity) d.sensitivity = sensitivity_rows(what_if, i);
       if (d.required_pfd) d.interval_sweep = interval_sweep(project, project.sifs[i], *d.required_pfd);
     }
     data.sifs.push_back(std::move(d));

@@ -3,6 +3,8 @@
 
 #include <gtest/gtest.h>
 
+#include <cmath>
+
 #include "sifter/load.hpp"
 
 namespace sifter {
@@ -36,14 +38,18 @@ TEST(ReportData, TheRequiredLineIsTheStricterOfTheSilBandAndTheRequiredPfd) {
   EXPECT_NEAR(c.data.sifs[0].interval_sweep->required_pfd, 1e-2, 1e-2 * kRelTol);
 }
 
-TEST(ReportData, EachLowDemandSifGetsItsCurveAndSweepAndNoSensitivityYet) {
+TEST(ReportData, EachLowDemandSifGetsItsExactCurveSweepAndSensitivityRanking) {
   const Computed c = example();
   for (std::size_t i = 0; i < c.data.sifs.size(); ++i) {
     const auto& d = c.data.sifs[i];
     ASSERT_TRUE(d.pfd_curve.has_value());
     EXPECT_EQ(d.pfd_curve->pfd_subsystems.size(), c.result.sifs[i].subsystems.size());
     EXPECT_TRUE(d.interval_sweep.has_value());
-    EXPECT_TRUE(d.sensitivity.empty());  // until the what-if engine is wired
+    EXPECT_EQ(d.pfd_curve->engine.rfind("exact multi-phase Markov model", 0), 0u);
+    ASSERT_FALSE(d.sensitivity.empty());
+    for (std::size_t k = 1; k < d.sensitivity.size(); ++k)  // widest swing first
+      EXPECT_GE(std::abs(d.sensitivity[k - 1].high_pfd - d.sensitivity[k - 1].low_pfd),
+                std::abs(d.sensitivity[k].high_pfd - d.sensitivity[k].low_pfd));
   }
   EXPECT_EQ(c.data.date, "2025-01-31");
   EXPECT_EQ(c.data.tool_version, SIFTER_VERSION);

@@ -42,6 +42,7 @@ struct ReportOptions {
   std::string date;  ///< as ReportData::date
   bool exact = true;
   std::size_t curve_samples = 400;  ///< uniform samples of each PFD(t) curve
+  bool sensitivity = true;          ///< rank each SIF's inputs (what-if engine, factor 2)
 };
 
 /// The drawings of every SIF of a verified project. `result` must come from verify_project on
