@@ -13,4 +13,10 @@ function(sifter_set_warnings target)
                                              -fno-sanitize-recover=undefined)
     target_link_options(${target} PRIVATE -fsanitize=address,undefined)
   endif()
+  if(SIFTER_FUZZ)
+    # Coverage for libFuzzer and the same sanitizers; the fuzz target itself links -fsanitize=fuzzer.
+    target_compile_options(${target} PRIVATE -fsanitize=fuzzer-no-link,address,undefined -fno-omit-frame-pointer
+                                             -fno-sanitize-recover=undefined)
+    target_link_options(${target} PRIVATE -fsanitize=address,undefined)
+  endif()
 endfunction()

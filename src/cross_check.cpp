@@ -104,16 +104,6 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
       return;
     }
     modelled.push_back(*inputs[i]);
-    const auto& in = *inputs[i];
-    for (const auto& ch : in.channels) {
-      const double x = ch.lambda_du.per_hour * in.proof_test_interval.hours;
-      if (x > kSmallRateLimit) {
-        warnings.push_back({sif.subsystems[i].pointer, "lambda_du x T1 = " + std::to_string(x).substr(0, 5) +
-                                                           " exceeds 0.1: the simplified equations lose accuracy; "
-                                                           "rely on the exact cross-check"});
-        break;
-      }
-    }
   }
   if (modelled.empty()) return;
   const auto exact_ptr = cache.get(modelled);

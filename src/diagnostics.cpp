@@ -5,14 +5,26 @@
 
 namespace sifter {
 
+namespace {
+// Fields quote the input; a hostile input (a key of 10 MB) must not make a message of megabytes.
+constexpr std::size_t kMaxFieldBytes = 400;
+
+std::string shortened(const std::string& text) {
+  if (text.size() <= kMaxFieldBytes) return text;
+  std::size_t cut = kMaxFieldBytes;
+  while (cut > 0 && (static_cast<unsigned char>(text[cut]) & 0xC0) == 0x80) --cut;  // keep UTF-8 whole
+  return text.substr(0, cut) + "... (" + std::to_string(text.size()) + " bytes)";
+}
+}  // namespace
+
 std::string format_diagnostic(const Diagnostic& d) {
-  std::string out = d.file;
+  std::string out = shortened(d.file);
   if (d.line > 0) out += ":" + std::to_string(d.line) + ":" + std::to_string(d.column);
   out += ": ";
-  if (!d.pointer.empty()) out += d.pointer + ": ";
-  out += "expected " + d.expected;
-  if (!d.found.empty()) out += ", found " + d.found;
-  if (!d.hint.empty()) out += "\n  hint: " + d.hint;
+  if (!d.pointer.empty()) out += shortened(d.pointer) + ": ";
+  out += "expected " + shortened(d.expected);
+  if (!d.found.empty()) out += ", found " + shortened(d.found);
+  if (!d.hint.empty()) out += "\n  hint: " + shortened(d.hint);
   return out;
 }
 

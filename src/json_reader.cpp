@@ -8,9 +8,17 @@
 #include "sifter/json_source.hpp"
 
 namespace sifter::detail {
+namespace {
+// A JSON -0.0 is read as zero, so that no "-0" reaches an output.
+double without_negative_zero(double v) { return v == 0.0 ? 0.0 : v; }
+}  // namespace
 
 void LoadContext::error(int source, const std::string& pointer, std::string expected, std::string found,
                         std::string hint) {
+  if (problems.size() >= kMaxReportedProblems) {  // a hostile file must not make a message of gigabytes
+    ++problems_not_kept;
+    return;
+  }
   Diagnostic d;
   d.file = sources.empty() ? std::string() : sources[static_cast<std::size_t>(source)].path;
   d.pointer = pointer;
@@ -43,8 +51,16 @@ std::vector<Diagnostic> LoadContext::located() const {
     }
   }
   std::vector<Diagnostic> out;
-  out.reserve(pending.size());
+  out.reserve(pending.size() + 1);
   for (auto& p : pending) out.push_back(std::move(p.diagnostic));
+  if (problems_not_kept > 0) {
+    Diagnostic more;
+    more.file = sources.empty() ? std::string() : sources.front().path;
+    more.expected = "at most " + std::to_string(kMaxReportedProblems) + " problems reported at once";
+    more.found = std::to_string(problems_not_kept) + " more";
+    more.hint = "correct the problems above and run again";
+    out.push_back(std::move(more));
+  }
   return out;
 }
 
@@ -70,6 +86,10 @@ std::string nearest(const std::string& word, const std::vector<std::string>& kno
   std::string best;
   std::size_t best_distance = 4;
   for (const auto& k : known) {
+    // The distance is at least the difference in length: skip hopeless candidates, so that a
+    // hostile 10 MB key costs one comparison of lengths, not a 10 MB x N table.
+    const std::size_t length_gap = word.size() > k.size() ? word.size() - k.size() : k.size() - word.size();
+    if (length_gap >= best_distance) continue;
     // Levenshtein distance, small strings only.
     std::vector<std::size_t> prev(k.size() + 1), cur(k.size() + 1);
     for (std::size_t j = 0; j <= k.size(); ++j) prev[j] = j;
@@ -100,7 +120,7 @@ std::string ObjectReader::at(const std::string& key) const { return pointer_ + "
 bool ObjectReader::has(const std::string& key) const { return is_object_ && value_.contains(key); }
 
 const Json* ObjectReader::member(const std::string& key) {
-  known_.insert(key);
+  mark_known(key);
   if (!is_object_) return nullptr;
   auto it = value_.find(key);
   return it == value_.end() ? nullptr : &*it;
@@ -135,7 +155,7 @@ std::optional<double> ObjectReader::number(const std::string& key, bool required
     type_error(key, "a finite number", *v);
     return std::nullopt;
   }
-  return v->get<double>();
+  return without_negative_zero(v->get<double>());
 }
 
 std::optional<int> ObjectReader::integer(const std::string& key, int lo, int hi, bool required) {
@@ -170,7 +190,7 @@ std::optional<double> ObjectReader::fraction(const std::string& key, bool requir
     type_error(key, expected, *v);
     return std::nullopt;
   }
-  return value;
+  return without_negative_zero(*value);
 }
 
 std::optional<double> ObjectReader::probability(const std::string& key, bool required) {
@@ -181,7 +201,7 @@ std::optional<double> ObjectReader::probability(const std::string& key, bool req
     type_error(key, expected, *v);
     return std::nullopt;
   }
-  return v->get<double>();
+  return without_negative_zero(v->get<double>());
 }
 
 std::optional<Rate> ObjectReader::rate(const std::string& key, bool required) {
@@ -257,15 +277,23 @@ std::vector<std::string> ObjectReader::strings(const std::string& key) {
   return out;
 }
 
+// A key may be marked twice; finish() removes the repeats from its hint.
+void ObjectReader::mark_known(std::string_view key) { known_.emplace_back(key); }
+
 void ObjectReader::allow(std::initializer_list<const char*> keys) {
-  for (const char* k : keys) known_.insert(k);
+  for (const char* k : keys) mark_known(k);
 }
 
 void ObjectReader::finish() {
   if (!is_object_) return;
-  const std::vector<std::string> known(known_.begin(), known_.end());
+  std::vector<std::string> known;  // sorted for the hint, only when a key is unknown
   for (auto it = value_.begin(); it != value_.end(); ++it) {
-    if (known_.count(it.key())) continue;
+    if (std::find(known_.begin(), known_.end(), it.key()) != known_.end()) continue;
+    if (known.empty()) {
+      known = known_;
+      std::sort(known.begin(), known.end());
+      known.erase(std::unique(known.begin(), known.end()), known.end());
+    }
     const auto near = nearest(it.key(), known);
     std::string hint = near.empty() ? "" : "did you mean \"" + near + "\"? ";
     std::string list;

@@ -2,6 +2,8 @@
 #include "sifter/json_source.hpp"
 
 #include <algorithm>
+#include <cstdint>
+#include <deque>
 #include <unordered_map>
 #include <unordered_set>
 
@@ -34,111 +36,226 @@ TextPosition position_of_offset(std::string_view text, std::size_t offset) {
 
 namespace {
 
-// A cursor over the text that keeps its line and column as it moves.
+// Line and column of offsets met in increasing order, in one pass over the text overall.
+class PositionTracker {
+ public:
+  explicit PositionTracker(std::string_view text) : text_(text) {}
+  TextPosition at(std::size_t offset) {
+    if (offset < offset_) {  // not expected, but stay correct
+      offset_ = 0;
+      pos_ = {1, 1};
+    }
+    offset = std::min(offset, text_.size());
+    for (; offset_ < offset; ++offset_) {
+      if (text_[offset_] == '\n') {
+        ++pos_.line;
+        pos_.column = 1;
+      } else if ((static_cast<unsigned char>(text_[offset_]) & 0xC0) != 0x80) {
+        ++pos_.column;  // count characters, not UTF-8 continuation bytes
+      }
+    }
+    return pos_;
+  }
+
+ private:
+  std::string_view text_;
+  std::size_t offset_ = 0;
+  TextPosition pos_{1, 1};
+};
+
+void append_utf8(std::string& out, std::uint32_t cp) {
+  if (cp < 0x80) {
+    out += static_cast<char>(cp);
+  } else if (cp < 0x800) {
+    out += static_cast<char>(0xC0 | (cp >> 6));
+    out += static_cast<char>(0x80 | (cp & 0x3F));
+  } else if (cp < 0x10000) {
+    out += static_cast<char>(0xE0 | (cp >> 12));
+    out += static_cast<char>(0x80 | ((cp >> 6) & 0x3F));
+    out += static_cast<char>(0x80 | (cp & 0x3F));
+  } else {
+    out += static_cast<char>(0xF0 | (cp >> 18));
+    out += static_cast<char>(0x80 | ((cp >> 12) & 0x3F));
+    out += static_cast<char>(0x80 | ((cp >> 6) & 0x3F));
+    out += static_cast<char>(0x80 | (cp & 0x3F));
+  }
+}
+
+// A cursor over the text; positions are computed only where they are asked for.
 class Cursor {
  public:
   explicit Cursor(std::string_view text) : text_(text) {}
   [[nodiscard]] bool done() const { return i_ >= text_.size(); }
   [[nodiscard]] char peek() const { return done() ? '\0' : text_[i_]; }
-  [[nodiscard]] TextPosition position() const { return pos_; }
-  void advance() {
-    if (done()) return;
-    if (text_[i_] == '\n') {
-      ++pos_.line;
-      pos_.column = 1;
-    } else if ((static_cast<unsigned char>(text_[i_]) & 0xC0) != 0x80) {
-      ++pos_.column;
-    }
-    ++i_;
-  }
+  [[nodiscard]] std::size_t offset() const { return i_; }
+  void advance() { ++i_; }
   void skip_space() {
-    while (!done() && (peek() == ' ' || peek() == '\n' || peek() == '\r' || peek() == '\t')) advance();
+    while (i_ < text_.size() && (text_[i_] == ' ' || text_[i_] == '\n' || text_[i_] == '\r' || text_[i_] == '\t')) ++i_;
   }
-  // Reads a JSON string at the cursor (which is on the opening quote); false on bad syntax.
-  // Escapes are decoded enough to build pointers: \uXXXX outside ASCII is kept as written.
-  bool read_string(std::string& out) {
-    out.clear();
-    advance();
-    while (!done()) {
-      char c = peek();
+  // Reads a JSON string at the cursor (on the opening quote) into `out`, decoded as a JSON
+  // reader decodes it (escapes, \uXXXX and surrogate pairs), so that "b\u0065ta" and "beta"
+  // are the same key; false on bad syntax. A string without escapes is only viewed, not copied.
+  bool read_string(std::string_view& out, std::string& buffer) {
+    ++i_;
+    const std::size_t begin = i_;
+    while (i_ < text_.size() && text_[i_] != '"' && text_[i_] != '\\') ++i_;
+    if (i_ >= text_.size()) return false;
+    if (text_[i_] == '"') {
+      out = text_.substr(begin, i_ - begin);
+      ++i_;
+      return true;
+    }
+    buffer.assign(text_.substr(begin, i_ - begin));
+    while (i_ < text_.size()) {
+      const char c = text_[i_];
       if (c == '"') {
-        advance();
+        ++i_;
+        out = buffer;
         return true;
       }
-      if (c == '\\') {
-        advance();
-        char e = peek();
-        switch (e) {
-          case 'n': out += '\n'; break;
-          case 't': out += '\t'; break;
-          case 'r': out += '\r'; break;
-          case 'b': out += '\b'; break;
-          case 'f': out += '\f'; break;
-          case 'u': out += "\\u"; break;
-          default: out += e; break;
-        }
-        advance();
+      if (c != '\\') {
+        buffer += c;
+        ++i_;
         continue;
       }
-      out += c;
-      advance();
+      if (++i_ >= text_.size()) return false;
+      const char e = text_[i_++];
+      switch (e) {
+        case 'n': buffer += '\n'; break;
+        case 't': buffer += '\t'; break;
+        case 'r': buffer += '\r'; break;
+        case 'b': buffer += '\b'; break;
+        case 'f': buffer += '\f'; break;
+        case 'u': {
+          std::uint32_t cp = 0;
+          if (!read_hex4(cp)) return false;
+          if (cp >= 0xD800 && cp <= 0xDBFF && i_ + 1 < text_.size() && text_[i_] == '\\' && text_[i_ + 1] == 'u') {
+            const std::size_t back = i_;
+            i_ += 2;
+            std::uint32_t low = 0;
+            if (read_hex4(low) && low >= 0xDC00 && low <= 0xDFFF)
+              cp = 0x10000 + ((cp - 0xD800) << 10) + (low - 0xDC00);
+            else
+              i_ = back;  // a lone surrogate: the parser refuses the text anyway
+          }
+          append_utf8(buffer, cp);
+          break;
+        }
+        default: buffer += e; break;
+      }
     }
     return false;
   }
   void skip_scalar() {
-    while (!done()) {
-      char c = peek();
+    while (i_ < text_.size()) {
+      const char c = text_[i_];
       if (c == ',' || c == '}' || c == ']' || c == ' ' || c == '\n' || c == '\r' || c == '\t') return;
-      advance();
+      ++i_;
     }
   }
 
  private:
+  bool read_hex4(std::uint32_t& out) {
+    if (i_ + 4 > text_.size()) return false;
+    out = 0;
+    for (int k = 0; k < 4; ++k) {
+      const char h = text_[i_++];
+      out <<= 4;
+      if (h >= '0' && h <= '9') out |= static_cast<std::uint32_t>(h - '0');
+      else if (h >= 'a' && h <= 'f') out |= static_cast<std::uint32_t>(h - 'a' + 10);
+      else if (h >= 'A' && h <= 'F') out |= static_cast<std::uint32_t>(h - 'A' + 10);
+      else return false;
+    }
+    return true;
+  }
+
   std::string_view text_;
   std::size_t i_ = 0;
-  TextPosition pos_{1, 1};
+};
+
+// The keys seen in one object: a short list searched in place, a hash set once it grows, so
+// that an object of a million keys stays linear.
+class KeySet {
+ public:
+  // False when the key was there already.
+  bool insert(std::string_view key, std::deque<std::string>& arena, bool owned) {
+    if (owned) key = arena.emplace_back(key);
+    if (large_.empty()) {
+      if (std::find(small_.begin(), small_.end(), key) != small_.end()) return false;
+      if (small_.size() < kSmall) {
+        small_.push_back(key);
+        return true;
+      }
+      large_.insert(small_.begin(), small_.end());
+      small_.clear();
+    }
+    return large_.insert(key).second;
+  }
+
+ private:
+  static constexpr std::size_t kSmall = 16;
+  std::vector<std::string_view> small_;
+  std::unordered_set<std::string_view> large_;
 };
 
 struct Frame {
   bool is_object = false;
-  std::size_t index = 0;
-  std::size_t pointer_length = 0;  // length of the pointer of this container
-  std::unordered_set<std::string> keys;
+  std::size_t index = 0;  // current element of an array
+  std::string key;        // current member of an object (decoded)
+  KeySet keys;
 };
+
+// The pointer of the current place, from the frames (built only when needed).
+std::string pointer_of(const std::vector<Frame>& stack, std::size_t levels) {
+  std::string pointer;
+  for (std::size_t i = 0; i < std::min(levels, stack.size()); ++i)
+    pointer += "/" + (stack[i].is_object ? escape_pointer_token(stack[i].key) : std::to_string(stack[i].index));
+  return pointer;
+}
 
 }  // namespace
 
 std::vector<StructureProblem> scan_json_structure(
     std::string_view text, const std::function<void(const std::string&, TextPosition)>& visit) {
   std::vector<StructureProblem> problems;
+  std::vector<std::size_t> problem_offsets;
   Cursor cur(text);
+  PositionTracker positions(text);
   std::vector<Frame> stack;
-  std::string pointer;
-  std::string key;
+  std::deque<std::string> arena;  // keys that needed decoding
+  std::string buffer;
+  std::string_view key;
   bool expect_value = true;  // otherwise: expect a separator or a closing bracket
+  // With a visitor the pointer is kept up to date as the scan moves; without, it is built
+  // from the frames only for a problem.
+  std::string pointer;
+  auto seen = [&](std::size_t offset) {
+    if (visit) visit(pointer, positions.at(offset));
+  };
+  auto finish = [&]() {
+    PositionTracker located(text);  // problems were found in text order
+    for (std::size_t i = 0; i < problems.size(); ++i) problems[i].position = located.at(problem_offsets[i]);
+    return problems;
+  };
 
   cur.skip_space();
-  if (visit) visit(pointer, cur.position());
+  seen(cur.offset());
   while (true) {
     cur.skip_space();
-    if (cur.done()) return problems;
+    if (cur.done()) return finish();
     if (expect_value) {
       const char c = cur.peek();
       if (c == '{' || c == '[') {
         if (static_cast<int>(stack.size()) >= kMaxNestingDepth) {
           // Name the place by its first levels only; the full pointer would be unreadable.
-          std::size_t cut = 0;
-          for (int level = 0; level < 6 && cut != std::string::npos; ++level) cut = pointer.find('/', cut + 1);
-          const std::string shown = cut == std::string::npos ? pointer : pointer.substr(0, cut) + "/...";
-          problems.push_back({shown, cur.position(),
-                              "nesting no deeper than " + std::to_string(kMaxNestingDepth) + " levels",
+          const std::string shown = pointer_of(stack, 6) + (stack.size() > 6 ? "/..." : "");
+          problems.push_back({shown, {}, "nesting no deeper than " + std::to_string(kMaxNestingDepth) + " levels",
                               "deeper nesting", "a project file needs only a few levels; check the brackets"});
-          return problems;
+          problem_offsets.push_back(cur.offset());
+          return finish();
         }
-        Frame f;
+        Frame& f = stack.emplace_back();
         f.is_object = c == '{';
-        f.pointer_length = pointer.size();
-        stack.push_back(std::move(f));
         cur.advance();
         cur.skip_space();
         if (cur.peek() == (c == '{' ? '}' : ']')) {
@@ -148,14 +265,14 @@ std::vector<StructureProblem> scan_json_structure(
           continue;
         }
         if (c == '[') {
-          pointer += "/0";
-          if (visit) visit(pointer, cur.position());
+          if (visit) pointer += "/0";
+          seen(cur.offset());
           continue;
         }
         // An object: read its first key below.
       } else if (c == '"') {
-        std::string ignored;
-        if (!cur.read_string(ignored)) return problems;
+        std::string_view ignored;
+        if (!cur.read_string(ignored, buffer)) return finish();
         expect_value = false;
         continue;
       } else {
@@ -164,41 +281,45 @@ std::vector<StructureProblem> scan_json_structure(
         continue;
       }
     } else {
-      if (stack.empty()) return problems;  // trailing text: the parser reports it
+      if (stack.empty()) return finish();  // trailing text: the parser reports it
       Frame& top = stack.back();
       const char c = cur.peek();
-      pointer.resize(top.pointer_length);
+      if (visit) pointer.resize(pointer.rfind('/') == std::string::npos ? 0 : pointer.rfind('/'));
       if (c == (top.is_object ? '}' : ']')) {
         cur.advance();
         stack.pop_back();
         continue;
       }
-      if (c != ',') return problems;
+      if (c != ',') return finish();
       cur.advance();
       cur.skip_space();
       if (!top.is_object) {
         ++top.index;
-        pointer += "/" + std::to_string(top.index);
-        if (visit) visit(pointer, cur.position());
+        if (visit) pointer += "/" + std::to_string(top.index);
+        seen(cur.offset());
         expect_value = true;
         continue;
       }
     }
     // Read an object member's key, then expect its value.
     cur.skip_space();
-    if (cur.peek() != '"') return problems;
-    const TextPosition key_pos = cur.position();
-    if (!cur.read_string(key)) return problems;
+    if (cur.peek() != '"') return finish();
+    const std::size_t key_offset = cur.offset();
+    if (!cur.read_string(key, buffer)) return finish();
     Frame& obj = stack.back();
-    pointer.resize(obj.pointer_length);
-    pointer += "/" + escape_pointer_token(key);
-    if (!obj.keys.insert(key).second) {
-      problems.push_back({pointer, key_pos, "each key once in an object", "\"" + key + "\" a second time",
+    obj.key.assign(key);
+    const bool decoded = key.data() == buffer.data();
+    if (!obj.keys.insert(key, arena, decoded)) {
+      problems.push_back({pointer_of(stack, stack.size()), {}, "each key once in an object",
+                          "\"" + obj.key + "\" a second time",
                           "remove one of the two; a JSON reader would silently keep only the last"});
+      problem_offsets.push_back(key_offset);
+      if (problems.size() >= kMaxReportedProblems) return finish();  // enough to refuse the file
     }
-    if (visit) visit(pointer, key_pos);
+    if (visit) pointer += "/" + escape_pointer_token(obj.key);
+    seen(key_offset);
     cur.skip_space();
-    if (cur.peek() != ':') return problems;
+    if (cur.peek() != ':') return finish();
     cur.advance();
     expect_value = true;
   }

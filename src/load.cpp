@@ -1,6 +1,7 @@
 // Reading a project file: bytes, structure, JSON, sections, libraries, then graph validation.
 #include "sifter/load.hpp"
 
+#include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
@@ -53,6 +54,22 @@ std::string read_file_bounded(const std::string& path, LoadContext* ctx, int sou
   return buf.str();
 }
 
+// The parser quotes the bytes it read last; bytes outside printable ASCII are shown as \xNN,
+// so that a message about invalid UTF-8 is not itself invalid UTF-8.
+std::string printable(const std::string& text) {
+  std::string out;
+  for (unsigned char c : text) {
+    if (c >= 0x20 && c < 0x7F) {
+      out += static_cast<char>(c);
+    } else {
+      char buf[5];
+      std::snprintf(buf, sizeof buf, "\\x%02X", c);
+      out += buf;
+    }
+  }
+  return out;
+}
+
 // Parses text already read into ctx.sources[source]; problems go to ctx. Returns null on failure.
 std::optional<Json> parse_source(LoadContext& ctx, int source, const std::string& pointer_in_parent) {
   const std::string& text = ctx.sources[static_cast<std::size_t>(source)].text;
@@ -78,7 +95,7 @@ std::optional<Json> parse_source(LoadContext& ctx, int source, const std::string
     std::string what = e.what();
     // nlohmann's message: "[json.exception.parse_error.101] parse error at line 3, column 5: syntax error ..."
     const auto colon = what.find(": ", what.find("parse error"));
-    std::string detail = colon == std::string::npos ? what : what.substr(colon + 2);
+    std::string detail = printable(colon == std::string::npos ? what : what.substr(colon + 2));
     const std::size_t offset = e.byte == 0 ? 0 : e.byte - 1;
     report(position_of_offset(text, offset), "", "valid JSON", detail,
            "check for a missing comma, quote or bracket near this place");
@@ -133,10 +150,14 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   detail::ModelIndex models;
   std::vector<std::string> chain{fs::weakly_canonical(project.file).string()};
   detail::read_libraries(ctx, top, base_dir, models, chain);
+  // Each section's JSON is released once it is read, so that a large register is never held
+  // twice (as JSON and as structs) at its full size.
   top.member("components");
   detail::read_components(ctx, *root, models, project);
+  root->erase("components");
   top.member("sifs");
   detail::read_sifs(ctx, *root, project);
+  root->erase("sifs");
   top.member("risk_criteria");
   top.member("scenarios");
   top.member("lopa");
@@ -216,9 +237,10 @@ LoadedProject load_project_text(const std::string& text, const std::string& name
 }
 
 LoadedProject load_project_file(const std::string& path) {
-  std::string text = read_file_bounded(path, nullptr, 0, "");
+  LoadContext ctx;
+  ctx.sources.push_back({path, read_file_bounded(path, nullptr, 0, "")});  // the one copy of the text
   const std::string base = fs::path(path).parent_path().string();
-  return load_project_text(text, path, base.empty() ? "." : base);
+  return load_from(ctx, base.empty() ? "." : base);
 }
 
 }  // namespace sifter

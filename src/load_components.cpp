@@ -1,5 +1,6 @@
 // Loading components and library models, with the two ways of writing failure rates.
 #include <cmath>
+#include <map>
 #include <set>
 
 #include "sifter/detail/load_parts.hpp"
@@ -177,6 +178,19 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     return;
   }
   std::set<std::string> seen;
+  // A model's fields are read once, however many components use it (a register names the same
+  // few models thousands of times).
+  std::map<std::string, ElementFields> model_fields;
+  auto fields_of = [&](const ModelEntry& entry, const std::string& id) -> const ElementFields& {
+    auto [cached, inserted] = model_fields.try_emplace(id);
+    if (inserted) {
+      LoadContext scratch;  // the model was checked in its own file already; its problems are not repeated
+      ObjectReader mr(scratch, entry.fields, entry.pointer, entry.source, "a library model");
+      mr.allow({"id", "source", "title", "note", "manufacturer", "tag_description"});
+      cached->second = read_element_fields(mr);
+    }
+    return cached->second;
+  };
   for (std::size_t i = 0; i < it->size(); ++i) {
     const std::string pointer = "/components/" + std::to_string(i);
     ObjectReader r(ctx, (*it)[i], pointer, 0, "a component");
@@ -200,11 +214,7 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
         ctx.error(0, r.at("model"), "the id of a model in the libraries", "\"" + c.model + "\"",
                   near.empty() ? "add the library that holds it to \"libraries\"" : "did you mean \"" + near + "\"?");
       } else {
-        LoadContext scratch;  // the model was checked in its own file already
-        scratch.sources = ctx.sources;
-        ObjectReader mr(scratch, m->second.fields, m->second.pointer, m->second.source, "a library model");
-        mr.allow({"id", "source", "title", "note", "manufacturer", "tag_description"});
-        fields = merge(read_element_fields(mr), own);
+        fields = merge(fields_of(m->second, m->first), own);
       }
     }
     c.rates = resolve_rates(fields);

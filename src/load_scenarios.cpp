@@ -1,5 +1,6 @@
 // Loading risk criteria and LOPA scenarios.
 #include <set>
+#include <unordered_set>
 
 #include "sifter/detail/load_parts.hpp"
 
@@ -94,7 +95,8 @@ Layer read_layer(LoadContext& ctx, const Json& value, const std::string& pointer
   return l;
 }
 
-Scenario read_scenario(LoadContext& ctx, const Json& value, const std::string& pointer, const Project& project) {
+Scenario read_scenario(LoadContext& ctx, const Json& value, const std::string& pointer, const Project& project,
+                       const std::unordered_set<std::string>& sif_ids) {
   ObjectReader r(ctx, value, pointer, 0, "a scenario");
   Scenario s;
   s.pointer = pointer;
@@ -160,13 +162,9 @@ Scenario read_scenario(LoadContext& ctx, const Json& value, const std::string& p
   for_each_in(ctx, r, "layers", "protection layers", [&](const Json& v, const std::string& p) {
     Layer l = read_layer(ctx, v, p);
     if (!l.sif.empty()) {
-      bool known = false;
-      std::vector<std::string> ids;
-      for (const auto& sif : project.sifs) {
-        known = known || sif.id == l.sif;
-        ids.push_back(sif.id);
-      }
-      if (!known) {
+      if (!sif_ids.count(l.sif)) {
+        std::vector<std::string> ids;
+        for (const auto& sif : project.sifs) ids.push_back(sif.id);
         const auto near = nearest(l.sif, ids);
         ctx.error(0, p + "/sif", "the id of a SIF in \"sifs\"", "\"" + l.sif + "\"",
                   near.empty() ? "define the SIF under \"sifs\"" : "did you mean \"" + near + "\"?");
@@ -216,8 +214,10 @@ void read_scenarios(LoadContext& ctx, const Json& root, Project& project) {
     return;
   }
   std::set<std::string> ids;
+  std::unordered_set<std::string> sif_ids;  // looked up once per SIF layer: no scan of every SIF
+  for (const auto& sif : project.sifs) sif_ids.insert(sif.id);
   for (std::size_t i = 0; i < it->size(); ++i) {
-    Scenario s = read_scenario(ctx, (*it)[i], "/scenarios/" + std::to_string(i), project);
+    Scenario s = read_scenario(ctx, (*it)[i], "/scenarios/" + std::to_string(i), project, sif_ids);
     if (!s.id.empty() && !ids.insert(s.id).second)
       ctx.error(0, s.pointer + "/id", "a scenario id used once", "\"" + s.id + "\" a second time");
     project.scenarios.push_back(std::move(s));

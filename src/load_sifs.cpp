@@ -1,4 +1,5 @@
 // Loading safety instrumented functions and their subsystems, with the project defaults.
+#include <algorithm>
 #include <cctype>
 #include <set>
 
@@ -10,15 +11,17 @@ namespace {
 
 constexpr int kMaxChannels = 8;
 
-// "2oo3", "1oo2D": K out of N; N at most 8.
+// "2oo3", "1oo2D": K out of N, both at least 1; N at most 8 is checked by the caller.
 std::optional<Vote> parse_vote(const std::string& text) {
   Vote v;
   std::size_t i = 0;
+  // Reads every digit; the value saturates at 1000 (far above any vote) so that it cannot overflow.
   auto read_int = [&](int& out) {
     if (i >= text.size() || !std::isdigit(static_cast<unsigned char>(text[i]))) return false;
     out = 0;
-    while (i < text.size() && std::isdigit(static_cast<unsigned char>(text[i])) && out < 100) out = out * 10 + (text[i++] - '0');
-    return true;
+    for (; i < text.size() && std::isdigit(static_cast<unsigned char>(text[i])); ++i)
+      out = std::min(1000, out * 10 + (text[i] - '0'));
+    return out >= 1;
   };
   if (!read_int(v.k)) return std::nullopt;
   if (text.compare(i, 2, "oo") != 0) return std::nullopt;
@@ -148,7 +151,7 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
   if (!vendor && sub.vote.n > 1 && !sub.vote.diagnostic && sub.vote.k < sub.vote.n && !beta_written)
     ctx.error(0, pointer, "\"beta\" on a redundant group (" + sub.vote.text() + ")", "no beta",
               "estimate beta with IEC 61508-6 Annex D; 2% to 10% is usual for field devices");
-  if (sub.vote.diagnostic && !beta_written)
+  if (!vendor && sub.vote.diagnostic && !beta_written)
     ctx.error(0, pointer, "\"beta\" on a redundant group (1oo2D)", "no beta",
               "estimate beta with IEC 61508-6 Annex D; 2% to 10% is usual");
   if (auto scaling = r.choice("ccf_scaling", {"none", "iec61508-6-d5"})) {

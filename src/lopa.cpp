@@ -7,6 +7,7 @@
 #include <cmath>
 #include <cstdio>
 #include <stdexcept>
+#include <unordered_map>
 
 #include "sifter/sil.hpp"
 
@@ -58,7 +59,10 @@ bool modifier_applies(const Modifier& modifier, const std::string& category) {
 
 LopaContext lopa_context_from_project(const Project& project) {
   LopaContext context;
-  for (const auto& sif : project.sifs) context.sifs[sif.id].demand_mode_stated = sif.demand_mode_stated;
+  for (std::size_t i = 0; i < project.sifs.size(); ++i) {
+    context.sifs[project.sifs[i].id].demand_mode_stated = project.sifs[i].demand_mode_stated;
+    context.sif_index.emplace(project.sifs[i].id, i);
+  }
   return context;
 }
 
@@ -376,18 +380,18 @@ std::vector<SifRequirement> sif_requirements(const std::vector<ScenarioResult>& 
     bool one_high = false;  // some scenario alone demands the SIF more than once a year
   };
   std::vector<Seen> seen;
+  std::unordered_map<std::string, std::size_t> position;  // of each SIF in `out`: no scan per scenario
   for (const auto& r : results) {
     if (!r.sif) continue;
-    auto it = std::find_if(out.begin(), out.end(), [&](const SifRequirement& q) { return q.sif == *r.sif; });
-    if (it == out.end()) {
+    auto [at, inserted] = position.try_emplace(*r.sif, out.size());
+    if (inserted) {
       out.push_back({});
       out.back().sif = *r.sif;
       seen.push_back({r.demand_mode_stated, false});
-      it = out.end() - 1;
     }
-    add_scenario(*it, r);
+    add_scenario(out[at->second], r);
     const double rate = r.demand_rate_per_yr.value_or(0.0);
-    if (!at_most(rate, kHighDemandAbovePerYear)) seen[static_cast<std::size_t>(it - out.begin())].one_high = true;
+    if (!at_most(rate, kHighDemandAbovePerYear)) seen[at->second].one_high = true;
   }
   for (std::size_t i = 0; i < out.size(); ++i) {
     SifRequirement& req = out[i];

@@ -61,6 +61,10 @@ class LayerRules {
  public:
   LayerRules(const Project& project, const Scenario& scenario, const LopaContext& context)
       : project_(project), scenario_(scenario), context_(context) {
+    // The SIFs the layers credit first, found by index: add_scenario then needs no scan.
+    for (const auto& layer : scenario.layers)
+      if (auto it = context.sif_index.find(layer.sif); !layer.sif.empty() && it != context.sif_index.end())
+        graph_.add_sif(project, project.sifs[it->second]);
     vertices_ = graph_.add_scenario(project, scenario);
   }
 

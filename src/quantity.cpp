@@ -36,6 +36,7 @@ NumberAndUnit split_number(std::string_view text) {
   auto [ptr, ec] = std::from_chars(first, last, value);
   if (ec == std::errc::result_out_of_range) return {false, true, 0.0, {}};
   if (ec != std::errc() || ptr == first) return {};
+  if (value == 0.0) value = 0.0;  // "-0" reads as zero, so that no "-0" reaches an output
   return {true, false, value, trim(std::string_view(ptr, static_cast<std::size_t>(last - ptr)))};
 }
 

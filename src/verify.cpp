@@ -170,6 +170,22 @@ void apply_constraints(const Project& project, const Sif& sif, SifResult& r, con
     r.meets_target = *r.meets_target && r.sil_architecture >= *r.sil_required && r.sil_systematic >= *r.sil_required;
 }
 
+// The Annex B equations linearise exp(-lDU T1); for one channel, lDU T1 / 2 overstates the
+// exact average 1 - (1 - exp(-x)) / x by about 3.4 % at x = 0.1 and 36 % at x = 1
+// (REFERENCES.md section 8, computed).
+constexpr double kSimplifiedLimitLambdaT = 0.1;
+
+void warn_beyond_simplified_range(const Sif& sif, const SifResult& r, std::vector<Warning>& warnings) {
+  for (std::size_t i = 0; i < r.subsystems.size() && i < sif.subsystems.size(); ++i) {
+    if (sif.subsystems[i].is_vendor()) continue;
+    const double x = r.subsystems[i].channel_rates.lambda_du.per_hour * r.subsystems[i].proof_test_interval.hours;
+    if (x > kSimplifiedLimitLambdaT)
+      warnings.push_back({sif.subsystems[i].pointer, "lDU·T1 = " + num(x) + " for a channel of " + r.subsystems[i].name +
+                                                         ": the simplified equations lose accuracy above lDU·T1 = 0.1; "
+                                                         "see the exact cross-check"});
+  }
+}
+
 }  // namespace
 
 GroupData group_data_for(const Project& project, const Subsystem& sub) {
@@ -226,6 +242,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   for (const auto& sub : sif.subsystems)
     r.subsystems.push_back(evaluate_subsystem(project, sub, r.demand_mode, r.assumptions, defaults));
   describe_defaults(project, defaults, r.assumptions);
+  warn_beyond_simplified_range(sif, r, warnings);
 
   // Series subsystems: the SIF's PFDavg (PFH) is the sum of theirs (IEC 61508-6:2010 B.2.2,
   // rare-event approximation of 1 - prod(1 - PFD_i)).
@@ -485,6 +502,7 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
     out.scenarios = evaluate_scenarios(project, context);
     out.shared_devices = shared_devices(project);
   }
+  refuse_figures_beyond_finite(project, out);
   return out;
 }
 

@@ -3,6 +3,8 @@
 
 #include <gtest/gtest.h>
 
+#include <cmath>
+
 namespace sifter {
 namespace {
 
@@ -124,6 +126,40 @@ TEST(Verify, ASifWithoutTargetIsComputedButNotJudged) {
   EXPECT_EQ(r.warnings.back().message, "no target and no scenario names this SIF; it is computed but not judged");
 }
 
+// Where the Annex B equations stop being accurate: for one channel, lDU T1 / 2 overstates the
+// exact 1 - (1 - exp(-x)) / x by about 3.4 % at x = lDU T1 = 0.1 (REFERENCES.md section 8, computed).
+std::string one_channel(const std::string& lambda_du, const std::string& interval) {
+  return R"({"format": "sifter-project/1", "defaults": {"proof_test_interval": ")" + interval + R"(", "mttr": "8 h"},
+    "components": [{"id": "XV-1", "lambda_du": ")" + lambda_du + R"(", "element_type": "A", "systematic_capability": 3}],
+    "sifs": [{"id": "S1", "target": {"sil": 1}, "subsystems": [
+      {"name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"]}]}]})";
+}
+
+bool warns_of_accuracy(const ProjectResult& r) {
+  for (const auto& w : r.warnings)
+    if (w.message.find("the simplified equations lose accuracy above lDU·T1 = 0.1") != std::string::npos) return true;
+  return false;
+}
+
+TEST(Verify, AChannelBeyondLambdaTimesIntervalOfOneTenthIsWarnedAbout) {
+  // 2e-5/h x 8760 h = 0.1752
+  const auto r = verify_text(one_channel("2e-5/h", "1 yr"));
+  ASSERT_TRUE(warns_of_accuracy(r));
+  const auto& w = r.warnings.back();
+  EXPECT_EQ(w.where, "/sifs/0/subsystems/0");
+  EXPECT_EQ(w.message, "lDU·T1 = 0.1752 for a channel of valve: the simplified equations lose accuracy above "
+                       "lDU·T1 = 0.1; see the exact cross-check");
+  // The reason, recomputed: at x = 0.1752 the simplified x / 2 overstates the exact average by more than 5 %.
+  const double x = 2e-5 * 8760.0;
+  EXPECT_GT((x / 2) / (1.0 - (1.0 - std::exp(-x)) / x), 1.05);
+}
+
+TEST(Verify, AChannelWithinLambdaTimesIntervalOfOneTenthIsNotWarnedAbout) {
+  // 1e-5/h x 8760 h = 0.0876; and the same rate tested every 2 yr crosses the limit.
+  EXPECT_FALSE(warns_of_accuracy(verify_text(one_channel("1e-5/h", "1 yr"))));
+  EXPECT_TRUE(warns_of_accuracy(verify_text(one_channel("1e-5/h", "2 yr"))));
+}
+
 }  // namespace
 }  // namespace sifter
 
@@ -169,7 +205,7 @@ TEST(VerifyExact, AStretchedIntervalWarnsThatTheSimplifiedEquationsLoseAccuracy)
   text.replace(text.find("\"1 yr\""), 6, "\"30 yr\"");  // lDU T1 = 5e-7 x 262800 h = 0.13
   const auto r = verify_text(text);
   bool warned = false;
-  for (const auto& w : r.warnings) warned = warned || w.message.find("exceeds 0.1") != std::string::npos;
+  for (const auto& w : r.warnings) warned = warned || w.message.find("lose accuracy above") != std::string::npos;
   EXPECT_TRUE(warned);
 }
 

@@ -16,7 +16,6 @@ namespace sifter {
 /// methods where the simplified assumptions fail; thresholds are common practice).
 inline constexpr double kNonConservativeTolerance = 0.01;  ///< simplified below exact by more
 inline constexpr double kDisagreementTolerance = 0.10;     ///< |simplified/exact - 1| above
-inline constexpr double kSmallRateLimit = 0.1;             ///< lDU T1 above which Annex B degrades
 
 /// The exact inputs of a SIF's subsystems; vendor figures have none (they stay constant).
 std::vector<std::optional<ExactGroupInput>> exact_inputs(const Project& project, const Sif& sif);

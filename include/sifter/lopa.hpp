@@ -9,6 +9,7 @@
 #include <map>
 #include <optional>
 #include <string>
+#include <unordered_map>
 #include <vector>
 
 #include "sifter/model.hpp"
@@ -62,6 +63,9 @@ struct SifFigures {
 /// Everything LOPA takes from outside the scenario: per SIF id, its computed figures.
 struct LopaContext {
   std::map<std::string, SifFigures> sifs;
+  /// Position of each SIF in Project::sifs, so that a scenario finds the SIF it credits
+  /// without a scan of every SIF (empty: found by a scan).
+  std::unordered_map<std::string, std::size_t> sif_index;
 };
 
 /// The context a project gives before any SIF is computed: stated modes only.

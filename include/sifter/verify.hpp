@@ -65,6 +65,11 @@ struct ProjectResult {
   [[nodiscard]] bool all_met() const;
 };
 
+/// Throws InputError (exit 2) naming each SIF and scenario whose figures left the finite
+/// numbers, as rates and durations far from physical values make them (1e300/h over 1e300 h,
+/// or 1e-160/h squared below the smallest double); verify_project calls it before returning.
+void refuse_figures_beyond_finite(const Project& project, const ProjectResult& result);
+
 /// Verifies every SIF of a loaded project (and, once scenarios exist, its LOPA).
 ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& options = {});
 

@@ -3,6 +3,7 @@
 
 #include <iostream>
 #include <memory>
+#include <optional>
 
 #include "commands.hpp"
 #include "sifter/load.hpp"
@@ -67,15 +68,28 @@ Action add_check_command(CLI::App& app) {
     vo.threads = opts->threads;
     if (opts->samples > 0) vo.progress = progress_bar();
     const ProjectResult result = verify_project(loaded, vo);
-    // Render everything before writing anything, so that a failure leaves no partial output.
-    const std::string json_text = opts->json_path.empty() ? "" : report::results_json(result).dump(2) + "\n";
-    const std::string worksheet = opts->worksheet_csv_path.empty() ? "" : report::worksheet_csv(result);
-    const std::string sif_rows = opts->csv_path.empty() ? "" : report::sif_csv(result);
+    // Render everything before any output is renamed into place, so that a failure leaves no
+    // partial output. The JSON goes SIF by SIF into its temporary file: a register of
+    // thousands of SIFs is never one tree in memory.
+    std::optional<report::AtomicOutput> json_out, csv_out, rows_out;
+    if (!opts->json_path.empty()) {
+      json_out.emplace(opts->json_path);
+      report::write_results_json(result, json_out->stream());
+      json_out->stream() << "\n";
+    }
+    if (!opts->worksheet_csv_path.empty()) {
+      csv_out.emplace(opts->worksheet_csv_path);
+      csv_out->stream() << report::worksheet_csv(result);
+    }
+    if (!opts->csv_path.empty()) {
+      rows_out.emplace(opts->csv_path);
+      rows_out->stream() << report::sif_csv(result);
+    }
     const bool summary_to_stdout = !opts->quiet && opts->json_path != "-";
     const std::string summary = summary_to_stdout ? report::render_terminal(result) : "";
-    if (!opts->json_path.empty()) report::write_output(opts->json_path, json_text);
-    if (!opts->worksheet_csv_path.empty()) report::write_output(opts->worksheet_csv_path, worksheet);
-    if (!opts->csv_path.empty()) report::write_output(opts->csv_path, sif_rows);
+    if (json_out) json_out->commit();
+    if (csv_out) csv_out->commit();
+    if (rows_out) rows_out->commit();
     if (summary_to_stdout) std::cout << summary;
     return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
   };

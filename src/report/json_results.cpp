@@ -8,6 +8,19 @@ namespace {
 
 using nlohmann::json;
 
+// Every number of a tree must be finite: this catches the fields not passed one by one
+// through checked(), so that no NaN (which a JSON dump would print as null) reaches an output.
+void refuse_non_finite(const json& j) {
+  if (j.is_number_float()) checked(j.get<double>(), "number");
+  if (j.is_structured())
+    for (const auto& e : j) refuse_non_finite(e);
+}
+
+json all_finite(json j) {
+  refuse_non_finite(j);
+  return j;
+}
+
 json opt(const std::optional<double>& v, const char* what) { return v ? json(checked(*v, what)) : json(nullptr); }
 json opt(const std::optional<int>& v) { return v ? json(*v) : json(nullptr); }
 json opt(const std::optional<bool>& v) { return v ? json(*v) : json(nullptr); }
@@ -81,7 +94,7 @@ json scenario_json(const ScenarioResult& s) {
   j["findings"] = json::array();
   for (const auto& f : s.findings) j["findings"].push_back({{"kind", to_string(f.kind)}, {"message", f.message}});
   j["assumptions"] = s.assumptions;
-  return j;
+  return all_finite(std::move(j));
 }
 
 }  // namespace
@@ -134,18 +147,17 @@ json sif_json(const SifResult& s) {
   } else {
     j["uncertainty"] = nullptr;
   }
-  return j;
+  return all_finite(std::move(j));
 }
 
-json results_json(const ProjectResult& r) {
+namespace {
+
+// Everything but the SIFs and the scenarios.
+json results_head(const ProjectResult& r) {
   json j;
   j["format"] = kResultsFormat;
   j["tool"] = {{"name", "sifter"}, {"version", SIFTER_VERSION}};
   j["project"] = {{"title", r.title}, {"file", r.file}, {"sha256", r.sha256}};
-  j["sifs"] = json::array();
-  for (const auto& s : r.sifs) j["sifs"].push_back(sif_json(s));
-  j["scenarios"] = json::array();
-  for (const auto& s : r.scenarios) j["scenarios"].push_back(scenario_json(s));
   j["risk_criteria"] = json::object();
   for (const auto& [category, levels] : r.risk_criteria)
     for (const auto& [severity, rate] : levels) j["risk_criteria"][category][severity] = rate.per_year();
@@ -156,7 +168,66 @@ json results_json(const ProjectResult& r) {
   j["warnings"] = json::array();
   for (const auto& w : r.warnings) j["warnings"].push_back({{"where", w.where}, {"message", w.message}});
   j["caution"] = kCaution;
+  return all_finite(std::move(j));
+}
+
+// A value as dump(2) writes it `depth` levels down: JSON strings hold no raw line breaks, so
+// every line break of the text is structural and takes the deeper indentation.
+void write_indented(std::ostream& out, const json& value, int depth) {
+  const std::string text = value.dump(2);
+  const std::size_t indent = static_cast<std::size_t>(2 * depth);
+  std::string shifted;
+  shifted.reserve(text.size() + text.size() / 8);
+  for (char c : text) {
+    shifted += c;
+    if (c == '\n') shifted.append(indent, ' ');
+  }
+  out << shifted;
+}
+
+template <typename Items, typename ToJson>
+void write_array(std::ostream& out, const Items& items, ToJson to_json) {
+  if (items.empty()) {
+    out << "[]";
+    return;
+  }
+  out << "[\n";
+  for (std::size_t i = 0; i < items.size(); ++i) {
+    out << "    ";
+    write_indented(out, to_json(items[i]), 2);
+    out << (i + 1 < items.size() ? ",\n" : "\n");
+  }
+  out << "  ]";
+}
+
+}  // namespace
+
+json results_json(const ProjectResult& r) {
+  json j = results_head(r);
+  j["sifs"] = json::array();
+  for (const auto& s : r.sifs) j["sifs"].push_back(sif_json(s));
+  j["scenarios"] = json::array();
+  for (const auto& s : r.scenarios) j["scenarios"].push_back(scenario_json(s));
   return j;
+}
+
+void write_results_json(const ProjectResult& r, std::ostream& out) {
+  json head = results_head(r);
+  head["sifs"] = json::array();  // placeholders keep the order of the keys
+  head["scenarios"] = json::array();
+  out << "{\n";
+  bool first = true;
+  for (auto it = head.begin(); it != head.end(); ++it) {
+    out << (first ? "" : ",\n") << "  " << json(it.key()).dump() << ": ";
+    first = false;
+    if (it.key() == "sifs")
+      write_array(out, r.sifs, [](const SifResult& s) { return sif_json(s); });
+    else if (it.key() == "scenarios")
+      write_array(out, r.scenarios, [](const ScenarioResult& s) { return scenario_json(s); });
+    else
+      write_indented(out, it.value(), 1);
+  }
+  out << "\n}";
 }
 
 }  // namespace sifter::report

@@ -4,8 +4,8 @@
 
 #include <initializer_list>
 #include <optional>
-#include <set>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "sifter/diagnostics.hpp"
@@ -32,6 +32,7 @@ struct LoadContext {
   std::vector<SourceText> sources;
   std::vector<PendingDiagnostic> problems;
   std::vector<Warning> warnings;
+  std::size_t problems_not_kept = 0;  ///< beyond kMaxReportedProblems, only counted
 
   void error(int source, const std::string& pointer, std::string expected, std::string found,
              std::string hint = {});
@@ -95,7 +96,9 @@ class ObjectReader {
   int source_;
   std::string what_;
   bool is_object_;
-  std::set<std::string> known_;
+  void mark_known(std::string_view key);
+
+  std::vector<std::string> known_;  ///< a few dozen keys at most: a flat list beats a tree
 };
 
 }  // namespace sifter::detail

@@ -1,12 +1,41 @@
 #pragma once
 /// Writing outputs whole or not at all.
+#include <fstream>
+#include <memory>
+#include <ostream>
+#include <sstream>
 #include <string>
 #include <vector>
 
 namespace sifter::report {
 
-/// Writes `content` to `path` through a temporary file in the same folder renamed into place,
-/// so an interrupted run leaves the old file or none, never half of one. "-" writes to stdout.
+/// One output file, written through a temporary file in the same folder and renamed into place
+/// by commit(), so an interrupted run leaves the old file or none, never half of one. Destroyed
+/// without commit(), it removes the temporary file. "-" writes to stdout on commit(); a device
+/// or a pipe (/dev/null) is written directly; through a symbolic link the linked file is replaced.
+class AtomicOutput {
+ public:
+  /// Creates the temporary file; throws OutputError when the folder cannot be written.
+  explicit AtomicOutput(std::string path);
+  AtomicOutput(const AtomicOutput&) = delete;
+  AtomicOutput& operator=(const AtomicOutput&) = delete;
+  ~AtomicOutput();
+
+  /// Where the content goes.
+  std::ostream& stream();
+  /// Flushes and renames the temporary file into place; throws OutputError on failure.
+  void commit();
+
+ private:
+  std::string path_;
+  std::string write_to_;  ///< the file renamed onto: path_, or the file a symbolic link names
+  std::string temp_;      ///< empty for stdout and for devices
+  std::ofstream file_;
+  std::ostringstream to_stdout_;
+  bool committed_ = false;
+};
+
+/// Writes `content` to `path` through an AtomicOutput. "-" writes to stdout.
 /// Throws OutputError when the folder cannot be written.
 void write_output(const std::string& path, const std::string& content);
 
