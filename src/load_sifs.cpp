@@ -11,31 +11,6 @@ namespace {
 
 constexpr int kMaxChannels = 8;
 
-// "2oo3", "1oo2D": K out of N, both at least 1; N at most 8 is checked by the caller.
-std::optional<Vote> parse_vote(const std::string& text) {
-  Vote v;
-  std::size_t i = 0;
-  // Reads every digit; the value saturates at 1000 (far above any vote) so that it cannot overflow.
-  auto read_int = [&](int& out) {
-    if (i >= text.size() || !std::isdigit(static_cast<unsigned char>(text[i]))) return false;
-    out = 0;
-    for (; i < text.size() && std::isdigit(static_cast<unsigned char>(text[i])); ++i)
-      out = std::min(1000, out * 10 + (text[i] - '0'));
-    return out >= 1;
-  };
-  if (!read_int(v.k)) return std::nullopt;
-  if (text.compare(i, 2, "oo") != 0) return std::nullopt;
-  i += 2;
-  if (!read_int(v.n)) return std::nullopt;
-  if (i < text.size() && text[i] == 'D') {
-    v.diagnostic = true;
-    ++i;
-  }
-  if (i != text.size()) return std::nullopt;
-  if (v.diagnostic && !(v.k == 1 && v.n == 2)) return std::nullopt;
-  return v;
-}
-
 Role role_of(const std::string& s) {
   if (s == "logic") return Role::kLogic;
   if (s == "final") return Role::kFinal;

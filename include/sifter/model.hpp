@@ -3,6 +3,7 @@
 #include <map>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "sifter/quantity.hpp"
@@ -68,6 +69,10 @@ struct Vote {
   /// Number of channel failures that fail the group (N - K + 1).
   [[nodiscard]] int failures_to_fail() const { return n - k + 1; }
 };
+
+/// Reads "2oo3", "1oo2D" (K out of N, both at least 1; D only for 1oo2); K <= N and the
+/// largest N are for the caller to check, so that it can say which rule was broken.
+std::optional<Vote> parse_vote(std::string_view text);
 
 /// How beta is adjusted for groups other than 1oo2.
 enum class CcfScaling { kNone, kIec61508TableD5 };

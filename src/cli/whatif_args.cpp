@@ -26,24 +26,10 @@ std::optional<double> read_number(std::string_view text) {
   return v;
 }
 
+// A vote on the command line: the loader's syntax, and K <= N <= 8.
 std::optional<Vote> read_vote(const std::string& text) {
-  Vote v;
-  std::size_t i = 0;
-  auto read_int = [&](int& out) {
-    if (i >= text.size() || !std::isdigit(static_cast<unsigned char>(text[i]))) return false;
-    out = 0;
-    while (i < text.size() && std::isdigit(static_cast<unsigned char>(text[i])) && out < 100) out = out * 10 + (text[i++] - '0');
-    return true;
-  };
-  if (!read_int(v.k) || text.compare(i, 2, "oo") != 0) return std::nullopt;
-  i += 2;
-  if (!read_int(v.n)) return std::nullopt;
-  if (i < text.size() && text[i] == 'D') {
-    v.diagnostic = true;
-    ++i;
-  }
-  if (i != text.size() || v.k < 1 || v.k > v.n || v.n > kMaxChannels) return std::nullopt;
-  if (v.diagnostic && !(v.k == 1 && v.n == 2)) return std::nullopt;
+  auto v = parse_vote(text);
+  if (!v || v->k > v->n || v->n > kMaxChannels) return std::nullopt;
   return v;
 }
 
