@@ -1,6 +1,8 @@
 // Specification of the limits that keep hostile input bounded: each input is refused with a
 // clear message and exit status 2, quickly, and nothing is written.
 #include <gtest/gtest.h>
+
+#include "catalogue_support.hpp"
 #include <nlohmann/json.hpp>
 
 #include <cmath>
@@ -275,28 +277,12 @@ class BadLibraries : public ::testing::TestWithParam<std::string> {};
 
 TEST_P(BadLibraries, AreRefusedWithTheirExactMessage) {
   const fs::path dir = fs::path(SIFTER_TEST_DATA) / "bad_libraries";
-  const auto previous = fs::current_path();
-  fs::current_path(dir);  // messages name the files as the user typed them
-  std::string message = "no error";
-  try {
-    load_project_file(GetParam() + ".json");
-  } catch (const InputError& e) {
-    message = e.what();
-  }
-  fs::current_path(previous);
-  const fs::path expected_file = dir / (GetParam() + ".expected");
-  if (std::getenv("SIFTER_REGENERATE_EXPECTED")) std::ofstream(expected_file) << message << "\n";
-  std::string expected = slurp(expected_file);
-  if (!expected.empty() && expected.back() == '\n') expected.pop_back();
-  EXPECT_EQ(message, expected);
+  const std::string message = testing::catalogue_message(dir, GetParam());
+  EXPECT_EQ(message, testing::catalogue_expected(dir, GetParam(), message));
 }
 
 std::vector<std::string> library_catalogue() {
-  std::vector<std::string> names;
-  for (const auto& e : fs::directory_iterator(fs::path(SIFTER_TEST_DATA) / "bad_libraries"))
-    if (e.path().extension() == ".json") names.push_back(e.path().stem().string());
-  std::sort(names.begin(), names.end());
-  return names;
+  return testing::catalogue_names(fs::path(SIFTER_TEST_DATA) / "bad_libraries");
 }
 
 INSTANTIATE_TEST_SUITE_P(LibraryCatalogue, BadLibraries, ::testing::ValuesIn(library_catalogue()),

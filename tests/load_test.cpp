@@ -3,6 +3,8 @@
 
 #include <gtest/gtest.h>
 
+#include "catalogue_support.hpp"
+
 #include <cmath>
 #include <filesystem>
 #include <fstream>
@@ -13,13 +15,6 @@ namespace {
 
 namespace fs = std::filesystem;
 constexpr double kRelTol = 1e-12;
-
-std::string read_text(const fs::path& p) {
-  std::ifstream in(p, std::ios::binary);
-  std::ostringstream s;
-  s << in.rdbuf();
-  return s.str();
-}
 
 // Loads inline JSON as if it were a file in examples/, so that library paths resolve.
 LoadedProject load_inline(const std::string& text) {
@@ -42,29 +37,11 @@ class BadInput : public ::testing::TestWithParam<std::string> {};
 // Each file's message is checked word for word: place, expectation, finding and hint.
 TEST_P(BadInput, IsRejectedWithItsExactMessage) {
   const fs::path dir = fs::path(SIFTER_TEST_DATA) / "bad";
-  const auto previous = fs::current_path();
-  fs::current_path(dir);  // messages name the file as the user typed it
-  std::string message = "no error";
-  try {
-    load_project_file(GetParam() + ".json");
-  } catch (const InputError& e) {
-    message = e.what();
-  }
-  fs::current_path(previous);
-  const fs::path expected_file = dir / (GetParam() + ".expected");
-  if (std::getenv("SIFTER_REGENERATE_EXPECTED")) std::ofstream(expected_file) << message << "\n";
-  std::string expected = read_text(expected_file);
-  if (!expected.empty() && expected.back() == '\n') expected.pop_back();
-  EXPECT_EQ(message, expected);
+  const std::string message = testing::catalogue_message(dir, GetParam());
+  EXPECT_EQ(message, testing::catalogue_expected(dir, GetParam(), message));
 }
 
-std::vector<std::string> catalogue() {
-  std::vector<std::string> names;
-  for (const auto& e : fs::directory_iterator(fs::path(SIFTER_TEST_DATA) / "bad"))
-    if (e.path().extension() == ".json") names.push_back(e.path().stem().string());
-  std::sort(names.begin(), names.end());
-  return names;
-}
+std::vector<std::string> catalogue() { return testing::catalogue_names(fs::path(SIFTER_TEST_DATA) / "bad"); }
 
 INSTANTIATE_TEST_SUITE_P(Catalogue, BadInput, ::testing::ValuesIn(catalogue()),
                          [](const auto& param_info) { return param_info.param; });
