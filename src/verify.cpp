@@ -322,13 +322,14 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   r.sil_required = required_sil;
   r.required_pfd = low ? required_pfd : std::nullopt;
   r.required_pfh_per_hour = low ? std::nullopt : required_pfh;
-  if (required_sil && complete) {
-    // The band of the required SIL must be reached, and the value itself where one is required.
+  // The band of the required SIL must be reached, and the value itself where one is required.
+  const auto judge = [&]() {
     bool met = r.sil_probability >= *required_sil;
     if (low && required_pfd) met = met && at_most(total, *required_pfd);
     if (!low && required_pfh) met = met && at_most(total, *required_pfh);
     r.meets_target = met;
-  }
+  };
+  if (required_sil && complete) judge();
   if (!sif.target && !lopa)
     warnings.push_back({sif.pointer, "no target and no scenario names this SIF; it is computed but not judged"});
   if (options.exact && complete) {
@@ -347,12 +348,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
         r.pfh_per_hour = total;
         r.sil_probability = sil_from_pfh(total);
       }
-      if (r.meets_target && required_sil) {
-        bool met = r.sil_probability >= *required_sil;
-        if (low && required_pfd) met = met && at_most(total, *required_pfd);
-        if (!low && required_pfh) met = met && at_most(total, *required_pfh);
-        r.meets_target = met;
-      }
+      if (r.meets_target && required_sil) judge();
     }
   }
   add_spurious_trips(project, sif, r);
