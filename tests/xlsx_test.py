@@ -29,7 +29,7 @@ except ImportError:
 REL_TOL = 1e-14
 
 SHEETS = ["SIF summary", "Subsystems", "LOPA worksheet", "Components", "Requirement checks"]
-SUMMARY_HEADER_ROW = 4  # rows 1-2: the caution and the project; row 3 blank
+SUMMARY_HEADER_ROW = 4  # rows 1-3: the caution, the file and its SHA-256, the project's title
 HEADERS = {
     "SIF summary": ["SIF", "title", "demand mode", "PFDavg [-]", "PFH [1/h]", "PFDavg exact [-]", "PFH exact [1/h]",
                     "RRF [-]", "required RRF [-]", "required PFD [-]", "required PFH [1/h]", "SIL required",
@@ -184,8 +184,8 @@ def check_hostile(sifter, source, outdir):
     want = ["'+1+2", "'@SUM(A1:A2)", "-5"]
     if titles != want:
         fail("hostile", f"titles {titles}, expected {want}")
-    if not str(book[SHEETS[0]]["A2"].value).endswith(": '=HYPERLINK(\"http://example.invalid\",\"x\")"):
-        fail("hostile", f"project line {book[SHEETS[0]]['A2'].value!r}")
+    if book[SHEETS[0]]["A3"].value != "'=HYPERLINK(\"http://example.invalid\",\"x\")":
+        fail("hostile", f"project title {book[SHEETS[0]]['A3'].value!r}")
 
 
 def check_nothing_written_on_bad_input(sifter, source, outdir):

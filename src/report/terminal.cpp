@@ -96,31 +96,21 @@ std::string shortfalls(const ProjectResult& r, std::size_t width) {
   return out.empty() ? "" : "Falling short\n" + out;
 }
 
-std::string users_list(const std::string& title, const std::vector<std::pair<std::string, std::vector<std::string>>>& items,
-                       std::size_t width) {
+std::string users_list(const std::string& title,
+                       const std::vector<std::pair<std::string, std::vector<std::string>>>& items, std::size_t width) {
   if (items.empty()) return "";
   std::string out = fit_line(title, width, "");
   for (const auto& [name, users] : items) out += fit_line(name + ": " + joined(users), width, "  ", "    ");
   return out + "\n";
 }
 
-}  // namespace
-
-std::string wrapped_caution(std::size_t width) { return wrap(std::string("CAUTION: ") + kCaution, width, ""); }
-
-std::string render_sif(const SifResult& s, std::size_t width) {
+// The subsystems with their figures and constraints, and the SIF's sum.
+std::string subsystem_table(const SifResult& s, std::size_t width) {
   const bool low = s.demand_mode == DemandMode::kLow;
-  const std::size_t prose = std::min(width, kProseWidth);
-  std::string out = fit_line(s.id + (s.title.empty() ? "" : "  " + s.title), width, "");
-  const std::string under_value(13, ' ');  // continuation lines start under the value
-  out += fit_line("demand mode  " + to_string(s.demand_mode) + " (" + s.demand_mode_basis + ")", width, "  ", under_value);
-  out += fit_line("target       " + (s.target_text.empty() ? std::string("none") : s.target_text), width, "  ",
-                  under_value) +
-         "\n";
-
   TextTable t({"subsystem", "role", "vote", low ? "PFDavg" : "PFH [1/h]", "exact", "share", "HFT", "SIL arch", "SC"},
               {false, false, false, true, true, true, true, true, true});
-  t.set_fit({Fit::kWrap, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep});
+  t.set_fit(
+      {Fit::kWrap, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep});
   for (const auto& sub : s.subsystems) {
     t.add_row({sub.name, to_string(sub.role), sub.vote, sci_or_dash(low ? sub.pfd_avg : sub.pfh_per_hour),
                sci_or_dash(low ? sub.pfd_avg_exact : sub.pfh_exact_per_hour), percent(sub.share),
@@ -130,17 +120,20 @@ std::string render_sif(const SifResult& s, std::size_t width) {
   t.add_rule();
   t.add_row({"SIF", "", "", sci_or_dash(low ? s.pfd_avg : s.pfh_per_hour),
              sci_or_dash(low ? s.pfd_avg_exact : s.pfh_exact_per_hour), percent(1.0), "", "", ""});
-  out += t.render("  ", width);
-  out += "\n";
+  return t.render("  ", width);
+}
+
+// RRF or PFH against the requirement, the three SILs, the exact cross-check, the uncertainty.
+std::string figure_lines(const SifResult& s, std::size_t width) {
   std::string figures;
-  if (low) {
+  if (s.demand_mode == DemandMode::kLow) {
     figures = "RRF " + (s.rrf ? plain(*s.rrf) : std::string("-"));
     if (s.required_rrf) figures += "   required RRF " + plain(*s.required_rrf);
   } else {
     figures = "PFH " + sci_or_dash(s.pfh_per_hour) + "/h";
     if (s.required_pfh_per_hour) figures += "   required PFH <= " + sci(*s.required_pfh_per_hour) + "/h";
   }
-  out += fit_line(figures, width, "  ");
+  std::string out = fit_line(figures, width, "  ");
   // The three SILs, then the outcome; on a narrow terminal the outcome takes the next line.
   const std::string sils = "SIL  probability " + sil_text(s.sil_probability) + " | architecture " +
                            sil_text(s.sil_architecture) + " | systematic " + sil_text(s.sil_systematic);
@@ -155,12 +148,57 @@ std::string render_sif(const SifResult& s, std::size_t width) {
                         " (multi-phase Markov over the mission)",
                     width, "  ", "    ");
   if (s.uncertainty)
-    out += fit_line("uncertainty  mean " + sci(s.uncertainty->mean) + ", 5%-95% " + sci(s.uncertainty->p05) + " to " +
-                        sci(s.uncertainty->p95) + ", P(meets target) " + percent(s.uncertainty->probability_meets_target) +
-                        " (" + std::to_string(s.uncertainty->samples) + " samples)",
-                    width, "  ", "    ");
+    out +=
+        fit_line("uncertainty  mean " + sci(s.uncertainty->mean) + ", 5%-95% " + sci(s.uncertainty->p05) + " to " +
+                     sci(s.uncertainty->p95) + ", P(meets target) " + percent(s.uncertainty->probability_meets_target) +
+                     " (" + std::to_string(s.uncertainty->samples) + " samples)",
+                 width, "  ", "    ");
+  return out;
+}
+
+// The counts of the whole project, then which SIFs and scenarios fall short.
+std::string counts(const ProjectResult& r, std::size_t width) {
+  std::string out;
+  int met = 0, judged = 0;
+  for (const auto& s : r.sifs)
+    if (s.meets_target) {
+      ++judged;
+      met += *s.meets_target ? 1 : 0;
+    }
+  if (!r.scenarios.empty()) {
+    int tolerable = 0;
+    for (const auto& s : r.scenarios) tolerable += s.meets_target.value_or(false) ? 1 : 0;
+    out += fit_line("Scenarios: " + std::to_string(tolerable) + " of " + std::to_string(r.scenarios.size()) +
+                        " reach their tolerable frequency",
+                    width, "");
+  }
+  std::string summary =
+      "Summary: " + std::to_string(met) + " of " + std::to_string(judged) + " judged SIFs meet their targets";
+  if (judged < static_cast<int>(r.sifs.size()))
+    summary += " (" + std::to_string(r.sifs.size() - static_cast<std::size_t>(judged)) + " without a target)";
+  out += fit_line(summary, width, "");
+  const std::string short_list = shortfalls(r, width);
+  if (!short_list.empty()) out += "\n" + short_list;
+  return out;
+}
+
+}  // namespace
+
+std::string wrapped_caution(std::size_t width) { return wrap(std::string("CAUTION: ") + kCaution, width, ""); }
+
+std::string render_sif(const SifResult& s, std::size_t width) {
+  std::string out = fit_line(s.id + (s.title.empty() ? "" : "  " + s.title), width, "");
+  const std::string under_value(13, ' ');  // continuation lines start under the value
+  out +=
+      fit_line("demand mode  " + to_string(s.demand_mode) + " (" + s.demand_mode_basis + ")", width, "  ", under_value);
+  out += fit_line("target       " + (s.target_text.empty() ? std::string("none") : s.target_text), width, "  ",
+                  under_value) +
+         "\n";
+  out += subsystem_table(s, width) + "\n";
+  out += figure_lines(s, width);
   out += "  verdict  " + verdict_words(s.meets_target) + "\n";
   out += spurious_line(s, width);
+  const std::size_t prose = std::min(width, kProseWidth);
   if (!s.limits.empty()) {
     out += "  limited by\n";
     for (const auto& l : s.limits) out += fit_line("[" + l.kind + "] " + l.message, prose, "    ", "  ");
@@ -197,27 +235,11 @@ std::string render_terminal(const ProjectResult& r, const TerminalOptions& optio
   out += users_list("Devices several SIFs or scenarios rely on", shared, width);
   if (!r.warnings.empty()) {
     out += "Warnings\n";
-    for (const auto& w : r.warnings) out += fit_line(w.where + ": " + w.message, std::min(width, kProseWidth), "  ", "    ");
+    for (const auto& w : r.warnings)
+      out += fit_line(w.where + ": " + w.message, std::min(width, kProseWidth), "  ", "    ");
     out += "\n";
   }
-  int met = 0, judged = 0;
-  for (const auto& s : r.sifs)
-    if (s.meets_target) {
-      ++judged;
-      met += *s.meets_target ? 1 : 0;
-    }
-  if (!r.scenarios.empty()) {
-    int tolerable = 0;
-    for (const auto& s : r.scenarios) tolerable += s.meets_target.value_or(false) ? 1 : 0;
-    out += "Scenarios: " + std::to_string(tolerable) + " of " + std::to_string(r.scenarios.size()) +
-           " reach their tolerable frequency\n";
-  }
-  std::string summary = "Summary: " + std::to_string(met) + " of " + std::to_string(judged) + " judged SIFs meet their targets";
-  if (judged < static_cast<int>(r.sifs.size()))
-    summary += " (" + std::to_string(r.sifs.size() - static_cast<std::size_t>(judged)) + " without a target)";
-  out += fit_line(summary, width, "");
-  const std::string short_list = shortfalls(r, width);
-  if (!short_list.empty()) out += "\n" + short_list;
+  out += counts(r, width);
   out += "\n" + wrapped_caution(std::min(width, kProseWidth));
   return out;
 }

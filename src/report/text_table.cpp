@@ -160,8 +160,12 @@ std::string TextTable::render_grid(const std::string& indent, const std::vector<
   const std::string below_indent = indent + "    ";
   for (const auto& row : rows_) {
     switch (row.kind) {
-      case Row::Kind::kRule: out += indent + std::string(span, '-') + "\n"; break;
-      case Row::Kind::kSection: out += fit_line(row.cells[0], width, indent); break;
+      case Row::Kind::kRule:
+        out += indent + std::string(span, '-') + "\n";
+        break;
+      case Row::Kind::kSection:
+        out += fit_line(row.cells[0], width, indent);
+        break;
       case Row::Kind::kCells:
         out += line(row.cells);
         for (std::size_t c = 0; c < header_.size(); ++c)
@@ -178,8 +182,12 @@ std::string TextTable::render_stacked(const std::string& indent, std::size_t wid
   const std::string field_indent = indent + "  ";
   for (const auto& row : rows_) {
     switch (row.kind) {
-      case Row::Kind::kRule: out += "\n"; break;
-      case Row::Kind::kSection: out += fit_line(row.cells[0], width, indent); break;
+      case Row::Kind::kRule:
+        out += "\n";
+        break;
+      case Row::Kind::kSection:
+        out += fit_line(row.cells[0], width, indent);
+        break;
       case Row::Kind::kCells:
         out += fit_line(row.cells[0], width, indent);
         for (std::size_t c = 1; c < header_.size(); ++c)

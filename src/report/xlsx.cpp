@@ -1,6 +1,7 @@
 // The --xlsx workbook: results laid out as sheets; libxlsxwriter does the file format.
 #include "sifter/report/xlsx.hpp"
 
+#include <unistd.h>
 #include <xlsxwriter.h>
 
 #include <cstdio>
@@ -11,7 +12,6 @@
 #include <iterator>
 #include <optional>
 #include <sstream>
-#include <unistd.h>
 
 #include "sifter/diagnostics.hpp"
 #include "sifter/report/format.hpp"
@@ -58,7 +58,8 @@ class Sheet {
     ++col_;
   }
   void number(const std::optional<double>& value, bool scientific = false) {
-    if (value) check(worksheet_write_number(sheet_, row_, col_, checked(*value, "workbook value"), scientific ? sci_ : nullptr));
+    if (value)
+      check(worksheet_write_number(sheet_, row_, col_, checked(*value, "workbook value"), scientific ? sci_ : nullptr));
     ++col_;
   }
   void integer(const std::optional<int>& value) { number(value ? std::optional<double>(*value) : std::nullopt); }
@@ -286,7 +287,8 @@ class TempFolder {
 std::string spreadsheet_text(const std::string& text) {
   if (text.empty()) return text;
   const char first = text.front();
-  const bool formula_like = first == '=' || first == '+' || first == '-' || first == '@' || first == '\t' || first == '\r';
+  const bool formula_like =
+      first == '=' || first == '+' || first == '-' || first == '@' || first == '\t' || first == '\r';
   return formula_like && !is_number(text) ? "'" + text : text;
 }
 
@@ -311,9 +313,9 @@ std::string workbook_xlsx(const ProjectResult& result, const std::vector<Compone
   try {
     lxw_worksheet* first = sheets[0].raw();
     worksheet_write_string(first, 0, 0, spreadsheet_text(std::string("CAUTION: ") + kCaution).c_str(), caution);
-    const std::string source = "sifter " SIFTER_VERSION " check of " + result.file + " (SHA-256 " + result.sha256 + ")" +
-                               (result.title.empty() ? "" : ": " + result.title);
+    const std::string source = "sifter " SIFTER_VERSION " check of " + result.file + " (SHA-256 " + result.sha256 + ")";
     worksheet_write_string(first, 1, 0, spreadsheet_text(source).c_str(), nullptr);
+    if (!result.title.empty()) worksheet_write_string(first, 2, 0, spreadsheet_text(result.title).c_str(), nullptr);
     sif_summary(sheets[0], result);
     subsystems(sheets[1], result);
     lopa_worksheet(sheets[2], result);

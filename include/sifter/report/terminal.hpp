@@ -14,9 +14,9 @@ inline constexpr std::size_t kSummaryAboveSifs = 20;
 
 /// How the terminal summary is laid out.
 struct TerminalOptions {
-  std::size_t width = 100;         ///< columns of the terminal; tables and text fit inside
-  std::vector<std::string> sifs;   ///< show only these SIFs (full blocks) and the scenarios that feed them
-  bool summary = false;            ///< one line per SIF even on a small project
+  std::size_t width = 100;        ///< columns of the terminal; tables and text fit inside
+  std::vector<std::string> sifs;  ///< show only these SIFs (full blocks) and the scenarios that feed them
+  bool summary = false;           ///< one line per SIF even on a small project
 };
 
 /// Plain text fitted to `options.width`; verdicts in words so that it reads without colour.
