@@ -106,7 +106,7 @@ TEST(TextTable, AColumnMarkedBelowGoesUnderItsRowWhenTheTableIsTooWide) {
             "  step      frequency\n"
             "  cause C1   1.00e-01\n"
             "      note: shares device\n"
-            "      DCS-4 with the cause\n");
+            "        DCS-4 with the cause\n");
 }
 
 TEST(TextTable, ATableThatCannotFitIsStackedAsHeaderAndValueLines) {

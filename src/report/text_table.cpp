@@ -170,7 +170,7 @@ std::string TextTable::render_grid(const std::string& indent, const std::vector<
         out += line(row.cells);
         for (std::size_t c = 0; c < header_.size(); ++c)
           if (std::find(cols.begin(), cols.end(), c) == cols.end() && !row.cells[c].empty())
-            out += fit_line(header_[c] + ": " + row.cells[c], width, below_indent);
+            out += fit_line(header_[c] + ": " + row.cells[c], width, below_indent, "  ");
         break;
     }
   }
@@ -179,7 +179,6 @@ std::string TextTable::render_grid(const std::string& indent, const std::vector<
 
 std::string TextTable::render_stacked(const std::string& indent, std::size_t width) const {
   std::string out;
-  const std::string field_indent = indent + "  ";
   for (const auto& row : rows_) {
     switch (row.kind) {
       case Row::Kind::kRule:
@@ -188,11 +187,16 @@ std::string TextTable::render_stacked(const std::string& indent, std::size_t wid
       case Row::Kind::kSection:
         out += fit_line(row.cells[0], width, indent);
         break;
-      case Row::Kind::kCells:
+      case Row::Kind::kCells: {
+        // The fields sit under the row's first cell, keeping its indentation (the worksheet's
+        // steps), and their continuation lines hang under the value.
+        const std::size_t lead = std::min(row.cells[0].find_first_not_of(' '), row.cells[0].size());
+        const std::string field_indent = indent + std::string(lead + 2, ' ');
         out += fit_line(row.cells[0], width, indent);
         for (std::size_t c = 1; c < header_.size(); ++c)
-          if (!row.cells[c].empty()) out += fit_line(header_[c] + ": " + row.cells[c], width, field_indent);
+          if (!row.cells[c].empty()) out += fit_line(header_[c] + ": " + row.cells[c], width, field_indent, "  ");
         break;
+      }
     }
   }
   return out;
