@@ -135,6 +135,9 @@ TEST(CheckFilter, TheOptionRepeatsAndAnUnknownIdIsAUsageError) {
   EXPECT_NE(two.out.find("\nSIF-401  "), std::string::npos);
   EXPECT_NE(two.out.find("\nSIF-403  "), std::string::npos);
   EXPECT_EQ(two.out.find("\nSIF-402  "), std::string::npos);
+  const auto before = check_at("--sif SIF-402 examples/unit40.json", 100);  // one id per --sif
+  EXPECT_EQ(before.exit_code, 0) << before.err;
+  EXPECT_NE(before.out.find("\nSIF-402  "), std::string::npos);
   const auto bad = check_at("examples/unit40.json --sif SIF-999", 100);
   EXPECT_EQ(bad.exit_code, 2);
   EXPECT_NE(bad.err.find("SIF-999"), std::string::npos);

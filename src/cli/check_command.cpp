@@ -112,6 +112,7 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("--csv", opts->csv_path, "write one CSV row per SIF with its key results to FILE");
   cmd->add_option("--xlsx", opts->xlsx_path, "write the results as a spreadsheet workbook (.xlsx) to FILE");
   cmd->add_option("--sif", opts->sifs, "show only this SIF (full block) and its scenarios; repeatable")
+      ->allow_extra_args(false)  // one id per --sif, so that a project named after it is not taken for one
       ->multi_option_policy(CLI::MultiOptionPolicy::TakeAll);
   cmd->add_flag("--summary", opts->summary,
                 "one line per SIF and scenario (the default above " + std::to_string(report::kSummaryAboveSifs) +
