@@ -1,4 +1,5 @@
 // What-ifs on one SIF: the shared machinery and the longest proof-test interval.
+#include "sifter/probability_cap.hpp"
 #include "sifter/whatif.hpp"
 
 #include <algorithm>
@@ -76,8 +77,10 @@ SifResult WhatIf::verify(const Project& modified, std::size_t sif) const {
   std::vector<Warning> ignored;
   VerifyOptions options;
   options.exact = false;
-  return verify_sif(modified, s, it == requirements_.end() ? std::nullopt : std::optional(it->second), options,
-                    ignored);
+  SifResult r = verify_sif(modified, s, it == requirements_.end() ? std::nullopt : std::optional(it->second), options,
+                           ignored);
+  cap_probabilities(s, r, ignored);  // as check does: no probability above 1 leaves an engine
+  return r;
 }
 
 std::optional<double> sif_measure(const SifResult& r) {

@@ -7,6 +7,7 @@
 
 #include "commands.hpp"
 #include "sifter/load.hpp"
+#include "sifter/printable.hpp"
 #include "sifter/report/csv.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/output_file.hpp"
@@ -61,6 +62,7 @@ Action add_check_command(CLI::App& app) {
   return [opts]() {
     report::refuse_overwriting_inputs({opts->json_path, opts->worksheet_csv_path, opts->csv_path}, {opts->project});
     const LoadedProject loaded = load_project_file(opts->project);
+    report::refuse_overwriting_inputs({opts->json_path, opts->worksheet_csv_path, opts->csv_path}, loaded.inputs);
     VerifyOptions vo;
     vo.exact = !opts->no_exact;
     vo.samples = opts->samples;
@@ -86,10 +88,9 @@ Action add_check_command(CLI::App& app) {
       rows_out->stream() << report::sif_csv(result);
     }
     const bool summary_to_stdout = !opts->quiet && opts->json_path != "-";
-    const std::string summary = summary_to_stdout ? report::render_terminal(result) : "";
-    if (json_out) json_out->commit();
-    if (csv_out) csv_out->commit();
-    if (rows_out) rows_out->commit();
+    const std::string summary = summary_to_stdout ? escape_controls(report::render_terminal(result)) : "";
+    report::commit_all({json_out ? &*json_out : nullptr, csv_out ? &*csv_out : nullptr,
+                        rows_out ? &*rows_out : nullptr});
     if (summary_to_stdout) std::cout << summary;
     return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
   };

@@ -81,6 +81,10 @@ std::string render_sif(const SifResult& s) {
     out += "  assumptions\n";
     for (const auto& a : s.assumptions) out += wrap("- " + a, 92, "    ");
   }
+  if (!s.warnings.empty()) {
+    out += "  warnings\n";
+    for (const auto& w : s.warnings) out += wrap("! " + w, 92, "    ");
+  }
   return out;
 }
 
