@@ -13,6 +13,7 @@ namespace {
 
 // A declared SFF may round the rates' own figure; a larger gap means one of them is wrong.
 constexpr double kSffAgreement = 0.01;
+constexpr double kMaxRatePerHour = 1e5;
 
 std::string percent_text(double fraction) {
   char buf[32];
@@ -185,10 +186,25 @@ void check_failure_behaviour(LoadContext& ctx, ObjectReader& r, const Component&
               "copy them from the safety manual; a device without rates would count as never failing");
     return;
   }
+  // Far above any device (field devices lie within about 1e-10..1e-3/h, common practice; those
+  // outside are warned below) the engines' arithmetic leaves its range: 1e30/h made the exact
+  // engine answer 0. 1e5/h (a failure every 36 ms) bounds the rates any unit can express.
+  const std::pair<const char*, double> named[] = {{"lambda_du", c.rates.lambda_du.per_hour},
+                                                  {"lambda_dd", c.rates.lambda_dd.per_hour},
+                                                  {"lambda_su", c.rates.lambda_su.per_hour},
+                                                  {"lambda_sd", c.rates.lambda_sd.per_hour}};
+  for (const auto& [name, v] : named)
+    if (v > kMaxRatePerHour) {
+      ctx.error(0, r.pointer(), "failure rates of at most 1e5/h", std::string(name) + " = " + format_rate(Rate{v}),
+                "check the unit: 1 FIT is 1e-9/h; field devices lie within about 1e-10..1e-3/h");
+      return;
+    }
   if (!fields.sff || !fields.has_safe()) return;  // declared SFF alone: used as declared
-  const double total = c.rates.lambda_d() + c.rates.lambda_s();
+  // The SFF of the stated rates: field data re-estimate lambda_du, not the design's SFF.
+  const FailureRates stated = resolve_rates(fields);
+  const double total = stated.lambda_d() + stated.lambda_s();
   if (!(total > 0.0)) return;
-  const double from_rates = (c.rates.lambda_s() + c.rates.lambda_dd.per_hour) / total;
+  const double from_rates = (stated.lambda_s() + stated.lambda_dd.per_hour) / total;
   if (std::fabs(from_rates - *fields.sff) > kSffAgreement)
     ctx.error(0, r.has("sff") ? r.at("sff") : r.pointer(),
               "a declared SFF within 1 percentage point of the SFF of the component's own rates (" +

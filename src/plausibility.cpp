@@ -6,7 +6,6 @@ namespace sifter {
 std::vector<GraphProblem> demand_mode_mismatches(const Sif& sif, DemandMode mode, const std::string& basis) {
   std::vector<GraphProblem> out;
   const bool low = mode == DemandMode::kLow;
-  const std::string mode_words = low ? "low-demand" : "high-demand";
   for (const auto& sub : sif.subsystems) {
     if (!sub.is_vendor()) continue;
     if (low && !sub.vendor_pfd_avg)
@@ -33,7 +32,6 @@ std::vector<GraphProblem> demand_mode_mismatches(const Sif& sif, DemandMode mode
                      "an RRF or PFDavg target is for a low-demand SIF; give the target as a SIL or a PFH, or state "
                      "\"demand_mode\": \"low\""});
   }
-  (void)mode_words;
   return out;
 }
 

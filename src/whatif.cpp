@@ -1,5 +1,4 @@
 // What-ifs on one SIF: the shared machinery and the longest proof-test interval.
-#include "sifter/probability_cap.hpp"
 #include "sifter/whatif.hpp"
 
 #include <algorithm>
@@ -9,6 +8,7 @@
 #include <boost/math/tools/toms748_solve.hpp>
 
 #include "sifter/detail/whatif_parts.hpp"
+#include "sifter/probability_cap.hpp"
 #include "sifter/sil.hpp"
 
 namespace sifter {

@@ -8,6 +8,7 @@
 
 #include <cmath>
 #include <csignal>
+#include <cstdio>
 #include <functional>
 #include <filesystem>
 #include <fstream>
@@ -196,7 +197,7 @@ TEST(DemandMode, ASupplierPfhOnASifTheLopaMakesLowDemandIsRefusedWithExitTwo) {
   const auto r = run_sifter("check " + write_project(dir, p).string() + " --json " + (dir / "o.json").string());
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_NE(r.err.find("/sifs/0/subsystems/1/pfh: expected the supplier's \"pfd_avg\" for this low-demand SIF "
-                       "(demand rate 0.1/yr from scenario S-1"),
+                       "(demand rate "),
             std::string::npos)
       << r.err;
   EXPECT_FALSE(fs::exists(dir / "o.json"));
@@ -325,7 +326,9 @@ TEST(HostileText, AFakeVerdictInATitleCannotRewriteTheTerminal) {
   EXPECT_FALSE(has_control(r.out));
   EXPECT_NE(r.out.find("x\\x0d\\x1b[2K  verdict  MEETS TARGET\\x1b]0;owned\\x07"), std::string::npos);
   const auto md = run_sifter("report " + file.string() + " --no-exact -o " + (dir / "r.md").string());
+  EXPECT_NE(md.exit_code, 2) << md.err;
   EXPECT_FALSE(has_control(slurp(dir / "r.md")));
+  EXPECT_NE(slurp(dir / "r.md").find("\\x1b[2K"), std::string::npos);
 }
 
 TEST(HostileText, AnEscapeSequenceInAnUnknownIdIsEscapedInTheErrorMessage) {
@@ -402,12 +405,17 @@ TEST(Property, GeneratedProjectsPrintOnlyProbabilitiesWithinZeroAndOne) {
   auto pick = [&](double lo_exp, double hi_exp) {
     return std::pow(10.0, std::uniform_real_distribution<double>(lo_exp, hi_exp)(rng));
   };
+  auto text = [](double v) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.6g", v);
+    return std::string(buf);
+  };
   int computed = 0, refused_without_data = 0;
   for (int trial = 0; trial < 60; ++trial) {
     json p = project();
-    for (auto& c : p["components"]) c["lambda_du"] = std::to_string(pick(-9, -3)) + "/h";
-    p["sifs"][0]["subsystems"][2]["proof_test_interval"] = std::to_string(pick(-1, 1.3)) + " yr";
-    p["scenarios"][0]["causes"][0]["frequency"] = std::to_string(pick(-6, 1)) + "/yr";
+    for (auto& c : p["components"]) c["lambda_du"] = text(pick(-9, -3)) + "/h";
+    p["sifs"][0]["subsystems"][2]["proof_test_interval"] = text(pick(-1, 1.3)) + " yr";
+    p["scenarios"][0]["causes"][0]["frequency"] = text(pick(-6, 1)) + "/yr";
     p["scenarios"][0]["layers"][0]["pfd"] = pick(-6, 0);
     const bool without_data = trial % 5 == 0;
     if (without_data) p["components"][1] = {{"id", "PLC-1"}};

@@ -166,7 +166,9 @@ void refuse_overwriting_inputs(const std::vector<std::string>& outputs, const st
   auto same = [](const std::string& a, const std::string& b) {
     std::error_code ec;
     if (fs::exists(a, ec) && fs::exists(b, ec)) return fs::equivalent(a, b, ec);
-    return fs::weakly_canonical(a, ec) == fs::weakly_canonical(b, ec);
+    std::error_code ea, eb;
+    const auto ca = fs::weakly_canonical(a, ea), cb = fs::weakly_canonical(b, eb);
+    return !ea && !eb && ca == cb;
   };
   for (std::size_t k = 0; k < outputs.size(); ++k) {
     const auto& o = outputs[k];
