@@ -57,11 +57,13 @@ void read_criteria(LoadContext& ctx, const Json& root, Project& project) {
   for (auto cat = it->begin(); cat != it->end(); ++cat) {
     ObjectReader r(ctx, cat.value(), "/risk_criteria/" + cat.key(), 0, "a consequence category");
     if (!r.is_object()) continue;
+    // A refused frequency still names its level, so that no consequence is refused for it again.
     for (auto sev = cat.value().begin(); sev != cat.value().end(); ++sev)
-      if (auto f = positive_frequency(r, sev.key(),
-                                      "a tolerable frequency of 0/yr cannot be reached by any layer; "
-                                      "state the frequency the owner tolerates", true))
-        project.risk_criteria[cat.key()][sev.key()] = *f;
+      project.risk_criteria[cat.key()][sev.key()] =
+          positive_frequency(r, sev.key(),
+                             "a tolerable frequency of 0/yr cannot be reached by any layer; "
+                             "state the frequency the owner tolerates", true)
+              .value_or(Rate{});
     r.finish();
   }
 }

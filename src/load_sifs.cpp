@@ -120,7 +120,6 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
   if (sub.vendor_pfd_avg && *sub.vendor_pfd_avg <= 0.0) {
     ctx.error(0, r.at("pfd_avg"), "a supplier's PFDavg above 0 and at most 1", "0",
               "a PFDavg of 0 claims a subsystem that never fails; take the figure from the safety manual");
-    sub.vendor_pfd_avg.reset();
   }
   sub.vendor_pfh = r.rate("pfh");
   if (sub.vendor_pfd_avg && sub.vendor_pfh)
