@@ -213,6 +213,14 @@ void check_failure_behaviour(LoadContext& ctx, ObjectReader& r, const Component&
               "correct the rates or the SFF; drop \"sff\" to use the rates' own figure");
 }
 
+void unknown_model(LoadContext& ctx, ObjectReader& r, const std::string& model, const ModelIndex& models) {
+  std::vector<std::string> names;
+  for (const auto& [name, _] : models) names.push_back(name);
+  const auto near = nearest(model, names);
+  ctx.error(0, r.at("model"), "the id of a model in the libraries", "\"" + model + "\"",
+            near.empty() ? "add the library that holds it to \"libraries\"" : "did you mean \"" + near + "\"?");
+}
+
 }  // namespace
 
 void check_model_entry(LoadContext& ctx, const Json& entry, int source, const std::string& pointer) {
@@ -263,15 +271,8 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     ElementFields fields = own;
     if (!c.model.empty()) {
       auto m = models.find(c.model);
-      if (m == models.end()) {
-        std::vector<std::string> names;
-        for (const auto& [name, _] : models) names.push_back(name);
-        const auto near = nearest(c.model, names);
-        ctx.error(0, r.at("model"), "the id of a model in the libraries", "\"" + c.model + "\"",
-                  near.empty() ? "add the library that holds it to \"libraries\"" : "did you mean \"" + near + "\"?");
-      } else {
-        fields = merge(fields_of(m->second, m->first), own);
-      }
+      if (m == models.end()) unknown_model(ctx, r, c.model, models);
+      else fields = merge(fields_of(m->second, m->first), own);
     }
     c.rates = resolve_rates(fields);
     if (fields.field_data) {

@@ -108,14 +108,9 @@ void warn_implausible(LoadContext& ctx, const Subsystem& sub, const Defaults& de
     ctx.warn(sub.pointer, "the MTTR (" + format_duration(sub.mttr) + ") is longer than the proof-test interval");
 }
 
-Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string& pointer, const Defaults& defaults) {
-  ObjectReader r(ctx, value, pointer, 0, "a subsystem");
-  Subsystem sub;
-  sub.pointer = pointer;
-  sub.name = r.string("name", true).value_or("");
-  if (r.has("name") && sub.name.empty() && r.member("name")->is_string())
-    ctx.error(0, r.at("name"), "a subsystem name that is not empty", "\"\"", "name it, e.g. \"transmitters\"");
-  sub.role = role_of(r.choice("role", {"sensor", "logic", "final"}, true).value_or("sensor"));
+// The supplier's figures, the declarations, the vote and the channels.
+void read_figures_and_vote(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
+  const std::string& pointer = sub.pointer;
   sub.vendor_pfd_avg = r.probability("pfd_avg");
   if (sub.vendor_pfd_avg && *sub.vendor_pfd_avg <= 0.0) {
     ctx.error(0, r.at("pfd_avg"), "a supplier's PFDavg above 0 and at most 1", "0",
@@ -145,6 +140,12 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
   if (vendor && !sub.channels.empty())
     ctx.error(0, r.at("channels"), "either channels or a vendor figure (\"pfd_avg\" / \"pfh\")", "both",
               "a vendor figure already covers the subsystem's hardware");
+}
+
+// Beta, beta_D and their scaling; a redundant group must state beta.
+void read_common_cause(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
+  const std::string& pointer = sub.pointer;
+  const bool vendor = sub.is_vendor();
   auto beta = r.fraction("beta");
   auto beta_d = r.fraction("beta_d");
   sub.beta = beta.value_or(0.0);
@@ -163,6 +164,11 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
       ctx.error(0, r.at("ccf_scaling"), "a vote that IEC 61508-6 Table D.5 covers (N up to 5)",
                 sub.vote.text(), "use \"none\" and enter beta for this group directly");
   }
+}
+
+// The intervals and times, from the subsystem or the project defaults, and the test plan.
+void read_times(LoadContext& ctx, ObjectReader& r, Subsystem& sub, const Defaults& defaults) {
+  const bool vendor = sub.is_vendor();
   const bool needs_times = !vendor;
   sub.proof_test_interval =
       with_default(ctx, r, "proof_test_interval", defaults.proof_test_interval, sub.interval_defaulted, needs_times);
@@ -189,6 +195,19 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
               "a test duration no longer than the proof-test interval (" + format_duration(sub.proof_test_interval) +
                   ")",
               format_duration(*sub.test_duration), "the test duration is how long one test keeps a channel bypassed");
+}
+
+Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string& pointer, const Defaults& defaults) {
+  ObjectReader r(ctx, value, pointer, 0, "a subsystem");
+  Subsystem sub;
+  sub.pointer = pointer;
+  sub.name = r.string("name", true).value_or("");
+  if (r.has("name") && sub.name.empty() && r.member("name")->is_string())
+    ctx.error(0, r.at("name"), "a subsystem name that is not empty", "\"\"", "name it, e.g. \"transmitters\"");
+  sub.role = role_of(r.choice("role", {"sensor", "logic", "final"}, true).value_or("sensor"));
+  read_figures_and_vote(ctx, r, sub);
+  read_common_cause(ctx, r, sub);
+  read_times(ctx, r, sub, defaults);
   sub.staggered = r.boolean("staggered").value_or(false);
   sub.trip_on_detected = r.boolean("trip_on_detected").value_or(false);
   sub.diverse = r.boolean("diverse").value_or(false);

@@ -21,8 +21,8 @@ std::vector<GraphProblem> demand_mode_mismatches(const Sif& sif, DemandMode mode
   if (sif.target) {
     const auto kind = sif.target->kind;
     if (low && kind == Target::Kind::kPfh)
-      out.push_back({sif.pointer + "/target/pfh", "a low-demand target (\"sil\", \"rrf\" or \"pfd_avg\") (" + basis + ")",
-                     "a PFH target",
+      out.push_back({sif.pointer + "/target/pfh",
+                     "a low-demand target (\"sil\", \"rrf\" or \"pfd_avg\") (" + basis + ")", "a PFH target",
                      "a PFH target is for a high-demand SIF: state \"demand_mode\": \"high\", or give the target as "
                      "a SIL, RRF or PFDavg"});
     if (!low && (kind == Target::Kind::kRrf || kind == Target::Kind::kPfdAvg))

@@ -28,10 +28,11 @@ void cap_probabilities(const Sif& sif, SifResult& r, std::vector<Warning>& warni
   // means the approximation no longer holds: the probability is at most 1.
   if (r.pfd_avg && *r.pfd_avg > 1.0) {
     const double was = *r.pfd_avg;
-    const std::string m = "the simplified PFDavg sums to " + figure(was) +
-                          ", outside the validity of the IEC 61508-6 Annex B equations; shown as 1 (a probability "
-                          "is at most 1)" +
-                          (r.pfd_avg_exact ? "; the exact engine gives " + figure(std::min(1.0, *r.pfd_avg_exact)) : "");
+    const std::string m =
+        "the simplified PFDavg sums to " + figure(was) +
+        ", outside the validity of the IEC 61508-6 Annex B equations; shown as 1 (a probability "
+        "is at most 1)" +
+        (r.pfd_avg_exact ? "; the exact engine gives " + figure(std::min(1.0, *r.pfd_avg_exact)) : "");
     r.assumptions.push_back(m);
     warnings.push_back({sif.pointer, m});
   }

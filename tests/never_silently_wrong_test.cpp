@@ -2,16 +2,16 @@
 // catalogue (tests/data/bad), what the writers may print, whole outputs, hostile text, and
 // exit status 2 (never 3) for every argument out of range.
 #include <gtest/gtest.h>
-#include <nlohmann/json.hpp>
 #include <sys/wait.h>
 #include <unistd.h>
 
 #include <cmath>
 #include <csignal>
 #include <cstdio>
-#include <functional>
 #include <filesystem>
 #include <fstream>
+#include <functional>
+#include <nlohmann/json.hpp>
 #include <random>
 
 #include "cli_support.hpp"
@@ -54,9 +54,7 @@ fs::path write_project(const fs::path& dir, const json& p, const std::string& na
   return dir / name;
 }
 
-ProjectResult checked(const json& p) {
-  return verify_project(load_project_text(p.dump(), "p.json", "."));
-}
+ProjectResult checked(const json& p) { return verify_project(load_project_text(p.dump(), "p.json", ".")); }
 
 std::string load_error(const json& p) {
   try {
@@ -167,8 +165,8 @@ TEST(Probabilities, ASimplifiedSumAboveOneIsShownAsOneAndSaysWhy) {
   EXPECT_FALSE(sif["meets_target"].get<bool>());
   bool said = false;
   for (const auto& w : sif["warnings"])
-    said = said || w.get<std::string>().find("outside the validity of the IEC 61508-6 Annex B equations") !=
-                       std::string::npos;
+    said = said ||
+           w.get<std::string>().find("outside the validity of the IEC 61508-6 Annex B equations") != std::string::npos;
   EXPECT_TRUE(said) << sif.dump(2);
   for (const auto& s : out["scenarios"])
     EXPECT_LE(s["mitigated_frequency_per_yr"].get<double>(), s["frequency_without_sif_per_yr"].get<double>());
@@ -208,8 +206,8 @@ TEST(DemandMode, ASupplierPfhOnASifTheLopaMakesLowDemandIsRefusedWithExitTwo) {
 TEST(Outputs, TwoOutputsToTheSameFileAreRefused) {
   const auto dir = fresh_folder("nsw_same_out");
   const auto file = write_project(dir, project());
-  const auto r = run_sifter("check " + file.string() + " --json " + (dir / "x").string() + " --csv " +
-                            (dir / "." / "x").string());
+  const auto r =
+      run_sifter("check " + file.string() + " --json " + (dir / "x").string() + " --csv " + (dir / "." / "x").string());
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_NE(r.err.find("two outputs of this run name the same file"), std::string::npos) << r.err;
   EXPECT_FALSE(fs::exists(dir / "x"));
@@ -305,7 +303,9 @@ TEST(HostileText, ControlCharactersAreShownEscaped) {
   EXPECT_EQ(escape_controls("a\x1b[2Kb"), "a\\x1b[2Kb");
   EXPECT_EQ(escape_controls("line\rover"), "line\\x0dover");
   EXPECT_EQ(escape_controls("del\x7f"), "del\\x7f");
-  EXPECT_EQ(escape_controls("csi\xc2\x9b" "31m"), "csi\\u009b31m");
+  EXPECT_EQ(escape_controls("csi\xc2\x9b"
+                            "31m"),
+            "csi\\u009b31m");
   EXPECT_EQ(escape_controls("keeps\ttab\nand newline, \xc3\xa9 too"), "keeps\ttab\nand newline, \xc3\xa9 too");
 }
 
@@ -363,20 +363,23 @@ TEST_P(OutOfRange, IsExitTwoWithAMessage) {
 
 INSTANTIATE_TEST_SUITE_P(
     WhatIfs, OutOfRange,
-    ::testing::Values(
-        BadArguments{"factor_1e200", "sensitivity --factor 1e200", "the factor must be a number above 1 and at most 10"},
-        BadArguments{"factor_inf", "sensitivity --factor 1e999", "--factor: expected a number"},
-        BadArguments{"sweep_factor_1e300", "sweep --vary lambda_du_factor --from 1 --to 1e300",
-                     "lambda_du_factor: --to must be at most 1000"},
-        BadArguments{"sweep_interval_huge", "sweep --vary proof_test_interval --from '1 yr' --to '1e300 yr'",
-                     "a proof-test interval for a sweep lies from 1 d to 100 yr"},
-        BadArguments{"sweep_interval_minute", "sweep --vary proof_test_interval --from '1 min' --to '1 yr'",
-                     "a proof-test interval for a sweep lies from 1 d to 100 yr"},
-        BadArguments{"sweep_mttr_huge", "sweep --vary mttr --from '8 h' --to '1e300 h'",
-                     "an MTTR for a sweep is at most 100 yr"},
-        BadArguments{"sweep_steps_zero", "sweep --vary beta --from 1% --to 5% --steps 0", "--steps must be from 2 to 1000"},
-        BadArguments{"sweep_steps_huge", "sweep --vary beta --from 1% --to 5% --steps 1000000",
-                     "--steps must be from 2 to 1000"}),
+    ::testing::Values(BadArguments{"factor_1e200", "sensitivity --factor 1e200",
+                                   "the factor must be a number above 1 and at most 10"},
+                      BadArguments{"factor_inf", "sensitivity --factor 1e999", "--factor: expected a number"},
+                      BadArguments{"sweep_factor_1e300", "sweep --vary lambda_du_factor --from 1 --to 1e300",
+                                   "lambda_du_factor: --to must be at most 1000"},
+                      BadArguments{"sweep_interval_huge",
+                                   "sweep --vary proof_test_interval --from '1 yr' --to '1e300 yr'",
+                                   "a proof-test interval for a sweep lies from 1 d to 100 yr"},
+                      BadArguments{"sweep_interval_minute",
+                                   "sweep --vary proof_test_interval --from '1 min' --to '1 yr'",
+                                   "a proof-test interval for a sweep lies from 1 d to 100 yr"},
+                      BadArguments{"sweep_mttr_huge", "sweep --vary mttr --from '8 h' --to '1e300 h'",
+                                   "an MTTR for a sweep is at most 100 yr"},
+                      BadArguments{"sweep_steps_zero", "sweep --vary beta --from 1% --to 5% --steps 0",
+                                   "--steps must be from 2 to 1000"},
+                      BadArguments{"sweep_steps_huge", "sweep --vary beta --from 1% --to 5% --steps 1000000",
+                                   "--steps must be from 2 to 1000"}),
     [](const auto& info) { return std::string(info.param.name); });
 
 TEST(ExitCodes, ALibraryThatIsASymbolicLinkLoopIsExitTwo) {
