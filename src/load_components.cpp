@@ -177,7 +177,11 @@ void warn_implausible(LoadContext& ctx, const std::string& pointer, const Failur
 // A component must state how it fails dangerously: without it the SIF would count it as never
 // failing (PFD 0). A declared SFF must agree with the component's own rates when those rates
 // give one (IEC 61508-2:2010 7.4.4.2.2 / Annex C defines SFF from the rates; seen).
-void check_failure_behaviour(LoadContext& ctx, ObjectReader& r, const Component& c, const ElementFields& fields) {
+void check_failure_behaviour(LoadContext& ctx, ObjectReader& r, const Component& c, const ElementFields& fields,
+                             bool model_found) {
+  // A rate written but refused, or an unknown model, is reported already: not twice.
+  const bool written = r.has("lambda_du") || r.has("lambda_dd") || r.has("lambda_d") || r.has("field_data");
+  if (!fields.has_dangerous() && (written || !model_found)) return;
   if (!fields.has_dangerous()) {
     ctx.error(0, r.pointer(),
               "the component's dangerous failure rates (\"lambda_du\" and \"lambda_dd\", \"lambda_d\" with \"dc\", "
@@ -269,11 +273,9 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
       ctx.error(0, r.at("id"), "a component id used once", "\"" + c.id + "\" a second time",
                 "give every component its own tag");
     ElementFields fields = own;
-    if (!c.model.empty()) {
-      auto m = models.find(c.model);
-      if (m == models.end()) unknown_model(ctx, r, c.model, models);
-      else fields = merge(fields_of(m->second, m->first), own);
-    }
+    const auto m = c.model.empty() ? models.end() : models.find(c.model);
+    if (!c.model.empty() && m == models.end()) unknown_model(ctx, r, c.model, models);
+    if (m != models.end()) fields = merge(fields_of(m->second, m->first), own);
     c.rates = resolve_rates(fields);
     if (fields.field_data) {
       // Field experience replaces the stated lambda_du by its one-sided upper confidence bound.
@@ -287,7 +289,7 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     c.uncertainty = fields.uncertainty;
     c.field_data = fields.field_data;
     c.data_source = fields.data_source.value_or("");
-    check_failure_behaviour(ctx, r, c, fields);
+    check_failure_behaviour(ctx, r, c, fields, c.model.empty() || m != models.end());
     c.dangerous_rates_stated = fields.has_dangerous();
     warn_implausible(ctx, pointer, c.rates);
     project.components.push_back(std::move(c));
