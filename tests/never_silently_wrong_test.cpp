@@ -380,7 +380,7 @@ INSTANTIATE_TEST_SUITE_P(
                                    "--steps must be from 2 to 1000"},
                       BadArguments{"sweep_steps_huge", "sweep --vary beta --from 1% --to 5% --steps 1000000",
                                    "--steps must be from 2 to 1000"}),
-    [](const auto& info) { return std::string(info.param.name); });
+    [](const ::testing::TestParamInfo<BadArguments>& p) { return std::string(p.param.name); });
 
 TEST(ExitCodes, ALibraryThatIsASymbolicLinkLoopIsExitTwo) {
   const auto dir = fresh_folder("nsw_symlink_loop");
@@ -441,10 +441,12 @@ TEST(Property, GeneratedProjectsPrintOnlyProbabilitiesWithinZeroAndOne) {
       } else if (j.is_number()) {
         const double v = j.get<double>();
         EXPECT_TRUE(std::isfinite(v)) << key;
-        if (key.find("pfd") != std::string::npos || key == "share" || key == "modifier_product")
+        if (key.find("pfd") != std::string::npos || key == "share" || key == "modifier_product") {
           EXPECT_TRUE(v >= 0.0 && v <= 1.0) << key << " = " << v;
-        if (key.find("frequency") != std::string::npos || key.find("rate") != std::string::npos)
+        }
+        if (key.find("frequency") != std::string::npos || key.find("rate") != std::string::npos) {
           EXPECT_GE(v, 0.0) << key;
+        }
       }
     };
     walk(out, "");
