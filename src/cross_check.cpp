@@ -5,6 +5,7 @@
 #include <cstdio>
 
 #include "sifter/diagnostics.hpp"
+#include "sifter/lopa.hpp"
 
 namespace sifter {
 namespace {
@@ -145,7 +146,7 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
   r.simplified_over_exact = ratio;
   r.assumptions.push_back(std::string("exact cross-check: multi-phase Markov model over the mission of ") +
                           format_duration(project.defaults.mission_time) + "; simplified/exact = " +
-                          std::to_string(ratio).substr(0, 5));
+                          format_number(ratio));
   if (ratio < 1.0 - kNonConservativeTolerance)
     warnings.push_back({sif.pointer, "the simplified " + std::string(low ? "PFDavg" : "PFH") + " is " +
                                          pct(1.0 - ratio) +
@@ -153,7 +154,7 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
   else if (std::abs(ratio - 1.0) > kDisagreementTolerance)
     warnings.push_back({sif.pointer, "the simplified and exact " + std::string(low ? "PFDavg" : "PFH") + " differ by " +
                                          pct(std::abs(ratio - 1.0)) + " (simplified/exact = " +
-                                         std::to_string(ratio).substr(0, 5) + ")"});
+                                         format_number(ratio) + ")"});
 }
 
 SifCurve exact_curve(const Project& project, const Sif& sif, int points) {

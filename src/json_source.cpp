@@ -213,116 +213,145 @@ std::string pointer_of(const std::vector<Frame>& stack, std::size_t levels) {
   return pointer;
 }
 
+// The structure scan, one step per method: a container opened, a scalar, a separator or a
+// closing bracket, an object member's key.
+class StructureScanner {
+ public:
+  StructureScanner(std::string_view text, const std::function<void(const std::string&, TextPosition)>& visit)
+      : text_(text), visit_(visit), cur_(text), positions_(text) {}
+
+  std::vector<StructureProblem> run() {
+    cur_.skip_space();
+    seen(cur_.offset());
+    while (true) {
+      cur_.skip_space();
+      if (cur_.done()) return finish();
+      const Step step = expect_value_ ? value() : after_value();
+      if (step == Step::kStop) return finish();
+      if (step == Step::kNext) continue;
+      if (!member_key()) return finish();
+    }
+  }
+
+ private:
+  enum class Step { kNext, kKey, kStop };
+
+  void seen(std::size_t offset) {
+    if (visit_) visit_(pointer_, positions_.at(offset));
+  }
+
+  std::vector<StructureProblem> finish() {
+    PositionTracker located(text_);  // problems were found in text order
+    for (std::size_t i = 0; i < problems_.size(); ++i) problems_[i].position = located.at(problem_offsets_[i]);
+    return std::move(problems_);
+  }
+
+  Step value() {
+    const char c = cur_.peek();
+    if (c == '"') {
+      std::string_view ignored;
+      if (!cur_.read_string(ignored, buffer_)) return Step::kStop;
+      expect_value_ = false;
+      return Step::kNext;
+    }
+    if (c != '{' && c != '[') {
+      cur_.skip_scalar();
+      expect_value_ = false;
+      return Step::kNext;
+    }
+    if (static_cast<int>(stack_.size()) >= kMaxNestingDepth) {
+      // Name the place by its first levels only; the full pointer would be unreadable.
+      const std::string shown = pointer_of(stack_, 6) + (stack_.size() > 6 ? "/..." : "");
+      problems_.push_back({shown, {}, "nesting no deeper than " + std::to_string(kMaxNestingDepth) + " levels",
+                           "deeper nesting", "a project file needs only a few levels; check the brackets"});
+      problem_offsets_.push_back(cur_.offset());
+      return Step::kStop;
+    }
+    Frame& f = stack_.emplace_back();
+    f.is_object = c == '{';
+    cur_.advance();
+    cur_.skip_space();
+    if (cur_.peek() == (c == '{' ? '}' : ']')) {
+      cur_.advance();
+      stack_.pop_back();
+      expect_value_ = false;
+      return Step::kNext;
+    }
+    if (c == '[') {
+      if (visit_) pointer_ += "/0";
+      seen(cur_.offset());
+      return Step::kNext;
+    }
+    return Step::kKey;  // an object: read its first key
+  }
+
+  Step after_value() {
+    if (stack_.empty()) return Step::kStop;  // trailing text: the parser reports it
+    Frame& top = stack_.back();
+    const char c = cur_.peek();
+    if (visit_) pointer_.resize(pointer_.rfind('/') == std::string::npos ? 0 : pointer_.rfind('/'));
+    if (c == (top.is_object ? '}' : ']')) {
+      cur_.advance();
+      stack_.pop_back();
+      return Step::kNext;
+    }
+    if (c != ',') return Step::kStop;
+    cur_.advance();
+    cur_.skip_space();
+    if (top.is_object) return Step::kKey;
+    ++top.index;
+    if (visit_) pointer_ += "/" + std::to_string(top.index);
+    seen(cur_.offset());
+    expect_value_ = true;
+    return Step::kNext;
+  }
+
+  // Reads an object member's key, then expects its value; false ends the scan.
+  bool member_key() {
+    cur_.skip_space();
+    if (cur_.peek() != '"') return false;
+    const std::size_t key_offset = cur_.offset();
+    std::string_view key;
+    if (!cur_.read_string(key, buffer_)) return false;
+    Frame& obj = stack_.back();
+    obj.key.assign(key);
+    const bool decoded = key.data() == buffer_.data();
+    if (!obj.keys.insert(key, arena_, decoded)) {
+      problems_.push_back({pointer_of(stack_, stack_.size()), {}, "each key once in an object",
+                           "\"" + obj.key + "\" a second time",
+                           "remove one of the two; a JSON reader would silently keep only the last"});
+      problem_offsets_.push_back(key_offset);
+      if (problems_.size() >= kMaxReportedProblems) return false;  // enough to refuse the file
+    }
+    if (visit_) pointer_ += "/" + escape_pointer_token(obj.key);
+    seen(key_offset);
+    cur_.skip_space();
+    if (cur_.peek() != ':') return false;
+    cur_.advance();
+    expect_value_ = true;
+    return true;
+  }
+
+  std::string_view text_;
+  const std::function<void(const std::string&, TextPosition)>& visit_;
+  Cursor cur_;
+  PositionTracker positions_;
+  std::vector<StructureProblem> problems_;
+  std::vector<std::size_t> problem_offsets_;
+  std::vector<Frame> stack_;
+  std::deque<std::string> arena_;  // keys that needed decoding
+  std::string buffer_;
+  bool expect_value_ = true;  // otherwise: expect a separator or a closing bracket
+  // With a visitor the pointer is kept up to date as the scan moves; without, it is built
+  // from the frames only for a problem.
+  std::string pointer_;
+};
+
 }  // namespace
 
 std::vector<StructureProblem> scan_json_structure(
     std::string_view text, const std::function<void(const std::string&, TextPosition)>& visit) {
-  std::vector<StructureProblem> problems;
-  std::vector<std::size_t> problem_offsets;
-  Cursor cur(text);
-  PositionTracker positions(text);
-  std::vector<Frame> stack;
-  std::deque<std::string> arena;  // keys that needed decoding
-  std::string buffer;
-  std::string_view key;
-  bool expect_value = true;  // otherwise: expect a separator or a closing bracket
-  // With a visitor the pointer is kept up to date as the scan moves; without, it is built
-  // from the frames only for a problem.
-  std::string pointer;
-  auto seen = [&](std::size_t offset) {
-    if (visit) visit(pointer, positions.at(offset));
-  };
-  auto finish = [&]() {
-    PositionTracker located(text);  // problems were found in text order
-    for (std::size_t i = 0; i < problems.size(); ++i) problems[i].position = located.at(problem_offsets[i]);
-    return problems;
-  };
-
-  cur.skip_space();
-  seen(cur.offset());
-  while (true) {
-    cur.skip_space();
-    if (cur.done()) return finish();
-    if (expect_value) {
-      const char c = cur.peek();
-      if (c == '{' || c == '[') {
-        if (static_cast<int>(stack.size()) >= kMaxNestingDepth) {
-          // Name the place by its first levels only; the full pointer would be unreadable.
-          const std::string shown = pointer_of(stack, 6) + (stack.size() > 6 ? "/..." : "");
-          problems.push_back({shown, {}, "nesting no deeper than " + std::to_string(kMaxNestingDepth) + " levels",
-                              "deeper nesting", "a project file needs only a few levels; check the brackets"});
-          problem_offsets.push_back(cur.offset());
-          return finish();
-        }
-        Frame& f = stack.emplace_back();
-        f.is_object = c == '{';
-        cur.advance();
-        cur.skip_space();
-        if (cur.peek() == (c == '{' ? '}' : ']')) {
-          cur.advance();
-          stack.pop_back();
-          expect_value = false;
-          continue;
-        }
-        if (c == '[') {
-          if (visit) pointer += "/0";
-          seen(cur.offset());
-          continue;
-        }
-        // An object: read its first key below.
-      } else if (c == '"') {
-        std::string_view ignored;
-        if (!cur.read_string(ignored, buffer)) return finish();
-        expect_value = false;
-        continue;
-      } else {
-        cur.skip_scalar();
-        expect_value = false;
-        continue;
-      }
-    } else {
-      if (stack.empty()) return finish();  // trailing text: the parser reports it
-      Frame& top = stack.back();
-      const char c = cur.peek();
-      if (visit) pointer.resize(pointer.rfind('/') == std::string::npos ? 0 : pointer.rfind('/'));
-      if (c == (top.is_object ? '}' : ']')) {
-        cur.advance();
-        stack.pop_back();
-        continue;
-      }
-      if (c != ',') return finish();
-      cur.advance();
-      cur.skip_space();
-      if (!top.is_object) {
-        ++top.index;
-        if (visit) pointer += "/" + std::to_string(top.index);
-        seen(cur.offset());
-        expect_value = true;
-        continue;
-      }
-    }
-    // Read an object member's key, then expect its value.
-    cur.skip_space();
-    if (cur.peek() != '"') return finish();
-    const std::size_t key_offset = cur.offset();
-    if (!cur.read_string(key, buffer)) return finish();
-    Frame& obj = stack.back();
-    obj.key.assign(key);
-    const bool decoded = key.data() == buffer.data();
-    if (!obj.keys.insert(key, arena, decoded)) {
-      problems.push_back({pointer_of(stack, stack.size()), {}, "each key once in an object",
-                          "\"" + obj.key + "\" a second time",
-                          "remove one of the two; a JSON reader would silently keep only the last"});
-      problem_offsets.push_back(key_offset);
-      if (problems.size() >= kMaxReportedProblems) return finish();  // enough to refuse the file
-    }
-    if (visit) pointer += "/" + escape_pointer_token(obj.key);
-    seen(key_offset);
-    cur.skip_space();
-    if (cur.peek() != ':') return finish();
-    cur.advance();
-    expect_value = true;
-  }
+  return StructureScanner(text, visit).run();
 }
 
 std::vector<TextPosition> locate_pointers(std::string_view text, const std::vector<std::string>& pointers) {

@@ -148,7 +148,8 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.member("defaults");
   read_defaults(ctx, *root, project);
   detail::ModelIndex models;
-  std::vector<std::string> chain{fs::weakly_canonical(project.file).string()};
+  std::error_code ec;
+  std::vector<std::string> chain{fs::weakly_canonical(project.file, ec).string()};
   detail::read_libraries(ctx, top, base_dir, models, chain);
   // Each section's JSON is released once it is read, so that a large register is never held
   // twice (as JSON and as structs) at its full size.
@@ -163,12 +164,14 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.member("lopa");
   detail::read_scenarios(ctx, *root, project);
   top.finish();
+  detail::check_project_plausibility(ctx, project);
   if (ctx.problems.empty()) {
     const auto graph_problems = validate_project_graph(project);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
   }
   if (!ctx.problems.empty()) throw InputError(ctx.located());
   out.warnings = std::move(ctx.warnings);
+  for (const auto& source : ctx.sources) out.inputs.push_back(source.path);
   return out;
 }
 
@@ -183,7 +186,14 @@ void read_libraries(LoadContext& ctx, ObjectReader& owner, const std::string& ba
   for (std::size_t i = 0; i < paths.size(); ++i) {
     const std::string pointer = owner.at("libraries") + "/" + std::to_string(i);
     const fs::path resolved = (fs::path(base_dir) / paths[i]).lexically_normal();
-    const std::string canonical = fs::weakly_canonical(resolved).string();
+    // A symbolic-link loop has no canonical form: the error code keeps it a problem of the input.
+    std::error_code loop;
+    const std::string canonical = fs::weakly_canonical(resolved, loop).string();
+    if (loop) {
+      ctx.error(owner_source, pointer, "a readable library file", "\"" + paths[i] + "\": " + loop.message(),
+                "check the path; a symbolic link that points at itself never reaches a file");
+      continue;
+    }
     if (std::find(chain.begin(), chain.end(), canonical) != chain.end()) {
       std::string cycle;
       for (const auto& c : chain) cycle += fs::path(c).filename().string() + " -> ";

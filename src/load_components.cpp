@@ -1,5 +1,6 @@
 // Loading components and library models, with the two ways of writing failure rates.
 #include <cmath>
+#include <cstdio>
 #include <map>
 #include <set>
 
@@ -9,6 +10,16 @@
 
 namespace sifter::detail {
 namespace {
+
+// A declared SFF may round the rates' own figure; a larger gap means one of them is wrong.
+constexpr double kSffAgreement = 0.01;
+constexpr double kMaxRatePerHour = 1e5;
+
+std::string percent_text(double fraction) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.1f%%", 100.0 * fraction);
+  return buf;
+}
 
 // What one JSON object says about an element; absent fields stay empty so that a component
 // can override its library model field by field.
@@ -25,6 +36,10 @@ struct ElementFields {
 
   [[nodiscard]] bool has_split_form() const { return lambda_du || lambda_dd || lambda_su || lambda_sd; }
   [[nodiscard]] bool has_total_form() const { return lambda_d || dc || lambda_s; }
+  /// Some dangerous failure rate is stated (IEC 61508-6 needs lambda_D to compute anything).
+  [[nodiscard]] bool has_dangerous() const { return lambda_du || lambda_dd || lambda_d || field_data; }
+  /// The safe rates are stated too, so that the rates alone give the SFF.
+  [[nodiscard]] bool has_safe() const { return lambda_su || lambda_sd || lambda_s; }
 };
 
 std::optional<RateUncertainty> read_uncertainty(ObjectReader& r) {
@@ -159,6 +174,57 @@ void warn_implausible(LoadContext& ctx, const std::string& pointer, const Failur
   }
 }
 
+// A component must state how it fails dangerously: without it the SIF would count it as never
+// failing (PFD 0). A declared SFF must agree with the component's own rates when those rates
+// give one (IEC 61508-2:2010 7.4.4.2.2 / Annex C defines SFF from the rates; seen).
+void check_failure_behaviour(LoadContext& ctx, ObjectReader& r, const Component& c, const ElementFields& fields,
+                             bool model_found) {
+  // A rate written but refused, or an unknown model, is reported already: not twice.
+  const bool written = r.has("lambda_du") || r.has("lambda_dd") || r.has("lambda_d") || r.has("field_data");
+  if (!fields.has_dangerous() && (written || !model_found)) return;
+  if (!fields.has_dangerous()) {
+    ctx.error(0, r.pointer(),
+              "the component's dangerous failure rates (\"lambda_du\" and \"lambda_dd\", \"lambda_d\" with \"dc\", "
+              "or \"field_data\")",
+              c.model.empty() ? "none" : "none, here or in model \"" + c.model + "\"",
+              "copy them from the safety manual; a device without rates would count as never failing");
+    return;
+  }
+  // Far above any device (field devices lie within about 1e-10..1e-3/h, common practice; those
+  // outside are warned below) the engines' arithmetic leaves its range: 1e30/h made the exact
+  // engine answer 0. 1e5/h (a failure every 36 ms) bounds the rates any unit can express.
+  const std::pair<const char*, double> named[] = {{"lambda_du", c.rates.lambda_du.per_hour},
+                                                  {"lambda_dd", c.rates.lambda_dd.per_hour},
+                                                  {"lambda_su", c.rates.lambda_su.per_hour},
+                                                  {"lambda_sd", c.rates.lambda_sd.per_hour}};
+  for (const auto& [name, v] : named)
+    if (v > kMaxRatePerHour) {
+      ctx.error(0, r.pointer(), "failure rates of at most 1e5/h", std::string(name) + " = " + format_rate(Rate{v}),
+                "check the unit: 1 FIT is 1e-9/h; field devices lie within about 1e-10..1e-3/h");
+      return;
+    }
+  if (!fields.sff || !fields.has_safe()) return;  // declared SFF alone: used as declared
+  // The SFF of the stated rates: field data re-estimate lambda_du, not the design's SFF.
+  const FailureRates stated = resolve_rates(fields);
+  const double total = stated.lambda_d() + stated.lambda_s();
+  if (!(total > 0.0)) return;
+  const double from_rates = (stated.lambda_s() + stated.lambda_dd.per_hour) / total;
+  if (std::fabs(from_rates - *fields.sff) > kSffAgreement)
+    ctx.error(0, r.has("sff") ? r.at("sff") : r.pointer(),
+              "a declared SFF within 1 percentage point of the SFF of the component's own rates (" +
+                  percent_text(from_rates) + ")",
+              "a declared SFF of " + percent_text(*fields.sff),
+              "correct the rates or the SFF; drop \"sff\" to use the rates' own figure");
+}
+
+void unknown_model(LoadContext& ctx, ObjectReader& r, const std::string& model, const ModelIndex& models) {
+  std::vector<std::string> names;
+  for (const auto& [name, _] : models) names.push_back(name);
+  const auto near = nearest(model, names);
+  ctx.error(0, r.at("model"), "the id of a model in the libraries", "\"" + model + "\"",
+            near.empty() ? "add the library that holds it to \"libraries\"" : "did you mean \"" + near + "\"?");
+}
+
 }  // namespace
 
 void check_model_entry(LoadContext& ctx, const Json& entry, int source, const std::string& pointer) {
@@ -197,6 +263,8 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     Component c;
     c.pointer = pointer;
     c.id = r.string("id", true).value_or("");
+    if (r.has("id") && c.id.empty() && r.member("id")->is_string())
+      ctx.error(0, r.at("id"), "a component id that is not empty", "\"\"", "use the device's tag, e.g. \"PT-101A\"");
     c.model = r.string("model").value_or("");
     allow_descriptive(r);
     ElementFields own = read_element_fields(r);
@@ -205,18 +273,9 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
       ctx.error(0, r.at("id"), "a component id used once", "\"" + c.id + "\" a second time",
                 "give every component its own tag");
     ElementFields fields = own;
-    if (!c.model.empty()) {
-      auto m = models.find(c.model);
-      if (m == models.end()) {
-        std::vector<std::string> names;
-        for (const auto& [name, _] : models) names.push_back(name);
-        const auto near = nearest(c.model, names);
-        ctx.error(0, r.at("model"), "the id of a model in the libraries", "\"" + c.model + "\"",
-                  near.empty() ? "add the library that holds it to \"libraries\"" : "did you mean \"" + near + "\"?");
-      } else {
-        fields = merge(fields_of(m->second, m->first), own);
-      }
-    }
+    const auto m = c.model.empty() ? models.end() : models.find(c.model);
+    if (!c.model.empty() && m == models.end()) unknown_model(ctx, r, c.model, models);
+    if (m != models.end()) fields = merge(fields_of(m->second, m->first), own);
     c.rates = resolve_rates(fields);
     if (fields.field_data) {
       // Field experience replaces the stated lambda_du by its one-sided upper confidence bound.
@@ -230,6 +289,8 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     c.uncertainty = fields.uncertainty;
     c.field_data = fields.field_data;
     c.data_source = fields.data_source.value_or("");
+    check_failure_behaviour(ctx, r, c, fields, c.model.empty() || m != models.end());
+    c.dangerous_rates_stated = fields.has_dangerous();
     warn_implausible(ctx, pointer, c.rates);
     project.components.push_back(std::move(c));
   }

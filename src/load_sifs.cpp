@@ -10,6 +10,7 @@ namespace sifter::detail {
 namespace {
 
 constexpr int kMaxChannels = 8;
+constexpr double kMaxTestsPerMission = 20000.0;
 
 Role role_of(const std::string& s) {
   if (s == "logic") return Role::kLogic;
@@ -61,6 +62,27 @@ void read_partial_stroke(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
   }
 }
 
+// The exact engine steps through every test of the mission; its work grows with their number.
+// Beyond kMaxTestsPerMission tests (a daily test over 50 years is 18 262) the input is refused
+// before any work starts (README "Limits").
+void refuse_unbounded_tests(LoadContext& ctx, ObjectReader& r, const Subsystem& sub, const Defaults& defaults) {
+  const double mission = defaults.mission_time.hours;
+  auto check = [&](double interval, const std::string& pointer, const char* what) {
+    if (!(interval > 0.0) || !(mission > 0.0) || mission / interval <= kMaxTestsPerMission) return;
+    ctx.error(0, pointer,
+              std::string("a ") + what + " of at least " + format_duration(Duration{mission / kMaxTestsPerMission}) +
+                  " (at most " + std::to_string(static_cast<long>(kMaxTestsPerMission)) + " tests over the mission of " +
+                  format_duration(defaults.mission_time) + ")",
+              format_duration(Duration{interval}),
+              "a proof test this frequent is an online diagnostic: count it in lambda_dd (dc) instead");
+  };
+  if (!sub.is_vendor())
+    check(sub.proof_test_interval.hours, r.has("proof_test_interval") ? r.at("proof_test_interval") : r.pointer(),
+          "proof-test interval");
+  if (sub.partial_stroke)
+    check(sub.partial_stroke->interval.hours, r.at("partial_stroke") + "/interval", "partial stroke interval");
+}
+
 // Applies a duration from the subsystem, else the project default; reports when neither.
 Duration with_default(LoadContext& ctx, ObjectReader& r, const std::string& key, const std::optional<Duration>& fallback,
                       bool& defaulted, bool needed) {
@@ -86,13 +108,14 @@ void warn_implausible(LoadContext& ctx, const Subsystem& sub, const Defaults& de
     ctx.warn(sub.pointer, "the MTTR (" + format_duration(sub.mttr) + ") is longer than the proof-test interval");
 }
 
-Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string& pointer, const Defaults& defaults) {
-  ObjectReader r(ctx, value, pointer, 0, "a subsystem");
-  Subsystem sub;
-  sub.pointer = pointer;
-  sub.name = r.string("name", true).value_or("");
-  sub.role = role_of(r.choice("role", {"sensor", "logic", "final"}, true).value_or("sensor"));
+// The supplier's figures, the declarations, the vote and the channels.
+void read_figures_and_vote(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
+  const std::string& pointer = sub.pointer;
   sub.vendor_pfd_avg = r.probability("pfd_avg");
+  if (sub.vendor_pfd_avg && *sub.vendor_pfd_avg <= 0.0) {
+    ctx.error(0, r.at("pfd_avg"), "a supplier's PFDavg above 0 and at most 1", "0",
+              "a PFDavg of 0 claims a subsystem that never fails; take the figure from the safety manual");
+  }
   sub.vendor_pfh = r.rate("pfh");
   if (sub.vendor_pfd_avg && sub.vendor_pfh)
     ctx.error(0, pointer, "either \"pfd_avg\" or \"pfh\" from the safety manual", "both",
@@ -117,6 +140,12 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
   if (vendor && !sub.channels.empty())
     ctx.error(0, r.at("channels"), "either channels or a vendor figure (\"pfd_avg\" / \"pfh\")", "both",
               "a vendor figure already covers the subsystem's hardware");
+}
+
+// Beta, beta_D and their scaling; a redundant group must state beta.
+void read_common_cause(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
+  const std::string& pointer = sub.pointer;
+  const bool vendor = sub.is_vendor();
   auto beta = r.fraction("beta");
   auto beta_d = r.fraction("beta_d");
   sub.beta = beta.value_or(0.0);
@@ -135,6 +164,11 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
       ctx.error(0, r.at("ccf_scaling"), "a vote that IEC 61508-6 Table D.5 covers (N up to 5)",
                 sub.vote.text(), "use \"none\" and enter beta for this group directly");
   }
+}
+
+// The intervals and times, from the subsystem or the project defaults, and the test plan.
+void read_times(LoadContext& ctx, ObjectReader& r, Subsystem& sub, const Defaults& defaults) {
+  const bool vendor = sub.is_vendor();
   const bool needs_times = !vendor;
   sub.proof_test_interval =
       with_default(ctx, r, "proof_test_interval", defaults.proof_test_interval, sub.interval_defaulted, needs_times);
@@ -151,7 +185,29 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
     ctx.error(0, r.at("proof_test_interval"), "a positive proof-test interval", "zero");
   sub.proof_test_coverage = r.fraction("proof_test_coverage").value_or(1.0);
   read_partial_stroke(ctx, r, sub);
+  refuse_unbounded_tests(ctx, r, sub, defaults);
   sub.test_duration = r.duration("test_duration");
+  // The channel is bypassed while tested: a test longer than the interval leaves it bypassed
+  // for good, which no test plan means (IEC 61508-6:2010 B.3.2.5 counts the test time inside T1).
+  if (needs_times && sub.test_duration && sub.proof_test_interval.hours > 0.0 &&
+      sub.test_duration->hours > sub.proof_test_interval.hours)
+    ctx.error(0, r.at("test_duration"),
+              "a test duration no longer than the proof-test interval (" + format_duration(sub.proof_test_interval) +
+                  ")",
+              format_duration(*sub.test_duration), "the test duration is how long one test keeps a channel bypassed");
+}
+
+Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string& pointer, const Defaults& defaults) {
+  ObjectReader r(ctx, value, pointer, 0, "a subsystem");
+  Subsystem sub;
+  sub.pointer = pointer;
+  sub.name = r.string("name", true).value_or("");
+  if (r.has("name") && sub.name.empty() && r.member("name")->is_string())
+    ctx.error(0, r.at("name"), "a subsystem name that is not empty", "\"\"", "name it, e.g. \"transmitters\"");
+  sub.role = role_of(r.choice("role", {"sensor", "logic", "final"}, true).value_or("sensor"));
+  read_figures_and_vote(ctx, r, sub);
+  read_common_cause(ctx, r, sub);
+  read_times(ctx, r, sub, defaults);
   sub.staggered = r.boolean("staggered").value_or(false);
   sub.trip_on_detected = r.boolean("trip_on_detected").value_or(false);
   sub.diverse = r.boolean("diverse").value_or(false);
@@ -216,7 +272,10 @@ void read_sifs(LoadContext& ctx, const Json& root, Project& project) {
     Sif sif;
     sif.pointer = pointer;
     sif.id = r.string("id", true).value_or("");
+    if (r.has("id") && sif.id.empty() && r.member("id")->is_string())
+      ctx.error(0, r.at("id"), "a SIF id that is not empty", "\"\"", "use the tag of the SIF, e.g. \"SIF-101\"");
     sif.title = r.string("title").value_or("");
+    sif.path_exception = r.string("path_exception").value_or("");
     if (auto mode = r.choice("demand_mode", {"low", "high"}))
       sif.demand_mode_stated = *mode == "low" ? DemandMode::kLow : DemandMode::kHigh;
     sif.target = read_target(ctx, r);

@@ -17,6 +17,7 @@ std::string to_string(FindingKind kind) {
   switch (kind) {
     case FindingKind::kNotIndependent: return "not_independent";
     case FindingKind::kBpcsCreditCapped: return "bpcs_credit_capped";
+    case FindingKind::kImplausiblyLowPfd: return "implausibly_low_pfd";
     case FindingKind::kTooManyBpcsLayers: return "too_many_bpcs_layers";
     case FindingKind::kResponseTime: return "response_time";
     case FindingKind::kNoSifNeeded: return "no_sif_needed";

@@ -13,6 +13,8 @@
 namespace sifter {
 namespace {
 
+constexpr double kLowestPlausibleLayerPfd = 1e-5;
+
 std::string layer_label(const Layer& layer, std::size_t index) {
   if (!layer.id.empty()) return layer.id;
   if (!layer.sif.empty()) return layer.sif;
@@ -124,6 +126,7 @@ class LayerRules {
     lc.pfd_credited = lc.pfd_claimed;
     std::vector<std::string> notes;
     apply_cap(i, lc, notes);
+    question_low_pfd(i, lc);
     bool ok = operator_time_allows(i, notes);
     ok = independent_of_sif(i, notes) && ok;
     ok = independent_of_causes(i, lc) && ok;
@@ -157,6 +160,18 @@ class LayerRules {
                 "; a BPCS function or operator response is credited with a PFD no lower than " +
                 format_number(kBpcsMinPfd) + " (risk reduction " + format_number(1.0 / kBpcsMinPfd) +
                 " at most, IEC 61511-1:2016 clause 9.3), so " + format_number(kBpcsMinPfd) + " is used.");
+  }
+
+  // A layer other than a computed SIF claiming a PFD below 1e-5 (RRF above 100 000) claims more
+  // than any single device or procedure is shown to give; CCPS LOPA (2001) tables list IPL PFDs
+  // of 1e-1 to 1e-5 at best (from memory). Credited as claimed, but questioned.
+  void question_low_pfd(std::size_t i, const LayerCredit& lc) {
+    const Layer& layer = scenario_.layers[i];
+    if (!layer.sif.empty() || capped_kind(layer.kind) || !(lc.pfd_claimed < kLowestPlausibleLayerPfd)) return;
+    finding(FindingKind::kImplausiblyLowPfd,
+            "Layer " + layer_label(layer, i) + " claims PFD " + format_number(lc.pfd_claimed) +
+                ", below the " + format_number(kLowestPlausibleLayerPfd) +
+                " that any single protection layer is credited with in practice; justify it or use a higher PFD.");
   }
 
   bool operator_time_allows(std::size_t i, std::vector<std::string>& notes) {

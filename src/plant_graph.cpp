@@ -72,17 +72,17 @@ void PlantGraph::check_groups(const Project& project) {
     if (sub.vote.n != n_channels)
       problems_.push_back({sub.pointer + "/channels", std::to_string(sub.vote.n) + " channels for vote " + sub.vote.text(),
                            std::to_string(n_channels) + " channels", "make the vote's N equal to the channel count"});
-    // Walk group -> channels -> components to find a component used twice in the group.
-    std::map<std::size_t, int> uses;
-    for (auto cv : channels) {
-      for (auto ke : boost::make_iterator_range(boost::out_edges(cv, graph_))) {
-        const std::size_t comp = graph_[boost::target(ke, graph_)].index;
-        if (++uses[comp] == 2)
-          problems_.push_back({sub.pointer + "/channels", "each component once in a group",
-                               "\"" + project.components[comp].id + "\" more than once",
+    // A component used twice in the group is reported where it is written the second time.
+    std::map<std::string, std::string> first_use;
+    for (const auto& ch : sub.channels)
+      for (std::size_t e = 0; e < ch.component_ids.size(); ++e) {
+        const std::string place = ch.component_ids.size() > 1 ? ch.pointer + "/" + std::to_string(e) : ch.pointer;
+        auto [at, fresh] = first_use.emplace(ch.component_ids[e], place);
+        if (!fresh)
+          problems_.push_back({place, "each component once in a group",
+                               "\"" + ch.component_ids[e] + "\" again (first at " + at->second + ")",
                                "redundant channels need their own devices"});
       }
-    }
   }
 }
 

@@ -11,6 +11,8 @@
 
 #include "sifter/constraints.hpp"
 #include "sifter/cross_check.hpp"
+#include "sifter/plausibility.hpp"
+#include "sifter/probability_cap.hpp"
 #include "sifter/sif_uncertainty.hpp"
 #include "sifter/sil.hpp"
 #include "sifter/spurious.hpp"
@@ -308,7 +310,10 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
       warnings.push_back({sif.pointer + "/target", "the stated target (" + r.target_text + ") differs from the SIL " +
                                                         std::to_string(lopa_sil) +
                                                         " the LOPA requires; the stricter applies"});
-    const double lopa_pfd = 1.0 / lopa->required_rrf;
+    // A required RRF at or below 1 asks for no reduction at all: the required PFD is capped at 1
+    // (a probability), and the text says that no SIF is needed.
+    const bool none_needed = !(lopa->required_rrf > 1.0);
+    const double lopa_pfd = none_needed ? 1.0 : 1.0 / lopa->required_rrf;
     if (!required_pfd || lopa_pfd < *required_pfd) {
       required_pfd = lopa_pfd;
       r.required_rrf = lopa->required_rrf;
@@ -317,7 +322,9 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
       required_pfh = lopa->required_pfh_per_hour;
     required_sil = std::max(required_sil.value_or(0), lopa_sil);
     r.target_text = (r.target_text.empty() ? "" : r.target_text + "; ") + "LOPA: " +
-                    (low ? "RRF " + num(lopa->required_rrf) : "PFH <= " + num(required_pfh.value_or(0.0)) + "/h");
+                    (low ? (none_needed ? "no SIF needed (required RRF " + num(lopa->required_rrf) + ", PFD capped at 1)"
+                                        : "RRF " + num(lopa->required_rrf))
+                         : "PFH <= " + num(required_pfh.value_or(0.0)) + "/h");
   }
   r.sil_required = required_sil;
   r.required_pfd = low ? required_pfd : std::nullopt;
@@ -459,6 +466,24 @@ std::map<std::string, RequirementFromLopa> lopa_requirements(const Project& proj
   return requirements_from(evaluate_scenarios(project, lopa_context_from_project(project)), warnings);
 }
 
+namespace {
+
+// A SIF without a stated mode takes it from the LOPA; its supplier figures and target must be
+// of that mode (the loader checked SIFs whose mode is stated or assumed).
+void refuse_mode_mismatches_from_lopa(const Project& project,
+                                      const std::map<std::string, RequirementFromLopa>& requirements) {
+  std::vector<Diagnostic> problems;
+  for (const auto& sif : project.sifs) {
+    auto it = requirements.find(sif.id);
+    if (sif.demand_mode_stated || it == requirements.end()) continue;
+    for (const auto& p : demand_mode_mismatches(sif, it->second.demand_mode, it->second.demand_basis))
+      problems.push_back({project.file, 0, 0, p.pointer, p.expected, p.found, p.hint});
+  }
+  if (!problems.empty()) throw InputError(problems);
+}
+
+}  // namespace
+
 ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& options) {
   const Project& project = loaded.project;
   ProjectResult out;
@@ -473,6 +498,7 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   // computed PFDavg (or PFH) for the mitigated frequencies.
   LopaContext context = lopa_context_from_project(project);
   const auto requirements = lopa_requirements(project, out.warnings);
+  refuse_mode_mismatches_from_lopa(project, requirements);
   // SIFs are independent once their requirements are known: verify them on every core, each
   // with its own warnings, and merge in project order so the output does not depend on threads.
   const std::size_t n = project.sifs.size();
@@ -488,17 +514,22 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   for (std::size_t i = 0; i < n; ++i) {
     const Sif& sif = project.sifs[i];
     out.warnings.insert(out.warnings.end(), sif_warnings[i].begin(), sif_warnings[i].end());
+    cap_probabilities(sif, out.sifs[i], out.warnings);
     const SifResult& r = out.sifs[i];
     auto& figures = context.sifs[sif.id];
     figures.pfd_avg = r.pfd_avg;
     if (r.pfh_per_hour) figures.pfh = Rate{*r.pfh_per_hour};
   }
-  if (options.samples > 0) run_uncertainty(project, options, out);
+  if (options.samples > 0) {
+    run_uncertainty(project, options, out);
+    for (std::size_t i = 0; i < n; ++i) cap_probabilities(project.sifs[i], out.sifs[i], out.warnings);
+  }
   if (!project.scenarios.empty()) {
     out.scenarios = evaluate_scenarios(project, context);
     out.shared_devices = shared_devices(project);
   }
   refuse_figures_beyond_finite(project, out);
+  attach_sif_warnings(project, out.warnings, out.sifs);
   return out;
 }
 

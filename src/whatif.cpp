@@ -8,6 +8,7 @@
 #include <boost/math/tools/toms748_solve.hpp>
 
 #include "sifter/detail/whatif_parts.hpp"
+#include "sifter/probability_cap.hpp"
 #include "sifter/sil.hpp"
 
 namespace sifter {
@@ -76,8 +77,10 @@ SifResult WhatIf::verify(const Project& modified, std::size_t sif) const {
   std::vector<Warning> ignored;
   VerifyOptions options;
   options.exact = false;
-  return verify_sif(modified, s, it == requirements_.end() ? std::nullopt : std::optional(it->second), options,
-                    ignored);
+  SifResult r = verify_sif(modified, s, it == requirements_.end() ? std::nullopt : std::optional(it->second), options,
+                           ignored);
+  cap_probabilities(s, r, ignored);  // as check does: no probability above 1 leaves an engine
+  return r;
 }
 
 std::optional<double> sif_measure(const SifResult& r) {

@@ -116,12 +116,16 @@ std::vector<Probe> probes_for(const Project& project, std::size_t sif, Provenanc
   return probes;
 }
 
+constexpr double kMaxSensitivityFactor = 10.0;
+
 }  // namespace
 
 SensitivityResult sensitivity(const WhatIf& what_if, std::size_t sif, double factor) {
-  if (!(factor > 1.0) || !std::isfinite(factor))
-    throw UsageError("the factor must be a number above 1 (each input is divided and multiplied by it), found " +
-                     detail::number_text(factor));
+  // Above 10 the varied inputs leave the physical range (and an interval divided by 1e200 would
+  // ask the exact engine for 1e200 tests); README "Limits".
+  if (!(factor > 1.0) || !(factor <= kMaxSensitivityFactor))
+    throw UsageError("the factor must be a number above 1 and at most 10 (each input is divided and multiplied by "
+                     "it), found " + detail::number_text(factor));
   const Project& base = what_if.project();
   const SifResult now = what_if.baseline(sif);
   const auto measure_now = sif_measure(now);

@@ -18,6 +18,9 @@ constexpr std::array<std::pair<SweepParameter, const char*>, 5> kParameterNames{
 }};
 
 constexpr int kMaxSteps = 1000;
+constexpr double kMaxRateFactor = 1000.0;
+constexpr double kMinIntervalHours = 24.0;
+constexpr double kMaxDurationHours = 100.0 * kHoursPerYear;
 
 bool is_fraction(SweepParameter p) { return p == SweepParameter::kBeta || p == SweepParameter::kProofTestCoverage; }
 
@@ -32,6 +35,16 @@ void check_value(SweepParameter p, double v, const char* end) {
   if (p == SweepParameter::kProofTestInterval && v <= 0.0)
     throw UsageError("a proof-test interval must be above zero: --" + std::string(end));
   if (v < 0.0) throw UsageError("--" + std::string(end) + " must not be negative");
+  // Bounds that keep every point a physical input and the work of the sweep bounded (README "Limits").
+  if (p == SweepParameter::kLambdaDuFactor && v > kMaxRateFactor)
+    throw UsageError("lambda_du_factor: --" + std::string(end) + " must be at most " +
+                     detail::number_text(kMaxRateFactor) + ", found " + detail::number_text(v));
+  if (p == SweepParameter::kProofTestInterval && (v < kMinIntervalHours || v > kMaxDurationHours))
+    throw UsageError("a proof-test interval for a sweep lies from 1 d to 100 yr: --" + std::string(end) + " is " +
+                     format_duration(Duration{v}));
+  if (p == SweepParameter::kMttr && v > kMaxDurationHours)
+    throw UsageError("an MTTR for a sweep is at most 100 yr: --" + std::string(end) + " is " +
+                     format_duration(Duration{v}));
 }
 
 std::vector<double> sweep_values(const SweepRequest& r) {

@@ -135,8 +135,8 @@ std::vector<HostileText> hostile_texts() {
       {"AnEmptyFile", "", "expected valid JSON"},
       {"OnlyWhitespace", std::string(1 << 20, ' '), "expected valid JSON"},
       {"ATruncatedProject", project_with("\"100 FIT\"").substr(0, 200), "expected valid JSON"},
-      {"RatesAndIntervalsThatOverflow", project_with("\"1e300/h\""), "SIF S1 with its PFDavg beyond the range of finite numbers"},
-      {"ARateWhoseSquareUnderflows", project_with("\"1e-160/h\"", "\"0%\"", "0"),
+      {"AnAbsurdlyHighRate", project_with("\"1e300/h\""), "expected failure rates of at most 1e5/h, found lambda_du"},
+      {"ARateWhoseSquareUnderflows", project_with("\"1e-160/h\"", "\"0%\"", "5e-324"),
        "SIF S1 with its RRF beyond the range of finite numbers"},
       {"AScenarioWhoseRequirementOverflows", R"({"format": "sifter-project/1", "scenarios": [{"id": "L1",
          "target_frequency": "1e-300/yr", "causes": [{"id": "C1", "frequency": "1e300/yr"}]}]})",
@@ -203,7 +203,7 @@ void numbers_of(const nlohmann::json& j, std::vector<double>& out) {
 
 TEST(HostileNumbers, NegativeZeroIsReadAsZeroAndNeverPrinted) {
   const auto dir = fresh_folder("negative_zero");
-  std::ofstream(dir / "p.json") << project_with("\"-0/h\"", "-0.0", "-0.0");
+  std::ofstream(dir / "p.json") << project_with("\"-0/h\"", "-0.0", "1e-4");
   const auto json_run = run_sifter("check " + (dir / "p.json").string() + " --json -");
   ASSERT_NE(json_run.exit_code, 2) << json_run.err;
   std::vector<double> numbers;
@@ -217,10 +217,10 @@ TEST(HostileNumbers, NegativeZeroIsReadAsZeroAndNeverPrinted) {
 }
 
 TEST(HostileNumbers, NegativeZeroInTheQuantitiesIsZero) {
-  const auto p = load_project_text(project_with("\"-0 FIT\"", "\"-0%\"", "-0.0"), "p.json", ".").project;
+  // (A supplier's PFDavg of -0 is 0, which is refused: a probability lies in (0, 1].)
+  const auto p = load_project_text(project_with("\"-0 FIT\"", "\"-0%\"", "1e-4"), "p.json", ".").project;
   EXPECT_FALSE(std::signbit(p.components[0].rates.lambda_du.per_hour));
   EXPECT_FALSE(std::signbit(p.sifs[0].subsystems[0].beta));
-  EXPECT_FALSE(std::signbit(*p.sifs[0].subsystems[1].vendor_pfd_avg));
 }
 
 // --- Strings -----------------------------------------------------------------------------

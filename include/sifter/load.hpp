@@ -17,6 +17,7 @@ struct LoadedProject {
   Project project;
   std::vector<Warning> warnings;
   std::string sha256;  ///< of the project file's bytes, for the report
+  std::vector<std::string> inputs;  ///< every file read: the project, then its libraries
 };
 
 /// Reads, validates and resolves a project file. Throws InputError carrying every problem

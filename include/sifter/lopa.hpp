@@ -42,6 +42,7 @@ enum class FindingKind {
   kNoSifNeeded,        ///< required risk reduction of 10 or less
   kSil4Review,         ///< required risk reduction above 10 000
   kModeMismatch,       ///< the stated demand mode contradicts the demand rate
+  kImplausiblyLowPfd,  ///< a credited layer claims a PFD below 1e-5
 };
 
 /// The output name of a finding kind: "not_independent", "bpcs_credit_capped", ...

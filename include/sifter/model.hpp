@@ -55,6 +55,7 @@ struct Component {
   std::optional<RateUncertainty> uncertainty;
   std::optional<FieldData> field_data;
   std::string data_source;  ///< where the failure data come from (a safety manual, a database)
+  bool dangerous_rates_stated = false;  ///< the project or its library states lambda_D (checked in loading)
   std::string pointer;  ///< where it is defined, e.g. "/components/3"
 };
 
@@ -149,6 +150,7 @@ struct Sif {
   std::optional<ConstraintBasis> constraints;
   std::vector<Subsystem> subsystems;
   std::string pointer;
+  std::string path_exception;  ///< why the SIF lacks a sensor or final-element subsystem, if it does
 
   [[nodiscard]] DemandMode demand_mode() const { return demand_mode_stated.value_or(DemandMode::kLow); }
 };

@@ -83,6 +83,7 @@ struct SifResult {
   std::vector<Limit> limits;
   std::vector<SubsystemResult> subsystems;
   std::vector<std::string> assumptions;
+  std::vector<std::string> warnings;   ///< the project's warnings about this SIF, also in `warnings`
   std::vector<std::string> scenarios;  ///< ids of the scenarios that feed it
   // Exact cross-check.
   std::optional<double> pfd_avg_exact;

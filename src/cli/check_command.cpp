@@ -7,6 +7,7 @@
 
 #include "commands.hpp"
 #include "sifter/load.hpp"
+#include "sifter/printable.hpp"
 #include "sifter/report/csv.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/output_file.hpp"
@@ -53,6 +54,8 @@ int run_check(const CheckOptions& options) {
   report::refuse_overwriting_inputs({options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path},
                                     {options.project});
   const LoadedProject loaded = load_project_file(options.project);
+  report::refuse_overwriting_inputs({options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path},
+                                    loaded.inputs);
   for (const auto& id : options.sifs) find_sif(loaded.project, id);  // an unknown id is a usage error
   VerifyOptions vo;
   vo.exact = !options.no_exact;
@@ -88,16 +91,15 @@ int run_check(const CheckOptions& options) {
   terminal.width = terminal_width();
   terminal.sifs = options.sifs;
   terminal.summary = options.summary;
-  const std::string summary = summary_to_stdout ? report::render_terminal(result, terminal) : "";
-  if (json_out) json_out->commit();
-  if (csv_out) csv_out->commit();
-  if (rows_out) rows_out->commit();
-  if (xlsx_out) xlsx_out->commit();
+  const std::string summary = summary_to_stdout ? escape_controls(report::render_terminal(result, terminal)) : "";
+  report::commit_all({json_out ? &*json_out : nullptr, csv_out ? &*csv_out : nullptr,
+                      rows_out ? &*rows_out : nullptr, xlsx_out ? &*xlsx_out : nullptr});
   if (summary_to_stdout) {
     std::cout << summary;
   } else {
     // Without the summary the warnings still reach the user, as --quiet promises.
-    for (const auto& w : result.warnings) std::cerr << "sifter: warning: " << w.where << ": " << w.message << "\n";
+    for (const auto& w : result.warnings)
+      std::cerr << "sifter: warning: " << escape_controls(w.where) << ": " << escape_controls(w.message) << "\n";
   }
   return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
 }

@@ -34,6 +34,7 @@ Action add_compare_command(CLI::App& app) {
     const std::vector<Vote> votes = votes_arg(opts->votes);
     const std::optional<double> beta = opts->beta.empty() ? std::nullopt : std::optional(fraction_arg("--beta", opts->beta));
     const LoadedProject loaded = load_project_file(opts->project);
+    report::refuse_overwriting_inputs({opts->json_path}, loaded.inputs);
     const std::size_t sif = sif_index(loaded.project, opts->sif);
     const auto subsystem = subsystem_index(loaded.project.sifs[sif], opts->subsystem);
     const WhatIf what_if(loaded.project);

@@ -8,6 +8,7 @@
 #include "commands.hpp"
 #include "sifter/cross_check.hpp"
 #include "sifter/load.hpp"
+#include "sifter/printable.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/terminal.hpp"
@@ -74,16 +75,16 @@ Action add_curve_command(CLI::App& app) {
   return [opts]() {
     report::refuse_overwriting_inputs({opts->csv_path, opts->json_path}, {opts->project});
     const LoadedProject loaded = load_project_file(opts->project);
+    report::refuse_overwriting_inputs({opts->csv_path, opts->json_path}, loaded.inputs);
     const Sif& sif = find_sif(loaded.project, opts->sif);
     const SifCurve c = exact_curve(loaded.project, sif, opts->points);
     const std::string csv = opts->csv_path.empty() ? "" : curve_csv(c);
     const std::string json = opts->json_path.empty() ? "" : curve_json(sif.id, c).dump() + "\n";
-    if (!opts->csv_path.empty()) report::write_output(opts->csv_path, csv);
-    if (!opts->json_path.empty()) report::write_output(opts->json_path, json);
+    report::write_outputs({{opts->csv_path, csv}, {opts->json_path, json}});
     if (opts->csv_path != "-" && opts->json_path != "-") {
       double peak = 0.0;
       for (double p : c.pfd_sif) peak = std::max(peak, p);
-      std::cout << "PFD(t) of " << sif.id << " over " << format_duration(loaded.project.defaults.mission_time) << ": "
+      std::cout << "PFD(t) of " << escape_controls(sif.id) << " over " << format_duration(loaded.project.defaults.mission_time) << ": "
                 << c.time_hours.size() << " points, average " << report::sci(c.pfd_avg_exact) << ", peak "
                 << report::sci(peak) << " (exact multi-phase Markov engine)\n\n"
                 << report::wrapped_caution();

@@ -28,6 +28,9 @@ Action add_diff_command(CLI::App& app) {
     report::refuse_overwriting_inputs({opts->json_path}, {opts->old_project, opts->new_project});
     const LoadedProject old_loaded = load_project_file(opts->old_project);
     const LoadedProject new_loaded = load_project_file(opts->new_project);
+    std::vector<std::string> inputs = old_loaded.inputs;
+    inputs.insert(inputs.end(), new_loaded.inputs.begin(), new_loaded.inputs.end());
+    report::refuse_overwriting_inputs({opts->json_path}, inputs);
     VerifyOptions vo;
     vo.exact = false;
     const ProjectDiff diff = diff_projects(old_loaded.project, verify_project(old_loaded, vo), new_loaded.project,

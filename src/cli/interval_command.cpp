@@ -31,6 +31,7 @@ Action add_interval_command(CLI::App& app) {
     report::refuse_overwriting_inputs({opts->json_path}, {opts->project});
     const double margin = fraction_arg("--margin", opts->margin);
     const LoadedProject loaded = load_project_file(opts->project);
+    report::refuse_overwriting_inputs({opts->json_path}, loaded.inputs);
     const std::size_t sif = sif_index(loaded.project, opts->sif);
     const auto subsystem = subsystem_index(loaded.project.sifs[sif], opts->subsystem);
     const WhatIf what_if(loaded.project);

@@ -4,6 +4,7 @@
 
 #include "commands.hpp"
 #include "sifter/diagnostics.hpp"
+#include "sifter/printable.hpp"
 
 int main(int argc, char** argv) {
   CLI::App app{"sifter: LOPA and SIL verification of safety instrumented functions (IEC 61511 / IEC 61508)"};
@@ -42,10 +43,10 @@ int main(int argc, char** argv) {
       if (auto it = actions.find(sub); it != actions.end()) return it->second();
     return static_cast<int>(sifter::ExitCode::kBadInput);
   } catch (const sifter::Error& e) {
-    std::cerr << "sifter: " << e.what() << "\n";
+    std::cerr << "sifter: " << sifter::escape_controls(e.what()) << "\n";
     return static_cast<int>(e.exit_code());
   } catch (const std::exception& e) {
-    std::cerr << "sifter: internal error: " << e.what() << "\n";
+    std::cerr << "sifter: internal error: " << sifter::escape_controls(e.what()) << "\n";
     return static_cast<int>(sifter::ExitCode::kInternal);
   }
 }

@@ -62,6 +62,7 @@ Action add_report_command(CLI::App& app) {
     report::refuse_overwriting_inputs({opts->output}, {opts->project});
     const ReportFormat format = format_of(opts->output);
     const LoadedProject loaded = load_project_file(opts->project);
+    report::refuse_overwriting_inputs({opts->output}, loaded.inputs);
     VerifyOptions vo;
     vo.exact = !opts->no_exact;
     const ProjectResult result = verify_project(loaded, vo);

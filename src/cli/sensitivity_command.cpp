@@ -29,6 +29,7 @@ Action add_sensitivity_command(CLI::App& app) {
     report::refuse_overwriting_inputs({opts->json_path}, {opts->project});
     const double factor = number_arg("--factor", opts->factor);
     const LoadedProject loaded = load_project_file(opts->project);
+    report::refuse_overwriting_inputs({opts->json_path}, loaded.inputs);
     const std::size_t sif = sif_index(loaded.project, opts->sif);
     const WhatIf what_if(loaded.project);
     const SensitivityResult result = sensitivity(what_if, sif, factor);

@@ -1,8 +1,10 @@
 // `sifter sweep`: one parameter of a SIF varied over a range, a row per value.
+#include <iostream>
 #include <memory>
 
 #include "commands.hpp"
 #include "sifter/load.hpp"
+#include "sifter/printable.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/whatif_json.hpp"
 #include "sifter/report/whatif_text.hpp"
@@ -50,6 +52,7 @@ Action add_sweep_command(CLI::App& app) {
     request.steps = opts->steps;
     request.log = opts->log;
     const LoadedProject loaded = load_project_file(opts->project);
+    report::refuse_overwriting_inputs({opts->json_path, opts->csv_path}, loaded.inputs);
     request.sif = sif_index(loaded.project, opts->sif);
     request.subsystem = subsystem_index(loaded.project.sifs[request.sif], opts->subsystem);
     const WhatIf what_if(loaded.project);
@@ -57,8 +60,8 @@ Action add_sweep_command(CLI::App& app) {
     const std::string json_text = opts->json_path.empty() ? "" : report::sweep_json(result).dump(2) + "\n";
     const std::string csv = opts->csv_path.empty() ? "" : report::sweep_csv(result);
     const std::string text = report::render_sweep(result);
-    if (!opts->csv_path.empty()) report::write_output(opts->csv_path, csv);
-    emit(opts->json_path, json_text, text);
+    report::write_outputs({{opts->csv_path, csv}, {opts->json_path, json_text}});
+    if (opts->json_path != "-") std::cout << escape_controls(text);
     return static_cast<int>(ExitCode::kAllMet);
   };
 }

@@ -7,6 +7,7 @@
 #include <iostream>
 
 #include "sifter/diagnostics.hpp"
+#include "sifter/printable.hpp"
 #include "sifter/quantity.hpp"
 #include "sifter/report/output_file.hpp"
 
@@ -110,7 +111,7 @@ std::vector<Vote> votes_arg(const std::string& text) {
 
 void emit(const std::string& json_path, const std::string& json_text, const std::string& text) {
   if (!json_path.empty()) report::write_output(json_path, json_text);
-  if (json_path != "-") std::cout << text;
+  if (json_path != "-") std::cout << escape_controls(text);
 }
 
 }  // namespace sifter::cli

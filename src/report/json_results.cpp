@@ -104,6 +104,7 @@ json sif_json(const SifResult& s) {
   j["id"] = s.id;
   j["title"] = s.title;
   j["demand_mode"] = to_string(s.demand_mode);
+  j["warnings"] = s.warnings;  // also in the project's "warnings"
   j["demand_mode_basis"] = s.demand_mode_basis;
   j["pfd_avg"] = opt(s.pfd_avg, "pfd_avg");
   j["pfh"] = opt(s.pfh_per_hour, "pfh");

@@ -3,6 +3,7 @@
 
 #include <string_view>
 
+#include "sifter/printable.hpp"
 #include "sifter/report/format.hpp"
 
 namespace sifter::report {
@@ -120,7 +121,9 @@ std::string render_markdown(const ProjectResult& r, const ReportData& d) {
     out += sif_section(r.sifs[i], i < d.sifs.size() ? d.sifs[i] : SifReportData{});
   for (const auto& s : r.scenarios) out += scenario_section(s);
   out += closing(r, d);
-  return out + "---\n\nWritten by sifter " + md(d.tool_version) + " on " + md(d.date) + ".\n";
+  // User text reaches the page as written: its control characters are shown escaped, so that a
+  // title cannot hide or rewrite a line for a reader who opens the file in a terminal.
+  return escape_controls(out + "---\n\nWritten by sifter " + md(d.tool_version) + " on " + md(d.date) + ".\n");
 }
 
 }  // namespace sifter::report

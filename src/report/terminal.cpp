@@ -207,6 +207,10 @@ std::string render_sif(const SifResult& s, std::size_t width) {
     out += "  assumptions\n";
     for (const auto& a : s.assumptions) out += fit_line("- " + a, prose, "    ");
   }
+  if (!s.warnings.empty()) {
+    out += "  warnings\n";
+    for (const auto& w : s.warnings) out += fit_line("! " + w, prose, "    ");
+  }
   return out;
 }
 

@@ -1,4 +1,5 @@
 // LOPA worksheets: the terminal table and the CSV rows.
+#include "sifter/printable.hpp"
 #include "sifter/report/worksheet.hpp"
 
 #include <algorithm>
@@ -82,7 +83,9 @@ std::string render_worksheet(const ScenarioResult& s, std::size_t width) {
   return out;
 }
 
-std::string csv_field(const std::string& text) {
+std::string csv_field(const std::string& raw) {
+  // A cell a spreadsheet would take for a formula is neutralised first (README, "CSV files").
+  const std::string text = neutralise_formula(raw);
   if (text.find_first_of(",\"\r\n") == std::string::npos) return text;
   std::string out = "\"";
   for (char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);

@@ -5,11 +5,18 @@
 #include <string>
 #include <string_view>
 
+#include <cmath>
+
 #include "sifter/load.hpp"
+#include "sifter/report/csv.hpp"
+#include "sifter/report/html.hpp"
 #include "sifter/report/json_results.hpp"
+#include "sifter/report/markdown.hpp"
+#include "sifter/report_data.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
 #include "sifter/verify.hpp"
+#include "sifter/whatif.hpp"
 
 namespace sifter::fuzzing {
 
@@ -24,19 +31,74 @@ inline void check_loaded(const Project& project) {
     }
 }
 
-/// Properties every result must have: probabilities and rates not negative, shares within 0..1.
-inline void check_results(const ProjectResult& result) {
+/// Properties every result must have: probabilities within [0, 1], rates and frequencies
+/// finite and not negative, shares within 0..1, and no SIF judged to meet its target when a
+/// component of it states no dangerous failure rate (issue "never silently wrong").
+inline void check_results(const Project& project, const ProjectResult& result) {
   auto not_negative = [](const std::optional<double>& v, const char* what) {
-    if (v && !(*v >= 0.0)) throw std::logic_error(std::string("negative ") + what);
+    if (v && !(*v >= 0.0 && std::isfinite(*v))) throw std::logic_error(std::string("negative or non-finite ") + what);
   };
-  for (const auto& sif : result.sifs) {
-    not_negative(sif.pfd_avg, "SIF PFDavg");
+  auto probability = [](const std::optional<double>& v, const char* what) {
+    if (v && !(*v >= 0.0 && *v <= 1.0)) throw std::logic_error(std::string(what) + " outside [0, 1]");
+  };
+  for (std::size_t i = 0; i < result.sifs.size(); ++i) {
+    const auto& sif = result.sifs[i];
+    probability(sif.pfd_avg, "SIF PFDavg");
+    probability(sif.pfd_avg_exact, "SIF exact PFDavg");
+    probability(sif.required_pfd, "SIF required PFD");
     not_negative(sif.pfh_per_hour, "SIF PFH");
+    not_negative(sif.required_pfh_per_hour, "SIF required PFH");
+    not_negative(sif.rrf, "SIF RRF");
     for (const auto& sub : sif.subsystems) {
-      not_negative(sub.pfd_avg, "subsystem PFDavg");
+      probability(sub.pfd_avg, "subsystem PFDavg");
+      probability(sub.pfd_avg_exact, "subsystem exact PFDavg");
       not_negative(sub.pfh_per_hour, "subsystem PFH");
       if (!(sub.share >= 0.0 && sub.share <= 1.0 + 1e-12)) throw std::logic_error("share outside 0..1");
     }
+    if (sif.meets_target.value_or(false) && i < project.sifs.size())
+      for (const auto& sub : project.sifs[i].subsystems)
+        for (const auto& ch : sub.channels)
+          for (std::size_t c : ch.components)
+            if (!project.components.at(c).dangerous_rates_stated)
+              throw std::logic_error("a SIF meets its target with a component that states no failure data");
+  }
+  for (const auto& s : result.scenarios) {
+    probability(s.required_pfd, "scenario required PFD");
+    not_negative(s.frequency_without_sif_per_yr, "frequency without the SIF");
+    not_negative(s.mitigated_frequency_per_yr, "mitigated frequency");
+    not_negative(s.target_frequency_per_yr, "target frequency");
+    for (const auto& c : s.consequences) {
+      probability(c.required_pfd, "consequence required PFD");
+      probability(c.modifier_product, "modifier product");
+      not_negative(c.mitigated_frequency_per_yr, "mitigated frequency");
+    }
+  }
+}
+
+/// The what-if engine on the first SIF: a sensitivity at factor 2 and a three-point sweep of
+/// lambda_du; every figure must stay finite and every PFDavg within [0, 1]. A what-if that
+/// has nothing to vary (UsageError) is a normal outcome.
+inline void run_what_ifs(const Project& project) {
+  if (project.sifs.empty()) return;
+  const WhatIf what_if(project);
+  auto figure = [](double v, bool low, const char* what) {
+    if (!std::isfinite(v) || v < 0.0 || (low && v > 1.0)) throw std::logic_error(std::string("what-if ") + what);
+  };
+  try {
+    const SensitivityResult s = sensitivity(what_if, 0, 2.0);
+    const bool low = s.mode == DemandMode::kLow;
+    for (const auto& in : s.inputs) {
+      figure(in.at_low, low, "sensitivity figure");
+      figure(in.at_high, low, "sensitivity figure");
+    }
+    SweepRequest request;
+    request.parameter = SweepParameter::kLambdaDuFactor;
+    request.from = 0.5;
+    request.to = 2.0;
+    request.steps = 3;
+    for (const auto& p : sweep(what_if, request).points)
+      if (auto m = sif_measure(p.result)) figure(*m, p.result.demand_mode == DemandMode::kLow, "sweep figure");
+  } catch (const UsageError&) {
   }
 }
 
@@ -44,23 +106,34 @@ inline void check_results(const ProjectResult& result) {
 enum class Outcome { kRejected, kComputed };
 
 /// Loads `text` as a project (libraries resolve against `base_dir`), verifies it and renders
-/// the JSON results, the terminal summary and the worksheet CSV, as `sifter check` does.
-/// A refused input (InputError) is a normal outcome; every other exception escapes: a
-/// non-finite number refused by a writer, or any other internal error, is a defect.
+/// the JSON results, the terminal summary, both CSV files, the HTML and Markdown reports, and
+/// runs the what-ifs, as the program does. A refused input (InputError) is a normal outcome;
+/// every other exception escapes: a non-finite number refused by a writer, a broken
+/// invariant, or any other internal error, is a defect.
 inline Outcome run_check_path(std::string_view text, const std::string& base_dir) {
+  std::optional<LoadedProject> loaded;
   ProjectResult result;
   try {
-    const LoadedProject loaded = load_project_text(std::string(text), "fuzz.json", base_dir);
-    check_loaded(loaded.project);
-    result = verify_project(loaded);  // refuses figures beyond the finite numbers
+    loaded.emplace(load_project_text(std::string(text), "fuzz.json", base_dir));
+    check_loaded(loaded->project);
+    result = verify_project(*loaded);  // refuses figures beyond the finite numbers
   } catch (const InputError&) {
     return Outcome::kRejected;
   }
-  check_results(result);
+  const Project& project = loaded->project;
+  check_results(project, result);
   // The writers run in another translation unit; their work is not optimised away.
   report::results_json(result).dump(2);
   report::render_terminal(result);
   report::worksheet_csv(result);
+  report::sif_csv(result);
+  ReportOptions options;
+  options.date = "2026-01-01";
+  options.exact = true;
+  const ReportData data = build_report_data(project, result, options);
+  report::render_html(result, data);
+  report::render_markdown(result, data);
+  run_what_ifs(project);
   return Outcome::kComputed;
 }
 

@@ -35,4 +35,7 @@ void read_sifs(LoadContext& ctx, const Json& root, Project& project);
 /// Reads "risk_criteria" and "scenarios".
 void read_scenarios(LoadContext& ctx, const Json& root, Project& project);
 
+/// Checks across sections: demand mode of vendor figures and targets, the SIF's signal path.
+void check_project_plausibility(LoadContext& ctx, const Project& project);
+
 }  // namespace sifter::detail
