@@ -164,7 +164,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   detail::read_scenarios(ctx, *root, project);
   top.finish();
   if (ctx.problems.empty()) {
-    const auto graph_problems = validate_project_graph(project);
+    const auto graph_problems = validate_project_graph(project, &out.graph);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
   }
   if (!ctx.problems.empty()) throw InputError(ctx.located());

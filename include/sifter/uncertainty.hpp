@@ -138,7 +138,19 @@ struct MonteCarloOptions {
   /// The sources the evaluator reads (indices into the plan); empty = all. Only these are
   /// drawn, with the same values a full draw would give; the others stay at factor 1.
   std::vector<std::size_t> sources;
+  /// Factors already drawn (see draw_factor_table): row i holds every source's factor of sample
+  /// i. When given, samples read their row instead of drawing; the values are the same, so
+  /// the results are too. Lets every SIF of a run share one draw per sample.
+  std::span<const double> drawn;
 };
+
+/// The factors of samples [0, samples) for `seed`, one row of plan.sources.size() per sample,
+/// drawn with FactorSampler (so equal to what run_monte_carlo would draw). Empty when the
+/// table would exceed kMaxFactorTableBytes: callers then draw per run.
+std::vector<double> draw_factor_table(const UncertaintyPlan& plan, int samples, std::uint64_t seed);
+
+/// Above this size the shared factor table is not built (memory stays bounded).
+inline constexpr std::size_t kMaxFactorTableBytes = std::size_t{256} << 20;
 
 /// Runs `options.samples` evaluations with the plan's factors and summarises them against
 /// `required_value` (the required PFD, or PFH per hour; at_most of sil.hpp decides each

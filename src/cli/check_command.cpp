@@ -23,6 +23,7 @@ struct CheckOptions {
   std::string csv_path;
   bool quiet = false;
   bool no_exact = false;
+  bool pretty = false;
   int samples = 0;
   std::uint64_t seed = 1;
   int threads = 0;
@@ -51,6 +52,7 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("--json", opts->json_path, "write sifter-results/1 JSON to FILE ('-' for stdout)");
   cmd->add_option("--worksheet-csv", opts->worksheet_csv_path, "write the LOPA worksheet rows as CSV to FILE");
   cmd->add_option("--csv", opts->csv_path, "write one CSV row per SIF with its key results to FILE");
+  cmd->add_flag("--pretty", opts->pretty, "indent the --json output for reading (compact by default)");
   cmd->add_flag("--quiet,-q", opts->quiet, "print no summary (errors and warnings still go to stderr)");
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
   cmd->add_option("--samples", opts->samples, "Monte Carlo samples per SIF on the uncertain failure data")
@@ -74,7 +76,8 @@ Action add_check_command(CLI::App& app) {
     std::optional<report::AtomicOutput> json_out, csv_out, rows_out;
     if (!opts->json_path.empty()) {
       json_out.emplace(opts->json_path);
-      report::write_results_json(result, json_out->stream());
+      report::write_results_json(result, json_out->stream(),
+                                 opts->pretty ? report::JsonLayout::kPretty : report::JsonLayout::kCompact);
       json_out->stream() << "\n";
     }
     if (!opts->worksheet_csv_path.empty()) {
