@@ -4,7 +4,7 @@
 set -eu
 packages="cmake g++ ninja-build pkg-config libboost-dev libboost-graph-dev nlohmann-json3-dev libcli11-dev
 libgtest-dev libgmock-dev libbenchmark-dev libeigen3-dev python3 python3-jsonschema chromium fonts-dejavu-core
-clang-14 libclang-rt-14-dev"
+clang-14 libclang-rt-14-dev python3-numpy time"
 missing=""
 for p in $packages; do
   dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing="$missing $p"
