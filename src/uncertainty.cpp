@@ -242,7 +242,11 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
                                    const SampleEvaluator& evaluate, double required_value) {
   assert(options.samples >= 1);
   const FactorSampler sampler(plan);
-  assert(options.drawn.empty() || options.drawn.size() == static_cast<std::size_t>(options.samples) * sampler.size());
+  // The plan's table serves only the seed and sample count it was drawn for.
+  const bool use_drawn = !plan.drawn.factors.empty() && plan.drawn.seed == options.seed &&
+                         plan.drawn.samples == options.samples &&
+                         plan.drawn.factors.size() == static_cast<std::size_t>(options.samples) * sampler.size();
+  const std::span<const double> drawn = use_drawn ? std::span<const double>(plan.drawn.factors) : std::span<const double>();
   // Only the pairs of sources the evaluator reads are drawn; the others keep factor 1.
   std::vector<std::size_t> pairs;
   for (auto source : options.sources) pairs.push_back(source / 2);
@@ -266,9 +270,9 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
         const int begin = chunk * kChunkSamples;
         const int end = std::min(begin + kChunkSamples, options.samples);
         for (int i = begin; i < end; ++i) {
-          if (!options.drawn.empty()) {
+          if (!drawn.empty()) {
             const auto row = static_cast<std::size_t>(i) * factors.size();
-            values[static_cast<std::size_t>(i)] = evaluate(options.drawn.subspan(row, factors.size()));
+            values[static_cast<std::size_t>(i)] = evaluate(drawn.subspan(row, factors.size()));
             continue;
           }
           if (pairs.empty()) sampler.sample(options.seed, static_cast<std::uint64_t>(i), factors);

@@ -424,7 +424,7 @@ void parallel_for(std::size_t n, int threads, const std::function<void(std::size
 constexpr std::size_t kSifsForThreadsAcrossSifs = 8;
 
 void run_uncertainty(const Project& project, const VerifyOptions& options, ProjectResult& out) {
-  const UncertaintyPlan plan = plan_uncertainty(project.components);
+  UncertaintyPlan plan = plan_uncertainty(project.components);
   if (plan.sources.empty()) {
     out.warnings.push_back({"", "--samples was given but no component carries an \"uncertainty\"; nothing to sample"});
     return;
@@ -433,7 +433,7 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
   // Every SIF reads the same factors of sample i: drawn once here, shared by all. The SIFs run
   // on the threads (each SIF's samples on one), started once for the run; each value still
   // depends only on (seed, sample), so the results do not depend on the thread count.
-  const std::vector<double> drawn = draw_factor_table(plan, options.samples, options.seed);
+  plan.drawn = {options.seed, options.samples, draw_factor_table(plan, options.samples, options.seed)};
   // A project of a few SIFs splits each SIF's samples over the threads instead.
   const bool across_sifs = project.sifs.size() >= kSifsForThreadsAcrossSifs;
   std::atomic<long long> done{0};
@@ -445,7 +445,6 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
     mc.samples = options.samples;
     mc.seed = options.seed;
     mc.threads = across_sifs ? 1 : options.threads;
-    mc.drawn = drawn;
     if (options.progress && !across_sifs) {
       const long long before = static_cast<long long>(i) * options.samples;
       mc.progress = [&options, before, total](int n) { options.progress(before + n, total); };

@@ -417,9 +417,10 @@ TEST(SharedFactorTable, RowsEqualTheFactorsOfEachSample) {
   drawing.sources = {1, 3};
   MonteCarloOptions reading = drawing;
   reading.threads = 1;
-  reading.drawn = table;
+  UncertaintyPlan with_table = plan;
+  with_table.drawn = {42, samples, table};
   const auto a = run_monte_carlo(plan, drawing, evaluate, 1e-3);
-  const auto b = run_monte_carlo(plan, reading, evaluate, 1e-3);
+  const auto b = run_monte_carlo(with_table, reading, evaluate, 1e-3);
   EXPECT_EQ(a.mean, b.mean);
   EXPECT_EQ(a.p95, b.p95);
   EXPECT_EQ(a.probability_meets_target, b.probability_meets_target);

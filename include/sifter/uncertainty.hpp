@@ -65,6 +65,14 @@ struct UncertaintyPlan {
   /// Per component (same order as the components given to plan_uncertainty): the index of
   /// its source in `sources`, or kNoSource. May be empty for a plan built by hand.
   std::vector<std::size_t> source_of_component;
+  /// Factors already drawn for one seed and sample count (see draw_factor_table), shared by
+  /// every Monte Carlo run on this plan with that seed and count: row i holds every source's
+  /// factor of sample i, the values a run would draw itself. Empty: each run draws.
+  struct Drawn {
+    std::uint64_t seed = 0;
+    int samples = 0;
+    std::vector<double> factors;
+  } drawn;
 };
 
 /// Builds the plan for a project's components. Components with `uncertainty` and the same
@@ -138,10 +146,6 @@ struct MonteCarloOptions {
   /// The sources the evaluator reads (indices into the plan); empty = all. Only these are
   /// drawn, with the same values a full draw would give; the others stay at factor 1.
   std::vector<std::size_t> sources;
-  /// Factors already drawn (see draw_factor_table): row i holds every source's factor of sample
-  /// i. When given, samples read their row instead of drawing; the values are the same, so
-  /// the results are too. Lets every SIF of a run share one draw per sample.
-  std::span<const double> drawn;
 };
 
 /// The factors of samples [0, samples) for `seed`, one row of plan.sources.size() per sample,

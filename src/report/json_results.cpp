@@ -96,6 +96,27 @@ void emit_subsystem(W& w, const SubsystemResult& s) {
 }
 
 template <typename W>
+void emit_consequences(W& w, const ScenarioResult& s) {
+  w.key("consequences").begin_array();
+  for (const auto& c : s.consequences) {
+    w.begin_object();
+    w.key("category").value(c.category);
+    w.key("severity").value(c.severity);
+    w.key("target_frequency_per_yr").number(c.target_frequency_per_yr, "target");
+    w.key("modifier_product").number(c.modifier_product, "modifiers");
+    w.key("frequency_without_sif_per_yr").number(c.frequency_without_sif_per_yr, "frequency");
+    w.key("required_pfd").number(c.required_pfd, "required_pfd");
+    w.key("required_rrf").number(c.required_rrf, "required_rrf");
+    w.key("required_sil").value(c.required_sil);
+    w.key("required_pfh").number(c.required_pfh_per_hour, "required_pfh");
+    w.key("mitigated_frequency_per_yr").number(c.mitigated_frequency_per_yr, "mitigated");
+    w.key("meets_target").value(c.meets_target);
+    w.end_object();
+  }
+  w.end_array();
+}
+
+template <typename W>
 void emit_scenario(W& w, const ScenarioResult& s) {
   w.begin_object();
   w.key("id").value(s.id);
@@ -115,23 +136,7 @@ void emit_scenario(W& w, const ScenarioResult& s) {
   w.key("required_pfh").number(s.required_pfh_per_hour, "required_pfh");
   w.key("mitigated_frequency_per_yr").number(s.mitigated_frequency_per_yr, "mitigated frequency");
   w.key("meets_target").value(s.meets_target);
-  w.key("consequences").begin_array();
-  for (const auto& c : s.consequences) {
-    w.begin_object();
-    w.key("category").value(c.category);
-    w.key("severity").value(c.severity);
-    w.key("target_frequency_per_yr").number(c.target_frequency_per_yr, "target");
-    w.key("modifier_product").number(c.modifier_product, "modifiers");
-    w.key("frequency_without_sif_per_yr").number(c.frequency_without_sif_per_yr, "frequency");
-    w.key("required_pfd").number(c.required_pfd, "required_pfd");
-    w.key("required_rrf").number(c.required_rrf, "required_rrf");
-    w.key("required_sil").value(c.required_sil);
-    w.key("required_pfh").number(c.required_pfh_per_hour, "required_pfh");
-    w.key("mitigated_frequency_per_yr").number(c.mitigated_frequency_per_yr, "mitigated");
-    w.key("meets_target").value(c.meets_target);
-    w.end_object();
-  }
-  w.end_array();
+  emit_consequences(w, s);
   w.key("causes").begin_array();
   for (const auto& c : s.causes) {
     w.begin_object();
@@ -157,6 +162,41 @@ void emit_scenario(W& w, const ScenarioResult& s) {
 }
 
 template <typename W>
+void emit_limits(W& w, const SifResult& s) {
+  w.key("limits").begin_array();
+  for (const auto& l : s.limits) {
+    w.begin_object();
+    w.key("kind").value(l.kind);
+    if (l.subsystem) w.key("subsystem").value(*l.subsystem);
+    else w.key("subsystem").null();
+    if (l.element) w.key("element").value(*l.element);
+    else w.key("element").null();
+    w.key("sil").value(l.sil);
+    w.key("message").value(l.message);
+    w.end_object();
+  }
+  w.end_array();
+}
+
+template <typename W>
+void emit_uncertainty(W& w, const SifResult& s) {
+  if (s.uncertainty) {
+    const auto& u = *s.uncertainty;
+    w.key("uncertainty").begin_object();
+    w.key("mean").number(u.mean, "mean");
+    w.key("p05").number(u.p05, "p05");
+    w.key("p50").number(u.p50, "p50");
+    w.key("p95").number(u.p95, "p95");
+    w.key("probability_meets_target").number(u.probability_meets_target, "probability");
+    w.key("samples").value(u.samples);
+    w.key("method").value(u.method);
+    w.end_object();
+  } else {
+    w.key("uncertainty").null();
+  }
+}
+
+template <typename W>
 void emit_sif(W& w, const SifResult& s) {
   w.begin_object();
   w.key("id").value(s.id);
@@ -177,19 +217,7 @@ void emit_sif(W& w, const SifResult& s) {
   w.key("sil_systematic").value(s.sil_systematic);
   w.key("sil_achieved").value(s.sil_achieved);
   w.key("constraints").value(to_string(s.constraints));
-  w.key("limits").begin_array();
-  for (const auto& l : s.limits) {
-    w.begin_object();
-    w.key("kind").value(l.kind);
-    if (l.subsystem) w.key("subsystem").value(*l.subsystem);
-    else w.key("subsystem").null();
-    if (l.element) w.key("element").value(*l.element);
-    else w.key("element").null();
-    w.key("sil").value(l.sil);
-    w.key("message").value(l.message);
-    w.end_object();
-  }
-  w.end_array();
+  emit_limits(w, s);
   w.key("subsystems").begin_array();
   for (const auto& sub : s.subsystems) emit_subsystem(w, sub);
   w.end_array();
@@ -200,20 +228,7 @@ void emit_sif(W& w, const SifResult& s) {
   w.key("simplified_over_exact").number(s.simplified_over_exact, "ratio");
   w.key("spurious_trip_rate_per_yr").number(s.spurious_trip_rate_per_yr, "spurious trip rate");
   w.key("mttf_spurious_yr").number(s.mttf_spurious_yr, "mttf_spurious_yr");
-  if (s.uncertainty) {
-    const auto& u = *s.uncertainty;
-    w.key("uncertainty").begin_object();
-    w.key("mean").number(u.mean, "mean");
-    w.key("p05").number(u.p05, "p05");
-    w.key("p50").number(u.p50, "p50");
-    w.key("p95").number(u.p95, "p95");
-    w.key("probability_meets_target").number(u.probability_meets_target, "probability");
-    w.key("samples").value(u.samples);
-    w.key("method").value(u.method);
-    w.end_object();
-  } else {
-    w.key("uncertainty").null();
-  }
+  emit_uncertainty(w, s);
   w.end_object();
 }
 
