@@ -126,6 +126,16 @@ const Json* ObjectReader::member(const std::string& key) {
   return it == value_.end() ? nullptr : &*it;
 }
 
+// The member, marked known, for the fast paths of the typed reads: a present, valid value is
+// read without building any text for a message (messages are built only on a problem).
+const Json* ObjectReader::present(const std::string& key) {
+  if (!is_object_) return nullptr;
+  auto it = value_.find(key);
+  if (it == value_.end()) return nullptr;
+  mark_known(key);
+  return &*it;
+}
+
 const Json* ObjectReader::require(const std::string& key, const std::string& expected) {
   const Json* v = member(key);
   if (!v && is_object_)
@@ -159,6 +169,8 @@ std::optional<double> ObjectReader::number(const std::string& key, bool required
 }
 
 std::optional<int> ObjectReader::integer(const std::string& key, int lo, int hi, bool required) {
+  if (const Json* v = present(key); v && v->is_number_integer() && v->get<long long>() >= lo && v->get<long long>() <= hi)
+    return static_cast<int>(v->get<long long>());
   const std::string expected = "a whole number from " + std::to_string(lo) + " to " + std::to_string(hi);
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -180,6 +192,10 @@ std::optional<bool> ObjectReader::boolean(const std::string& key) {
 }
 
 std::optional<double> ObjectReader::fraction(const std::string& key, bool required) {
+  if (const Json* v = present(key); v && v->is_number_float()) {
+    const double x = v->get<double>();
+    if (std::isfinite(x) && x >= 0.0 && x <= 1.0) return without_negative_zero(x);
+  }
   const std::string expected = "a fraction from 0 to 1, such as 0.05 or \"5%\"";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -194,6 +210,10 @@ std::optional<double> ObjectReader::fraction(const std::string& key, bool requir
 }
 
 std::optional<double> ObjectReader::probability(const std::string& key, bool required) {
+  if (const Json* v = present(key); v && v->is_number()) {
+    const double x = v->get<double>();
+    if (std::isfinite(x) && x >= 0.0 && x <= 1.0) return without_negative_zero(x);
+  }
   const std::string expected = "a probability from 0 to 1";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -205,6 +225,10 @@ std::optional<double> ObjectReader::probability(const std::string& key, bool req
 }
 
 std::optional<Rate> ObjectReader::rate(const std::string& key, bool required) {
+  if (const Json* v = present(key); v && v->is_string()) {
+    auto parsed = parse_rate(v->get_ref<const std::string&>());
+    if (parsed.value) return parsed.value;
+  }
   const std::string expected = "a rate with its unit";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -221,6 +245,10 @@ std::optional<Rate> ObjectReader::rate(const std::string& key, bool required) {
 }
 
 std::optional<Duration> ObjectReader::duration(const std::string& key, bool required) {
+  if (const Json* v = present(key); v && v->is_string()) {
+    auto parsed = parse_duration(v->get_ref<const std::string&>());
+    if (parsed.value) return parsed.value;
+  }
   const std::string expected = "a duration with its unit";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -238,6 +266,9 @@ std::optional<Duration> ObjectReader::duration(const std::string& key, bool requ
 
 std::optional<std::string> ObjectReader::choice(const std::string& key, std::initializer_list<const char*> allowed,
                                                 bool required) {
+  if (const Json* v = present(key); v && v->is_string())
+    for (const char* a : allowed)
+      if (v->get_ref<const std::string&>() == a) return v->get<std::string>();
   std::string list;
   std::vector<std::string> names;
   for (const char* a : allowed) {

@@ -166,7 +166,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.finish();
   detail::check_project_plausibility(ctx, project);
   if (ctx.problems.empty()) {
-    const auto graph_problems = validate_project_graph(project);
+    const auto graph_problems = validate_project_graph(project, &out.graph);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
   }
   if (!ctx.problems.empty()) throw InputError(ctx.located());

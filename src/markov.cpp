@@ -8,6 +8,7 @@
 #include <deque>
 #include <stdexcept>
 
+#include "exact_memo.hpp"
 #include "markov_chain.hpp"
 #include "sifter/simplified.hpp"
 
@@ -46,7 +47,8 @@ class Stepper {
     Eigen::MatrixXd block = Eigen::MatrixXd::Zero(n + kColumns, n + kColumns);
     block.topLeftCorner(n, n) = chain_.generator() * length;
     block.topRightCorner(n, kColumns) = f * (length * scale);
-    const Eigen::MatrixXd e = block.exp();
+    const auto shared = memo_exp(block);  // the same segment recurs across the SIFs of a register
+    const Eigen::MatrixXd& e = *shared;
     segments_.push_back({m, length, e.topLeftCorner(n, n).transpose(), e.topRightCorner(n, kColumns) / scale});
     return segments_.back();
   }

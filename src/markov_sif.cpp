@@ -8,6 +8,7 @@
 #include <deque>
 #include <stdexcept>
 
+#include "exact_memo.hpp"
 #include "markov_chain.hpp"
 #include "sifter/markov.hpp"
 
@@ -100,6 +101,19 @@ NodeColumns node_columns(const GroupChain& chain, ChannelMask bypassed, const Gr
   return c;
 }
 
+// node_columns once per distinct (generator, bypass, rule) in the run: the keys are the bytes
+// of everything it reads, so equal keys give equal columns whichever SIF asks.
+std::shared_ptr<const NodeColumns> shared_node_columns(const GroupChain& chain, ChannelMask bypassed,
+                                                       const GradedRule& rule) {
+  static detail::MemoTable<NodeColumns> table;
+  detail::MemoKey key;
+  key.add(chain.generator()).add(chain.failed(bypassed)).add(chain.entering(bypassed));
+  key.add(chain.entering_undetected(bypassed)).add(bypassed).add(rule.offsets_hours).add(rule.length_hours);
+  return table.get(
+      key.take(), [&] { return node_columns(chain, bypassed, rule); },
+      [](const NodeColumns& c) { return 3 * static_cast<std::size_t>(c.of[0].size()) * sizeof(double); });
+}
+
 // What the SIF loses against the sum of its subsystems, integrated over the mission:
 // sum u_i - PFD_sif for the PFD, and sum w_i (1 - prod_{l != i}(1 - u_l)) for the failure
 // frequency (a subsystem failing while another is already down does not fail the SIF again).
@@ -132,7 +146,7 @@ CrossTerms cross_terms(const std::vector<GroupChain>& chains, const std::vector<
       auto& cache = columns[i];
       auto it = std::find_if(cache.begin(), cache.end(),
                              [&](const NodeColumns& c) { return c.bypassed == m && same(c.length_hours); });
-      if (it == cache.end()) it = cache.insert(cache.end(), node_columns(chains[i], m, rule));
+      if (it == cache.end()) it = cache.insert(cache.end(), *shared_node_columns(chains[i], m, rule));
       const Eigen::VectorXd& p = traces[i].state_after[k];
       for (std::size_t w = 0; w < 3; ++w) at[w].col(static_cast<Eigen::Index>(i)) = it->of[w].transpose() * p;
     }

@@ -117,9 +117,11 @@ std::vector<std::size_t> PlantGraph::signal_order(std::size_t sif) const {
   }
 }
 
-std::vector<GraphProblem> validate_project_graph(Project& project) {
-  PlantGraph graph(project);
+std::vector<GraphProblem> validate_project_graph(Project& project, std::shared_ptr<const PlantGraph>* keep) {
+  auto built = std::make_shared<const PlantGraph>(project);
+  const PlantGraph& graph = *built;
   if (!graph.problems().empty()) return graph.problems();
+  if (keep) *keep = std::move(built);
   // Resolve ids into indices now that every one is known.
   std::unordered_map<std::string, std::size_t> by_id;
   for (std::size_t c = 0; c < project.components.size(); ++c) by_id.emplace(project.components[c].id, c);

@@ -161,6 +161,17 @@ void FactorSampler::sample_pairs(std::uint64_t seed, std::uint64_t sample_index,
   for (auto pair : pairs) sample_pair(seed, sample_index, pair, factors);
 }
 
+std::vector<double> draw_factor_table(const UncertaintyPlan& plan, int samples, std::uint64_t seed) {
+  const FactorSampler sampler(plan);
+  const std::size_t width = sampler.size();
+  if (samples <= 0 || width == 0 || static_cast<std::size_t>(samples) * width > kMaxFactorTableBytes / sizeof(double))
+    return {};
+  std::vector<double> table(static_cast<std::size_t>(samples) * width);
+  for (std::size_t i = 0; i < static_cast<std::size_t>(samples); ++i)
+    sampler.sample(seed, i, std::span<double>(table).subspan(i * width, width));
+  return table;
+}
+
 std::vector<double> sample_factors(const UncertaintyPlan& plan, std::uint64_t sample_index, std::uint64_t seed) {
   const FactorSampler sampler(plan);
   std::vector<double> factors(sampler.size());
@@ -231,6 +242,11 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
                                    const SampleEvaluator& evaluate, double required_value) {
   assert(options.samples >= 1);
   const FactorSampler sampler(plan);
+  // The plan's table serves only the seed and sample count it was drawn for.
+  const bool use_drawn = !plan.drawn.factors.empty() && plan.drawn.seed == options.seed &&
+                         plan.drawn.samples == options.samples &&
+                         plan.drawn.factors.size() == static_cast<std::size_t>(options.samples) * sampler.size();
+  const std::span<const double> drawn = use_drawn ? std::span<const double>(plan.drawn.factors) : std::span<const double>();
   // Only the pairs of sources the evaluator reads are drawn; the others keep factor 1.
   std::vector<std::size_t> pairs;
   for (auto source : options.sources) pairs.push_back(source / 2);
@@ -254,6 +270,11 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
         const int begin = chunk * kChunkSamples;
         const int end = std::min(begin + kChunkSamples, options.samples);
         for (int i = begin; i < end; ++i) {
+          if (!drawn.empty()) {
+            const auto row = static_cast<std::size_t>(i) * factors.size();
+            values[static_cast<std::size_t>(i)] = evaluate(drawn.subspan(row, factors.size()));
+            continue;
+          }
           if (pairs.empty()) sampler.sample(options.seed, static_cast<std::uint64_t>(i), factors);
           else sampler.sample_pairs(options.seed, static_cast<std::uint64_t>(i), pairs, factors);
           values[static_cast<std::size_t>(i)] = evaluate(factors);
@@ -268,6 +289,12 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
     if (--running == 0) done_signal.notify_all();
   };
 
+  if (threads == 1 && !options.progress) {  // one worker: run it here, start no thread
+    running = 1;
+    work(0);
+    if (errors[0]) std::rethrow_exception(errors[0]);
+    return summarize_samples(values, required_value);
+  }
   std::vector<std::thread> workers;
   workers.reserve(static_cast<std::size_t>(threads));
   for (int t = 0; t < threads; ++t) workers.emplace_back(work, static_cast<std::size_t>(t));

@@ -427,25 +427,45 @@ void parallel_for(std::size_t n, int threads, const std::function<void(std::size
 // The Monte Carlo of every judged SIF on one plan, so that a library model's factor is the
 // same for every SIF in one sample. Under Route 2H a SIF meets its target only with at least
 // 90 % probability (IEC 61508-2:2010 7.4.4.3.1, from memory).
+// From this many SIFs on, the Monte Carlo runs SIFs in parallel rather than samples.
+constexpr std::size_t kSifsForThreadsAcrossSifs = 8;
+
 void run_uncertainty(const Project& project, const VerifyOptions& options, ProjectResult& out) {
-  const UncertaintyPlan plan = plan_uncertainty(project.components);
+  UncertaintyPlan plan = plan_uncertainty(project.components);
   if (plan.sources.empty()) {
     out.warnings.push_back({"", "--samples was given but no component carries an \"uncertainty\"; nothing to sample"});
     return;
   }
   const long long total = static_cast<long long>(options.samples) * static_cast<long long>(project.sifs.size());
-  for (std::size_t i = 0; i < project.sifs.size(); ++i) {
+  // Every SIF reads the same factors of sample i: drawn once here, shared by all. The SIFs run
+  // on the threads (each SIF's samples on one), started once for the run; each value still
+  // depends only on (seed, sample), so the results do not depend on the thread count.
+  plan.drawn = {options.seed, options.samples, draw_factor_table(plan, options.samples, options.seed)};
+  // A project of a few SIFs splits each SIF's samples over the threads instead.
+  const bool across_sifs = project.sifs.size() >= kSifsForThreadsAcrossSifs;
+  std::atomic<long long> done{0};
+  std::mutex progress_mutex;
+  parallel_for(project.sifs.size(), across_sifs ? options.threads : 1, [&](std::size_t i) {
     SifResult& r = out.sifs[i];
-    if (!r.sil_required || !(r.pfd_avg || r.pfh_per_hour)) continue;
+    if (!r.sil_required || !(r.pfd_avg || r.pfh_per_hour)) return;
     MonteCarloOptions mc;
     mc.samples = options.samples;
     mc.seed = options.seed;
-    mc.threads = options.threads;
-    if (options.progress) {
+    mc.threads = across_sifs ? 1 : options.threads;
+    if (options.progress && !across_sifs) {
       const long long before = static_cast<long long>(i) * options.samples;
-      mc.progress = [&options, before, total](int done) { options.progress(before + done, total); };
+      mc.progress = [&options, before, total](int n) { options.progress(before + n, total); };
     }
     r.uncertainty = sif_uncertainty(project, project.sifs[i], r, plan, mc);
+    if (options.progress && across_sifs) {
+      const std::lock_guard lock(progress_mutex);
+      options.progress(done += options.samples, total);
+    }
+  });
+  if (options.progress) options.progress(total, total);
+  for (std::size_t i = 0; i < project.sifs.size(); ++i) {
+    SifResult& r = out.sifs[i];
+    if (!r.uncertainty) continue;
     r.assumptions.push_back("uncertainty: " + std::to_string(options.samples) + " samples, seed " +
                             std::to_string(options.seed) + "; " + r.uncertainty->method);
     if (r.constraints == ConstraintBasis::kRoute2H && r.meets_target && r.uncertainty->probability_meets_target < 0.9) {
@@ -492,7 +512,7 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   out.sha256 = loaded.sha256;
   out.warnings = loaded.warnings;
   out.risk_criteria = project.risk_criteria;
-  out.shared_components = PlantGraph(project).shared_components();
+  out.shared_components = loaded.graph ? loaded.graph->shared_components() : PlantGraph(project).shared_components();
   // The risk analysis first: it sets each SIF's requirement and demand mode, which do not
   // depend on the SIF's own figures; then the SIFs; then the scenarios again with the SIFs'
   // computed PFDavg (or PFH) for the mitigated frequencies.

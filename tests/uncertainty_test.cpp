@@ -393,3 +393,38 @@ TEST(FactorSampling, DrawingOnlySomeSourcesGivesTheSameValuesAsDrawingAll) {
 
 }  // namespace
 }  // namespace sifter
+
+namespace sifter {
+namespace {
+
+// The factor table shared by the SIFs of a run holds exactly what each run would draw, so a
+// Monte Carlo reading it gives the same summary as one drawing its own.
+TEST(SharedFactorTable, RowsEqualTheFactorsOfEachSample) {
+  UncertaintyPlan plan;
+  for (int s = 0; s < 5; ++s) plan.sources.push_back({"model:m" + std::to_string(s), 2.0 + s, {}});
+  const int samples = 300;
+  const auto table = draw_factor_table(plan, samples, 42);
+  ASSERT_EQ(table.size(), static_cast<std::size_t>(samples) * plan.sources.size());
+  for (int i = 0; i < samples; i += 37) {
+    const auto own = sample_factors(plan, static_cast<std::uint64_t>(i), 42);
+    for (std::size_t k = 0; k < own.size(); ++k) EXPECT_EQ(table[static_cast<std::size_t>(i) * own.size() + k], own[k]);
+  }
+  auto evaluate = [](std::span<const double> f) { return 1e-3 * f[1] * f[3]; };
+  MonteCarloOptions drawing;
+  drawing.samples = samples;
+  drawing.seed = 42;
+  drawing.threads = 2;
+  drawing.sources = {1, 3};
+  MonteCarloOptions reading = drawing;
+  reading.threads = 1;
+  UncertaintyPlan with_table = plan;
+  with_table.drawn = {42, samples, table};
+  const auto a = run_monte_carlo(plan, drawing, evaluate, 1e-3);
+  const auto b = run_monte_carlo(with_table, reading, evaluate, 1e-3);
+  EXPECT_EQ(a.mean, b.mean);
+  EXPECT_EQ(a.p95, b.p95);
+  EXPECT_EQ(a.probability_meets_target, b.probability_meets_target);
+}
+
+}  // namespace
+}  // namespace sifter

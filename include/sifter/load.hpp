@@ -1,5 +1,6 @@
 #pragma once
 /// Reading a `sifter-project/1` file (and the libraries it names) into a validated Project.
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -7,6 +8,8 @@
 #include "sifter/model.hpp"
 
 namespace sifter {
+
+class PlantGraph;  // plant_graph.hpp
 
 /// The format names this version reads.
 inline constexpr const char* kProjectFormat = "sifter-project/1";
@@ -18,6 +21,9 @@ struct LoadedProject {
   std::vector<Warning> warnings;
   std::string sha256;  ///< of the project file's bytes, for the report
   std::vector<std::string> inputs;  ///< every file read: the project, then its libraries
+  /// The graph the loader validated, of the project as loaded; verify_project reuses it.
+  /// Reset it when changing the structure (SIFs, groups, channels) of `project`.
+  std::shared_ptr<const PlantGraph> graph;
 };
 
 /// Reads, validates and resolves a project file. Throws InputError carrying every problem

@@ -1,6 +1,7 @@
 #pragma once
 /// The SIFs as a Boost.Graph of signal flow (SIF -> groups -> channels -> components),
 /// its validation, and the components that several SIFs share.
+#include <memory>
 #include <string>
 #include <unordered_map>
 #include <vector>
@@ -67,7 +68,9 @@ class PlantGraph {
   std::vector<GraphProblem> problems_;
 };
 
-/// Validates the SIF structure and resolves every channel's component ids into indices.
-std::vector<GraphProblem> validate_project_graph(Project& project);
+/// Validates the SIF structure and resolves every channel's component ids into indices. When
+/// `keep` is given and there is no problem, the graph built for it is handed over there, so
+/// that verification does not build it again.
+std::vector<GraphProblem> validate_project_graph(Project& project, std::shared_ptr<const PlantGraph>* keep = nullptr);
 
 }  // namespace sifter

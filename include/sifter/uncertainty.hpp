@@ -65,6 +65,14 @@ struct UncertaintyPlan {
   /// Per component (same order as the components given to plan_uncertainty): the index of
   /// its source in `sources`, or kNoSource. May be empty for a plan built by hand.
   std::vector<std::size_t> source_of_component;
+  /// Factors already drawn for one seed and sample count (see draw_factor_table), shared by
+  /// every Monte Carlo run on this plan with that seed and count: row i holds every source's
+  /// factor of sample i, the values a run would draw itself. Empty: each run draws.
+  struct Drawn {
+    std::uint64_t seed = 0;
+    int samples = 0;
+    std::vector<double> factors;
+  } drawn;
 };
 
 /// Builds the plan for a project's components. Components with `uncertainty` and the same
@@ -139,6 +147,14 @@ struct MonteCarloOptions {
   /// drawn, with the same values a full draw would give; the others stay at factor 1.
   std::vector<std::size_t> sources;
 };
+
+/// The factors of samples [0, samples) for `seed`, one row of plan.sources.size() per sample,
+/// drawn with FactorSampler (so equal to what run_monte_carlo would draw). Empty when the
+/// table would exceed kMaxFactorTableBytes: callers then draw per run.
+std::vector<double> draw_factor_table(const UncertaintyPlan& plan, int samples, std::uint64_t seed);
+
+/// Above this size the shared factor table is not built (memory stays bounded).
+inline constexpr std::size_t kMaxFactorTableBytes = std::size_t{256} << 20;
 
 /// Runs `options.samples` evaluations with the plan's factors and summarises them against
 /// `required_value` (the required PFD, or PFH per hour; at_most of sil.hpp decides each

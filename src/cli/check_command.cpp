@@ -29,6 +29,7 @@ struct CheckOptions {
   bool summary = false;
   bool quiet = false;
   bool no_exact = false;
+  bool pretty = false;
   int samples = 0;
   std::uint64_t seed = 1;
   int threads = 0;
@@ -70,7 +71,8 @@ int run_check(const CheckOptions& options) {
   std::optional<report::AtomicOutput> json_out, csv_out, rows_out, xlsx_out;
   if (!options.json_path.empty()) {
     json_out.emplace(options.json_path);
-    report::write_results_json(result, json_out->stream());
+    report::write_results_json(result, json_out->stream(),
+                               options.pretty ? report::JsonLayout::kPretty : report::JsonLayout::kCompact);
     json_out->stream() << "\n";
   }
   if (!options.worksheet_csv_path.empty()) {
@@ -119,6 +121,7 @@ Action add_check_command(CLI::App& app) {
   cmd->add_flag("--summary", opts->summary,
                 "one line per SIF and scenario (the default above " + std::to_string(report::kSummaryAboveSifs) +
                     " SIFs)");
+  cmd->add_flag("--pretty", opts->pretty, "indent the --json output for reading (compact by default)");
   cmd->add_flag("--quiet,-q", opts->quiet, "print no summary (errors and warnings still go to stderr)");
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
   cmd->add_option("--samples", opts->samples, "Monte Carlo samples per SIF on the uncertain failure data")

@@ -2,233 +2,293 @@
 #include "sifter/report/json_results.hpp"
 
 #include "sifter/report/format.hpp"
+#include "sifter/report/json_stream.hpp"
 
 namespace sifter::report {
 namespace {
 
 using nlohmann::json;
 
-// Every number of a tree must be finite: this catches the fields not passed one by one
-// through checked(), so that no NaN (which a JSON dump would print as null) reaches an output.
-void refuse_non_finite(const json& j) {
-  if (j.is_number_float()) checked(j.get<double>(), "number");
-  if (j.is_structured())
-    for (const auto& e : j) refuse_non_finite(e);
+// Builds a nlohmann tree through the same calls as JsonStream, so that the tree (what-if
+// commands, tests) and the stream (`check --json`) come from one list of keys.
+class TreeSink {
+ public:
+  explicit TreeSink(json& root) { stack_.push_back(&root); }
+  TreeSink& begin_object() { return open(json::object()); }
+  TreeSink& begin_array() { return open(json::array()); }
+  TreeSink& end_object() { return close(); }
+  TreeSink& end_array() { return close(); }
+  TreeSink& key(std::string_view name) {
+    key_ = name;
+    return *this;
+  }
+  template <typename T>
+  TreeSink& value(const T& v) { return put(json(v)); }
+  TreeSink& value(std::string_view v) { return put(json(std::string(v))); }
+  TreeSink& value(const std::optional<int>& v) { return put(v ? json(*v) : json(nullptr)); }
+  TreeSink& value(const std::optional<bool>& v) { return put(v ? json(*v) : json(nullptr)); }
+  TreeSink& number(double v, const char* what = "number") { return put(json(checked(v, what))); }
+  TreeSink& number(const std::optional<double>& v, const char* what) { return v ? number(*v, what) : null(); }
+  TreeSink& null() { return put(json(nullptr)); }
+
+ private:
+  TreeSink& open(json empty) {
+    json* slot = place(std::move(empty));
+    stack_.push_back(slot);
+    return *this;
+  }
+  TreeSink& close() {
+    stack_.pop_back();
+    return *this;
+  }
+  TreeSink& put(json v) {
+    place(std::move(v));
+    return *this;
+  }
+  json* place(json v) {
+    json& top = *stack_.back();
+    if (stack_.size() == 1 && top.is_null()) {  // the root itself
+      top = std::move(v);
+      return &top;
+    }
+    if (top.is_array()) {
+      top.push_back(std::move(v));
+      return &top.back();
+    }
+    json& slot = top[key_];
+    slot = std::move(v);
+    return &slot;
+  }
+  std::vector<json*> stack_;
+  std::string key_;
+};
+
+template <typename W>
+void emit_subsystem(W& w, const SubsystemResult& s) {
+  w.begin_object();
+  w.key("name").value(s.name);
+  w.key("role").value(to_string(s.role));
+  w.key("vote").value(s.vote);
+  w.key("channels").begin_array();
+  for (const auto& channel : s.channels) w.value(channel);
+  w.end_array();
+  w.key("pfd_avg").number(s.pfd_avg, "pfd_avg");
+  w.key("pfh").number(s.pfh_per_hour, "pfh");
+  w.key("share").number(s.share, "share");
+  w.key("terms").begin_object();
+  w.key("independent_undetected").number(s.independent_undetected, "term");
+  w.key("independent_detected").number(s.independent_detected, "term");
+  w.key("common_cause").number(s.common_cause, "term");
+  w.end_object();
+  w.key("beta_effective").number(s.beta_effective, "beta_effective");
+  w.key("beta_d_effective").number(s.beta_d_effective, "beta_d_effective");
+  w.key("equation").value(s.equation);
+  w.key("hft").value(s.hft);
+  w.key("sff").number(s.sff, "sff");
+  w.key("sil_architecture").value(s.sil_architecture);
+  w.key("systematic_capability").value(s.systematic_capability);
+  w.key("constraint_notes").value(s.constraint_notes);
+  w.key("pfd_avg_exact").number(s.pfd_avg_exact, "pfd_avg_exact");
+  w.key("pfh_exact").number(s.pfh_exact_per_hour, "pfh_exact");
+  w.key("spurious_trip_rate_per_yr").number(s.spurious_trip_rate_per_yr, "spurious trip rate");
+  w.key("mttf_spurious_yr").number(s.mttf_spurious_yr, "mttf_spurious_yr");
+  w.end_object();
 }
 
-json all_finite(json j) {
-  refuse_non_finite(j);
-  return j;
+template <typename W>
+void emit_consequences(W& w, const ScenarioResult& s) {
+  w.key("consequences").begin_array();
+  for (const auto& c : s.consequences) {
+    w.begin_object();
+    w.key("category").value(c.category);
+    w.key("severity").value(c.severity);
+    w.key("target_frequency_per_yr").number(c.target_frequency_per_yr, "target");
+    w.key("modifier_product").number(c.modifier_product, "modifiers");
+    w.key("frequency_without_sif_per_yr").number(c.frequency_without_sif_per_yr, "frequency");
+    w.key("required_pfd").number(c.required_pfd, "required_pfd");
+    w.key("required_rrf").number(c.required_rrf, "required_rrf");
+    w.key("required_sil").value(c.required_sil);
+    w.key("required_pfh").number(c.required_pfh_per_hour, "required_pfh");
+    w.key("mitigated_frequency_per_yr").number(c.mitigated_frequency_per_yr, "mitigated");
+    w.key("meets_target").value(c.meets_target);
+    w.end_object();
+  }
+  w.end_array();
 }
 
-json opt(const std::optional<double>& v, const char* what) { return v ? json(checked(*v, what)) : json(nullptr); }
-json opt(const std::optional<int>& v) { return v ? json(*v) : json(nullptr); }
-json opt(const std::optional<bool>& v) { return v ? json(*v) : json(nullptr); }
-
-json subsystem_json(const SubsystemResult& s) {
-  json j;
-  j["name"] = s.name;
-  j["role"] = to_string(s.role);
-  j["vote"] = s.vote;
-  j["channels"] = s.channels;
-  j["pfd_avg"] = opt(s.pfd_avg, "pfd_avg");
-  j["pfh"] = opt(s.pfh_per_hour, "pfh");
-  j["share"] = checked(s.share, "share");
-  j["terms"] = {{"independent_undetected", checked(s.independent_undetected, "term")},
-                {"independent_detected", checked(s.independent_detected, "term")},
-                {"common_cause", checked(s.common_cause, "term")}};
-  j["beta_effective"] = s.beta_effective;
-  j["beta_d_effective"] = s.beta_d_effective;
-  j["equation"] = s.equation;
-  j["hft"] = opt(s.hft);
-  j["sff"] = opt(s.sff, "sff");
-  j["sil_architecture"] = s.sil_architecture;
-  j["systematic_capability"] = opt(s.systematic_capability);
-  j["constraint_notes"] = s.constraint_notes;
-  j["pfd_avg_exact"] = opt(s.pfd_avg_exact, "pfd_avg_exact");
-  j["pfh_exact"] = opt(s.pfh_exact_per_hour, "pfh_exact");
-  j["spurious_trip_rate_per_yr"] = checked(s.spurious_trip_rate_per_yr, "spurious trip rate");
-  j["mttf_spurious_yr"] = opt(s.mttf_spurious_yr, "mttf_spurious_yr");
-  return j;
-}
-
-json scenario_json(const ScenarioResult& s) {
-  json j;
-  j["id"] = s.id;
-  j["title"] = s.title;
-  j["sif"] = s.sif ? json(*s.sif) : json(nullptr);
-  j["target_frequency_per_yr"] = checked(s.target_frequency_per_yr, "target frequency");
-  j["frequency_without_sif_per_yr"] = checked(s.frequency_without_sif_per_yr, "frequency");
-  j["required_pfd"] = checked(s.required_pfd, "required_pfd");
-  j["required_rrf"] = checked(s.required_rrf, "required_rrf");
-  j["required_sil"] = s.required_sil;
+template <typename W>
+void emit_scenario(W& w, const ScenarioResult& s) {
+  w.begin_object();
+  w.key("id").value(s.id);
+  w.key("title").value(s.title);
+  if (s.sif) w.key("sif").value(*s.sif);
+  else w.key("sif").null();
+  w.key("target_frequency_per_yr").number(s.target_frequency_per_yr, "target frequency");
+  w.key("frequency_without_sif_per_yr").number(s.frequency_without_sif_per_yr, "frequency");
+  w.key("required_pfd").number(s.required_pfd, "required_pfd");
+  w.key("required_rrf").number(s.required_rrf, "required_rrf");
+  w.key("required_sil").value(s.required_sil);
   // Without a SIF the demand is the one on the first layer: the causes with their enabling conditions.
   double demand = 0.0;
   for (const auto& c : s.causes) demand += c.frequency_per_yr * c.enabling_product;
-  j["demand_rate_per_yr"] = checked(s.demand_rate_per_yr.value_or(demand), "demand rate");
-  j["demand_mode"] = to_string(s.demand_mode.value_or(demand > 1.0 ? DemandMode::kHigh : DemandMode::kLow));
-  j["required_pfh"] = opt(s.required_pfh_per_hour, "required_pfh");
-  j["mitigated_frequency_per_yr"] = opt(s.mitigated_frequency_per_yr, "mitigated frequency");
-  j["meets_target"] = opt(s.meets_target);
-  j["consequences"] = json::array();
-  for (const auto& c : s.consequences)
-    j["consequences"].push_back({{"category", c.category},
-                                 {"severity", c.severity},
-                                 {"target_frequency_per_yr", checked(c.target_frequency_per_yr, "target")},
-                                 {"modifier_product", checked(c.modifier_product, "modifiers")},
-                                 {"frequency_without_sif_per_yr", checked(c.frequency_without_sif_per_yr, "frequency")},
-                                 {"required_pfd", checked(c.required_pfd, "required_pfd")},
-                                 {"required_rrf", checked(c.required_rrf, "required_rrf")},
-                                 {"required_sil", c.required_sil},
-                                 {"required_pfh", opt(c.required_pfh_per_hour, "required_pfh")},
-                                 {"mitigated_frequency_per_yr", opt(c.mitigated_frequency_per_yr, "mitigated")},
-                                 {"meets_target", opt(c.meets_target)}});
-  j["causes"] = json::array();
-  for (const auto& c : s.causes)
-    j["causes"].push_back({{"id", c.id},
-                           {"frequency_per_yr", checked(c.frequency_per_yr, "frequency")},
-                           {"enabling_product", checked(c.enabling_product, "enabling")},
-                           {"demand_rate_per_yr", checked(c.demand_rate_per_yr, "demand")},
-                           {"frequency_without_sif_per_yr", checked(c.frequency_without_sif_per_yr, "frequency")},
-                           {"sif_credited", c.sif_credited}});
-  j["findings"] = json::array();
-  for (const auto& f : s.findings) j["findings"].push_back({{"kind", to_string(f.kind)}, {"message", f.message}});
-  j["assumptions"] = s.assumptions;
-  return all_finite(std::move(j));
+  w.key("demand_rate_per_yr").number(s.demand_rate_per_yr.value_or(demand), "demand rate");
+  w.key("demand_mode").value(to_string(s.demand_mode.value_or(demand > 1.0 ? DemandMode::kHigh : DemandMode::kLow)));
+  w.key("required_pfh").number(s.required_pfh_per_hour, "required_pfh");
+  w.key("mitigated_frequency_per_yr").number(s.mitigated_frequency_per_yr, "mitigated frequency");
+  w.key("meets_target").value(s.meets_target);
+  emit_consequences(w, s);
+  w.key("causes").begin_array();
+  for (const auto& c : s.causes) {
+    w.begin_object();
+    w.key("id").value(c.id);
+    w.key("frequency_per_yr").number(c.frequency_per_yr, "frequency");
+    w.key("enabling_product").number(c.enabling_product, "enabling");
+    w.key("demand_rate_per_yr").number(c.demand_rate_per_yr, "demand");
+    w.key("frequency_without_sif_per_yr").number(c.frequency_without_sif_per_yr, "frequency");
+    w.key("sif_credited").value(c.sif_credited);
+    w.end_object();
+  }
+  w.end_array();
+  w.key("findings").begin_array();
+  for (const auto& f : s.findings) {
+    w.begin_object();
+    w.key("kind").value(to_string(f.kind));
+    w.key("message").value(f.message);
+    w.end_object();
+  }
+  w.end_array();
+  w.key("assumptions").value(s.assumptions);
+  w.end_object();
+}
+
+template <typename W>
+void emit_limits(W& w, const SifResult& s) {
+  w.key("limits").begin_array();
+  for (const auto& l : s.limits) {
+    w.begin_object();
+    w.key("kind").value(l.kind);
+    if (l.subsystem) w.key("subsystem").value(*l.subsystem);
+    else w.key("subsystem").null();
+    if (l.element) w.key("element").value(*l.element);
+    else w.key("element").null();
+    w.key("sil").value(l.sil);
+    w.key("message").value(l.message);
+    w.end_object();
+  }
+  w.end_array();
+}
+
+template <typename W>
+void emit_uncertainty(W& w, const SifResult& s) {
+  if (s.uncertainty) {
+    const auto& u = *s.uncertainty;
+    w.key("uncertainty").begin_object();
+    w.key("mean").number(u.mean, "mean");
+    w.key("p05").number(u.p05, "p05");
+    w.key("p50").number(u.p50, "p50");
+    w.key("p95").number(u.p95, "p95");
+    w.key("probability_meets_target").number(u.probability_meets_target, "probability");
+    w.key("samples").value(u.samples);
+    w.key("method").value(u.method);
+    w.end_object();
+  } else {
+    w.key("uncertainty").null();
+  }
+}
+
+template <typename W>
+void emit_sif(W& w, const SifResult& s) {
+  w.begin_object();
+  w.key("id").value(s.id);
+  w.key("title").value(s.title);
+  w.key("demand_mode").value(to_string(s.demand_mode));
+  w.key("warnings").value(s.warnings);  // also in the project's "warnings"
+  w.key("demand_mode_basis").value(s.demand_mode_basis);
+  w.key("pfd_avg").number(s.pfd_avg, "pfd_avg");
+  w.key("pfh").number(s.pfh_per_hour, "pfh");
+  w.key("rrf").number(s.rrf, "rrf");
+  w.key("sil_probability").value(s.sil_probability);
+  w.key("sil_required").value(s.sil_required);
+  w.key("required_rrf").number(s.required_rrf, "required_rrf");
+  w.key("required_pfd").number(s.required_pfd, "required_pfd");
+  w.key("required_pfh").number(s.required_pfh_per_hour, "required_pfh");
+  w.key("target").value(s.target_text);
+  w.key("meets_target").value(s.meets_target);
+  w.key("sil_architecture").value(s.sil_architecture);
+  w.key("sil_systematic").value(s.sil_systematic);
+  w.key("sil_achieved").value(s.sil_achieved);
+  w.key("constraints").value(to_string(s.constraints));
+  emit_limits(w, s);
+  w.key("subsystems").begin_array();
+  for (const auto& sub : s.subsystems) emit_subsystem(w, sub);
+  w.end_array();
+  w.key("assumptions").value(s.assumptions);
+  w.key("scenarios").value(s.scenarios);
+  w.key("pfd_avg_exact").number(s.pfd_avg_exact, "pfd_avg_exact");
+  w.key("pfh_exact").number(s.pfh_exact_per_hour, "pfh_exact");
+  w.key("simplified_over_exact").number(s.simplified_over_exact, "ratio");
+  w.key("spurious_trip_rate_per_yr").number(s.spurious_trip_rate_per_yr, "spurious trip rate");
+  w.key("mttf_spurious_yr").number(s.mttf_spurious_yr, "mttf_spurious_yr");
+  emit_uncertainty(w, s);
+  w.end_object();
+}
+
+// The whole results file; the SIFs and scenarios are written one after another, never held.
+template <typename W>
+void emit_results(W& w, const ProjectResult& r) {
+  w.begin_object();
+  w.key("format").value(kResultsFormat);
+  w.key("tool").begin_object().key("name").value("sifter").key("version").value(SIFTER_VERSION).end_object();
+  w.key("project").begin_object();
+  w.key("title").value(r.title).key("file").value(r.file).key("sha256").value(r.sha256);
+  w.end_object();
+  w.key("risk_criteria").begin_object();
+  for (const auto& [category, levels] : r.risk_criteria) {
+    w.key(category).begin_object();
+    for (const auto& [severity, rate] : levels) w.key(severity).number(rate.per_year(), "risk criterion");
+    w.end_object();
+  }
+  w.end_object();
+  w.key("shared_devices").begin_array();
+  for (const auto& d : r.shared_devices)
+    w.begin_object().key("device").value(d.tag).key("users").value(d.users).end_object();
+  w.end_array();
+  w.key("shared_components").begin_array();
+  for (const auto& s : r.shared_components)
+    w.begin_object().key("component").value(s.component).key("sifs").value(s.sifs).end_object();
+  w.end_array();
+  w.key("warnings").begin_array();
+  for (const auto& x : r.warnings) w.begin_object().key("where").value(x.where).key("message").value(x.message).end_object();
+  w.end_array();
+  w.key("caution").value(kCaution);
+  w.key("sifs").begin_array();
+  for (const auto& s : r.sifs) emit_sif(w, s);
+  w.end_array();
+  w.key("scenarios").begin_array();
+  for (const auto& s : r.scenarios) emit_scenario(w, s);
+  w.end_array();
+  w.end_object();
 }
 
 }  // namespace
 
 json sif_json(const SifResult& s) {
   json j;
-  j["id"] = s.id;
-  j["title"] = s.title;
-  j["demand_mode"] = to_string(s.demand_mode);
-  j["warnings"] = s.warnings;  // also in the project's "warnings"
-  j["demand_mode_basis"] = s.demand_mode_basis;
-  j["pfd_avg"] = opt(s.pfd_avg, "pfd_avg");
-  j["pfh"] = opt(s.pfh_per_hour, "pfh");
-  j["rrf"] = opt(s.rrf, "rrf");
-  j["sil_probability"] = s.sil_probability;
-  j["sil_required"] = opt(s.sil_required);
-  j["required_rrf"] = opt(s.required_rrf, "required_rrf");
-  j["required_pfd"] = opt(s.required_pfd, "required_pfd");
-  j["required_pfh"] = opt(s.required_pfh_per_hour, "required_pfh");
-  j["target"] = s.target_text;
-  j["meets_target"] = opt(s.meets_target);
-  j["sil_architecture"] = s.sil_architecture;
-  j["sil_systematic"] = s.sil_systematic;
-  j["sil_achieved"] = s.sil_achieved;
-  j["constraints"] = to_string(s.constraints);
-  j["limits"] = json::array();
-  for (const auto& l : s.limits)
-    j["limits"].push_back({{"kind", l.kind},
-                           {"subsystem", l.subsystem ? json(*l.subsystem) : json(nullptr)},
-                           {"element", l.element ? json(*l.element) : json(nullptr)},
-                           {"sil", l.sil},
-                           {"message", l.message}});
-  j["subsystems"] = json::array();
-  for (const auto& sub : s.subsystems) j["subsystems"].push_back(subsystem_json(sub));
-  j["assumptions"] = s.assumptions;
-  j["scenarios"] = s.scenarios;
-  j["pfd_avg_exact"] = opt(s.pfd_avg_exact, "pfd_avg_exact");
-  j["pfh_exact"] = opt(s.pfh_exact_per_hour, "pfh_exact");
-  j["simplified_over_exact"] = opt(s.simplified_over_exact, "ratio");
-  j["spurious_trip_rate_per_yr"] = checked(s.spurious_trip_rate_per_yr, "spurious trip rate");
-  j["mttf_spurious_yr"] = opt(s.mttf_spurious_yr, "mttf_spurious_yr");
-  if (s.uncertainty) {
-    const auto& u = *s.uncertainty;
-    j["uncertainty"] = {{"mean", checked(u.mean, "mean")},
-                        {"p05", checked(u.p05, "p05")},
-                        {"p50", checked(u.p50, "p50")},
-                        {"p95", checked(u.p95, "p95")},
-                        {"probability_meets_target", checked(u.probability_meets_target, "probability")},
-                        {"samples", u.samples},
-                        {"method", u.method}};
-  } else {
-    j["uncertainty"] = nullptr;
-  }
-  return all_finite(std::move(j));
-}
-
-namespace {
-
-// Everything but the SIFs and the scenarios.
-json results_head(const ProjectResult& r) {
-  json j;
-  j["format"] = kResultsFormat;
-  j["tool"] = {{"name", "sifter"}, {"version", SIFTER_VERSION}};
-  j["project"] = {{"title", r.title}, {"file", r.file}, {"sha256", r.sha256}};
-  j["risk_criteria"] = json::object();
-  for (const auto& [category, levels] : r.risk_criteria)
-    for (const auto& [severity, rate] : levels) j["risk_criteria"][category][severity] = rate.per_year();
-  j["shared_devices"] = json::array();
-  for (const auto& d : r.shared_devices) j["shared_devices"].push_back({{"device", d.tag}, {"users", d.users}});
-  j["shared_components"] = json::array();
-  for (const auto& s : r.shared_components) j["shared_components"].push_back({{"component", s.component}, {"sifs", s.sifs}});
-  j["warnings"] = json::array();
-  for (const auto& w : r.warnings) j["warnings"].push_back({{"where", w.where}, {"message", w.message}});
-  j["caution"] = kCaution;
-  return all_finite(std::move(j));
-}
-
-// A value as dump(2) writes it `depth` levels down: JSON strings hold no raw line breaks, so
-// every line break of the text is structural and takes the deeper indentation.
-void write_indented(std::ostream& out, const json& value, int depth) {
-  const std::string text = value.dump(2);
-  const std::size_t indent = static_cast<std::size_t>(2 * depth);
-  std::string shifted;
-  shifted.reserve(text.size() + text.size() / 8);
-  for (char c : text) {
-    shifted += c;
-    if (c == '\n') shifted.append(indent, ' ');
-  }
-  out << shifted;
-}
-
-template <typename Items, typename ToJson>
-void write_array(std::ostream& out, const Items& items, ToJson to_json) {
-  if (items.empty()) {
-    out << "[]";
-    return;
-  }
-  out << "[\n";
-  for (std::size_t i = 0; i < items.size(); ++i) {
-    out << "    ";
-    write_indented(out, to_json(items[i]), 2);
-    out << (i + 1 < items.size() ? ",\n" : "\n");
-  }
-  out << "  ]";
-}
-
-}  // namespace
-
-json results_json(const ProjectResult& r) {
-  json j = results_head(r);
-  j["sifs"] = json::array();
-  for (const auto& s : r.sifs) j["sifs"].push_back(sif_json(s));
-  j["scenarios"] = json::array();
-  for (const auto& s : r.scenarios) j["scenarios"].push_back(scenario_json(s));
+  TreeSink sink(j);
+  emit_sif(sink, s);
   return j;
 }
 
-void write_results_json(const ProjectResult& r, std::ostream& out) {
-  json head = results_head(r);
-  head["sifs"] = json::array();  // placeholders keep the order of the keys
-  head["scenarios"] = json::array();
-  out << "{\n";
-  bool first = true;
-  for (auto it = head.begin(); it != head.end(); ++it) {
-    out << (first ? "" : ",\n") << "  " << json(it.key()).dump() << ": ";
-    first = false;
-    if (it.key() == "sifs")
-      write_array(out, r.sifs, [](const SifResult& s) { return sif_json(s); });
-    else if (it.key() == "scenarios")
-      write_array(out, r.scenarios, [](const ScenarioResult& s) { return scenario_json(s); });
-    else
-      write_indented(out, it.value(), 1);
-  }
-  out << "\n}";
+json results_json(const ProjectResult& r) {
+  json j;
+  TreeSink sink(j);
+  emit_results(sink, r);
+  return j;
+}
+
+void write_results_json(const ProjectResult& r, std::ostream& out, JsonLayout layout) {
+  JsonStream stream(out, layout);
+  emit_results(stream, r);
 }
 
 }  // namespace sifter::report

@@ -4,6 +4,7 @@
 
 #include <ostream>
 
+#include "sifter/report/json_stream.hpp"
 #include "sifter/verify.hpp"
 
 namespace sifter::report {
@@ -14,9 +15,9 @@ inline constexpr const char* kResultsFormat = "sifter-results/1";
 /// The results as JSON; keys are a contract (extend, never rename).
 nlohmann::json results_json(const ProjectResult& result);
 
-/// The same text as results_json(result).dump(2), written SIF by SIF so that a register of
-/// thousands of SIFs never holds its whole results as one JSON tree in memory.
-void write_results_json(const ProjectResult& result, std::ostream& out);
+/// The same keys and values as results_json(result), streamed without a tree (a register of
+/// thousands of SIFs never sits in memory as JSON); compact unless `layout` asks for indents.
+void write_results_json(const ProjectResult& result, std::ostream& out, JsonLayout layout = JsonLayout::kCompact);
 
 /// One SIF's results as JSON (also used by the what-if commands).
 nlohmann::json sif_json(const SifResult& sif);

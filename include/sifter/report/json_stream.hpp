@@ -1,0 +1,68 @@
+#pragma once
+/// A JSON text written as it goes: no tree, numbers in shortest round-trip form, every number
+/// checked finite as it is written.
+#include <cstdint>
+#include <optional>
+#include <ostream>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace sifter::report {
+
+/// Compact (no spaces, one line) or indented by two spaces per level, as nlohmann's dump(2).
+enum class JsonLayout { kCompact, kPretty };
+
+/// Writes one JSON value to a stream, in order: keys and values are given as they are to
+/// appear. Structural mistakes (a value where a key is due) are programmer errors (asserts).
+class JsonStream {
+ public:
+  explicit JsonStream(std::ostream& out, JsonLayout layout = JsonLayout::kCompact);
+  ~JsonStream();  ///< flushes what is buffered
+  JsonStream(const JsonStream&) = delete;
+  JsonStream& operator=(const JsonStream&) = delete;
+
+  JsonStream& begin_object();
+  JsonStream& end_object();
+  JsonStream& begin_array();
+  JsonStream& end_array();
+  /// The key of the next member of the current object.
+  JsonStream& key(std::string_view name);
+
+  JsonStream& value(std::string_view text);
+  JsonStream& value(const char* text) { return value(std::string_view(text)); }
+  JsonStream& value(const std::string& text) { return value(std::string_view(text)); }
+  JsonStream& value(bool b);
+  JsonStream& value(int n);
+  JsonStream& value(long long n);
+  /// A finite double (throws the project's internal Error otherwise, naming `what`); written
+  /// by std::to_chars in its shortest round-trip form, with ".0" kept on whole numbers so that
+  /// a reader still sees a floating-point number.
+  JsonStream& number(double v, const char* what = "number");
+  JsonStream& null();
+  JsonStream& value(const std::optional<int>& v) { return v ? value(*v) : null(); }
+  JsonStream& value(const std::optional<bool>& v) { return v ? value(*v) : null(); }
+  JsonStream& number(const std::optional<double>& v, const char* what) { return v ? number(*v, what) : null(); }
+  /// An array of strings.
+  JsonStream& value(const std::vector<std::string>& texts);
+
+  /// Writes out what is buffered.
+  void flush();
+
+ private:
+  void before_value();
+  void newline();
+  void escaped(std::string_view text);
+
+  std::ostream& out_;
+  bool pretty_;
+  std::string buffer_;
+  struct Level {
+    bool object = false;
+    bool empty = true;
+  };
+  std::vector<Level> levels_;
+  bool after_key_ = false;
+};
+
+}  // namespace sifter::report

@@ -1,0 +1,159 @@
+// The streaming JSON writer of the results: one pass, no tree, numbers by std::to_chars.
+#include "sifter/report/json_stream.hpp"
+
+#include <cassert>
+#include <charconv>
+#include <cstdio>
+
+#include "sifter/report/format.hpp"
+
+namespace sifter::report {
+namespace {
+// Written out in pieces of about this size, so that a register's results never sit whole in memory.
+constexpr std::size_t kFlushBytes = std::size_t{1} << 16;
+}  // namespace
+
+JsonStream::JsonStream(std::ostream& out, JsonLayout layout) : out_(out), pretty_(layout == JsonLayout::kPretty) {
+  buffer_.reserve(2 * kFlushBytes);
+}
+
+JsonStream::~JsonStream() { flush(); }
+
+void JsonStream::flush() {
+  out_.write(buffer_.data(), static_cast<std::streamsize>(buffer_.size()));
+  buffer_.clear();
+}
+
+void JsonStream::newline() {
+  if (!pretty_) return;
+  buffer_ += '\n';
+  buffer_.append(2 * levels_.size(), ' ');
+}
+
+// Before any value: a comma and line break inside arrays; nothing after a key.
+void JsonStream::before_value() {
+  if (after_key_) {
+    after_key_ = false;
+    return;
+  }
+  if (levels_.empty()) return;
+  assert(!levels_.back().object && "a value inside an object needs its key first");
+  if (!levels_.back().empty) buffer_ += ',';
+  levels_.back().empty = false;
+  newline();
+}
+
+JsonStream& JsonStream::key(std::string_view name) {
+  assert(!levels_.empty() && levels_.back().object && !after_key_);
+  if (!levels_.back().empty) buffer_ += ',';
+  levels_.back().empty = false;
+  newline();
+  escaped(name);
+  buffer_ += pretty_ ? ": " : ":";
+  after_key_ = true;
+  return *this;
+}
+
+JsonStream& JsonStream::begin_object() {
+  before_value();
+  buffer_ += '{';
+  levels_.push_back({true, true});
+  return *this;
+}
+
+JsonStream& JsonStream::begin_array() {
+  before_value();
+  buffer_ += '[';
+  levels_.push_back({false, true});
+  return *this;
+}
+
+JsonStream& JsonStream::end_object() {
+  assert(!levels_.empty() && levels_.back().object && !after_key_);
+  const bool empty = levels_.back().empty;
+  levels_.pop_back();
+  if (!empty) newline();
+  buffer_ += '}';
+  if (buffer_.size() >= kFlushBytes) flush();
+  return *this;
+}
+
+JsonStream& JsonStream::end_array() {
+  assert(!levels_.empty() && !levels_.back().object);
+  const bool empty = levels_.back().empty;
+  levels_.pop_back();
+  if (!empty) newline();
+  buffer_ += ']';
+  return *this;
+}
+
+// RFC 8259 section 7: quote, backslash and control characters escaped; UTF-8 passes through
+// (the loader accepts only valid UTF-8, so every text here is valid).
+void JsonStream::escaped(std::string_view text) {
+  buffer_ += '"';
+  for (const char c : text) {
+    const auto u = static_cast<unsigned char>(c);
+    if (c == '"') buffer_ += "\\\"";
+    else if (c == '\\') buffer_ += "\\\\";
+    else if (u >= 0x20) buffer_ += c;
+    else if (c == '\n') buffer_ += "\\n";
+    else if (c == '\t') buffer_ += "\\t";
+    else if (c == '\r') buffer_ += "\\r";
+    else if (c == '\b') buffer_ += "\\b";
+    else if (c == '\f') buffer_ += "\\f";
+    else {
+      char buf[8];
+      std::snprintf(buf, sizeof buf, "\\u%04x", u);
+      buffer_ += buf;
+    }
+  }
+  buffer_ += '"';
+}
+
+JsonStream& JsonStream::value(std::string_view text) {
+  before_value();
+  escaped(text);
+  return *this;
+}
+
+JsonStream& JsonStream::value(bool b) {
+  before_value();
+  buffer_ += b ? "true" : "false";
+  return *this;
+}
+
+JsonStream& JsonStream::value(int n) { return value(static_cast<long long>(n)); }
+
+JsonStream& JsonStream::value(long long n) {
+  before_value();
+  char buf[24];
+  const auto end = std::to_chars(buf, buf + sizeof buf, n).ptr;
+  buffer_.append(buf, end);
+  return *this;
+}
+
+JsonStream& JsonStream::number(double v, const char* what) {
+  checked(v, what);
+  before_value();
+  if (v == 0.0) v = 0.0;  // no "-0"
+  char buf[32];
+  const auto end = std::to_chars(buf, buf + sizeof buf, v).ptr;
+  const std::string_view text(buf, static_cast<std::size_t>(end - buf));
+  buffer_ += text;
+  if (text.find_first_of(".e") == std::string_view::npos) buffer_ += ".0";
+  return *this;
+}
+
+JsonStream& JsonStream::null() {
+  before_value();
+  buffer_ += "null";
+  return *this;
+}
+
+JsonStream& JsonStream::value(const std::vector<std::string>& texts) {
+  begin_array();
+  for (const auto& t : texts) value(t);
+  return end_array();
+}
+
+}  // namespace sifter::report
