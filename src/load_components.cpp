@@ -207,7 +207,9 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     ElementFields fields = own;
     if (!c.model.empty()) {
       auto m = models.find(c.model);
-      if (m == models.end()) {
+      if (m == models.end() && ctx.libraries_failed()) {
+        ++ctx.follow_ons_suppressed;  // the library that should hold it was reported already
+      } else if (m == models.end()) {
         std::vector<std::string> names;
         for (const auto& [name, _] : models) names.push_back(name);
         const auto near = nearest(c.model, names);

@@ -28,6 +28,7 @@ json opt(const std::optional<bool>& v) { return v ? json(*v) : json(nullptr); }
 json subsystem_json(const SubsystemResult& s) {
   json j;
   j["name"] = s.name;
+  j["template"] = s.template_name.empty() ? json(nullptr) : json(s.template_name);
   j["role"] = to_string(s.role);
   j["vote"] = s.vote;
   j["channels"] = s.channels;
