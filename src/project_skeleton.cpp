@@ -56,7 +56,7 @@ constexpr std::string_view kProject = R"json(// A sifter project file (sifter-pr
         {"name": "logic solver", "template": "logic-solver"},
         {"name": "inlet valve", "role": "final", "vote": "1oo1",
          "channels": [["SOV-101", "XV-101"]],   // a channel of elements in series
-         "proof_test_coverage": "90%"}
+         "proof_test_interval": "6 mo"}         // overrides the default
       ]
     }
   ],
@@ -77,10 +77,10 @@ constexpr std::string_view kProject = R"json(// A sifter project file (sifter-pr
     {
       "id": "LOPA-101",
       "title": "@SCENARIO_TITLE@",
-      "consequences": [{"category": "safety", "severity": 4}],
+      "consequences": [{"category": "safety", "severity": 3}],
       "causes": [
         {"id": "C1", "title": "feed level valve fails open", "frequency": "0.1/yr", "devices": ["LV-100"]},
-        {"id": "C2", "title": "upstream separator carries over", "frequency": "0.05/yr"}
+        {"id": "C2", "title": "upstream separator carries over", "frequency": "0.02/yr"}
       ],
       "modifiers": [{"title": "person present near the compressor", "probability": 0.5}],
       "layers": [
@@ -108,7 +108,7 @@ constexpr std::string_view kLibrary = R"json(// A sifter component library (sift
      "lambda_du": "250 FIT", "lambda_su": "500 FIT",
      "element_type": "A", "systematic_capability": 3, "data_source": "invented for the example"},
     {"id": "shutoff-valve", "title": "Shut-off valve with spring-return actuator (invented)",
-     "lambda_du": "1200 FIT", "lambda_su": "800 FIT",
+     "lambda_du": "600 FIT", "lambda_su": "800 FIT",
      "element_type": "A", "systematic_capability": 3, "data_source": "invented for the example"}
   ]
 }

@@ -179,7 +179,7 @@ void export_scenarios(const Json& root, std::vector<TableText>& out) {
     for (const auto& c : items(s, "causes")) {
       auto row = sc.blank();
       sc.set(row, "scenario", sid);
-      sc.fill(row, s, {"scenario_title", "node", "deviation", "consequences", "target_frequency"});
+      sc.fill(row, s, {"scenario_title", "node", "deviation", "consequences", "target_frequency", "scenario_note"});
       sc.fill(row, c, {"cause", "cause_title", "frequency", "devices", "note"});
       sc.add(row);
     }

@@ -374,7 +374,8 @@ class Importer {
   }
 
   void read_scenarios(OJson& root) {
-    const std::vector<std::string> shared = {"scenario_title", "node", "deviation", "consequences", "target_frequency"};
+    const std::vector<std::string> shared = {"scenario_title", "node", "deviation", "consequences", "target_frequency",
+                                             "scenario_note"};
     for_rows("scenarios.csv", [&](const Table& t, int row) {
       const std::string id = cell(t, row, "scenario");
       auto [it, first] = scenario_index_.emplace(id, root["scenarios"].size());

@@ -86,6 +86,7 @@ const std::vector<TableLayout>& table_layouts() {
         {"deviation", "deviation", K::kText},
         {"consequences", "consequences", K::kConsequences},
         {"target_frequency", "target_frequency", K::kValue},
+        {"scenario_note", "note", K::kText},
         {"cause", "id", K::kText, true},
         {"cause_title", "title", K::kText},
         {"frequency", "frequency", K::kValue, true},

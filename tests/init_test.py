@@ -56,10 +56,15 @@ def readme_block(readme, marker):
 
 def main():
     source, sifter = pathlib.Path(sys.argv[1]), sys.argv[2]
-    project_schema = jsonschema.Draft202012Validator(
-        json.loads((source / "data/schema/sifter-project-1.schema.json").read_text()))
+    source = source.resolve()
+    project_doc = json.loads((source / "data/schema/sifter-project-1.schema.json").read_text())
+    library_doc = json.loads((source / "data/schema/sifter-library-1.schema.json").read_text())
+    base_uri = (source / "data/schema/").as_uri() + "/"  # the library schema refers to the project's
+    store = {base_uri + "sifter-project-1.schema.json": project_doc,
+             base_uri + "sifter-library-1.schema.json": library_doc}
+    project_schema = jsonschema.Draft202012Validator(project_doc)
     library_schema = jsonschema.Draft202012Validator(
-        json.loads((source / "data/schema/sifter-library-1.schema.json").read_text()))
+        library_doc, resolver=jsonschema.RefResolver(base_uri + "sifter-library-1.schema.json", library_doc, store=store))
     failures = []
 
     def expect(ok, what):

@@ -13,7 +13,7 @@ TEST(JsonComments, LineAndBlockCommentsBecomeSpacesAndKeepEveryNewline) {
   std::string text = "{ // one\n  \"a\": /* two\nlines */ 1\n}";
   const std::string before = text;
   ASSERT_FALSE(blank_json_comments(text).has_value());
-  EXPECT_EQ(text, "{       \n  \"a\":        \n         1\n}");
+  EXPECT_EQ(text, "{       \n  \"a\":       \n         1\n}");
   EXPECT_EQ(text.size(), before.size());
 }
 

@@ -73,8 +73,8 @@ constexpr const char* kTwoSifs = R"({"format": "sifter-project/1",
 
 TEST(LoadReuse, AProblemInATemplateIsReportedOnceAtTheTemplate) {
   EXPECT_EQ(message_of(kTwoSifs),
-            "p.json:4:86: /subsystem_templates/pair/beta: expected a fraction from 0 to 1 (0.05 or \"5%\"), found the "
-            "string \"150%\"\n"
+            "p.json:4:94: /subsystem_templates/pair/beta: expected a fraction from 0 to 1, such as 0.05 or \"5%\", "
+            "found the string \"150%\"\n"
             "1 problem in the input (1 problem that follows only from it not shown); nothing was computed or written");
 }
 
@@ -83,7 +83,7 @@ TEST(LoadReuse, AnUnknownTemplateIsOneMessageWithTheNearestName) {
   text.replace(text.find("150%"), 4, "5%");
   text.replace(text.rfind("\"pair\""), 6, "\"pairs\"");
   EXPECT_EQ(message_of(text),
-            "p.json:6:57: /sifs/1/subsystems/0/template: expected the name of an entry of \"subsystem_templates\", "
+            "p.json:6:54: /sifs/1/subsystems/0/template: expected the name of an entry of \"subsystem_templates\", "
             "found the string \"pairs\"\n  hint: did you mean \"pair\"?\n"
             "1 problem in the input (2 problems that follow only from it not shown); nothing was computed or written");
 }
@@ -93,7 +93,7 @@ TEST(LoadReuse, AppliesToCausesNamesCausesOfTheScenario) {
   "scenarios": [{"id": "S", "target_frequency": "1e-4/yr", "causes": [{"id": "C1", "frequency": "0.1/yr"}],
     "layers": [{"id": "L", "kind": "mechanical", "pfd": 0.1, "applies_to_causes": ["C2"]}]}]})";
   EXPECT_EQ(message_of(text),
-            "p.json:3:79: /scenarios/0/layers/0/applies_to_causes/0: expected the id of a cause of scenario S, found "
+            "p.json:3:84: /scenarios/0/layers/0/applies_to_causes/0: expected the id of a cause of scenario S, found "
             "\"C2\"\n  hint: the causes are: C1\n"
             "1 problem in the input; nothing was computed or written");
 }
