@@ -21,6 +21,28 @@ bool is_number(std::string_view t) {
 
 }  // namespace
 
+namespace {
+
+// Reads a quoted cell starting at text[i] == '"'; returns false when it is never closed.
+bool read_quoted(std::string_view text, std::size_t& i, std::string& cell, int& line) {
+  for (++i; i < text.size();) {
+    if (text[i] == '"') {
+      if (i + 1 < text.size() && text[i + 1] == '"') {  // a doubled quote is one quote
+        cell += '"';
+        i += 2;
+        continue;
+      }
+      ++i;
+      return true;
+    }
+    if (text[i] == '\n') ++line;
+    cell += text[i++];
+  }
+  return false;
+}
+
+}  // namespace
+
 std::optional<CsvSyntaxProblem> parse_csv(std::string_view text, CsvRows& rows) {
   rows.clear();
   if (text.size() >= 3 && text.substr(0, 3) == "\xEF\xBB\xBF") text.remove_prefix(3);
@@ -31,50 +53,29 @@ std::optional<CsvSyntaxProblem> parse_csv(std::string_view text, CsvRows& rows) 
   bool row_open = false;
   while (i < text.size()) {
     const char c = text[i];
-    if (c == '"' && cell.empty()) {  // a quoted cell
-      const int start_line = line;
-      const int start_column = static_cast<int>(row.size()) + 1;
-      ++i;
-      bool closed = false;
-      while (i < text.size()) {
-        if (text[i] == '"') {
-          if (i + 1 < text.size() && text[i + 1] == '"') {
-            cell += '"';
-            i += 2;
-            continue;
-          }
-          ++i;
-          closed = true;
-          break;
-        }
-        if (text[i] == '\n') ++line;
-        cell += text[i++];
-      }
-      if (!closed) return CsvSyntaxProblem{start_line, start_column, "a quote that is never closed"};
+    if (c == '"' && cell.empty()) {
+      const int start_line = line, start_column = static_cast<int>(row.size()) + 1;
+      if (!read_quoted(text, i, cell, line))
+        return CsvSyntaxProblem{start_line, start_column, "a quote that is never closed"};
       row_open = true;
-      continue;
-    }
-    if (c == ',') {
+    } else if (c == ',') {
       row.push_back(std::move(cell));
       cell.clear();
       row_open = true;
       ++i;
-      continue;
-    }
-    if (c == '\r' || c == '\n') {
-      if (c == '\r' && i + 1 < text.size() && text[i + 1] == '\n') ++i;
-      ++i;
+    } else if (c == '\r' || c == '\n') {
+      i += (c == '\r' && i + 1 < text.size() && text[i + 1] == '\n') ? 2 : 1;
       if (row_open || !cell.empty()) row.push_back(std::move(cell));
       cell.clear();
       rows.push_back(std::move(row));
       row.clear();
       row_open = false;
       ++line;
-      continue;
+    } else {
+      cell += c;
+      row_open = true;
+      ++i;
     }
-    cell += c;
-    row_open = true;
-    ++i;
   }
   if (row_open || !cell.empty()) {
     row.push_back(std::move(cell));

@@ -71,9 +71,9 @@ void expand_templates(LoadContext& ctx, Json& root, ObjectReader& top, ReuseReco
           ctx.error(0, p + "/template", "the name of a subsystem template", describe(ref));
         } else {
           const auto near = nearest(ref.get<std::string>(), keys_of(templates));
-          ctx.error(0, p + "/template", "the name of an entry of \"subsystem_templates\"", describe(ref),
-                    near.empty() ? "define the template under \"subsystem_templates\""
-                                 : "did you mean \"" + near + "\"?");
+          ctx.error(
+              0, p + "/template", "the name of an entry of \"subsystem_templates\"", describe(ref),
+              near.empty() ? "define the template under \"subsystem_templates\"" : "did you mean \"" + near + "\"?");
         }
         record.unresolved.push_back(p);
         sub.erase("template");
@@ -144,8 +144,8 @@ void trace_back(PendingDiagnostic& p, const std::vector<ReuseOrigin>& origins) {
   for (const auto& o : origins) {
     if (!under(at, o.pointer) || at.size() == o.pointer.size()) continue;
     const std::string rest = at.substr(o.pointer.size());  // "/beta", "/partial_stroke/interval"
-    const std::string key = rest.substr(1, rest.find('/', 1) == std::string::npos ? std::string::npos
-                                                                                    : rest.find('/', 1) - 1);
+    const std::string key =
+        rest.substr(1, rest.find('/', 1) == std::string::npos ? std::string::npos : rest.find('/', 1) - 1);
     if (std::find(o.inherited_keys.begin(), o.inherited_keys.end(), key) != o.inherited_keys.end())
       at = o.origin_pointer + rest;
     return;
@@ -160,8 +160,8 @@ void check_applies_to_causes(LoadContext& ctx, const Scenario& s) {
       if (known) continue;
       std::string ids;
       for (const auto& c : s.causes) ids += (ids.empty() ? "" : ", ") + c.id;
-      ctx.error(0, layer.pointer + "/applies_to_causes/" + std::to_string(k),
-                "the id of a cause of scenario " + s.id, "\"" + id + "\"", "the causes are: " + ids);
+      ctx.error(0, layer.pointer + "/applies_to_causes/" + std::to_string(k), "the id of a cause of scenario " + s.id,
+                "\"" + id + "\"", "the causes are: " + ids);
     }
   }
 }
@@ -189,15 +189,18 @@ void finish_reuse(LoadContext& ctx, const ReuseRecord& record, Project& project)
   }
 }
 
-void settle_reuse_problems(LoadContext& ctx, const ReuseRecord& record) {  // Problems of the sections: traced back to their origin, each reported once; those inside an
+void settle_reuse_problems(LoadContext& ctx,
+                           const ReuseRecord& record) {  // Problems of the sections: traced back to their origin, each
+                                                         // reported once; those inside an
   // object whose template or entry is unknown follow from that and are only counted.
   std::vector<PendingDiagnostic> kept(ctx.problems.begin(),
                                       ctx.problems.begin() + static_cast<std::ptrdiff_t>(record.first_problem));
   std::set<std::tuple<int, std::string, std::string, std::string>> seen;
   for (std::size_t i = record.first_problem; i < ctx.problems.size(); ++i) {
     PendingDiagnostic p = ctx.problems[i];
-    const bool follow_on = p.source == 0 && std::any_of(record.unresolved.begin(), record.unresolved.end(),
-                                                        [&](const std::string& u) { return under(p.diagnostic.pointer, u); });
+    const bool follow_on =
+        p.source == 0 && std::any_of(record.unresolved.begin(), record.unresolved.end(),
+                                     [&](const std::string& u) { return under(p.diagnostic.pointer, u); });
     if (follow_on) {
       ++ctx.follow_ons_suppressed;
       continue;

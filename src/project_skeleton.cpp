@@ -8,7 +8,8 @@ namespace {
 
 // One text with two kinds of titles: @NAME@ marks a title that the plain skeleton replaces by
 // what belongs there.
-constexpr std::string_view kProject = R"json(// A sifter project file (sifter-project/1). Comments like this one are allowed and ignored.
+constexpr std::string_view kProject =
+    R"json(// A sifter project file (sifter-project/1). Comments like this one are allowed and ignored.
 // INVENTED EXAMPLE DATA: replace every tag, rate, interval and frequency with your own.
 {
   // Where an editor finds the schema: point it at data/schema/ of your copy of sifter.
@@ -124,12 +125,15 @@ void replace(std::string& text, std::string_view mark, const std::string& with) 
 std::string project_skeleton(const std::string& library_file, bool example) {
   std::string text(kProject);
   replace(text, "@LIBRARY@", library_file);
-  replace(text, "@TITLE@", example ? "Unit 10: compressor suction drum (invented example)"
-                                   : "Name of the unit or project (write yours)");
-  replace(text, "@SIF_TITLE@", example ? "High-high level in the suction drum closes the feed valve"
-                                       : "What the SIF senses and what it does");
-  replace(text, "@SCENARIO_TITLE@", example ? "Liquid carried into the compressor on high drum level"
-                                            : "The hazard scenario: cause, deviation and consequence");
+  replace(
+      text, "@TITLE@",
+      example ? "Unit 10: compressor suction drum (invented example)" : "Name of the unit or project (write yours)");
+  replace(
+      text, "@SIF_TITLE@",
+      example ? "High-high level in the suction drum closes the feed valve" : "What the SIF senses and what it does");
+  replace(text, "@SCENARIO_TITLE@",
+          example ? "Liquid carried into the compressor on high drum level"
+                  : "The hazard scenario: cause, deviation and consequence");
   return text;
 }
 

@@ -30,8 +30,10 @@ std::string join(const std::vector<std::string>& parts, const std::string& sep) 
 std::string cell_of(CellKind kind, const Json& v) {
   switch (kind) {
     case CellKind::kText:
-    case CellKind::kValue: return text_of(v);
-    case CellKind::kBool: return v.is_boolean() ? (v.get<bool>() ? "true" : "false") : text_of(v);
+    case CellKind::kValue:
+      return text_of(v);
+    case CellKind::kBool:
+      return v.is_boolean() ? (v.get<bool>() ? "true" : "false") : text_of(v);
     case CellKind::kList: {
       std::vector<std::string> parts;
       for (const auto& s : v) parts.push_back(text_of(s));
@@ -52,7 +54,8 @@ std::string cell_of(CellKind kind, const Json& v) {
     }
     case CellKind::kConsequences: {
       std::vector<std::string> parts;
-      for (const auto& c : v) parts.push_back(text_of(c.value("category", Json(""))) + ":" + text_of(c.value("severity", Json(""))));
+      for (const auto& c : v)
+        parts.push_back(text_of(c.value("category", Json(""))) + ":" + text_of(c.value("severity", Json(""))));
       return join(parts, "; ");
     }
   }
@@ -112,7 +115,8 @@ const Json& items(const Json& object, const char* key) {
   return it != object.end() && it->is_array() ? *it : empty;
 }
 
-void export_project(const Json& root, const std::string& project_path, const std::string& dir, std::vector<TableText>& out) {
+void export_project(const Json& root, const std::string& project_path, const std::string& dir,
+                    std::vector<TableText>& out) {
   TableWriter t(detail::table_layout("project.csv"));
   for (const auto& s : detail::project_settings()) {
     const Json* v = at_path(root, s.path);

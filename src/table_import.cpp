@@ -144,8 +144,8 @@ class Importer {
       const std::string h = trim(header[i]);
       const int k = layout.index(h);
       const bool empty_column = h.empty() && std::all_of(t.rows.begin(), t.rows.end(), [&](const auto& r) {
-        return r.size() <= i || trim(r[i]).empty();
-      });
+                                  return r.size() <= i || trim(r[i]).empty();
+                                });
       if (empty_column) continue;
       if (k < 0) {
         const std::string near = detail::nearest(h, names);
@@ -170,8 +170,9 @@ class Importer {
     auto it = tables_.find(file);
     if (it == tables_.end()) return;
     const Table& t = it->second;
-    if (std::any_of(t.layout->columns.begin(), t.layout->columns.end(),
-                    [&](const auto& c) { return c.required && t.at[static_cast<std::size_t>(t.layout->index(c.header))] < 0; }))
+    if (std::any_of(t.layout->columns.begin(), t.layout->columns.end(), [&](const auto& c) {
+          return c.required && t.at[static_cast<std::size_t>(t.layout->index(c.header))] < 0;
+        }))
       return;  // reported once at the header
     for (std::size_t r = 1; r < t.rows.size(); ++r) {
       const auto& row = t.rows[r];
@@ -201,8 +202,10 @@ class Importer {
 
   static OJson value_of(CellKind kind, const std::string& text) {
     switch (kind) {
-      case CellKind::kText: return text;
-      case CellKind::kValue: return as_number(text).value_or(OJson(text));
+      case CellKind::kText:
+        return text;
+      case CellKind::kValue:
+        return as_number(text).value_or(OJson(text));
       case CellKind::kBool: {
         std::string low = text;
         std::transform(low.begin(), low.end(), low.begin(), [](unsigned char ch) { return std::tolower(ch); });
@@ -219,8 +222,10 @@ class Importer {
         OJson a = OJson::array();
         for (const auto& ch : split(text, ';')) {
           const auto parts = split(ch, '+');
-          if (parts.size() == 1) a.push_back(parts[0]);
-          else a.push_back(parts);
+          if (parts.size() == 1)
+            a.push_back(parts[0]);
+          else
+            a.push_back(parts);
         }
         return a;
       }
@@ -374,8 +379,8 @@ class Importer {
   }
 
   void read_scenarios(OJson& root) {
-    const std::vector<std::string> shared = {"scenario_title", "node", "deviation", "consequences", "target_frequency",
-                                             "scenario_note"};
+    const std::vector<std::string> shared = {"scenario_title",   "node",         "deviation", "consequences",
+                                             "target_frequency", "scenario_note"};
     for_rows("scenarios.csv", [&](const Table& t, int row) {
       const std::string id = cell(t, row, "scenario");
       auto [it, first] = scenario_index_.emplace(id, root["scenarios"].size());
@@ -413,7 +418,8 @@ class Importer {
       const std::string entry = cell(t, row, "entry");
       const auto allowed = detail::layer_entry_columns(entry);
       if (allowed.empty()) {
-        problem(place(t, row, "entry"), "an entry: layer, sif, modifier, enabling or not_credited", "\"" + entry + "\"");
+        problem(place(t, row, "entry"), "an entry: layer, sif, modifier, enabling or not_credited",
+                "\"" + entry + "\"");
         return;
       }
       for (const auto& c : t.layout->columns) {

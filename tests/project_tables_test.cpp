@@ -63,7 +63,7 @@ INSTANTIATE_TEST_SUITE_P(ShippedProjects, RoundTrip,
 TEST(ProjectTables, FormulaLikeTextIsNeutralisedOnExportAndRestoredOnImport) {
   EXPECT_EQ(neutralise_formula("=SUM(A1:A3)"), "'=SUM(A1:A3)");
   EXPECT_EQ(neutralise_formula("@cmd"), "'@cmd");
-  EXPECT_EQ(neutralise_formula("-0.5"), "-0.5");     // a number stays a number
+  EXPECT_EQ(neutralise_formula("-0.5"), "-0.5");  // a number stays a number
   EXPECT_EQ(neutralise_formula("+1e-3"), "+1e-3");
   EXPECT_EQ(neutralise_formula("-5 FIT"), "'-5 FIT");  // not a number: a spreadsheet would compute it
   EXPECT_EQ(restore_formula_text("'=SUM(A1:A3)"), "=SUM(A1:A3)");

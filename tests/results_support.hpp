@@ -1,9 +1,8 @@
 #pragma once
 // The results of a project as `check --json` writes them, without what names the input file,
 // so that two spellings of one project can be compared whole.
-#include <nlohmann/json.hpp>
-
 #include <fstream>
+#include <nlohmann/json.hpp>
 #include <sstream>
 #include <string>
 
@@ -32,7 +31,9 @@ inline nlohmann::json comparable_results(const LoadedProject& loaded) {
   return j;
 }
 
-inline nlohmann::json comparable_results(const std::string& path) { return comparable_results(load_project_file(path)); }
+inline nlohmann::json comparable_results(const std::string& path) {
+  return comparable_results(load_project_file(path));
+}
 
 inline std::string slurp_text(const std::string& path) {
   std::ifstream in(path, std::ios::binary);

@@ -28,8 +28,7 @@ TEST(RootCause, ABareNumberForMttrInTheDefaultsIsOneMessage) {
   const std::string message = message_of(three_sifs(R"({"proof_test_interval": "1 yr", "mttr": 8})"));
   EXPECT_NE(message.find("/defaults/mttr: expected a duration"), std::string::npos) << message;
   EXPECT_EQ(message.find("/sifs/"), std::string::npos) << message;
-  EXPECT_NE(message.find("1 problem in the input (3 problems that follow only from it not shown)"),
-            std::string::npos)
+  EXPECT_NE(message.find("1 problem in the input (3 problems that follow only from it not shown)"), std::string::npos)
       << message;
 }
 
@@ -47,8 +46,7 @@ TEST(RootCause, AMissingLibraryIsOneMessageNotOnePerModel) {
   const std::string message = message_of(text);
   EXPECT_NE(message.find("/libraries/0: expected a readable file"), std::string::npos) << message;
   EXPECT_EQ(message.find("/components/"), std::string::npos) << message;
-  EXPECT_NE(message.find("1 problem in the input (3 problems that follow only from it not shown)"),
-            std::string::npos)
+  EXPECT_NE(message.find("1 problem in the input (3 problems that follow only from it not shown)"), std::string::npos)
       << message;
 }
 

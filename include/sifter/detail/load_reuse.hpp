@@ -10,9 +10,9 @@ namespace sifter::detail {
 
 /// Where one expanded object came from: a template or a catalogue entry, and the keys it gave.
 struct ReuseOrigin {
-  std::string pointer;         ///< the object in the project, e.g. "/sifs/2/subsystems/1"
-  std::string origin_pointer;  ///< e.g. "/subsystem_templates/LS-SAFE" or "/layer_catalogue/0"
-  std::string name;            ///< the template's name or the catalogue entry's id
+  std::string pointer;                      ///< the object in the project, e.g. "/sifs/2/subsystems/1"
+  std::string origin_pointer;               ///< e.g. "/subsystem_templates/LS-SAFE" or "/layer_catalogue/0"
+  std::string name;                         ///< the template's name or the catalogue entry's id
   std::vector<std::string> inherited_keys;  ///< keys taken from the origin (not overridden)
 };
 
