@@ -29,16 +29,21 @@ std::string format_diagnostic(const Diagnostic& d) {
 }
 
 namespace {
-std::string summarise(const std::vector<Diagnostic>& diagnostics) {
+std::string summarise(const std::vector<Diagnostic>& diagnostics, std::size_t follow_ons) {
   std::string out;
   for (const auto& d : diagnostics) out += format_diagnostic(d) + "\n";
-  out += std::to_string(diagnostics.size()) +
-         (diagnostics.size() == 1 ? " problem" : " problems") + " in the input; nothing was computed or written";
+  out += std::to_string(diagnostics.size()) + (diagnostics.size() == 1 ? " problem" : " problems") + " in the input";
+  if (follow_ons > 0)
+    out += " (" + std::to_string(follow_ons) + (follow_ons == 1 ? " problem that follows" : " problems that follow") +
+           " only from " + (diagnostics.size() == 1 ? "it" : "these") + " not shown)";
+  out += "; nothing was computed or written";
   return out;
 }
 }  // namespace
 
-InputError::InputError(std::vector<Diagnostic> diagnostics)
-    : Error(summarise(diagnostics), ExitCode::kBadInput), diagnostics_(std::move(diagnostics)) {}
+InputError::InputError(std::vector<Diagnostic> diagnostics, std::size_t follow_ons_suppressed)
+    : Error(summarise(diagnostics, follow_ons_suppressed), ExitCode::kBadInput),
+      diagnostics_(std::move(diagnostics)),
+      follow_ons_suppressed_(follow_ons_suppressed) {}
 
 }  // namespace sifter

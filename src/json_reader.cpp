@@ -28,6 +28,24 @@ void LoadContext::error(int source, const std::string& pointer, std::string expe
   problems.push_back({source, std::move(d)});
 }
 
+bool LoadContext::has_problem_under(int source, const std::string& pointer) const {
+  return std::any_of(problems.begin(), problems.end(), [&](const PendingDiagnostic& p) {
+    const std::string& at = p.diagnostic.pointer;
+    return p.source == source && at.compare(0, pointer.size(), pointer) == 0 &&
+           (at.size() == pointer.size() || at[pointer.size()] == '/');
+  });
+}
+
+// A library that is missing, in a cycle, not JSON or without its "models" array loses every model
+// it holds; a problem inside one model entry does not hide the others.
+bool LoadContext::libraries_failed() const {
+  return std::any_of(problems.begin(), problems.end(), [](const PendingDiagnostic& p) {
+    const std::string& at = p.diagnostic.pointer;
+    if (p.source == 0) return at.rfind("/libraries", 0) == 0;
+    return at.empty() || at == "/models" || at.rfind("/libraries", 0) == 0;
+  });
+}
+
 void LoadContext::warn(const std::string& pointer, std::string message) {
   warnings.push_back({pointer, std::move(message)});
 }

@@ -7,6 +7,8 @@
 #include <sstream>
 
 #include "sifter/detail/load_parts.hpp"
+#include "sifter/detail/load_reuse.hpp"
+#include "sifter/json_comments.hpp"
 #include "sifter/json_source.hpp"
 #include "sifter/plant_graph.hpp"
 #include "sifter/sha256.hpp"
@@ -72,7 +74,7 @@ std::string printable(const std::string& text) {
 
 // Parses text already read into ctx.sources[source]; problems go to ctx. Returns null on failure.
 std::optional<Json> parse_source(LoadContext& ctx, int source, const std::string& pointer_in_parent) {
-  const std::string& text = ctx.sources[static_cast<std::size_t>(source)].text;
+  std::string& text = ctx.sources[static_cast<std::size_t>(source)].text;
   const std::string& path = ctx.sources[static_cast<std::size_t>(source)].path;
   auto report = [&](TextPosition pos, const std::string& pointer, const std::string& expected,
                     const std::string& found, const std::string& hint) {
@@ -84,6 +86,10 @@ std::optional<Json> parse_source(LoadContext& ctx, int source, const std::string
       static_cast<unsigned char>(text[2]) == 0xBF) {
     report({1, 1}, "", "JSON text without a byte-order mark", "a UTF-8 byte-order mark",
            "save the file as UTF-8 without BOM");
+    return std::nullopt;
+  }
+  if (auto comment = blank_json_comments(text)) {  // the one place comments are handled, before any parser
+    report(comment->position, "", comment->expected, comment->found, comment->hint);
     return std::nullopt;
   }
   const auto structure = scan_json_structure(text);
@@ -144,6 +150,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   }
   project.title = top.string("title").value_or("");
   top.allow({"note", "revision", "author"});
+  top.string("$schema");  // where an editor finds the schema; sifter needs nothing from it
   project.constraints = detail::parse_constraint_basis(top.choice("constraints", {"iec61511", "route_1h", "route_2h"}));
   top.member("defaults");
   read_defaults(ctx, *root, project);
@@ -153,6 +160,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   detail::read_libraries(ctx, top, base_dir, models, chain);
   // Each section's JSON is released once it is read, so that a large register is never held
   // twice (as JSON and as structs) at its full size.
+  detail::ReuseRecord reuse = detail::expand_reuse(ctx, *root, top);
   top.member("components");
   detail::read_components(ctx, *root, models, project);
   root->erase("components");
@@ -163,13 +171,15 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.member("scenarios");
   top.member("lopa");
   detail::read_scenarios(ctx, *root, project);
+  detail::finish_reuse(ctx, reuse, project);
   top.finish();
   detail::check_project_plausibility(ctx, project);
   if (ctx.problems.empty()) {
     const auto graph_problems = validate_project_graph(project, &out.graph);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
   }
-  if (!ctx.problems.empty()) throw InputError(ctx.located());
+  detail::settle_reuse_problems(ctx, reuse);
+  if (!ctx.problems.empty()) throw InputError(ctx.located(), ctx.follow_ons_suppressed);
   out.warnings = std::move(ctx.warnings);
   for (const auto& source : ctx.sources) out.inputs.push_back(source.path);
   return out;
@@ -212,6 +222,7 @@ void read_libraries(LoadContext& ctx, ObjectReader& owner, const std::string& ba
     if (auto format = r.string("format", true); format && *format != kLibraryFormat)
       ctx.error(source, "/format", std::string("\"") + kLibraryFormat + "\"", "\"" + *format + "\"");
     r.allow({"title", "note", "caution", "source"});
+    r.string("$schema");
     chain.push_back(canonical);
     read_libraries(ctx, r, resolved.parent_path().string(), models, chain);
     chain.pop_back();

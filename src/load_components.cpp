@@ -274,7 +274,12 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
                 "give every component its own tag");
     ElementFields fields = own;
     const auto m = c.model.empty() ? models.end() : models.find(c.model);
-    if (!c.model.empty() && m == models.end()) unknown_model(ctx, r, c.model, models);
+    if (!c.model.empty() && m == models.end()) {
+      if (ctx.libraries_failed())
+        ++ctx.follow_ons_suppressed;  // the library that should hold it was reported already
+      else
+        unknown_model(ctx, r, c.model, models);
+    }
     if (m != models.end()) fields = merge(fields_of(m->second, m->first), own);
     c.rates = resolve_rates(fields);
     if (fields.field_data) {

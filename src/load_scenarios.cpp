@@ -135,6 +135,7 @@ Layer read_layer(LoadContext& ctx, const Json& value, const std::string& pointer
   l.response_time = r.duration("response_time");
   l.time_available = r.duration("time_available");
   l.independence_note = r.string("independence_note").value_or("");
+  l.applies_to_causes = r.strings("applies_to_causes");  // checked against the causes in load_reuse.cpp
   r.allow({"note"});
   r.finish();
   return l;

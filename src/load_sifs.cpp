@@ -90,7 +90,9 @@ Duration with_default(LoadContext& ctx, ObjectReader& r, const std::string& key,
   defaulted = !own.has_value();
   if (own) return *own;
   if (fallback) return *fallback;
-  if (needed)
+  if (needed && ctx.has_problem_under(0, "/defaults/" + key))
+    ++ctx.follow_ons_suppressed;  // the default was written and refused: that one message says it
+  else if (needed)
     ctx.error(0, r.pointer(), "\"" + key + "\" on the subsystem or in \"defaults\"", "neither",
               "add for example \"defaults\": {\"" + key + "\": " +
                   (key == "proof_test_interval" ? "\"1 yr\"" : "\"8 h\"") + "}");

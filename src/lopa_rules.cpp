@@ -130,6 +130,7 @@ class LayerRules {
     bool ok = operator_time_allows(i, notes);
     ok = independent_of_sif(i, notes) && ok;
     ok = independent_of_causes(i, lc) && ok;
+    ok = limited_to_causes(i, lc) && ok;
     ok = independent_of_earlier(i, notes) && ok;
     lc.bpcs_based = bpcs_based(i);
     if (ok && lc.bpcs_based) ok = within_bpcs_limit(i, notes);
@@ -252,6 +253,21 @@ class LayerRules {
 
   // Per cause: no credit against a cause the layer shares a device with. False when the layer
   // is left with credit against no cause at all.
+  // "applies_to_causes": the layer acts only on the causes it names (its sensor or its path sees
+  // only those), so against the others it is no layer at all and takes no credit (common practice).
+  bool limited_to_causes(std::size_t i, LayerCredit& lc) {
+    const Layer& layer = scenario_.layers[i];
+    if (layer.applies_to_causes.empty()) return true;
+    for (std::size_t c = 0; c < scenario_.causes.size(); ++c) {
+      const std::string& cause = scenario_.causes[c].id;
+      const auto& named = layer.applies_to_causes;
+      if (std::find(named.begin(), named.end(), cause) != named.end()) continue;
+      lc.for_cause[c] = false;
+      lc.cause_notes[c] = "does not apply to " + cause + " (\"applies_to_causes\": " + join(named, ", ") + ")";
+    }
+    return std::any_of(lc.for_cause.begin(), lc.for_cause.end(), [](bool b) { return b; });
+  }
+
   bool independent_of_causes(std::size_t i, LayerCredit& lc) {
     const Layer& layer = scenario_.layers[i];
     const std::string name = layer_label(layer, i);

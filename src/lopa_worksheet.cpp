@@ -60,7 +60,10 @@ void cause_rows(std::vector<WorksheetRow>& rows, const Scenario& scenario, const
     if (credited) f *= lc->pfd_credited;
     const std::string item = layer.id.empty() ? layer.sif : layer.id;
     rows.push_back({WorksheetStep::kLayer, "", cause.id, item, layer.title,
-                    credited ? lc->pfd_credited : lc->pfd_claimed, credited, joined(lc->note, lc->cause_notes[c]), f,
+                    credited ? lc->pfd_credited : lc->pfd_claimed, credited,
+                    joined(joined(lc->note, lc->cause_notes[c]),
+                           layer.catalogue_id.empty() ? "" : "from the layer catalogue (" + layer.catalogue_id + ")"),
+                    f,
                     std::nullopt});
   }
 }

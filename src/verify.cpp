@@ -80,6 +80,7 @@ SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub,
                                    std::vector<std::string>& assumptions, DefaultsApplied& defaults) {
   SubsystemResult r;
   r.name = sub.name;
+  r.template_name = sub.template_name;
   r.role = sub.role;
   r.proof_test_interval = sub.proof_test_interval;
   for (const auto& ch : sub.channels) {

@@ -47,11 +47,14 @@ class Error : public std::runtime_error {
 /// The input files hold one or more problems; all of them are carried.
 class InputError : public Error {
  public:
-  explicit InputError(std::vector<Diagnostic> diagnostics);
+  explicit InputError(std::vector<Diagnostic> diagnostics, std::size_t follow_ons_suppressed = 0);
   [[nodiscard]] const std::vector<Diagnostic>& diagnostics() const { return diagnostics_; }
+  /// Problems not shown because they follow only from one of those shown (one root cause, one message).
+  [[nodiscard]] std::size_t follow_ons_suppressed() const { return follow_ons_suppressed_; }
 
  private:
   std::vector<Diagnostic> diagnostics_;
+  std::size_t follow_ons_suppressed_ = 0;
 };
 
 /// The command line is wrong (unknown SIF id, bad option value).

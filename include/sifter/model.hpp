@@ -125,6 +125,7 @@ struct Subsystem {
   bool diverse = false;
   std::string diversity_note;
   std::string pointer;  ///< e.g. "/sifs/0/subsystems/1"
+  std::string template_name;  ///< the "subsystem_templates" entry it was built from, empty if none
 
   [[nodiscard]] bool is_vendor() const { return vendor_pfd_avg.has_value() || vendor_pfh.has_value(); }
 };
@@ -205,6 +206,8 @@ struct Layer {
   std::optional<Duration> time_available;
   std::string independence_note;
   std::string pointer;
+  std::vector<std::string> applies_to_causes;  ///< credited only against these causes; empty = all
+  std::string catalogue_id;  ///< the "layer_catalogue" entry it was taken from, empty if none
 };
 
 /// A consequence of a scenario, rated in the risk criteria.

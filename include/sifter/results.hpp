@@ -21,6 +21,7 @@ inline constexpr const char* kCaution =
 /// The result of one subsystem (voting group or vendor figure).
 struct SubsystemResult {
   std::string name;
+  std::string template_name;        ///< the subsystem template it was built from, empty if none
   Role role = Role::kSensor;
   std::string vote;                 ///< "2oo3", or "vendor" for a safety-manual figure
   std::vector<std::vector<std::string>> channels;  ///< component tags of each channel

@@ -37,4 +37,11 @@ Action add_diff_command(CLI::App& app);
 /// `sifter report PROJECT -o FILE`: write the HTML or Markdown report.
 Action add_report_command(CLI::App& app);
 
+/// `sifter init FILE [--example]`: write a commented project and its library to start from.
+Action add_init_command(CLI::App& app);
+/// `sifter import DIR -o PROJECT`: a project from CSV tables.
+Action add_import_command(CLI::App& app);
+/// `sifter export PROJECT --csv-dir DIR`: a project as CSV tables.
+Action add_export_command(CLI::App& app);
+
 }  // namespace sifter::cli

@@ -26,6 +26,9 @@ int main(int argc, char** argv) {
   add(&sifter::cli::add_sensitivity_command);
   add(&sifter::cli::add_diff_command);
   add(&sifter::cli::add_report_command);
+  add(&sifter::cli::add_init_command);
+  add(&sifter::cli::add_import_command);
+  add(&sifter::cli::add_export_command);
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {

@@ -67,6 +67,8 @@ template <typename W>
 void emit_subsystem(W& w, const SubsystemResult& s) {
   w.begin_object();
   w.key("name").value(s.name);
+  if (s.template_name.empty()) w.key("template").null();
+  else w.key("template").value(s.template_name);
   w.key("role").value(to_string(s.role));
   w.key("vote").value(s.vote);
   w.key("channels").begin_array();

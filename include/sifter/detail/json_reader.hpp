@@ -33,6 +33,12 @@ struct LoadContext {
   std::vector<PendingDiagnostic> problems;
   std::vector<Warning> warnings;
   std::size_t problems_not_kept = 0;  ///< beyond kMaxReportedProblems, only counted
+  std::size_t follow_ons_suppressed = 0;  ///< problems that follow only from one already reported
+
+  /// A problem already reported in `source` at `pointer` or below it (a root cause).
+  [[nodiscard]] bool has_problem_under(int source, const std::string& pointer) const;
+  /// A library named under "libraries" could not be read, parsed or checked.
+  [[nodiscard]] bool libraries_failed() const;
 
   void error(int source, const std::string& pointer, std::string expected, std::string found,
              std::string hint = {});
