@@ -144,6 +144,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   }
   project.title = top.string("title").value_or("");
   top.allow({"note", "revision", "author"});
+  project.document = detail::read_document(top);
   project.constraints = detail::parse_constraint_basis(top.choice("constraints", {"iec61511", "route_1h", "route_2h"}));
   top.member("defaults");
   read_defaults(ctx, *root, project);

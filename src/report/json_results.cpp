@@ -49,6 +49,10 @@ json subsystem_json(const SubsystemResult& s) {
   j["pfh_exact"] = opt(s.pfh_exact_per_hour, "pfh_exact");
   j["spurious_trip_rate_per_yr"] = checked(s.spurious_trip_rate_per_yr, "spurious trip rate");
   j["mttf_spurious_yr"] = opt(s.mttf_spurious_yr, "mttf_spurious_yr");
+  j["systematic_basis"] = json::array();
+  for (const auto& e : s.systematic_basis)
+    j["systematic_basis"].push_back(
+        {{"component", e.component}, {"basis", e.basis}, {"sil", opt(e.sil)}, {"evidence", e.evidence}});
   return j;
 }
 
@@ -147,6 +151,15 @@ json sif_json(const SifResult& s) {
   } else {
     j["uncertainty"] = nullptr;
   }
+  j["response_time_s"] = opt(s.response_time_s, "response_time_s");
+  j["response_time_limit_s"] = opt(s.response_time_limit_s, "response_time_limit_s");
+  j["requirement_checks"] = json::array();
+  for (const auto& c : s.requirement_checks)
+    j["requirement_checks"].push_back({{"check", c.check},
+                                       {"ok", c.ok},
+                                       {"value", checked(c.value, "requirement value")},
+                                       {"limit", checked(c.limit, "requirement limit")},
+                                       {"message", c.message}});
   return all_finite(std::move(j));
 }
 

@@ -4,6 +4,7 @@
 #include "sifter/report/format.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/report/worksheet.hpp"
+#include "sifter/report/requirements_text.hpp"
 #include "sifter/sil.hpp"
 
 namespace sifter::report {
@@ -73,6 +74,7 @@ std::string render_sif(const SifResult& s) {
            std::to_string(s.uncertainty->samples) + " samples)\n";
   out += "  verdict  " + verdict_words(s.meets_target) + "\n";
   out += spurious_line(s);
+  out += requirements_lines(s);
   if (!s.limits.empty()) {
     out += "  limited by\n";
     for (const auto& l : s.limits) out += wrap("[" + l.kind + "] " + l.message, 92, "    ");
