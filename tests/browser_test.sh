@@ -41,6 +41,13 @@ render() {
   fi
 }
 
+# No text of a drawing may leave it (labels measured by the browser's own fonts).
+profile=$(mktemp -d)
+python3 "$here/svg_text_check.py" timeout 120 chromium --headless --no-sandbox --disable-gpu --no-first-run \
+  --disable-background-networking --disable-component-update --disable-sync --user-data-dir="$profile" \
+  --virtual-time-budget=5000 -- "$work/report.html" "$work" || { rm -rf "$profile"; exit 1; }
+rm -rf "$profile"
+
 render --screenshot="$work/report.png" --window-size=1280,4000
 python3 "$here/png_check.py" "$work/report.png" 1280 4000 4000
 
