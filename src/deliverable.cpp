@@ -28,7 +28,9 @@ std::string text_or_empty(const std::optional<Duration>& d) { return d ? format_
 std::vector<RequirementItem> checklist(const Sif& sif, const SifResult& r) {
   const SifRequirements q = sif.requirements.value_or(SifRequirements{});
   std::vector<RequirementItem> items;
-  const auto add = [&](std::string clause, std::string stated) { items.push_back({std::move(clause), std::move(stated)}); };
+  const auto add = [&](std::string clause, std::string stated) {
+    items.push_back({std::move(clause), std::move(stated)});
+  };
   std::string hazard;
   for (const auto& s : r.scenarios) hazard += (hazard.empty() ? "scenario " : ", ") + s;
   add("the hazardous event the SIF protects against and its scenarios", hazard);
@@ -38,13 +40,14 @@ std::vector<RequirementItem> checklist(const Sif& sif, const SifResult& r) {
       r.sil_required ? "SIL " + std::to_string(*r.sil_required) + " (" + r.target_text + ")" : "");
   add("process measurements and trip set points", q.trip_setpoint);
   add("output actions and the criterion of successful operation", q.action);
+  add("functional relation of inputs to outputs", q.functional_relation);
   add("response time within the process safety time",
       q.process_safety_time && r.response_time_s
           ? format_seconds(*r.response_time_s) + " against " + format_seconds(*r.response_time_limit_s) +
                 " allowed of " + format_duration(*q.process_safety_time)
-      : q.process_safety_time ? "process safety time " + format_duration(*q.process_safety_time) +
-                                    "; element response times incomplete"
-                              : "");
+      : q.process_safety_time
+          ? "process safety time " + format_duration(*q.process_safety_time) + "; element response times incomplete"
+          : "");
   add("proof-test interval required", text_or_empty(q.proof_test_interval));
   add("what the proof test must cover", q.proof_test_coverage);
   add("manual shutdown", q.manual_shutdown);

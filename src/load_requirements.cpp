@@ -103,6 +103,7 @@ std::optional<SifRequirements> read_requirements(ObjectReader& sif) {
   q.proof_test_coverage = bounded_string(r, "proof_test_coverage").value_or("");
   q.energize_to_trip = bounded_string(r, "energize_to_trip").value_or("");
   q.action = bounded_string(r, "action").value_or("");
+  q.functional_relation = bounded_string(r, "functional_relation").value_or("");
   q.fault_response = bounded_string(r, "fault_response").value_or("");
   q.startup_restart = bounded_string(r, "startup_restart").value_or("");
   q.interfaces = bounded_string(r, "interfaces").value_or("");

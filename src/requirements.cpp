@@ -133,12 +133,13 @@ void check_spurious(const Project& project, const Sif& sif, const SifRequirement
             most = project.components[k].rates.lambda_s();
             element = project.components[k].id;
           }
-    c.message += "; the largest contributor is '" + largest->name + "' (" + num(largest->spurious_trip_rate_per_yr) +
-                 "/yr)";
+    c.message +=
+        "; the largest contributor is '" + largest->name + "' (" + num(largest->spurious_trip_rate_per_yr) + "/yr)";
     limits.push_back({"spurious trips", largest->name, element, 0,
                       "The SIF trips without a demand " + num(c.value) + " times a year, more than the " +
                           num(c.limit) + "/yr allowed; the largest contributor is '" + largest->name + "' (" +
-                          num(largest->spurious_trip_rate_per_yr) + "/yr" + (element ? ", most of it " + *element : "") +
+                          num(largest->spurious_trip_rate_per_yr) + "/yr" +
+                          (element ? ", most of it " + *element : "") +
                           "). To lift it: a voting that needs two channels to trip (2oo2, 2oo3) or elements with "
                           "fewer safe failures there."});
   }

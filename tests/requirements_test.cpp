@@ -162,8 +162,8 @@ std::string prior_use_project(const std::string& valve_fields) {
 }
 
 TEST(PriorUse, ASifOfPriorUseDevicesReachesTheClaimedSil) {
-  const auto r = verify_text(
-      prior_use_project(R"("prior_use": {"sil": 2, "evidence": "60 valves, stroke tests logged"}, "data_source": "x")"));
+  const auto r = verify_text(prior_use_project(
+      R"("prior_use": {"sil": 2, "evidence": "60 valves, stroke tests logged"}, "data_source": "x")"));
   const SifResult& s = r.sifs[0];
   EXPECT_EQ(s.sil_systematic, 2);
   EXPECT_EQ(s.sil_achieved, 2);
@@ -228,9 +228,9 @@ TEST(DataSource, AnObjectSourceReadsAsOneLine) {
                                         "inline.json", ".");
   EXPECT_EQ(loaded.project.components[2].data_source, "FMEDA: F-77 rev 1.2, 2023-02-01");
   EXPECT_EQ(loaded.project.components[2].source->kind, "fmeda");
-  EXPECT_THROW(load_project_text(prior_use_project(R"("data_source": {"kind": "rumour", "document": "x"})"),
-                                 "inline.json", "."),
-               InputError);
+  EXPECT_THROW(
+      load_project_text(prior_use_project(R"("data_source": {"kind": "rumour", "document": "x"})"), "inline.json", "."),
+      InputError);
 }
 
 TEST(FormatSeconds, ShortTimesReadInSecondsLongerInMinutes) {

@@ -3,6 +3,7 @@
 #include "sifter/report/srs.hpp"
 
 #include <gtest/gtest.h>
+
 #include <nlohmann/json.hpp>
 
 #include "cli_support.hpp"
@@ -92,8 +93,9 @@ TEST(Srs, ListsEveryRequirementNotStatedAsAnOpenItem) {
   ASSERT_NE(open_from, std::string::npos);
   const std::string open = testing::html_unescape(s2.substr(open_from, s2.find("</ul>", open_from) - open_from));
   // SIF-702 states its safe state, set point, process safety time and reset, nothing else.
-  for (const char* item : {"manual shutdown", "maximum spurious trip rate", "bypasses and overrides, and how they are cleared",
-                           "what the proof test must cover", "the hazardous event the SIF protects against and its scenarios"})
+  for (const char* item :
+       {"manual shutdown", "maximum spurious trip rate", "bypasses and overrides, and how they are cleared",
+        "what the proof test must cover", "the hazardous event the SIF protects against and its scenarios"})
     EXPECT_NE(open.find(item), std::string::npos) << item;
   for (const char* stated : {"the safe state of the process", "reset after a trip"})
     EXPECT_EQ(open.find(std::string(">") + stated + "<"), std::string::npos) << stated;
@@ -187,7 +189,8 @@ TEST(Deliverables, HostileTextInEveryNewFieldStaysEscaped) {
     if (value.is_string() && key != "process_safety_time" && key != "max_spurious_trip_rate" &&
         key != "proof_test_interval" && key != "reset" && key != "response_time_fraction")
       value = hostile;
-  const Deliverables d = render(load_project_text(j.dump(), "hostile.json", std::string(SIFTER_SOURCE_DIR) + "/examples"));
+  const Deliverables d =
+      render(load_project_text(j.dump(), "hostile.json", std::string(SIFTER_SOURCE_DIR) + "/examples"));
   for (const std::string* out : {&d.srs, &d.report}) {
     EXPECT_EQ(out->find("<script"), std::string::npos);
     EXPECT_EQ(out->find("<b onmouseover"), std::string::npos);

@@ -17,15 +17,15 @@ struct ComponentDataRow {
   std::string id;
   std::string model;
   FailureRates rates;
-  std::optional<double> sff;            ///< from the rates, or declared (fraction)
+  std::optional<double> sff;  ///< from the rates, or declared (fraction)
   bool sff_declared = false;
   std::optional<ElementType> type;
   std::optional<int> systematic_capability;
   std::optional<PriorUse> prior_use;
-  std::string source;                   ///< one line; empty when none is given
-  std::string source_kind;              ///< certificate, fmeda, handbook, field, estimate; empty for text
+  std::string source;       ///< one line; empty when none is given
+  std::string source_kind;  ///< certificate, fmeda, handbook, field, estimate; empty for text
   std::optional<double> response_time_s;
-  std::vector<std::string> sifs;        ///< ids of the SIFs that use it
+  std::vector<std::string> sifs;  ///< ids of the SIFs that use it
 };
 
 /// A subsystem's test, repair and common-cause parameters as the figures used them.

@@ -183,6 +183,7 @@ struct SifRequirements {
   std::string proof_test_coverage;              ///< what the proof test must cover (text)
   std::string energize_to_trip;                 ///< "de-energise to trip" or its reverse (text)
   std::string action;            ///< output action and its criterion of success (tight shut-off)
+  std::string functional_relation;  ///< how the inputs decide the outputs (voting, permissives)
   std::string fault_response;    ///< response to detected faults, with the repair time allowed
   std::string startup_restart;   ///< start-up and restart after a trip
   std::string interfaces;        ///< with the BPCS and the operators

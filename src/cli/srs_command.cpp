@@ -34,8 +34,9 @@ bool is_markdown(const std::string& output) {
 
 Action add_srs_command(CLI::App& app) {
   auto opts = std::make_shared<SrsCommandOptions>();
-  auto* cmd = app.add_subcommand("srs", "Write the safety requirements specification (HTML or Markdown), one "
-                                        "section per SIF with its open items");
+  auto* cmd = app.add_subcommand("srs",
+                                 "Write the safety requirements specification (HTML or Markdown), one "
+                                 "section per SIF with its open items");
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("-o,--output", opts->output, "the specification: NAME.html (default format) or NAME.md")->required();
   cmd->add_option("--sif", opts->sif, "only this SIF (by id)");

@@ -60,8 +60,8 @@ Table component_data_table(const DeliverableData& data, bool only_used) {
 Table subsystem_parameters_table(const SifResult& sif, const SifDeliverable& data) {
   Table t;
   t.caption = "Test, repair and common-cause parameters of each subsystem, and its spurious trips";
-  t.header = {"subsystem", "T1", "coverage", "partial stroke", "test duration", "MTTR", "MRT", "β", "β_D",
-              "spurious trips"};
+  t.header = {"subsystem", "T1", "coverage", "partial stroke", "test duration", "MTTR",
+              "MRT",       "β",  "β_D",      "spurious trips"};
   t.numeric = {false, true, true, false, true, true, true, true, true, true};
   for (std::size_t i = 0; i < data.subsystems.size(); ++i) {
     const auto& p = data.subsystems[i];
@@ -70,10 +70,9 @@ Table subsystem_parameters_table(const SifResult& sif, const SifDeliverable& dat
       t.rows.push_back({{p.name}, {"vendor"}, {"-"}, {"-"}, {"-"}, {"-"}, {"-"}, {"-"}, {"-"}, {"not given"}});
       continue;
     }
-    const std::string stroke =
-        p.partial_stroke ? "every " + format_duration(p.partial_stroke->interval) + ", " +
-                               percent(p.partial_stroke->coverage) + " of λDU"
-                         : "none";
+    const std::string stroke = p.partial_stroke ? "every " + format_duration(p.partial_stroke->interval) + ", " +
+                                                      percent(p.partial_stroke->coverage) + " of λDU"
+                                                : "none";
     t.rows.push_back({{p.name},
                       {format_duration(p.proof_test_interval)},
                       {percent(p.proof_test_coverage)},

@@ -12,10 +12,14 @@ std::string esc(const std::string& text) { return escape_html(text); }
 
 const char* tone_class(Tone tone) {
   switch (tone) {
-    case Tone::kGood: return "good";
-    case Tone::kBad: return "bad";
-    case Tone::kNeutral: return "neutral";
-    case Tone::kPlain: return "";
+    case Tone::kGood:
+      return "good";
+    case Tone::kBad:
+      return "bad";
+    case Tone::kNeutral:
+      return "neutral";
+    case Tone::kPlain:
+      return "";
   }
   return "";
 }
@@ -87,15 +91,18 @@ std::string document_control_html(const DeliverableData& data) {
 
 std::string print_footer_html(const DeliverableData& data, const std::string& kind) {
   std::string text = kind;
-  if (data.document) text += " · document " + data.document->number + " revision " + data.document->revision;
-  else text += " · no document number stated";
+  if (data.document)
+    text += " · document " + data.document->number + " revision " + data.document->revision;
+  else
+    text += " · no document number stated";
   return "<div class=\"doc-footer\">" + esc(text) + "</div>\n";
 }
 
 std::string component_data_html(const DeliverableData& data) {
   std::string out = "<section class=\"components\" id=\"component-data\">\n<h2>Component data</h2>\n";
-  out += "<p class=\"facts\">Every component of the project with the failure data the figures used and their "
-         "source. A component without a source is flagged: its data cannot be traced.</p>\n";
+  out +=
+      "<p class=\"facts\">Every component of the project with the failure data the figures used and their "
+      "source. A component without a source is flagged: its data cannot be traced.</p>\n";
   std::string table = html_table(component_data_table(data));
   table.replace(0, 6, "<table class=\"wide\">");
   return out + table + "</section>\n";

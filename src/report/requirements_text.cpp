@@ -12,7 +12,8 @@ std::string requirements_lines(const SifResult& s) {
   std::string out = "  requirements\n";
   if (s.response_time_s && !s.response_time_limit_s)
     out += wrap("response time " + format_seconds(*s.response_time_s) + " (no process safety time stated)", 92, "    ");
-  for (const auto& c : s.requirement_checks) out += wrap(std::string(c.ok ? "[ok] " : "[FAILS] ") + c.message, 92, "    ");
+  for (const auto& c : s.requirement_checks)
+    out += wrap(std::string(c.ok ? "[ok] " : "[FAILS] ") + c.message, 92, "    ");
   return out;
 }
 

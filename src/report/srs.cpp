@@ -32,10 +32,11 @@ void hazard(Blocks& b, const ProjectResult& r, const SifResult& s) {
     if (!sc.sif || *sc.sif != s.id) continue;
     std::string line = sc.id + (sc.title.empty() ? "" : ": " + sc.title) + ". ";
     for (const auto& c : sc.consequences)
-      if (!c.category.empty()) line += c.category + " " + c.severity + " (tolerable " + sci(c.target_frequency_per_yr) + "/yr); ";
+      if (!c.category.empty())
+        line += c.category + " " + c.severity + " (tolerable " + sci(c.target_frequency_per_yr) + "/yr); ";
     line += "frequency without the SIF " + sci(sc.frequency_without_sif_per_yr) + "/yr against a tolerable " +
-            sci(sc.target_frequency_per_yr) + "/yr, so the SIF must reduce it by " + plain(sc.required_rrf) +
-            " (PFD " + sci(sc.required_pfd) + ")";
+            sci(sc.target_frequency_per_yr) + "/yr, so the SIF must reduce it by " + plain(sc.required_rrf) + " (PFD " +
+            sci(sc.required_pfd) + ")";
     if (sc.demand_rate_per_yr) line += "; demand on the SIF " + sci(*sc.demand_rate_per_yr) + "/yr";
     items.push_back(line + ".");
   }
@@ -58,8 +59,9 @@ void integrity(Blocks& b, const SifResult& s) {
   }
   b.para(t);
   b.para("Verified at the time of writing: achieved " + sil_words(s.sil_achieved) +
-         (s.pfd_avg ? ", PFDavg " + sci(*s.pfd_avg) : "") + (s.pfh_per_hour ? ", PFH " + sci(*s.pfh_per_hour) + "/h" : "") +
-         " (" + sif_verdict(s.meets_target).text + ").");
+         (s.pfd_avg ? ", PFDavg " + sci(*s.pfd_avg) : "") +
+         (s.pfh_per_hour ? ", PFH " + sci(*s.pfh_per_hour) + "/h" : "") + " (" + sif_verdict(s.meets_target).text +
+         ").");
 }
 
 void function(Blocks& b, const SifRequirements& q) {
@@ -67,6 +69,7 @@ void function(Blocks& b, const SifRequirements& q) {
   b.list({"Safe state: " + stated(q.safe_state, "the safe state"),
           "Process measurement and trip set point: " + stated(q.trip_setpoint, "the trip set point"),
           "Output action and criterion of success: " + stated(q.action, "the action"),
+          "Relation of inputs to outputs: " + stated(q.functional_relation, "the functional relation"),
           "Energise or de-energise to trip: " + stated(q.energize_to_trip, "the trip direction")});
 }
 
@@ -89,12 +92,12 @@ void proof_test(Blocks& b, const SifResult& s, const SifDeliverable& d, const Si
   b.heading("Proof test");
   std::vector<std::string> items;
   for (const auto& p : d.subsystems)
-    items.push_back(p.name + ": " + (p.vendor ? std::string("as the supplier's safety manual states")
-                                              : "every " + format_duration(p.proof_test_interval) + ", coverage " +
-                                                    percent(p.proof_test_coverage) +
-                                                    (p.partial_stroke ? "; partial stroke every " +
-                                                                            format_duration(p.partial_stroke->interval)
-                                                                      : "")));
+    items.push_back(
+        p.name + ": " +
+        (p.vendor
+             ? std::string("as the supplier's safety manual states")
+             : "every " + format_duration(p.proof_test_interval) + ", coverage " + percent(p.proof_test_coverage) +
+                   (p.partial_stroke ? "; partial stroke every " + format_duration(p.partial_stroke->interval) : "")));
   b.list(std::move(items));
   b.para("Required interval: " +
          (q.proof_test_interval ? format_duration(*q.proof_test_interval) : std::string("OPEN: not stated.")));

@@ -18,9 +18,15 @@ std::string blocks_html(const std::vector<SrsBlock>& blocks) {
   std::string out;
   for (const auto& b : blocks) {
     switch (b.kind) {
-      case SrsBlock::Kind::kHeading: out += "<h3>" + esc(b.text) + "</h3>\n"; break;
-      case SrsBlock::Kind::kParagraph: out += "<p>" + esc(b.text) + "</p>\n"; break;
-      case SrsBlock::Kind::kTable: out += html_table(b.table); break;
+      case SrsBlock::Kind::kHeading:
+        out += "<h3>" + esc(b.text) + "</h3>\n";
+        break;
+      case SrsBlock::Kind::kParagraph:
+        out += "<p>" + esc(b.text) + "</p>\n";
+        break;
+      case SrsBlock::Kind::kTable:
+        out += html_table(b.table);
+        break;
       case SrsBlock::Kind::kList:
       case SrsBlock::Kind::kOpenItems:
         out += b.kind == SrsBlock::Kind::kOpenItems ? "<ul class=\"open-items\">\n" : "<ul>\n";
@@ -36,9 +42,15 @@ std::string blocks_markdown(const std::vector<SrsBlock>& blocks) {
   std::string out;
   for (const auto& b : blocks) {
     switch (b.kind) {
-      case SrsBlock::Kind::kHeading: out += "### " + escape_markdown(b.text) + "\n\n"; break;
-      case SrsBlock::Kind::kParagraph: out += escape_markdown(b.text) + "\n\n"; break;
-      case SrsBlock::Kind::kTable: out += markdown_table(b.table); break;
+      case SrsBlock::Kind::kHeading:
+        out += "### " + escape_markdown(b.text) + "\n\n";
+        break;
+      case SrsBlock::Kind::kParagraph:
+        out += escape_markdown(b.text) + "\n\n";
+        break;
+      case SrsBlock::Kind::kTable:
+        out += markdown_table(b.table);
+        break;
       case SrsBlock::Kind::kList:
       case SrsBlock::Kind::kOpenItems:
         for (const auto& i : b.items)
@@ -66,8 +78,7 @@ std::string render_srs_html(const ProjectResult& r, const DeliverableData& d, co
   out += document_control_html(d) + "</header>\n";
   out += "<aside class=\"caution\"><strong>Caution</strong><p>" + esc(kCaution) + "</p></aside>\n";
   out += "<nav class=\"contents\"><h3>Contents</h3><ol>\n";
-  for (auto i : o.sifs)
-    out += "<li><a href=\"#" + srs_anchor(i) + "\">" + esc(r.sifs[i].id) + "</a></li>\n";
+  for (auto i : o.sifs) out += "<li><a href=\"#" + srs_anchor(i) + "\">" + esc(r.sifs[i].id) + "</a></li>\n";
   out += "</ol></nav>\n";
   for (auto i : o.sifs) {
     const SifResult& s = r.sifs[i];
@@ -82,7 +93,8 @@ std::string render_srs_html(const ProjectResult& r, const DeliverableData& d, co
 }
 
 std::string render_srs_markdown(const ProjectResult& r, const DeliverableData& d, const SrsOptions& o) {
-  std::string out = "# " + escape_markdown(title_of(r)) + "\n\nSafety requirements specification of the safety "
+  std::string out = "# " + escape_markdown(title_of(r)) +
+                    "\n\nSafety requirements specification of the safety "
                     "instrumented functions\n\n";
   out += "- date of the run: " + escape_markdown(o.date) + "\n- input file: " + escape_markdown(r.file) +
          "\n- SHA-256 of the input: `" + r.sha256 + "`\n- tool: sifter " + escape_markdown(o.tool_version) + "\n\n";

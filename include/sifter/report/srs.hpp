@@ -25,8 +25,8 @@ std::vector<SrsBlock> srs_sif_blocks(const ProjectResult& result, const Delivera
 
 /// What the SRS writers need besides the results.
 struct SrsOptions {
-  std::string date;          ///< of the run, ISO 8601
-  std::string tool_version;  ///< SIFTER_VERSION
+  std::string date;               ///< of the run, ISO 8601
+  std::string tool_version;       ///< SIFTER_VERSION
   std::vector<std::size_t> sifs;  ///< indices of the SIFs to specify, in order
 };
 
