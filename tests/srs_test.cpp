@@ -154,7 +154,7 @@ TEST(Report, ShowsEachSubsystemsTestAndRepairParametersAndTheRequirementChecks) 
                                                       "MTTR", "MRT", "β", "β_D", "spurious trips"}));
   EXPECT_EQ(params->rows[0][7], "5.0%");
   EXPECT_EQ(params->rows[0][8], "2.0%");
-  EXPECT_EQ(params->rows[2][2], "95.0%");
+  EXPECT_EQ(params->rows[2][2], "99.0%");
   EXPECT_EQ(params->rows[2][4], "1 h");
   const ParsedTable* checks = table_captioned(tables, "The stated requirements, checked");
   ASSERT_NE(checks, nullptr);

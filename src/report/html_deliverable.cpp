@@ -83,7 +83,7 @@ std::string document_control_html(const DeliverableData& data) {
   std::string out = "<div class=\"doc-control\">\n<p class=\"doc-id\">Document " + esc(d.number) + ", revision " +
                     esc(d.revision) + (d.date.empty() ? "" : ", " + esc(d.date)) + "</p>\n";
   std::string table = html_table(signature_table(d));
-  table.replace(0, 6, "<table class=\"signatures\">");
+  table.replace(0, 7, "<table class=\"signatures\">");
   out += table;
   if (!d.history.empty()) out += html_table(revision_table(d));
   return out + "</div>\n";
@@ -104,7 +104,7 @@ std::string component_data_html(const DeliverableData& data) {
       "<p class=\"facts\">Every component of the project with the failure data the figures used and their "
       "source. A component without a source is flagged: its data cannot be traced.</p>\n";
   std::string table = html_table(component_data_table(data));
-  table.replace(0, 6, "<table class=\"wide\">");
+  table.replace(0, 7, "<table class=\"wide\">");
   return out + table + "</section>\n";
 }
 
