@@ -214,7 +214,8 @@ std::string render_html(const ProjectResult& r, const ReportData& d) {
   std::string out = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";
   out += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
   out += "<title>" + esc(r.title.empty() ? r.file : r.title) + ": sifter report</title>\n";
-  out += "<style>" + std::string(html_style()) + deliverable_css() + "</style>\n</head>\n<body>\n";
+  out += "<style>" + std::string(html_style()) + deliverable_css() + "</style>\n</head>\n<body" +
+         (d.compact ? " class=\"compact\"" : "") + ">\n";
   out += cover(r, d) + summary(r, d);
   for (std::size_t i = 0; i < r.sifs.size(); ++i)
     out += sif_section(r.sifs[i], i < d.sifs.size() ? d.sifs[i] : SifReportData{}, i);

@@ -71,6 +71,7 @@ table.wide td { overflow-wrap: anywhere; }
   .doc-footer { display: block; position: fixed; bottom: -10mm; left: 0; right: 0; font-size: 8pt;
                 color: var(--muted); border-top: 0.5px solid var(--rule); padding-top: 1mm; background: #ffffff; }
   section.components { break-before: page; }
+  body.compact section.sif, body.compact section.scenario { break-before: auto; }
 }
 )css";
 }
