@@ -256,6 +256,7 @@ void Assessment::collect_elements(const std::vector<Component>& components) {
       e.dc = diagnostic_coverage(c.rates);
       e.data_confidence = c.data_confidence;
       e.systematic_capability = c.systematic_capability;
+      e.prior_use = c.prior_use;
       if (e.sff_declared)
         note("The SFF of " + c.id + " (" + format_percent(*e.sff) +
              ") is taken from its safety manual, not computed from its rates.");
@@ -352,13 +353,26 @@ void Assessment::systematic() {
   }
   const std::string in = "In subsystem " + name_ + ", ";
   for (const auto& e : out_.elements) {
-    if (!e.systematic_capability) {
+    if (!e.systematic_capability && !e.prior_use) {
       cap(CapKind::kSystematic, CapCause::kScMissing, 0, e.component,
-          in + e.component + " has no declared systematic capability, so the subsystem cannot claim a SIL from it.");
+          in + e.component + " has neither a declared systematic capability nor a prior-use claim, so the " +
+              "subsystem cannot claim a SIL from it.");
       continue;
     }
-    const int sc = std::clamp(*e.systematic_capability, 0, 4);
+    // The higher of the SC and the prior-use claim (IEC 61511-1:2016 11.5.3, from memory: an
+    // element may be selected on prior use instead of IEC 61508 compliance).
+    const int declared = std::clamp(e.systematic_capability.value_or(0), 0, 4);
+    const bool by_prior_use = e.prior_use && e.prior_use->sil > declared;
+    const int sc = by_prior_use ? std::clamp(e.prior_use->sil, 0, 4) : declared;
     const int sil = credit ? std::min(4, sc + 1) : sc;
+    if (by_prior_use) {
+      const std::string claimed = in + e.component + " is claimed for SIL " + std::to_string(sc) +
+                                  " on prior use (IEC 61511-1:2016 11.5.3), evidence: \"" + e.prior_use->evidence + "\"";
+      note(claimed + ".");
+      cap(CapKind::kSystematic, CapCause::kPriorUse, sil, e.component,
+          claimed + "; it allows at most SIL " + std::to_string(sil) + (credit ? " with the diverse group's N+1." : "."));
+      continue;
+    }
     const std::string has = in + e.component + " has SC " + std::to_string(sc);
     cap(CapKind::kSystematic, CapCause::kElementSc, sil, e.component,
         credit ? has + "; as the group's channels are diverse, it allows at most SIL " + std::to_string(sil) +

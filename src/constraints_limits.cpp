@@ -94,14 +94,21 @@ std::string lift(const Cap& cap, const SubsystemConstraints& s, int required) {
              "Route 2H";
     case CapCause::kElementSc: return e ? lift_element_sc(s, *e, required) : "";
     case CapCause::kScMissing:
-      return "declare the SC of " + id + " from its certificate or safety manual (" +
-             sc_text(s.diversity_credit ? required - 1 : required) + " or higher is needed)";
+    {
+      const int needed = s.diversity_credit ? required - 1 : required;
+      return "declare the SC of " + id + " from its certificate or safety manual (" + sc_text(needed) +
+             " or higher is needed), or its prior use with the evidence, \"prior_use\": {\"sil\": " +
+             std::to_string(needed) + ", \"evidence\": \"...\"} (IEC 61511-1:2016 11.5.3)";
+    }
     case CapCause::kVendorSc: return lift_vendor_sc(cap, required);
     case CapCause::kScNotDeclared:
       return "declare the SC of the vendor subsystem from its certificate (" + sc_text(required) +
              " or higher is needed)";
     case CapCause::kNoElements: return "give the subsystem its channels and components";
     case CapCause::kCertificate: return "use equipment whose certificate allows " + sil_text(required) + " or higher";
+    case CapCause::kPriorUse:
+      return "show prior use of " + id + " for " + sil_text(required) + " or higher, or use an element of " +
+             sc_text(required) + " or higher in place of it";
   }
   return "";
 }

@@ -151,6 +151,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   project.title = top.string("title").value_or("");
   top.allow({"note", "revision", "author"});
   top.string("$schema");  // where an editor finds the schema; sifter needs nothing from it
+  project.document = detail::read_document(top);
   project.constraints = detail::parse_constraint_basis(top.choice("constraints", {"iec61511", "route_1h", "route_2h"}));
   top.member("defaults");
   read_defaults(ctx, *root, project);

@@ -32,7 +32,9 @@ struct ElementFields {
   std::optional<double> data_confidence;
   std::optional<RateUncertainty> uncertainty;
   std::optional<FieldData> field_data;
-  std::optional<std::string> data_source;
+  std::optional<DataSource> data_source;
+  std::optional<PriorUse> prior_use;
+  std::optional<Duration> response_time;
 
   [[nodiscard]] bool has_split_form() const { return lambda_du || lambda_dd || lambda_su || lambda_sd; }
   [[nodiscard]] bool has_total_form() const { return lambda_d || dc || lambda_s; }
@@ -102,7 +104,9 @@ ElementFields read_element_fields(ObjectReader& r) {
   }
   e.uncertainty = read_uncertainty(r);
   e.field_data = read_field_data(r);
-  e.data_source = r.string("data_source");
+  e.data_source = read_data_source(r);
+  e.prior_use = read_prior_use(r);
+  e.response_time = r.duration("response_time");
   if (e.has_split_form() && e.has_total_form())
     r.context().error(r.source(), r.pointer(),
                       "rates either as lambda_du/lambda_dd/lambda_su/lambda_sd or as lambda_d with dc (and lambda_s)",
@@ -140,6 +144,8 @@ ElementFields merge(const ElementFields& model, const ElementFields& own) {
   take(m.uncertainty, own.uncertainty);
   take(m.field_data, own.field_data);
   take(m.data_source, own.data_source);
+  take(m.prior_use, own.prior_use);
+  take(m.response_time, own.response_time);
   return m;
 }
 
@@ -293,7 +299,10 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     c.data_confidence = fields.data_confidence;
     c.uncertainty = fields.uncertainty;
     c.field_data = fields.field_data;
-    c.data_source = fields.data_source.value_or("");
+    c.source = fields.data_source;
+    c.data_source = fields.data_source ? describe(*fields.data_source) : "";
+    c.prior_use = fields.prior_use;
+    c.response_time = fields.response_time;
     check_failure_behaviour(ctx, r, c, fields, c.model.empty() || m != models.end());
     c.dangerous_rates_stated = fields.has_dangerous();
     warn_implausible(ctx, pointer, c.rates);

@@ -210,6 +210,7 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
   read_figures_and_vote(ctx, r, sub);
   read_common_cause(ctx, r, sub);
   read_times(ctx, r, sub, defaults);
+  sub.response_time = r.duration("response_time");
   sub.staggered = r.boolean("staggered").value_or(false);
   sub.trip_on_detected = r.boolean("trip_on_detected").value_or(false);
   sub.diverse = r.boolean("diverse").value_or(false);
@@ -283,6 +284,7 @@ void read_sifs(LoadContext& ctx, const Json& root, Project& project) {
     sif.target = read_target(ctx, r);
     sif.constraints = parse_constraint_basis(r.choice("constraints", {"iec61511", "route_1h", "route_2h"}));
     r.allow({"note", "tags"});
+    sif.requirements = read_requirements(r);
     if (const Json* subs = r.require("subsystems", "an array of subsystems")) {
       if (!subs->is_array() || subs->empty()) {
         ctx.error(0, r.at("subsystems"), "a non-empty array of subsystems", describe(*subs));

@@ -64,3 +64,16 @@ std::string to_string(LayerKind kind) {
 }
 
 }  // namespace sifter
+
+namespace sifter {
+
+std::string describe(const DataSource& source) {
+  if (source.kind.empty()) return source.text;
+  std::string out = source.kind == "fmeda" ? "FMEDA" : source.kind;
+  if (!source.document.empty()) out += ": " + source.document;
+  if (!source.revision.empty()) out += " rev " + source.revision;
+  if (!source.date.empty()) out += ", " + source.date;
+  return out;
+}
+
+}  // namespace sifter

@@ -73,13 +73,17 @@ ReportData build_report_data(const Project& project, const ProjectResult& result
   data.date = options.date;
   data.tool_version = SIFTER_VERSION;
   data.exact_requested = options.exact;
+  data.deliverable = build_deliverable_data(project, result);
+  data.compact = options.compact;
   const WhatIf what_if(project);
   for (std::size_t i = 0; i < result.sifs.size(); ++i) {
     const SifResult& r = result.sifs[i];
     SifReportData d;
     d.required_pfd = required_line(r);
     d.limiting = limiting_results(r);
-    if (r.demand_mode == DemandMode::kLow && r.pfd_avg) {
+    if (i < data.deliverable.sifs.size()) d.deliverable = data.deliverable.sifs[i];
+    d.compact = options.compact;
+    if (r.demand_mode == DemandMode::kLow && r.pfd_avg && !options.compact) {
       d.pfd_curve = pfd_plot(project, project.sifs[i], options);
       if (options.sensitivity) d.sensitivity = sensitivity_rows(what_if, i);
       if (d.required_pfd) d.interval_sweep = interval_sweep(project, project.sifs[i], *d.required_pfd);

@@ -13,6 +13,7 @@
 #include "sifter/cross_check.hpp"
 #include "sifter/plausibility.hpp"
 #include "sifter/probability_cap.hpp"
+#include "sifter/requirements.hpp"
 #include "sifter/sif_uncertainty.hpp"
 #include "sifter/sil.hpp"
 #include "sifter/spurious.hpp"
@@ -156,6 +157,15 @@ void apply_constraints(const Project& project, const Sif& sif, SifResult& r, con
     sub.sil_architecture = sc.sil_architecture;
     sub.systematic_capability = sc.systematic_capability;
     sub.constraint_notes = sc.findings;
+    for (const auto& e : sc.elements)
+      sub.systematic_basis.push_back(
+          {e.component,
+           e.prior_use && e.prior_use->sil > e.systematic_capability.value_or(0) ? "prior use"
+           : e.systematic_capability                                              ? "systematic capability"
+                                                                                  : "none",
+           e.prior_use && e.prior_use->sil > e.systematic_capability.value_or(0) ? std::optional(e.prior_use->sil)
+                                                                                  : e.systematic_capability,
+           e.prior_use ? e.prior_use->evidence : ""});
   }
   r.assumptions.push_back("architectural constraints on the basis " + to_string(r.constraints) + " (" +
                           (r.constraints == ConstraintBasis::kIec61511 ? "IEC 61511-1:2016 11.4, Table 6"
@@ -361,6 +371,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   }
   add_spurious_trips(project, sif, r);
   apply_constraints(project, sif, r, low ? required_pfd : required_pfh, complete ? std::optional(total) : std::nullopt);
+  apply_requirement_checks(project, sif, r, warnings);  // the stated requirements join the verdict here
   return r;
 }
 

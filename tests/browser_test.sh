@@ -4,9 +4,9 @@
 # number of pages. Exit 77 (ctest SKIP_RETURN_CODE) where chromium is absent outside CI; in CI
 # (CI set and not "false" or "0") a missing chromium is a failure.
 #
-# usage: browser_test.sh SIFTER PROJECT WORKDIR MIN_PAGES MAX_PAGES
+# usage: browser_test.sh SIFTER PROJECT WORKDIR MIN_PAGES MAX_PAGES [report|srs]
 set -eu
-sifter=$1 project=$2 work=$3 min_pages=$4 max_pages=$5
+sifter=$1 project=$2 work=$3 min_pages=$4 max_pages=$5 document=${6:-report}
 
 if ! command -v chromium >/dev/null 2>&1; then
   case "${CI:-}" in
@@ -24,7 +24,7 @@ here=$(cd "$(dirname "$0")" && pwd)
 rm -rf "$work"
 mkdir -p "$work"
 work=$(cd "$work" && pwd)
-"$sifter" report "$project" -o "$work/report.html" || [ $? -eq 1 ]  # 1: a SIF falls short, the report is written
+"$sifter" "$document" "$project" -o "$work/report.html" || [ $? -eq 1 ]  # 1: a SIF falls short, the report is written
 
 # A fresh profile, nothing fetched or synced, no GPU; --no-sandbox because CI runs as root.
 render() {
@@ -40,6 +40,13 @@ render() {
     exit 1
   fi
 }
+
+# No text of a drawing may leave it (labels measured by the browser's own fonts).
+profile=$(mktemp -d)
+python3 "$here/svg_text_check.py" timeout 120 chromium --headless --no-sandbox --disable-gpu --no-first-run \
+  --disable-background-networking --disable-component-update --disable-sync --user-data-dir="$profile" \
+  --virtual-time-budget=5000 -- "$work/report.html" "$work" || { rm -rf "$profile"; exit 1; }
+rm -rf "$profile"
 
 render --screenshot="$work/report.png" --window-size=1280,4000
 python3 "$here/png_check.py" "$work/report.png" 1280 4000 4000

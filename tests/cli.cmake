@@ -28,3 +28,24 @@ add_test(NAME browser_renders_the_example_report
          COMMAND sh ${CMAKE_CURRENT_SOURCE_DIR}/browser_test.sh $<TARGET_FILE:sifter>
                  ${PROJECT_SOURCE_DIR}/examples/unit40.json ${CMAKE_CURRENT_BINARY_DIR}/browser 8 30)
 set_tests_properties(browser_renders_the_example_report PROPERTIES SKIP_RETURN_CODE 77 TIMEOUT 300)
+
+# The deliverables example: requirements, prior-use devices, data sources and document control.
+add_test(NAME example_unit70_requirements_meets_targets
+         COMMAND sifter check ${PROJECT_SOURCE_DIR}/examples/unit70_requirements.json)
+add_test(NAME example_unit70_srs
+         COMMAND sifter srs ${PROJECT_SOURCE_DIR}/examples/unit70_requirements.json
+                 -o ${CMAKE_CURRENT_BINARY_DIR}/unit70-srs.html)
+add_test(NAME example_unit70_srs_markdown_one_sif
+         COMMAND sifter srs ${PROJECT_SOURCE_DIR}/examples/unit70_requirements.json --sif SIF-702
+                 -o ${CMAKE_CURRENT_BINARY_DIR}/unit70-srs-702.md)
+add_test(NAME example_unit70_report
+         COMMAND sifter report ${PROJECT_SOURCE_DIR}/examples/unit70_requirements.json
+                 -o ${CMAKE_CURRENT_BINARY_DIR}/unit70.html)
+add_test(NAME browser_renders_the_example_srs
+         COMMAND sh ${CMAKE_CURRENT_SOURCE_DIR}/browser_test.sh $<TARGET_FILE:sifter>
+                 ${PROJECT_SOURCE_DIR}/examples/unit70_requirements.json ${CMAKE_CURRENT_BINARY_DIR}/browser-srs 2 12 srs)
+set_tests_properties(browser_renders_the_example_srs PROPERTIES SKIP_RETURN_CODE 77 TIMEOUT 300)
+add_test(NAME browser_renders_the_requirements_report
+         COMMAND sh ${CMAKE_CURRENT_SOURCE_DIR}/browser_test.sh $<TARGET_FILE:sifter>
+                 ${PROJECT_SOURCE_DIR}/examples/unit70_requirements.json ${CMAKE_CURRENT_BINARY_DIR}/browser-70 4 20)
+set_tests_properties(browser_renders_the_requirements_report PROPERTIES SKIP_RETURN_CODE 77 TIMEOUT 300)

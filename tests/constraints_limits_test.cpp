@@ -167,9 +167,10 @@ TEST(ScLimit, MissingScNamesTheElementAndTheScNeeded) {
   EXPECT_EQ(limits[0].element, "XV-2");
   EXPECT_EQ(limits[0].sil, 0);
   EXPECT_EQ(limits[0].message,
-            "In subsystem 'final', XV-2 has no declared systematic capability, so the subsystem cannot claim a SIL "
-            "from it. SIL 2 is required. To lift it: declare the SC of XV-2 from its certificate or safety manual "
-            "(SC 2 or higher is needed).");
+            "In subsystem 'final', XV-2 has neither a declared systematic capability nor a prior-use claim, so the "
+            "subsystem cannot claim a SIL from it. SIL 2 is required. To lift it: declare the SC of XV-2 from its "
+            "certificate or safety manual (SC 2 or higher is needed), or its prior use with the evidence, "
+            "\"prior_use\": {\"sil\": 2, \"evidence\": \"...\"} (IEC 61511-1:2016 11.5.3).");
 }
 
 // ---- Probability -------------------------------------------------------------------------

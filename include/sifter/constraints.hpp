@@ -89,6 +89,7 @@ enum class CapCause {
   kScNotDeclared,       ///< vendor subsystem without a declared SC
   kNoElements,          ///< a group without components has no SC to read
   kCertificate,         ///< Subsystem::sil_capability from the vendor's certificate
+  kPriorUse,            ///< an element justified by prior use (IEC 61511-1:2016 11.5.3)
 };
 
 /// One rule that bounds a subsystem's architecture or SC at a SIL, and where.
@@ -110,6 +111,7 @@ struct ElementConstraints {
   std::optional<double> data_confidence;      ///< as declared, fraction (Route 2H)
   std::optional<int> sil_route_1h;            ///< Tables 2/3 at the group's HFT (Route 1H only)
   std::optional<int> systematic_capability;   ///< as declared, SC 1..4
+  std::optional<PriorUse> prior_use;          ///< as declared (IEC 61511-1:2016 11.5.3)
 };
 
 /// Architecture and systematic capability of one subsystem.
@@ -139,7 +141,8 @@ struct SubsystemConstraints {
 ///   subsystem at 0 with a cap naming it (the route cannot be used for it): a Type B element, or
 ///   one of unknown type, with DC below 60 %; any element whose data_confidence is undeclared or
 ///   below 0.7.
-/// - SC: the lowest declared SC of the elements; an element without one caps at 0. A group marked
+/// - SC: the lowest declared SC of the elements, each the higher of its SC and its prior-use
+///   claim (IEC 61511-1:2016 11.5.3); an element with neither caps at 0. A group marked
 ///   diverse takes one more, up to 4, only if it is redundant (HFT >= 1: in a 2oo2 one
 ///   systematic fault still fails it) and has a diversity note.
 /// - A vendor subsystem uses hft_declared (Table 6) and sc_declared; a missing one caps at 0. On

@@ -43,6 +43,25 @@ struct FailureRates {
   }
 };
 
+/// A claim that an element is fit for a SIL on evidence of prior use in a similar environment
+/// instead of an IEC 61508 systematic capability (IEC 61511-1:2016 11.5.3, from memory).
+struct PriorUse {
+  int sil = 0;           ///< the SIL claimed, 1..4
+  std::string evidence;  ///< the record it rests on, quoted in every output
+};
+
+/// Where failure data come from, when written as an object (a plain string keeps `text` only).
+struct DataSource {
+  std::string kind;      ///< "certificate", "fmeda", "handbook", "field", "estimate"; empty for plain text
+  std::string document;
+  std::string revision;
+  std::string date;
+  std::string text;      ///< the plain-string form
+};
+
+/// One line of a data source as a reviewer reads it, e.g. "FMEDA: R-123 rev B, 2024-03-01".
+std::string describe(const DataSource& source);
+
 /// One field device or element (a transmitter, a logic solver, a solenoid, a valve).
 struct Component {
   std::string id;
@@ -57,6 +76,9 @@ struct Component {
   std::string data_source;  ///< where the failure data come from (a safety manual, a database)
   bool dangerous_rates_stated = false;  ///< the project or its library states lambda_D (checked in loading)
   std::string pointer;  ///< where it is defined, e.g. "/components/3"
+  std::optional<PriorUse> prior_use;        ///< prior-use claim, IEC 61511-1:2016 11.5.3
+  std::optional<DataSource> source;         ///< the data source in full (data_source holds its one line)
+  std::optional<Duration> response_time;    ///< time from demand to its action (a valve's stroke)
 };
 
 /// A vote: the group works while K of its N channels work. 1oo2D is K=1, N=2 with diagnostics.
@@ -126,6 +148,7 @@ struct Subsystem {
   std::string diversity_note;
   std::string pointer;  ///< e.g. "/sifs/0/subsystems/1"
   std::string template_name;  ///< the "subsystem_templates" entry it was built from, empty if none
+  std::optional<Duration> response_time;  ///< the subsystem's own, instead of its elements' sum
 
   [[nodiscard]] bool is_vendor() const { return vendor_pfd_avg.has_value() || vendor_pfh.has_value(); }
 };
@@ -142,6 +165,35 @@ struct Target {
   double value = 0.0;  ///< SIL number, RRF, PFDavg, or PFH per hour
 };
 
+/// How a SIF is reset after a trip.
+enum class ResetKind { kManual, kAutomatic };
+
+/// What the safety requirements specification states of a SIF (IEC 61511-1:2016 10.3.2, from
+/// memory); every field optional, the SRS lists what is missing as an open item.
+struct SifRequirements {
+  std::string safe_state;
+  std::string trip_setpoint;
+  std::optional<Duration> process_safety_time;
+  double response_time_fraction = 0.5;  ///< of the process safety time (common practice)
+  bool response_time_fraction_stated = false;
+  std::optional<Rate> max_spurious_trip_rate;
+  std::optional<ResetKind> reset;
+  std::string manual_shutdown;
+  std::string bypass;
+  std::string notes;
+  std::optional<Duration> proof_test_interval;  ///< the longest interval the SIF may be tested at
+  std::string proof_test_coverage;              ///< what the proof test must cover (text)
+  std::string energize_to_trip;                 ///< "de-energise to trip" or its reverse (text)
+  std::string action;            ///< output action and its criterion of success (tight shut-off)
+  std::string functional_relation;  ///< how the inputs decide the outputs (voting, permissives)
+  std::string fault_response;    ///< response to detected faults, with the repair time allowed
+  std::string startup_restart;   ///< start-up and restart after a trip
+  std::string interfaces;        ///< with the BPCS and the operators
+  std::string environment;       ///< environmental extremes the devices must withstand
+  std::string operating_modes;   ///< plant modes in which the SIF is needed
+  std::string pointer;                          ///< e.g. "/sifs/0/requirements"
+};
+
 /// One safety instrumented function: subsystems in series.
 struct Sif {
   std::string id;
@@ -152,6 +204,7 @@ struct Sif {
   std::vector<Subsystem> subsystems;
   std::string pointer;
   std::string path_exception;  ///< why the SIF lacks a sensor or final-element subsystem, if it does
+  std::optional<SifRequirements> requirements;
 
   [[nodiscard]] DemandMode demand_mode() const { return demand_mode_stated.value_or(DemandMode::kLow); }
 };
@@ -238,6 +291,17 @@ struct Scenario {
 /// Tolerable frequencies: category -> severity -> frequency.
 using RiskCriteria = std::map<std::string, std::map<std::string, Rate>>;
 
+/// One row of a document's revision history.
+struct DocumentRevision {
+  std::string revision, date, by, description;
+};
+
+/// Document control of the deliverables (report, SRS): printed on their covers.
+struct DocumentControl {
+  std::string number, revision, date, prepared_by, checked_by, approved_by;
+  std::vector<DocumentRevision> history;
+};
+
 /// The whole project file, resolved.
 struct Project {
   std::string format;
@@ -250,6 +314,7 @@ struct Project {
   std::vector<Sif> sifs;
   RiskCriteria risk_criteria;
   std::vector<Scenario> scenarios;
+  std::optional<DocumentControl> document;
 };
 
 /// The readable name of a role, a demand mode, a basis, a layer kind.

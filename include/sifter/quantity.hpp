@@ -46,7 +46,7 @@ Parsed<double> parse_percent(std::string_view text);
 /// The accepted forms of a rate, for hints.
 inline constexpr std::string_view kRateForms = "\"2.5e-7/h\", \"250 FIT\" or \"0.02/yr\"";
 /// The accepted forms of a duration, for hints.
-inline constexpr std::string_view kDurationForms = "\"8 h\", \"30 min\", \"3 d\", \"6 mo\" or \"2 yr\"";
+inline constexpr std::string_view kDurationForms = "\"45 s\", \"8 h\", \"30 min\", \"3 d\", \"6 mo\" or \"2 yr\"";
 
 /// Formats a rate per hour for people, e.g. "2.50e-07/h".
 std::string format_rate(Rate rate);

@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "sifter/curve.hpp"
+#include "sifter/deliverable.hpp"
 #include "sifter/interval_curve.hpp"
 #include "sifter/verify.hpp"
 
@@ -27,6 +28,8 @@ struct SifReportData {
   std::vector<SensitivityRow> sensitivity;      ///< largest swing first; empty: not computed in this run
   std::optional<double> required_pfd;  ///< the line drawn: the stricter of the required PFD and the required SIL's band
   std::vector<std::string> limiting;   ///< which of "probability", "architecture", "systematic" give the achieved SIL
+  SifDeliverable deliverable;          ///< stated requirements and subsystem parameters
+  bool compact = false;                ///< register mode: the figures are left out
 };
 
 /// Everything a report writer needs besides the ProjectResult.
@@ -35,6 +38,8 @@ struct ReportData {
   std::string tool_version;  ///< SIFTER_VERSION
   bool exact_requested = true;
   std::vector<SifReportData> sifs;  ///< one per ProjectResult::sifs, same order
+  DeliverableData deliverable;      ///< document control, component data, requirements
+  bool compact = false;             ///< register mode: figures and long tables left out
 };
 
 /// Options of a report run.
@@ -43,6 +48,7 @@ struct ReportOptions {
   bool exact = true;
   std::size_t curve_samples = 400;  ///< uniform samples of each PFD(t) curve
   bool sensitivity = true;          ///< rank each SIF's inputs (what-if engine, factor 2)
+  bool compact = false;             ///< register mode (ReportData::compact); no curves computed
 };
 
 /// The drawings of every SIF of a verified project. `result` must come from verify_project on

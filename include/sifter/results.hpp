@@ -18,6 +18,33 @@ inline constexpr const char* kCaution =
     "and licensed engineering practice take precedence. Failure data must be credible and traceable "
     "to their source.";
 
+/// On what an element's systematic result rests: its SC or a prior-use claim.
+struct SystematicBasis {
+  std::string component;
+  std::string basis;             ///< "systematic capability", "prior use" or "none"
+  std::optional<int> sil;        ///< the SC or the SIL claimed on prior use
+  std::string evidence;          ///< the prior-use evidence, quoted
+};
+
+/// One step of a SIF's response time: a subsystem's time and the element that governs it.
+struct ResponseTimeStep {
+  std::string subsystem;
+  std::optional<double> seconds;       ///< empty when an element's response time is not stated
+  std::vector<std::string> path;       ///< the slowest channel's elements ("SOV-1", "XV-1")
+  std::vector<double> path_seconds;    ///< their own times, same order
+  bool stated_on_subsystem = false;    ///< "response_time" written on the subsystem itself
+  std::vector<std::string> missing;    ///< elements without a response time
+};
+
+/// A computed check of a SIF against its stated requirements.
+struct RequirementCheck {
+  std::string check;             ///< "response_time_s", "spurious_trip_rate_per_yr", "proof_test_interval_h"
+  bool ok = true;
+  double value = 0.0;            ///< in the unit the check's name ends with
+  double limit = 0.0;
+  std::string message;
+};
+
 /// The result of one subsystem (voting group or vendor figure).
 struct SubsystemResult {
   std::string name;
@@ -48,6 +75,7 @@ struct SubsystemResult {
   // Spurious trips.
   double spurious_trip_rate_per_yr = 0.0;
   std::optional<double> mttf_spurious_yr;
+  std::vector<SystematicBasis> systematic_basis;  ///< each element once, in channel order
 };
 
 /// Monte Carlo summary of a SIF's PFDavg (or PFH).
@@ -94,6 +122,11 @@ struct SifResult {
   double spurious_trip_rate_per_yr = 0.0;
   std::optional<double> mttf_spurious_yr;
   std::optional<UncertaintyResult> uncertainty;
+  // Stated requirements (the SRS) and the checks computed against them.
+  std::optional<double> response_time_s;        ///< empty when an element's time is not stated
+  std::optional<double> response_time_limit_s;  ///< fraction x process safety time; empty without one
+  std::vector<ResponseTimeStep> response_budget;  ///< the subsystems in signal order
+  std::vector<RequirementCheck> requirement_checks;
 };
 
 }  // namespace sifter

@@ -36,6 +36,12 @@ Action add_sensitivity_command(CLI::App& app);
 Action add_diff_command(CLI::App& app);
 /// `sifter report PROJECT -o FILE`: write the HTML or Markdown report.
 Action add_report_command(CLI::App& app);
+/// `sifter srs PROJECT -o FILE [--sif ID]`: write the safety requirements specification.
+Action add_srs_command(CLI::App& app);
+
+/// Today's date (UTC, ISO 8601), or that of SOURCE_DATE_EPOCH when set, so that a document
+/// can be reproduced.
+std::string run_date();
 
 /// `sifter init FILE [--example]`: write a commented project and its library to start from.
 Action add_init_command(CLI::App& app);

@@ -29,6 +29,7 @@ int main(int argc, char** argv) {
   add(&sifter::cli::add_init_command);
   add(&sifter::cli::add_import_command);
   add(&sifter::cli::add_export_command);
+  add(&sifter::cli::add_srs_command);
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {

@@ -1,4 +1,5 @@
 // `sifter report`: verify a project and write the report a reviewer reads, as HTML or Markdown.
+#include <cstdint>
 #include <cstdlib>
 #include <ctime>
 #include <filesystem>
@@ -20,6 +21,9 @@ struct ReportCommandOptions {
   std::string project;
   std::string output;
   bool no_exact = false;
+  int samples = 0;
+  std::uint64_t seed = 1;
+  bool compact = false;
 };
 
 enum class ReportFormat { kHtml, kMarkdown };
@@ -35,7 +39,8 @@ ReportFormat format_of(const std::string& output) {
                    "\"");
 }
 
-// Today's date (UTC), or that of SOURCE_DATE_EPOCH when set, so that a report can be reproduced.
+}  // namespace
+
 std::string run_date() {
   std::time_t now = std::time(nullptr);
   if (const char* epoch = std::getenv("SOURCE_DATE_EPOCH"); epoch && *epoch) {
@@ -50,14 +55,17 @@ std::string run_date() {
   return buf;
 }
 
-}  // namespace
-
 Action add_report_command(CLI::App& app) {
   auto opts = std::make_shared<ReportCommandOptions>();
   auto* cmd = app.add_subcommand("report", "Write a self-contained report (HTML or Markdown) of a project's verification");
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("-o,--output", opts->output, "the report file: NAME.html (default format) or NAME.md")->required();
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
+  cmd->add_option("--samples", opts->samples, "Monte Carlo samples per SIF on the uncertain failure data (0: none)")
+      ->check(CLI::Range(0, 10000000));
+  cmd->add_option("--seed", opts->seed, "seed of the Monte Carlo (the same seed gives the same report)");
+  cmd->add_flag("--compact", opts->compact,
+                "register mode: each SIF's tables without its curves and rankings, for long registers");
   return [opts]() {
     report::refuse_overwriting_inputs({opts->output}, {opts->project});
     const ReportFormat format = format_of(opts->output);
@@ -65,10 +73,13 @@ Action add_report_command(CLI::App& app) {
     report::refuse_overwriting_inputs({opts->output}, loaded.inputs);
     VerifyOptions vo;
     vo.exact = !opts->no_exact;
+    vo.samples = opts->samples;
+    vo.seed = opts->seed;
     const ProjectResult result = verify_project(loaded, vo);
     ReportOptions ro;
     ro.date = run_date();
     ro.exact = vo.exact;
+    ro.compact = opts->compact;
     const ReportData data = build_report_data(loaded.project, result, ro);
     const std::string text = format == ReportFormat::kMarkdown ? report::render_markdown(result, data)
                                                                : report::render_html(result, data);

@@ -226,7 +226,10 @@ void draw_groups(Canvas& c, const svg::Plot& p, const Staircase& st, double colu
            Anchor::kMiddle);
     if (g.target_per_yr) {
       c.line(x1, p.y(*g.target_per_yr), x2, p.y(*g.target_per_yr), "req-line");
-      c.text(x1 + 3, p.y(*g.target_per_yr) - 5, "tolerable " + sci(*g.target_per_yr), "note");
+      // From the group's left edge, or ending at its right edge when the words would leave it.
+      const std::string words = "tolerable " + sci(*g.target_per_yr);
+      const bool fits = x1 + 3 + text_px(words) <= x2;
+      c.text(fits ? x1 + 3 : x2 - 3, p.y(*g.target_per_yr) - 5, words, "note", fits ? Anchor::kStart : Anchor::kEnd);
     }
     if (g.meets_target) {
       const auto& last = st.stairs[k].points.back();  // groups and stairs are opened in pairs

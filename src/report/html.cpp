@@ -4,6 +4,7 @@
 #include "sifter/report/charts.hpp"
 #include "sifter/report/diagrams.hpp"
 #include "sifter/report/format.hpp"
+#include "sifter/report/html_deliverable.hpp"
 #include "sifter/report/html_style.hpp"
 #include "sifter/report/svg.hpp"
 #include "sifter/report/tables.hpp"
@@ -81,13 +82,14 @@ std::string cover(const ProjectResult& r, const ReportData& d) {
   item("SHA-256 of the input", r.sha256, true);
   item("tool", "sifter " + d.tool_version);
   item("exact cross-check", exact_words(r, d));
-  out += "</dl>\n</header>\n";
+  out += "</dl>\n" + document_control_html(d.deliverable) + "</header>\n";
   out += "<aside class=\"caution\"><strong>Caution</strong><p>" + esc(kCaution) + "</p></aside>\n";
   out += "<nav class=\"contents\"><h3>Contents</h3><ol>\n<li><a href=\"#summary\">Summary</a></li>\n";
   for (std::size_t i = 0; i < r.sifs.size(); ++i)
     out += "<li><a href=\"#" + sif_anchor(i) + "\">" + esc(r.sifs[i].id) + "</a></li>\n";
   for (std::size_t i = 0; i < r.scenarios.size(); ++i)
     out += "<li><a href=\"#" + scenario_anchor(i) + "\">" + esc(r.scenarios[i].id) + "</a></li>\n";
+  out += "<li><a href=\"#component-data\">Component data</a></li>\n";
   out += "<li><a href=\"#closing\">Assumptions, equations, warnings</a></li>\n</ol></nav>\n";
   return out;
 }
@@ -155,9 +157,9 @@ std::string sif_section(const SifResult& s, const SifReportData& d, std::size_t 
     for (const auto& l : s.limits) items.push_back(l.kind + ": " + l.message);
     out += list_html(items, "limits");
   }
-  out += table_html(subsystem_table(s));
+  out += table_html(subsystem_table(s)) + sif_requirements_html(s, d.deliverable);
   out += figure_html(contribution_svg(s), "Share of each subsystem in the SIF's figure, with its own value.");
-  out += probability_figures(s, d) + further_figures(s, d);
+  if (!d.compact) out += probability_figures(s, d) + further_figures(s, d);
   return out + "</section>\n";
 }
 
@@ -201,7 +203,7 @@ std::string closing(const ProjectResult& r, const ReportData& d) {
   if (!shared.rows.empty()) out += "<h3>Shared equipment</h3>\n" + table_html(shared);
   out += "<h3>Warnings</h3>\n";
   std::vector<std::string> warnings;
-  for (const auto& w : r.warnings) warnings.push_back(w.where + ": " + w.message);
+  for (const auto& w : r.warnings) warnings.push_back(place_name(r, d.deliverable, w.where) + ": " + w.message);
   out += warnings.empty() ? absent("None.") : list_html(warnings);
   return out + "</section>\n";
 }
@@ -212,14 +214,15 @@ std::string render_html(const ProjectResult& r, const ReportData& d) {
   std::string out = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";
   out += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
   out += "<title>" + esc(r.title.empty() ? r.file : r.title) + ": sifter report</title>\n";
-  out += "<style>" + std::string(html_style()) + "</style>\n</head>\n<body>\n";
+  out += "<style>" + std::string(html_style()) + deliverable_css() + "</style>\n</head>\n<body" +
+         (d.compact ? " class=\"compact\"" : "") + ">\n";
   out += cover(r, d) + summary(r, d);
   for (std::size_t i = 0; i < r.sifs.size(); ++i)
     out += sif_section(r.sifs[i], i < d.sifs.size() ? d.sifs[i] : SifReportData{}, i);
   for (std::size_t i = 0; i < r.scenarios.size(); ++i) out += scenario_section(r.scenarios[i], i);
-  out += closing(r, d);
+  out += component_data_html(d.deliverable) + closing(r, d);
   out += "<footer>Written by sifter " + esc(d.tool_version) + " on " + esc(d.date) + " from " + esc(r.file) +
-         ". " + esc(kCaution) + "</footer>\n</body>\n</html>\n";
+         ". " + esc(kCaution) + "</footer>\n" + print_footer_html(d.deliverable, "SIL verification report") + "</body>\n</html>\n";
   return out;
 }
 

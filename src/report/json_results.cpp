@@ -94,6 +94,16 @@ void emit_subsystem(W& w, const SubsystemResult& s) {
   w.key("pfh_exact").number(s.pfh_exact_per_hour, "pfh_exact");
   w.key("spurious_trip_rate_per_yr").number(s.spurious_trip_rate_per_yr, "spurious trip rate");
   w.key("mttf_spurious_yr").number(s.mttf_spurious_yr, "mttf_spurious_yr");
+  w.key("systematic_basis").begin_array();
+  for (const auto& e : s.systematic_basis) {
+    w.begin_object();
+    w.key("component").value(e.component);
+    w.key("basis").value(e.basis);
+    w.key("sil").value(e.sil);
+    w.key("evidence").value(e.evidence);
+    w.end_object();
+  }
+  w.end_array();
   w.end_object();
 }
 
@@ -232,6 +242,19 @@ void emit_sif(W& w, const SifResult& s) {
   w.key("spurious_trip_rate_per_yr").number(s.spurious_trip_rate_per_yr, "spurious trip rate");
   w.key("mttf_spurious_yr").number(s.mttf_spurious_yr, "mttf_spurious_yr");
   emit_uncertainty(w, s);
+  w.key("response_time_s").number(s.response_time_s, "response_time_s");
+  w.key("response_time_limit_s").number(s.response_time_limit_s, "response_time_limit_s");
+  w.key("requirement_checks").begin_array();
+  for (const auto& c : s.requirement_checks) {
+    w.begin_object();
+    w.key("check").value(c.check);
+    w.key("ok").value(c.ok);
+    w.key("value").number(c.value, "requirement value");
+    w.key("limit").number(c.limit, "requirement limit");
+    w.key("message").value(c.message);
+    w.end_object();
+  }
+  w.end_array();
   w.end_object();
 }
 

@@ -4,6 +4,7 @@
 #include <string_view>
 
 #include "sifter/printable.hpp"
+#include "sifter/report/deliverable_tables.hpp"
 #include "sifter/report/format.hpp"
 
 namespace sifter::report {
@@ -26,6 +27,9 @@ std::string cover(const ProjectResult& r, const ReportData& d) {
   out += "- input file: " + md(r.file) + "\n";
   out += "- SHA-256 of the input: `" + r.sha256 + "`\n";
   out += "- tool: sifter " + md(d.tool_version) + "\n\n";
+  if (d.deliverable.document)
+    out += "Document " + md(d.deliverable.document->number) + ", revision " + md(d.deliverable.document->revision) +
+           "\n\n" + markdown_table(signature_table(*d.deliverable.document));
   out += "> **Caution.** " + md(kCaution) + "\n\n";
   return out;
 }
@@ -43,7 +47,8 @@ std::string sif_section(const SifResult& s, const SifReportData& d) {
     for (const auto& l : s.limits) items.push_back(l.kind + ": " + l.message);
     out += list_md(items);
   }
-  out += markdown_table(subsystem_table(s));
+  out += markdown_table(subsystem_table(s)) + markdown_table(subsystem_parameters_table(s, d.deliverable));
+  if (!s.requirement_checks.empty()) out += markdown_table(requirement_checks_table(s));
   if (d.pfd_curve) out += "PFD(t) curve drawn in the HTML report by the " + md(d.pfd_curve->engine) + ".\n\n";
   if (d.interval_sweep) out += markdown_table(interval_table(*d.interval_sweep));
   if (d.sensitivity.empty()) out += "Sensitivity ranking: " + absent("not computed in this run.");
@@ -120,7 +125,7 @@ std::string render_markdown(const ProjectResult& r, const ReportData& d) {
   for (std::size_t i = 0; i < r.sifs.size(); ++i)
     out += sif_section(r.sifs[i], i < d.sifs.size() ? d.sifs[i] : SifReportData{});
   for (const auto& s : r.scenarios) out += scenario_section(s);
-  out += closing(r, d);
+  out += "## Component data\n\n" + markdown_table(component_data_table(d.deliverable)) + closing(r, d);
   // User text reaches the page as written: its control characters are shown escaped, so that a
   // title cannot hide or rewrite a line for a reader who opens the file in a terminal.
   return escape_controls(out + "---\n\nWritten by sifter " + md(d.tool_version) + " on " + md(d.date) + ".\n");

@@ -9,6 +9,7 @@
 #include "sifter/report/tables.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/report/worksheet.hpp"
+#include "sifter/report/requirements_text.hpp"
 #include "sifter/report_data.hpp"
 #include "sifter/sil.hpp"
 
@@ -198,6 +199,7 @@ std::string render_sif(const SifResult& s, std::size_t width) {
   out += figure_lines(s, width);
   out += "  verdict  " + verdict_words(s.meets_target) + "\n";
   out += spurious_line(s, width);
+  out += requirements_lines(s);
   const std::size_t prose = std::min(width, kProseWidth);
   if (!s.limits.empty()) {
     out += "  limited by\n";

@@ -39,3 +39,19 @@ void read_scenarios(LoadContext& ctx, const Json& root, Project& project);
 void check_project_plausibility(LoadContext& ctx, const Project& project);
 
 }  // namespace sifter::detail
+
+namespace sifter::detail {
+
+/// "prior_use": {"sil": 1..4, "evidence": "..."} on a component or library model.
+std::optional<PriorUse> read_prior_use(ObjectReader& r);
+
+/// "data_source": a string, or {"kind", "document", "revision", "date"}.
+std::optional<DataSource> read_data_source(ObjectReader& r);
+
+/// A SIF's "requirements" (safety requirements specification), absent when not written.
+std::optional<SifRequirements> read_requirements(ObjectReader& sif);
+
+/// The project's "document" (document control of the deliverables).
+std::optional<DocumentControl> read_document(ObjectReader& top);
+
+}  // namespace sifter::detail

@@ -1,0 +1,28 @@
+#pragma once
+/// The HTML of the deliverable's parts shared by the report and the SRS: document control on
+/// the cover, the print footer, the component-data section, a SIF's requirements and subsystem
+/// parameters, and warnings named by SIF, scenario or component id.
+#include <string>
+
+#include "sifter/report/deliverable_tables.hpp"
+
+namespace sifter::report {
+
+/// A table as the report draws it (caption, header, tone classes), every text escaped.
+std::string html_table(const Table& table);
+/// The extra style rules of these parts (signature block, print footer, open items).
+const char* deliverable_css();
+/// Document number, revision and date, the signature block and the revision history; a note
+/// saying none is stated when the project has no "document".
+std::string document_control_html(const DeliverableData& data);
+/// A footer fixed to every printed page: document number, revision, and the kind of document.
+std::string print_footer_html(const DeliverableData& data, const std::string& kind);
+/// The component-data section (id "component-data").
+std::string component_data_html(const DeliverableData& data);
+/// A SIF's stated requirements, their checks, the response budget and its subsystem parameters.
+std::string sif_requirements_html(const SifResult& sif, const SifDeliverable& data);
+/// A warning's place by id: "/sifs/2/target" reads "SIF-403 (target)", "/components/4" reads
+/// the component's id; other places stay as written.
+std::string place_name(const ProjectResult& result, const DeliverableData& data, const std::string& where);
+
+}  // namespace sifter::report

@@ -1,0 +1,13 @@
+#pragma once
+/// The terminal's lines on a SIF's stated requirements: response time and each computed check.
+#include <string>
+
+#include "sifter/results.hpp"
+
+namespace sifter::report {
+
+/// "  requirements" and one wrapped line per check ("[ok]" or "[FAILS]"); empty when the SIF
+/// states no requirement and no response time is known.
+std::string requirements_lines(const SifResult& s);
+
+}  // namespace sifter::report

@@ -1,0 +1,38 @@
+#pragma once
+/// The safety requirements specification (IEC 61511-1:2016 10.3, from memory): one section per
+/// SIF with its hazard and scenarios, the integrity it must reach and how that was derived, the
+/// function, timing, proof test, spurious trips, operation, devices with their data sources, and
+/// the open items. Written as HTML (self-contained, like the report) or Markdown.
+#include <string>
+#include <vector>
+
+#include "sifter/deliverable.hpp"
+#include "sifter/report/tables.hpp"
+#include "sifter/verify.hpp"
+
+namespace sifter::report {
+
+/// One block of a SIF's section, rendered alike in HTML and Markdown.
+struct SrsBlock {
+  enum class Kind { kHeading, kParagraph, kTable, kList, kOpenItems } kind = Kind::kParagraph;
+  std::string text;                ///< heading or paragraph
+  Table table;                     ///< kTable
+  std::vector<std::string> items;  ///< kList, kOpenItems
+};
+
+/// The blocks of one SIF's section (without its title).
+std::vector<SrsBlock> srs_sif_blocks(const ProjectResult& result, const DeliverableData& data, std::size_t sif);
+
+/// What the SRS writers need besides the results.
+struct SrsOptions {
+  std::string date;               ///< of the run, ISO 8601
+  std::string tool_version;       ///< SIFTER_VERSION
+  std::vector<std::size_t> sifs;  ///< indices of the SIFs to specify, in order
+};
+
+/// The whole SRS as one self-contained HTML page.
+std::string render_srs_html(const ProjectResult& result, const DeliverableData& data, const SrsOptions& options);
+/// The same as Markdown.
+std::string render_srs_markdown(const ProjectResult& result, const DeliverableData& data, const SrsOptions& options);
+
+}  // namespace sifter::report

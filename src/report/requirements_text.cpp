@@ -1,0 +1,20 @@
+// The terminal's lines on a SIF's stated requirements.
+#include "sifter/report/requirements_text.hpp"
+
+#include "sifter/report/format.hpp"
+#include "sifter/report/text_table.hpp"
+#include "sifter/requirements.hpp"
+
+namespace sifter::report {
+
+std::string requirements_lines(const SifResult& s) {
+  if (s.requirement_checks.empty() && !s.response_time_s) return "";
+  std::string out = "  requirements\n";
+  if (s.response_time_s && !s.response_time_limit_s)
+    out += wrap("response time " + format_seconds(*s.response_time_s) + " (no process safety time stated)", 92, "    ");
+  for (const auto& c : s.requirement_checks)
+    out += wrap(std::string(c.ok ? "[ok] " : "[FAILS] ") + c.message, 92, "    ");
+  return out;
+}
+
+}  // namespace sifter::report
