@@ -1,6 +1,8 @@
 // RFC 4180 reading and writing, and the neutralising of formula-like text for spreadsheets.
 #include "sifter/csv_text.hpp"
 
+#include "sifter/printable.hpp"
+
 #include <cstdlib>
 
 namespace sifter {
@@ -10,14 +12,6 @@ bool starts_like_formula(std::string_view t) {
   return !t.empty() && (t[0] == '=' || t[0] == '+' || t[0] == '-' || t[0] == '@' || t[0] == '\t' || t[0] == '\r');
 }
 
-// A plain decimal number ("-0.5", "+1e-3") is data, not a formula.
-bool is_number(std::string_view t) {
-  if (t.empty()) return false;
-  const std::string s(t);
-  char* end = nullptr;
-  std::strtod(s.c_str(), &end);
-  return end == s.c_str() + s.size() && s.find_first_of("xXnN") == std::string::npos;  // no hex, inf, nan
-}
 
 }  // namespace
 
@@ -92,11 +86,6 @@ std::string csv_cell(std::string_view text) {
     out += c;
   }
   return out + "\"";
-}
-
-std::string neutralise_formula(std::string_view text) {
-  if (!starts_like_formula(text) || is_number(text)) return std::string(text);
-  return "'" + std::string(text);
 }
 
 std::string restore_formula_text(std::string_view text) {

@@ -25,9 +25,6 @@ std::optional<CsvSyntaxProblem> parse_csv(std::string_view text, CsvRows& rows);
 /// A cell quoted when it holds a comma, a quote or a line break.
 std::string csv_cell(std::string_view text);
 
-/// A cell a spreadsheet would take for a formula (it begins with = + - @, a tab or a carriage
-/// return, and is not a number) gets a leading apostrophe, so that it stays text.
-std::string neutralise_formula(std::string_view text);
 
 /// The inverse on import: one leading apostrophe before = + - @, tab or CR is removed.
 std::string restore_formula_text(std::string_view text);
