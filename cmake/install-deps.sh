@@ -3,7 +3,7 @@
 # Skips apt entirely when everything is already there.
 set -eu
 packages="cmake g++ ninja-build pkg-config libboost-dev libboost-graph-dev nlohmann-json3-dev libcli11-dev
-libgtest-dev libgmock-dev libbenchmark-dev libeigen3-dev python3 python3-jsonschema chromium fonts-dejavu-core
+libgtest-dev libgmock-dev libbenchmark-dev libeigen3-dev python3 python3-jsonschema python3-icalendar chromium fonts-dejavu-core
 clang-14 libclang-rt-14-dev"
 missing=""
 for p in $packages; do

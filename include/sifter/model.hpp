@@ -55,6 +55,7 @@ struct Component {
   std::optional<RateUncertainty> uncertainty;
   std::optional<FieldData> field_data;
   std::string data_source;  ///< where the failure data come from (a safety manual, a database)
+  std::string in_service_since;  ///< ISO 8601 date the device went into service, empty if not stated
   std::string pointer;  ///< where it is defined, e.g. "/components/3"
 };
 

@@ -2,6 +2,7 @@
 /// What the report draws besides the verification results: the PFD(t) curve, the sweep of the
 /// proof-test intervals, the sensitivity ranking, the required line. Computed here, once, so
 /// that the writers only format.
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -11,6 +12,8 @@
 #include "sifter/verify.hpp"
 
 namespace sifter {
+
+struct ServiceResult;
 
 /// One row of the sensitivity ranking: the SIF's PFDavg with one input at its low and at its
 /// high value, the others as in the project. Filled by the what-if engine once it is wired.
@@ -35,6 +38,7 @@ struct ReportData {
   std::string tool_version;  ///< SIFTER_VERSION
   bool exact_requested = true;
   std::vector<SifReportData> sifs;  ///< one per ProjectResult::sifs, same order
+  std::shared_ptr<const ServiceResult> service;  ///< in-service records assessed (report --records), or null
 };
 
 /// Options of a report run.

@@ -5,6 +5,7 @@
 #include <functional>
 #include <string>
 
+#include "sifter/civil_date.hpp"
 #include "sifter/model.hpp"
 
 namespace sifter::cli {
@@ -36,5 +37,10 @@ Action add_sensitivity_command(CLI::App& app);
 Action add_diff_command(CLI::App& app);
 /// `sifter report PROJECT -o FILE`: write the HTML or Markdown report.
 Action add_report_command(CLI::App& app);
+
+/// `sifter service PROJECT RECORDS`: in-service records against the design.
+Action add_service_command(CLI::App& app);
+/// The --as-of date: YYYY-MM-DD, or today (UTC; SOURCE_DATE_EPOCH when set) when empty.
+CivilDate as_of_arg(const std::string& text);
 
 }  // namespace sifter::cli

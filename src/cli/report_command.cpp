@@ -3,6 +3,7 @@
 #include <ctime>
 #include <filesystem>
 #include <memory>
+#include <optional>
 
 #include "commands.hpp"
 #include "sifter/diagnostics.hpp"
@@ -10,6 +11,7 @@
 #include "sifter/report/html.hpp"
 #include "sifter/report/markdown.hpp"
 #include "sifter/report/output_file.hpp"
+#include "sifter/service.hpp"
 #include "sifter/report_data.hpp"
 #include "sifter/verify.hpp"
 
@@ -20,6 +22,8 @@ struct ReportCommandOptions {
   std::string project;
   std::string output;
   bool no_exact = false;
+  std::string records;  ///< in-service records for the "service" section
+  std::string as_of;
 };
 
 enum class ReportFormat { kHtml, kMarkdown };
@@ -58,17 +62,28 @@ Action add_report_command(CLI::App& app) {
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("-o,--output", opts->output, "the report file: NAME.html (default format) or NAME.md")->required();
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
+  cmd->add_option("--records", opts->records, "in-service records (as for `sifter service`): adds a service section");
+  cmd->add_option("--as-of", opts->as_of, "the date of the records' review, YYYY-MM-DD (default: today, UTC)");
   return [opts]() {
-    report::refuse_overwriting_inputs({opts->output}, {opts->project});
+    report::refuse_overwriting_inputs({opts->output}, {opts->project, opts->records});
     const ReportFormat format = format_of(opts->output);
     const LoadedProject loaded = load_project_file(opts->project);
+    if (!opts->records.empty() && format == ReportFormat::kMarkdown)
+      throw UsageError("--records: the service section is written in the HTML report; name the output NAME.html");
+    std::optional<ServiceRecords> records;  // read before anything is computed
+    if (!opts->records.empty()) records = load_records_file(opts->records, loaded.project, as_of_arg(opts->as_of));
     VerifyOptions vo;
     vo.exact = !opts->no_exact;
     const ProjectResult result = verify_project(loaded, vo);
     ReportOptions ro;
     ro.date = run_date();
     ro.exact = vo.exact;
-    const ReportData data = build_report_data(loaded.project, result, ro);
+    ReportData data = build_report_data(loaded.project, result, ro);
+    if (records) {
+      ServiceOptions so;
+      so.verify = vo;
+      data.service = std::make_shared<const ServiceResult>(assess_service(loaded, *records, so));
+    }
     const std::string text = format == ReportFormat::kMarkdown ? report::render_markdown(result, data)
                                                                : report::render_html(result, data);
     report::write_output(opts->output, text);
