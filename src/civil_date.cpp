@@ -24,9 +24,9 @@ int days_in_month(int year, int month) {
 std::int64_t days_from_civil(CivilDate date) {
   const std::int64_t y = date.year - (date.month <= 2 ? 1 : 0);
   const std::int64_t era = (y >= 0 ? y : y - 399) / 400;
-  const std::int64_t year_of_era = y - era * 400;                        // 0..399
+  const std::int64_t year_of_era = y - era * 400;                           // 0..399
   const std::int64_t m = date.month > 2 ? date.month - 3 : date.month + 9;  // March = 0
-  const std::int64_t day_of_year = (153 * m + 2) / 5 + date.day - 1;       // 0..365
+  const std::int64_t day_of_year = (153 * m + 2) / 5 + date.day - 1;        // 0..365
   const std::int64_t day_of_era = year_of_era * 365 + year_of_era / 4 - year_of_era / 100 + day_of_year;
   return era * 146097 + day_of_era - 719468;  // 719468 days from 0000-03-01 to 1970-01-01
 }
@@ -88,7 +88,8 @@ CivilDate add_months(CivilDate date, int months) {
 
 CivilDate add_interval(CivilDate date, double hours) {
   const double months = hours / kHoursPerMonth;
-  if (months >= 1.0 && months < 12000.0 && months == std::floor(months)) return add_months(date, static_cast<int>(months));
+  if (months >= 1.0 && months < 12000.0 && months == std::floor(months))
+    return add_months(date, static_cast<int>(months));
   return add_days(date, static_cast<std::int64_t>(std::floor(hours / 24.0)));
 }
 

@@ -1,11 +1,10 @@
 // Poisson rates from service counts: chi-squared limits, gamma-Poisson update, tail probabilities.
 #include "sifter/field_statistics.hpp"
 
-#include <cmath>
-
 #include <boost/math/distributions/chi_squared.hpp>
 #include <boost/math/distributions/gamma.hpp>
 #include <boost/math/special_functions/gamma.hpp>
+#include <cmath>
 
 namespace sifter {
 
@@ -13,7 +12,7 @@ double chi_squared_quantile(double p, double dof) {
   return boost::math::quantile(boost::math::chi_squared_distribution<double>(dof), p);
 }
 
-// Poisson rate limits from the chi-squared distribution (textbook; e.g. the exact limits for
+// Poisson rate limits from the chi-squared distribution (DEVELOPERS.md, M12; textbook, the exact limits for
 // a Poisson mean, from memory): lower chi2(alpha/2; 2n)/2T, upper chi2(1 - alpha/2; 2n + 2)/2T.
 RateInterval rate_interval_90(int failures, double hours) {
   RateInterval out;
@@ -34,7 +33,7 @@ double rate_lower_bound(int failures, double hours, double confidence) {
 GammaRate prior_centred_on(double design_per_hour, double hours) { return {design_per_hour * hours, hours}; }
 
 // Gamma prior, Poisson likelihood of n events in exposure T: the posterior is Gamma(a + n, b + T)
-// (textbook Bayesian statistics, conjugate families; from memory).
+// (DEVELOPERS.md, M12; textbook Bayesian statistics, conjugate families; from memory).
 GammaRate update(const GammaRate& prior, int failures, double hours) {
   return {prior.shape + failures, prior.rate_hours + hours};
 }

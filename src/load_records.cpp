@@ -22,9 +22,10 @@ struct RawEvent {
 enum class Field { kDate, kComponent, kEvent, kResult, kFoundBy };
 
 // Reports a problem at one field of the event being checked.
-using Report = std::function<void(Field, const std::string& expected, const std::string& found, const std::string& hint)>;
+using Report =
+    std::function<void(Field, const std::string& expected, const std::string& found, const std::string& hint)>;
 
-std::string quoted(const std::string& text) { return "\"" + text + "\""; }
+std::string quote_text(const std::string& text) { return "\"" + text + "\""; }
 
 // Checks against the project and the dates; the component ids are looked up by name.
 class RecordChecker {
@@ -38,7 +39,7 @@ class RecordChecker {
     auto it = index_.find(id);
     if (it != index_.end()) return it->second;
     const std::string near = detail::nearest(id, ids_);
-    report(field, "a component of the project", quoted(id),
+    report(field, "a component of the project", quote_text(id),
            near.empty() ? "the project's components are listed under /components" : "did you mean \"" + near + "\"?");
     return std::nullopt;
   }
@@ -46,12 +47,12 @@ class RecordChecker {
   std::optional<CivilDate> date(const std::string& text, Field field, const Report& report) const {
     const auto d = parse_iso_date(text);
     if (!d) {
-      report(field, "a date written YYYY-MM-DD (ISO 8601)", quoted(text),
+      report(field, "a date written YYYY-MM-DD (ISO 8601)", quote_text(text),
              "a real calendar day between 1900 and 2999, e.g. 2024-02-29");
       return std::nullopt;
     }
     if (*d > as_of_) {
-      report(field, "a date on or before the as-of date " + to_iso(as_of_), quoted(text),
+      report(field, "a date on or before the as-of date " + to_iso(as_of_), quote_text(text),
              "records after the as-of date belong to a later review; --as-of moves it");
       return std::nullopt;
     }
@@ -67,12 +68,13 @@ class RecordChecker {
     const auto component = this->component(raw.component, Field::kComponent, report);
     ok = date && component;
     static const std::map<std::string, EventKind> kKinds = {{"proof_test", EventKind::kProofTest},
-                                                           {"demand", EventKind::kDemand},
-                                                           {"spurious_trip", EventKind::kSpuriousTrip},
-                                                           {"repair", EventKind::kRepair}};
+                                                            {"demand", EventKind::kDemand},
+                                                            {"spurious_trip", EventKind::kSpuriousTrip},
+                                                            {"repair", EventKind::kRepair}};
     auto kind = kKinds.find(raw.event);
     if (kind == kKinds.end()) {
-      report(Field::kEvent, "one of \"proof_test\", \"demand\", \"spurious_trip\", \"repair\"", quoted(raw.event), "");
+      report(Field::kEvent, "one of \"proof_test\", \"demand\", \"spurious_trip\", \"repair\"", quote_text(raw.event),
+             "");
       return std::nullopt;
     }
     e.kind = kind->second;
@@ -86,7 +88,7 @@ class RecordChecker {
         ok = false;
       } else if (*date < since->second) {
         report(Field::kDate, "a date on or after " + raw.component + "'s in-service date " + to_iso(since->second),
-               quoted(raw.date), "check the date, or the in-service date if the device was in service earlier");
+               quote_text(raw.date), "check the date, or the in-service date if the device was in service earlier");
         ok = false;
       }
     }
@@ -103,8 +105,8 @@ class RecordChecker {
  private:
   static bool check_result(const RawEvent& raw, ServiceEvent& e, const Report& report) {
     static const std::map<std::string, EventResult> kResults = {{"pass", EventResult::kPass},
-                                                               {"fail_dangerous", EventResult::kFailDangerous},
-                                                               {"fail_safe", EventResult::kFailSafe}};
+                                                                {"fail_dangerous", EventResult::kFailDangerous},
+                                                                {"fail_safe", EventResult::kFailSafe}};
     const bool needs = e.kind == EventKind::kProofTest || e.kind == EventKind::kDemand;
     if (!raw.has_result) {
       if (!needs) {
@@ -117,11 +119,11 @@ class RecordChecker {
     }
     auto it = kResults.find(raw.result);
     if (it == kResults.end()) {
-      report(Field::kResult, "one of \"pass\", \"fail_dangerous\", \"fail_safe\"", quoted(raw.result), "");
+      report(Field::kResult, "one of \"pass\", \"fail_dangerous\", \"fail_safe\"", quote_text(raw.result), "");
       return false;
     }
     if (e.kind == EventKind::kSpuriousTrip && it->second != EventResult::kFailSafe) {
-      report(Field::kResult, "\"fail_safe\" (or no result) for a spurious trip", quoted(raw.result),
+      report(Field::kResult, "\"fail_safe\" (or no result) for a spurious trip", quote_text(raw.result),
              "a dangerous failure is recorded as a proof_test or demand event");
       return false;
     }
@@ -139,13 +141,13 @@ class RecordChecker {
     if (!raw.has_found_by) return true;
     auto it = kFoundBy.find(raw.found_by);
     if (it == kFoundBy.end()) {
-      report(Field::kFoundBy, "one of \"proof_test\", \"demand\", \"diagnostics\"", quoted(raw.found_by), "");
+      report(Field::kFoundBy, "one of \"proof_test\", \"demand\", \"diagnostics\"", quote_text(raw.found_by), "");
       return false;
     }
     const bool own_kind = e.kind == EventKind::kProofTest || e.kind == EventKind::kDemand;
     if (own_kind && it->second != own && it->second != FoundBy::kDiagnostics) {
-      report(Field::kFoundBy, quoted(to_string(own)) + " or \"diagnostics\" for a " + to_string(e.kind) + " event",
-             quoted(raw.found_by), "record the failure under the event that found it");
+      report(Field::kFoundBy, quote_text(to_string(own)) + " or \"diagnostics\" for a " + to_string(e.kind) + " event",
+             quote_text(raw.found_by), "record the failure under the event that found it");
       return false;
     }
     e.found_by = it->second;
@@ -170,11 +172,16 @@ std::map<std::size_t, CivilDate> project_in_service(const Project& project) {
 
 const char* key_of(Field f) {
   switch (f) {
-    case Field::kDate: return "date";
-    case Field::kComponent: return "component";
-    case Field::kEvent: return "event";
-    case Field::kResult: return "result";
-    case Field::kFoundBy: return "found_by";
+    case Field::kDate:
+      return "date";
+    case Field::kComponent:
+      return "component";
+    case Field::kEvent:
+      return "event";
+    case Field::kResult:
+      return "result";
+    case Field::kFoundBy:
+      return "found_by";
   }
   return "";
 }
@@ -195,7 +202,8 @@ std::optional<Json> parse_json(detail::LoadContext& ctx) {
     const auto colon = what.find(": ", what.find("error"));
     std::size_t offset = 0;
     if (const auto* pe = dynamic_cast<const Json::parse_error*>(&e)) offset = pe->byte == 0 ? 0 : pe->byte - 1;
-    report(position_of_offset(text, offset), "", "valid JSON", colon == std::string::npos ? what : what.substr(colon + 2),
+    report(position_of_offset(text, offset), "", "valid JSON",
+           colon == std::string::npos ? what : what.substr(colon + 2),
            "check for a missing comma, quote or bracket near this place");
     return std::nullopt;
   }
@@ -267,7 +275,8 @@ ServiceRecords load_json(const std::string& text, const std::string& name, const
   detail::ObjectReader top(ctx, *root, "", 0, "a records file");
   if (!top.is_object()) throw InputError(ctx.located());
   if (auto format = top.string("format", true); format && *format != kRecordsFormat)
-    ctx.error(0, "/format", quoted(kRecordsFormat), quoted(*format), "this version of sifter reads sifter-records/1");
+    ctx.error(0, "/format", quote_text(kRecordsFormat), quote_text(*format),
+              "this version of sifter reads sifter-records/1");
   out.title = top.string("title").value_or("");
   top.allow({"note", "author", "revision"});
   top.member("in_service_since");
@@ -310,19 +319,26 @@ bool split_csv(const std::string& text, std::vector<CsvRow>& rows, int& bad_row)
   for (std::size_t i = 0; i < text.size(); ++i) {
     const char c = text[i];
     if (in_quotes) {
-      if (c == '"' && i + 1 < text.size() && text[i + 1] == '"') field += '"', ++i;
-      else if (c == '"') in_quotes = false;
+      if (c == '"' && i + 1 < text.size() && text[i + 1] == '"')
+        field += '"', ++i;
+      else if (c == '"')
+        in_quotes = false;
       else {
         if (c == '\n') ++line;
         field += c;
       }
       continue;
     }
-    if (c == '"' && field.empty() && !quoted_field) in_quotes = quoted_field = row_has_content = true;
-    else if (c == ',') end_field(), row_has_content = true;
-    else if (c == '\r' && i + 1 < text.size() && text[i + 1] == '\n') continue;
-    else if (c == '\n') ++line, end_row();
-    else field += c, row_has_content = true;
+    if (c == '"' && field.empty() && !quoted_field)
+      in_quotes = quoted_field = row_has_content = true;
+    else if (c == ',')
+      end_field(), row_has_content = true;
+    else if (c == '\r' && i + 1 < text.size() && text[i + 1] == '\n')
+      continue;
+    else if (c == '\n')
+      ++line, end_row();
+    else
+      field += c, row_has_content = true;
   }
   if (in_quotes) {
     bad_row = current.row;
@@ -332,86 +348,112 @@ bool split_csv(const std::string& text, std::vector<CsvRow>& rows, int& bad_row)
   return true;
 }
 
-ServiceRecords load_csv(const std::string& text, const std::string& name, const Project& project, CivilDate as_of) {
-  std::vector<Diagnostic> problems;
-  auto problem = [&](int row, int column, const std::string& expected, const std::string& found,
-                     const std::string& hint) {
-    if (problems.size() < kMaxReportedProblems) problems.push_back({name, row, column, "", expected, found, hint});
-  };
-  std::vector<CsvRow> rows;
-  int bad_row = 0;
-  if (!split_csv(text, rows, bad_row)) {
-    problem(bad_row, 1, "a closing double quote", "the end of the file", "a quoted field runs to the end of the file");
-    throw InputError(problems);
-  }
+using CsvProblems = std::vector<Diagnostic>;
+
+// The header row: known column names, each once; the first three required.
+std::map<std::string, std::size_t> csv_columns(const CsvRow& header, const std::string& name, CsvProblems& problems) {
   static const std::vector<std::string> kColumns = {"date", "component", "event", "result", "found_by", "note"};
   std::map<std::string, std::size_t> at;
-  if (rows.empty()) {
-    problem(1, 1, "a header row: date,component,event,result,found_by,note", "an empty file", "");
-    throw InputError(problems);
-  }
-  for (std::size_t c = 0; c < rows[0].fields.size(); ++c) {
-    const std::string& h = rows[0].fields[c];
+  for (std::size_t c = 0; c < header.fields.size(); ++c) {
+    const std::string& h = header.fields[c];
     if (std::find(kColumns.begin(), kColumns.end(), h) == kColumns.end() || at.count(h))
-      problem(rows[0].row, static_cast<int>(c + 1), "a column among date, component, event, result, found_by, note (each once)",
-              quoted(h), "the first row names the columns");
+      problems.push_back({name, header.row, static_cast<int>(c + 1), "",
+                          "a column among date, component, event, result, found_by, note (each once)", quote_text(h),
+                          "the first row names the columns"});
     else
       at[h] = c;
   }
   for (const char* required : {"date", "component", "event"})
     if (!at.count(required))
-      problem(rows[0].row, 1, std::string("a column \"") + required + "\" in the header", "none", "");
-  if (!problems.empty()) throw InputError(problems);
+      problems.push_back(
+          {name, header.row, 1, "", std::string("a column \"") + required + "\" in the header", "none", ""});
+  return at;
+}
 
+// Reads the rows after the header: in-service rows first, so that events may come in any order.
+class CsvReader {
+ public:
+  CsvReader(const std::string& name, const std::map<std::string, std::size_t>& at, const RecordChecker& checker,
+            CsvProblems& problems)
+      : name_(name), at_(at), checker_(checker), problems_(problems) {}
+
+  void read(const std::vector<CsvRow>& rows, ServiceRecords& out) {
+    std::vector<const CsvRow*> events;
+    for (std::size_t i = 1; i < rows.size(); ++i) {
+      const CsvRow& r = rows[i];
+      if (r.fields.size() != rows[0].fields.size()) {
+        problem(r.row, 1, std::to_string(rows[0].fields.size()) + " fields as in the header",
+                std::to_string(r.fields.size()), "quote a field that contains a comma");
+        continue;
+      }
+      bool present = false;
+      if (cell(r, "event", present) != "in_service") {
+        events.push_back(&r);
+        continue;
+      }
+      const Report report = reporter(r);
+      const auto component = checker_.component(cell(r, "component", present), Field::kComponent, report);
+      const auto date = checker_.date(cell(r, "date", present), Field::kDate, report);
+      if (component && date) out.in_service_since[*component] = *date;
+    }
+    for (const CsvRow* r : events) {
+      RawEvent raw;
+      bool present = false;
+      raw.date = cell(*r, "date", present);
+      raw.component = cell(*r, "component", present);
+      raw.event = cell(*r, "event", present);
+      raw.result = cell(*r, "result", raw.has_result);
+      raw.found_by = cell(*r, "found_by", raw.has_found_by);
+      raw.note = cell(*r, "note", present);
+      if (auto e = checker_.event(raw, out.in_service_since, reporter(*r))) {
+        e->where = name_ + ":row " + std::to_string(r->row);
+        out.events.push_back(std::move(*e));
+      }
+    }
+  }
+
+ private:
+  void problem(int row, int column, const std::string& expected, const std::string& found, const std::string& hint) {
+    if (problems_.size() < kMaxReportedProblems) problems_.push_back({name_, row, column, "", expected, found, hint});
+  }
+  std::string cell(const CsvRow& r, const std::string& column, bool& present) const {
+    auto it = at_.find(column);
+    present = it != at_.end() && it->second < r.fields.size() && !r.fields[it->second].empty();
+    return present ? r.fields[it->second] : std::string();
+  }
+  int column_of(Field f) const {
+    auto it = at_.find(key_of(f));
+    return it == at_.end() ? 1 : static_cast<int>(it->second + 1);
+  }
+  Report reporter(const CsvRow& r) {
+    return [this, row = r.row](Field f, const std::string& expected, const std::string& found,
+                               const std::string& hint) { problem(row, column_of(f), expected, found, hint); };
+  }
+
+  const std::string& name_;
+  const std::map<std::string, std::size_t>& at_;
+  const RecordChecker& checker_;
+  CsvProblems& problems_;
+};
+
+ServiceRecords load_csv(const std::string& text, const std::string& name, const Project& project, CivilDate as_of) {
+  CsvProblems problems;
+  std::vector<CsvRow> rows;
+  int bad_row = 0;
+  if (!split_csv(text, rows, bad_row))
+    throw InputError({{name, bad_row, 1, "", "a closing double quote", "the end of the file",
+                       "a quoted field runs to the end of the file"}});
+  if (rows.empty())
+    throw InputError(
+        {{name, 1, 1, "", "a header row: date,component,event,result,found_by,note", "an empty file", ""}});
+  const auto at = csv_columns(rows[0], name, problems);
+  if (!problems.empty()) throw InputError(problems);
   ServiceRecords out;
   out.file = name;
   out.as_of = as_of;
   out.in_service_since = project_in_service(project);
   const RecordChecker checker(project, as_of);
-  auto cell = [&](const CsvRow& r, const std::string& column, bool& present) {
-    auto it = at.find(column);
-    present = it != at.end() && it->second < r.fields.size() && !r.fields[it->second].empty();
-    return present ? r.fields[it->second] : std::string();
-  };
-  auto column_of = [&](Field f) { return static_cast<int>(at.count(key_of(f)) ? at[key_of(f)] + 1 : 1); };
-  // In-service rows first, so that events may come in any order.
-  std::vector<const CsvRow*> events;
-  for (std::size_t i = 1; i < rows.size(); ++i) {
-    const CsvRow& r = rows[i];
-    if (r.fields.size() != rows[0].fields.size()) {
-      problem(r.row, 1, std::to_string(rows[0].fields.size()) + " fields as in the header",
-              std::to_string(r.fields.size()), "quote a field that contains a comma");
-      continue;
-    }
-    bool present = false;
-    if (cell(r, "event", present) != "in_service") {
-      events.push_back(&r);
-      continue;
-    }
-    auto report = [&](Field f, const std::string& expected, const std::string& found, const std::string& hint) {
-      problem(r.row, column_of(f), expected, found, hint);
-    };
-    const auto component = checker.component(cell(r, "component", present), Field::kComponent, report);
-    const auto date = checker.date(cell(r, "date", present), Field::kDate, report);
-    if (component && date) out.in_service_since[*component] = *date;
-  }
-  for (const CsvRow* r : events) {
-    RawEvent raw;
-    bool present = false;
-    raw.date = cell(*r, "date", present);
-    raw.component = cell(*r, "component", present);
-    raw.event = cell(*r, "event", present);
-    raw.result = cell(*r, "result", raw.has_result);
-    raw.found_by = cell(*r, "found_by", raw.has_found_by);
-    raw.note = cell(*r, "note", present);
-    auto report = [&](Field f, const std::string& expected, const std::string& found, const std::string& hint) {
-      problem(r->row, column_of(f), expected, found, hint);
-    };
-    if (auto e = checker.event(raw, out.in_service_since, report)) {
-      e->where = name + ":row " + std::to_string(r->row);
-      out.events.push_back(std::move(*e));
-    }
-  }
+  CsvReader(name, at, checker, problems).read(rows, out);
   if (!problems.empty()) throw InputError(problems);
   return out;
 }
@@ -436,7 +478,8 @@ ServiceRecords load_records_file(const std::string& path, const Project& project
   auto refuse = [&](const std::string& expected, const std::string& found, const std::string& hint) {
     throw InputError({Diagnostic{path, 0, 0, "", expected, found, hint}});
   };
-  if (!std::filesystem::is_regular_file(path, ec)) refuse("a readable records file", "no file at \"" + path + "\"", "check the path");
+  if (!std::filesystem::is_regular_file(path, ec))
+    refuse("a readable records file", "no file at \"" + path + "\"", "check the path");
   if (std::filesystem::file_size(path, ec) > kMaxInputBytes)
     refuse("a file of at most " + std::to_string(kMaxInputBytes / (1024 * 1024)) + " MiB", "a larger file",
            "split the records by year");

@@ -147,7 +147,100 @@ Project project_with_judged_rates(const Project& project, const std::vector<Comp
   return out;
 }
 
-ServiceResult assess_service(const LoadedProject& loaded, const ServiceRecords& records, const ServiceOptions& options) {
+namespace {
+
+std::vector<ComponentService> judge_components(const Project& project, const ServiceRecords& records,
+                                               const std::vector<int>& failures,
+                                               const std::vector<ModelService>& models, double prior_hours) {
+  std::map<std::string, const ModelService*> by_model;
+  for (const auto& m : models) by_model[m.model] = &m;
+  std::vector<ComponentService> out;
+  for (std::size_t i = 0; i < project.components.size(); ++i) {
+    const Component& c = project.components[i];
+    ComponentService s;
+    s.component = c.id;
+    s.model = model_key(c);
+    const double design = c.rates.lambda_du.per_hour;
+    s.estimate = estimate_rate(failures[i], service_hours(records, i), design, prior_hours);
+    // Each device keeps its own design rate scaled by its model's posterior-to-design ratio, so
+    // that a device whose project states its own lambda_DU keeps that difference.
+    const RateEstimate& pooled = by_model.at(s.model)->estimate;
+    s.lambda_du_judged = pooled.design_per_hour > 0.0 ? design * pooled.posterior_mean_per_hour / pooled.design_per_hour
+                                                      : pooled.posterior_mean_per_hour;
+    out.push_back(std::move(s));
+  }
+  return out;
+}
+
+// What the verification runs share: the project as it stands, with the posterior rates, and
+// the LOPA's demand rates.
+struct Verifications {
+  const LoadedProject& loaded;
+  const LoadedProject& judged_loaded;
+  const ProjectResult& design;
+  const ProjectResult& judged;
+  const std::map<std::string, double>& demand_rate_per_yr;
+};
+
+void count_events(const Sif& sif, const ServiceRecords& records, const Verifications& v, std::size_t i,
+                  double flag_below, SifService& s) {
+  const auto components = sif_components(sif);
+  std::optional<CivilDate> first;
+  for (auto c : components)
+    if (auto it = records.in_service_since.find(c); it != records.in_service_since.end())
+      if (!first || it->second < *first) first = it->second;
+  s.observed_years = first ? 24.0 * static_cast<double>(days_between(*first, records.as_of)) / kHoursPerYear : 0.0;
+  std::optional<double> expected_demands, expected_trips;
+  if (first) {
+    if (auto it = v.demand_rate_per_yr.find(sif.id); it != v.demand_rate_per_yr.end())
+      expected_demands = it->second * s.observed_years;
+    expected_trips = v.design.sifs[i].spurious_trip_rate_per_yr * s.observed_years;
+  }
+  s.demands = count_check(distinct_dates(records, components, EventKind::kDemand), expected_demands, flag_below);
+  s.spurious_trips =
+      count_check(distinct_dates(records, components, EventKind::kSpuriousTrip), expected_trips, flag_below);
+}
+
+SifService assess_sif(const Project& project, std::size_t i, const ServiceRecords& records, const Verifications& v,
+                      const std::vector<ScheduleRow>& schedule, double flag_below) {
+  const Sif& sif = project.sifs[i];
+  SifService s;
+  s.id = sif.id;
+  s.demand_mode = v.judged.sifs[i].demand_mode;
+  s.measure_design = measure_of(v.design.sifs[i]);
+  s.measure_judged = measure_of(v.judged.sifs[i]);
+  s.meets_design = v.design.sifs[i].meets_target;
+  s.meets_judged = v.judged.sifs[i].meets_target;
+  s.verdict_changed = s.meets_design != s.meets_judged;
+  if (s.meets_judged == false) advise_restore(v.judged_loaded.project, i, s);
+  count_events(sif, records, v, i, flag_below, s);
+  for (const auto& row : schedule) {
+    if (std::find(row.sifs.begin(), row.sifs.end(), sif.id) == row.sifs.end()) continue;
+    s.any_overdue = s.any_overdue || row.overdue;
+    if (!s.earliest_due || row.next_due < *s.earliest_due) {
+      s.earliest_due = row.next_due;
+      s.earliest_due_component = row.component;
+    }
+  }
+  return s;
+}
+
+std::vector<std::string> method_notes(double prior_hours) {
+  return {
+      "observed lambda_DU: dangerous failures found by proof tests and demands over the service time from each "
+      "device's in-service date to the as-of date; 90% interval from chi-squared",
+      "posterior: gamma prior centred on the design lambda_DU with the weight of " +
+          format_duration(Duration{prior_hours}) + " of service, updated by the counts",
+      "re-verification: each device's lambda_DU scaled by its model's posterior mean over design, then verified "
+      "and judged as `sifter check` does",
+      "exceeds design at 70% (90%): the one-sided 70% (90%) lower confidence bound of the observed rate lies above "
+      "the design rate"};
+}
+
+}  // namespace
+
+ServiceResult assess_service(const LoadedProject& loaded, const ServiceRecords& records,
+                             const ServiceOptions& options) {
   const Project& project = loaded.project;
   ServiceResult out;
   out.title = project.title;
@@ -158,24 +251,7 @@ ServiceResult assess_service(const LoadedProject& loaded, const ServiceRecords& 
   out.flag_below = options.flag_below;
   const std::vector<int> failures = failures_per_component(project, records);
   out.models = pool_models(project, records, failures, options.prior_hours);
-  std::map<std::string, const ModelService*> by_model;
-  for (const auto& m : out.models) by_model[m.model] = &m;
-  for (std::size_t i = 0; i < project.components.size(); ++i) {
-    const Component& c = project.components[i];
-    ComponentService s;
-    s.component = c.id;
-    s.model = model_key(c);
-    const double design = c.rates.lambda_du.per_hour;
-    s.estimate = estimate_rate(failures[i], service_hours(records, i), design, options.prior_hours);
-    // Each device keeps its own design rate scaled by its model's posterior-to-design ratio, so
-    // that a device whose project states its own lambda_DU keeps that difference.
-    const RateEstimate& pooled = by_model.at(s.model)->estimate;
-    s.lambda_du_judged = pooled.design_per_hour > 0.0
-                             ? design * pooled.posterior_mean_per_hour / pooled.design_per_hour
-                             : pooled.posterior_mean_per_hour;
-    out.components.push_back(std::move(s));
-  }
-
+  out.components = judge_components(project, records, failures, out.models, options.prior_hours);
   // The same verify and judge as `check`, on the project as it stands and with the posterior rates.
   LoadedProject judged_loaded = loaded;
   judged_loaded.project = project_with_judged_rates(project, out.components);
@@ -185,52 +261,11 @@ ServiceResult assess_service(const LoadedProject& loaded, const ServiceRecords& 
   if (!project.scenarios.empty())
     for (const auto& req : sif_requirements(evaluate_scenarios(project, lopa_context_from_project(project))))
       demand_rate_per_yr[req.sif] = req.demand_rate_per_yr;
-
+  const Verifications v{loaded, judged_loaded, design, judged, demand_rate_per_yr};
   out.schedule = schedule_of(project, records);
-  for (std::size_t i = 0; i < project.sifs.size(); ++i) {
-    const Sif& sif = project.sifs[i];
-    SifService s;
-    s.id = sif.id;
-    s.demand_mode = judged.sifs[i].demand_mode;
-    s.measure_design = measure_of(design.sifs[i]);
-    s.measure_judged = measure_of(judged.sifs[i]);
-    s.meets_design = design.sifs[i].meets_target;
-    s.meets_judged = judged.sifs[i].meets_target;
-    s.verdict_changed = s.meets_design != s.meets_judged;
-    if (s.meets_judged == false) advise_restore(judged_loaded.project, i, s);
-    const auto components = sif_components(sif);
-    std::optional<CivilDate> first;
-    for (auto c : components)
-      if (auto it = records.in_service_since.find(c); it != records.in_service_since.end())
-        if (!first || it->second < *first) first = it->second;
-    s.observed_years = first ? 24.0 * static_cast<double>(days_between(*first, records.as_of)) / kHoursPerYear : 0.0;
-    std::optional<double> expected_demands, expected_trips;
-    if (first) {
-      if (auto it = demand_rate_per_yr.find(sif.id); it != demand_rate_per_yr.end())
-        expected_demands = it->second * s.observed_years;
-      expected_trips = design.sifs[i].spurious_trip_rate_per_yr * s.observed_years;
-    }
-    s.demands = count_check(distinct_dates(records, components, EventKind::kDemand), expected_demands, options.flag_below);
-    s.spurious_trips =
-        count_check(distinct_dates(records, components, EventKind::kSpuriousTrip), expected_trips, options.flag_below);
-    for (const auto& row : out.schedule) {
-      if (std::find(row.sifs.begin(), row.sifs.end(), sif.id) == row.sifs.end()) continue;
-      s.any_overdue = s.any_overdue || row.overdue;
-      if (!s.earliest_due || row.next_due < *s.earliest_due) {
-        s.earliest_due = row.next_due;
-        s.earliest_due_component = row.component;
-      }
-    }
-    out.sifs.push_back(std::move(s));
-  }
-  out.notes.push_back("observed lambda_DU: dangerous failures found by proof tests and demands over the service time "
-                      "from each device's in-service date to the as-of date; 90% interval from chi-squared");
-  out.notes.push_back("posterior: gamma prior centred on the design lambda_DU with the weight of " +
-                      format_duration(Duration{options.prior_hours}) + " of service, updated by the counts");
-  out.notes.push_back("re-verification: each device's lambda_DU scaled by its model's posterior mean over design, "
-                      "then verified and judged as `sifter check` does");
-  out.notes.push_back("exceeds design at 70% (90%): the one-sided 70% (90%) lower confidence bound of the observed "
-                      "rate lies above the design rate");
+  for (std::size_t i = 0; i < project.sifs.size(); ++i)
+    out.sifs.push_back(assess_sif(project, i, records, v, out.schedule, options.flag_below));
+  out.notes = method_notes(options.prior_hours);
   return out;
 }
 

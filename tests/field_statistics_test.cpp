@@ -3,9 +3,8 @@
 
 #include <gtest/gtest.h>
 
-#include <cmath>
-
 #include <boost/math/distributions/poisson.hpp>
+#include <cmath>
 
 namespace sifter {
 namespace {
@@ -27,7 +26,8 @@ TEST(FieldStatistics, ChiSquaredQuantilesMatchPrintedTables) {
 
 // With 2 degrees of freedom chi-squared is exponential with mean 2: quantile -2 ln(1 - p).
 TEST(FieldStatistics, ChiSquaredWithTwoDegreesIsAnExponential) {
-  for (double p : {0.05, 0.3, 0.7, 0.9, 0.95}) expect_rel(chi_squared_quantile(p, 2), -2.0 * std::log(1.0 - p), kExactRelTol);
+  for (double p : {0.05, 0.3, 0.7, 0.9, 0.95})
+    expect_rel(chi_squared_quantile(p, 2), -2.0 * std::log(1.0 - p), kExactRelTol);
 }
 
 TEST(FieldStatistics, ZeroFailuresGiveTheOneSidedUpperBoundOnly) {
@@ -40,8 +40,8 @@ TEST(FieldStatistics, OneFailureGivesTheTwoSidedNinetyPercentInterval) {
   const double t = 1.0e5;
   const RateInterval ci = rate_interval_90(1, t);
   ASSERT_TRUE(ci.low);
-  expect_rel(*ci.low, -std::log(0.95) / t, kExactRelTol);   // chi2(0.05; 2) / 2T = -ln(0.95) / T
-  expect_rel(ci.high, 9.488 / (2.0 * t), kTableDigits);     // chi2(0.95; 4) / 2T, table value
+  expect_rel(*ci.low, -std::log(0.95) / t, kExactRelTol);  // chi2(0.05; 2) / 2T = -ln(0.95) / T
+  expect_rel(ci.high, 9.488 / (2.0 * t), kTableDigits);    // chi2(0.95; 4) / 2T, table value
 }
 
 // Conjugate gamma-Poisson update (textbook Bayesian statistics, from memory): Gamma(a + n, b + T).
@@ -80,7 +80,8 @@ TEST(FieldStatistics, PoissonTailsAgreeWithBoostAndAHandCase) {
   EXPECT_DOUBLE_EQ(poisson_at_least(0, 3.0), 1.0);
   for (double m : {0.01, 0.3, 1.0, 4.5, 20.0})
     for (int k : {1, 2, 3, 5, 10}) {
-      const double boost_tail = boost::math::cdf(boost::math::complement(boost::math::poisson_distribution<double>(m), k - 1));
+      const double boost_tail =
+          boost::math::cdf(boost::math::complement(boost::math::poisson_distribution<double>(m), k - 1));
       expect_rel(poisson_at_least(k, m), boost_tail, 1e-9);
     }
 }

@@ -3,6 +3,8 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
+#include <cctype>
 #include <filesystem>
 
 #include "catalogue_support.hpp"
@@ -23,7 +25,8 @@ const Project& unit40() {
 std::vector<std::string> catalogue_files() {
   std::vector<std::string> names;
   for (const auto& e : fs::directory_iterator(kCatalogue))
-    if (e.path().extension() == ".json" || e.path().extension() == ".csv") names.push_back(e.path().filename().string());
+    if (e.path().extension() == ".json" || e.path().extension() == ".csv")
+      names.push_back(e.path().filename().string());
   std::sort(names.begin(), names.end());
   return names;
 }
@@ -59,7 +62,8 @@ INSTANTIATE_TEST_SUITE_P(Catalogue, BadRecords, ::testing::ValuesIn(catalogue_fi
                          });
 
 TEST(Records, TheJsonAndCsvFormsOfTheExampleHoldTheSameEvents) {
-  const auto json = load_records_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40_records.json", unit40(), kAsOf);
+  const auto json =
+      load_records_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40_records.json", unit40(), kAsOf);
   const auto csv = load_records_file(std::string(SIFTER_TEST_DATA) + "/service/unit40_records.csv", unit40(), kAsOf);
   ASSERT_EQ(json.events.size(), csv.events.size());
   EXPECT_EQ(json.in_service_since, csv.in_service_since);

@@ -42,8 +42,10 @@ TEST(ServiceCli, WritesJsonCsvAndICalendarTogether) {
 
 TEST(ServiceCli, BadRecordsWriteNothingAndExitWithTwo) {
   const auto dir = fresh_folder("service_bad");
-  const auto r = run_sifter("service examples/unit40.json tests/data/bad_records/unknown_component.json --as-of "
-                            "2025-06-30 --json " + (dir / "s.json").string() + " --ics " + (dir / "s.ics").string());
+  const auto r = run_sifter(
+      "service examples/unit40.json tests/data/bad_records/unknown_component.json --as-of "
+      "2025-06-30 --json " +
+      (dir / "s.json").string() + " --ics " + (dir / "s.ics").string());
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_NE(r.err.find("/events/0/component: expected a component of the project, found \"LT-401X\""),
             std::string::npos)

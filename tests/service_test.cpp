@@ -6,9 +6,8 @@
 #include <cmath>
 #include <cstdio>
 #include <fstream>
-#include <sstream>
-
 #include <nlohmann/json.hpp>
+#include <sstream>
 
 #include "sifter/report/service.hpp"
 
@@ -30,7 +29,8 @@ const Example& example() {
   static const Example e = [] {
     Example x;
     x.loaded = load_project_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40.json");
-    x.records = load_records_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40_records.json", x.loaded.project, kAsOf);
+    x.records =
+        load_records_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40_records.json", x.loaded.project, kAsOf);
     x.result = assess_service(x.loaded, x.records, ServiceOptions{});
     return x;
   }();

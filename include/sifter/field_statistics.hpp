@@ -54,9 +54,9 @@ struct RateEstimate {
   int failures = 0;
   double service_hours = 0.0;
   double design_per_hour = 0.0;
-  std::optional<double> observed_per_hour;  ///< n / T; empty without service time
-  std::optional<double> ci90_low_per_hour;  ///< empty for zero failures or no service time
-  std::optional<double> ci90_high_per_hour; ///< empty without service time
+  std::optional<double> observed_per_hour;   ///< n / T; empty without service time
+  std::optional<double> ci90_low_per_hour;   ///< empty for zero failures or no service time
+  std::optional<double> ci90_high_per_hour;  ///< empty without service time
   GammaRate posterior;
   double posterior_mean_per_hour = 0.0;
   double posterior_upper90_per_hour = 0.0;

@@ -32,8 +32,8 @@ std::string to_string(FoundBy found_by);
 /// One dated event on one component.
 struct ServiceEvent {
   CivilDate date;
-  std::string component;             ///< the tag as written
-  std::size_t component_index = 0;   ///< into Project::components
+  std::string component;            ///< the tag as written
+  std::size_t component_index = 0;  ///< into Project::components
   EventKind kind = EventKind::kProofTest;
   std::optional<EventResult> result;
   FoundBy found_by = FoundBy::kProofTest;  ///< stated, or the event's own kind (diagnostics for a repair)

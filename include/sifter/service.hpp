@@ -34,16 +34,16 @@ struct ModelService {
 struct ComponentService {
   std::string component;
   std::string model;
-  RateEstimate estimate;            ///< its own count and time (prior of the same strength)
-  double lambda_du_judged = 0.0;    ///< per hour: its design lambda_DU x its model's posterior / design
+  RateEstimate estimate;          ///< its own count and time (prior of the same strength)
+  double lambda_du_judged = 0.0;  ///< per hour: its design lambda_DU x its model's posterior / design
 };
 
 /// A count of events against the count expected from a predicted rate.
 struct CountCheck {
   int observed = 0;
-  std::optional<double> expected;             ///< empty when no rate is predicted
-  std::optional<double> probability_at_least; ///< P(N >= observed | expected)
-  bool flagged = false;                       ///< probability below ServiceOptions::flag_below
+  std::optional<double> expected;              ///< empty when no rate is predicted
+  std::optional<double> probability_at_least;  ///< P(N >= observed | expected)
+  bool flagged = false;                        ///< probability below ServiceOptions::flag_below
 };
 
 /// One SIF in service.
@@ -55,11 +55,11 @@ struct SifService {
   std::optional<bool> meets_design;      ///< check's verdict on the project as it stands
   std::optional<bool> meets_judged;      ///< check's verdict with the posterior rates
   bool verdict_changed = false;
-  std::optional<IntervalResult> restore; ///< a verdict changed to short: the longest interval that meets it
-  std::string restore_note;              ///< why no interval is given, when none is
-  double observed_years = 0.0;           ///< from the first in-service date of its components
-  CountCheck demands;                    ///< against the LOPA's demand rate
-  CountCheck spurious_trips;             ///< against the predicted spurious trip rate
+  std::optional<IntervalResult> restore;  ///< a verdict changed to short: the longest interval that meets it
+  std::string restore_note;               ///< why no interval is given, when none is
+  double observed_years = 0.0;            ///< from the first in-service date of its components
+  CountCheck demands;                     ///< against the LOPA's demand rate
+  CountCheck spurious_trips;              ///< against the predicted spurious trip rate
   std::optional<CivilDate> earliest_due;
   std::string earliest_due_component;
   bool any_overdue = false;

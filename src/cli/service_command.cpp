@@ -1,6 +1,7 @@
 // `sifter service`: in-service records against the design: rates, verdicts, counts, schedule.
 #include <cstdlib>
 #include <ctime>
+#include <iostream>
 #include <memory>
 #include <optional>
 
@@ -56,7 +57,8 @@ Action add_service_command(CLI::App& app) {
       ->check(CLI::Range(1.0, 1e12));
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
   return [opts]() {
-    report::refuse_overwriting_inputs({opts->json_path, opts->csv_path, opts->ics_path}, {opts->project, opts->records});
+    report::refuse_overwriting_inputs({opts->json_path, opts->csv_path, opts->ics_path},
+                                      {opts->project, opts->records});
     const CivilDate as_of = as_of_arg(opts->as_of);
     const LoadedProject loaded = load_project_file(opts->project);
     const ServiceRecords records = load_records_file(opts->records, loaded.project, as_of);

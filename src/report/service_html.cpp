@@ -36,8 +36,9 @@ std::string models_table(const ServiceResult& r) {
     const std::string exceeds = e.exceeds_design_at_90 ? "!at 90%" : e.exceeds_design_at_70 ? "!at 70%" : "no";
     rows.push_back({m.model, std::to_string(m.devices.size()), std::to_string(e.failures),
                     plain(e.service_hours / kHoursPerYear), sci_or_dash(e.observed_per_hour),
-                    sci_or_dash(e.ci90_low_per_hour) + " .. " + sci_or_dash(e.ci90_high_per_hour), sci(e.design_per_hour),
-                    sci(e.posterior_mean_per_hour), sci(e.posterior_upper90_per_hour), exceeds});
+                    sci_or_dash(e.ci90_low_per_hour) + " .. " + sci_or_dash(e.ci90_high_per_hour),
+                    sci(e.design_per_hour), sci(e.posterior_mean_per_hour), sci(e.posterior_upper90_per_hour),
+                    exceeds});
   }
   return table("Observed lambda_DU per hour by component model, devices pooled; posterior with a prior of " +
                    format_duration(Duration{r.prior_hours}) + " at the design rate",
@@ -59,15 +60,17 @@ std::string sifs_table(const ServiceResult& r) {
       return c.flagged ? "!" + t : t;
     };
     rows.push_back({s.id, sci_or_dash(s.measure_design), sci_or_dash(s.measure_judged),
-                    (s.meets_judged == false ? "!" : "") + verdict(s.meets_judged),
-                    s.verdict_changed ? "!yes" : "no", restore, count(s.demands), count(s.spurious_trips),
+                    (s.meets_judged == false ? "!" : "") + verdict(s.meets_judged), s.verdict_changed ? "!yes" : "no",
+                    restore, count(s.demands), count(s.spurious_trips),
                     s.earliest_due ? (s.any_overdue ? "!" : "") + to_iso(*s.earliest_due) : "-"});
   }
-  return table("SIFs re-verified with the posterior rates (the engine and judge of check); counts against the "
-               "predicted rates, flagged below " + percent(r.flag_below),
-               {"SIF", "PFDavg / PFH design", "with service", "verdict", "changed", "restored by", "demands",
-                "spurious trips", "earliest due"},
-               rows);
+  return table(
+      "SIFs re-verified with the posterior rates (the engine and judge of check); counts against the "
+      "predicted rates, flagged below " +
+          percent(r.flag_below),
+      {"SIF", "PFDavg / PFH design", "with service", "verdict", "changed", "restored by", "demands", "spurious trips",
+       "earliest due"},
+      rows);
 }
 
 std::string schedule_table(const ServiceResult& r) {
@@ -76,8 +79,8 @@ std::string schedule_table(const ServiceResult& r) {
     rows.push_back({row.component, row.last_test ? to_iso(*row.last_test) : "none",
                     format_duration(Duration{row.interval_hours}), (row.overdue ? "!" : "") + to_iso(row.next_due),
                     row.overdue ? "!overdue" : "due"});
-  return table("Proof-test schedule on " + to_iso(r.as_of), {"component", "last test", "interval", "next due", "status"},
-               rows);
+  return table("Proof-test schedule on " + to_iso(r.as_of),
+               {"component", "last test", "interval", "next due", "status"}, rows);
 }
 
 }  // namespace

@@ -9,12 +9,22 @@ std::string escape_ical_text(std::string_view text) {
   std::string out;
   for (char c : text) {
     switch (c) {
-      case '\\': out += "\\\\"; break;
-      case ';': out += "\\;"; break;
-      case ',': out += "\\,"; break;
-      case '\n': out += "\\n"; break;
-      case '\r': break;
-      default: out += c;
+      case '\\':
+        out += "\\\\";
+        break;
+      case ';':
+        out += "\\;";
+        break;
+      case ',':
+        out += "\\,";
+        break;
+      case '\n':
+        out += "\\n";
+        break;
+      case '\r':
+        break;
+      default:
+        out += c;
     }
   }
   return out;
@@ -59,12 +69,12 @@ std::string service_ics(const ServiceResult& r) {
     line("SUMMARY:" + escape_ical_text(std::string(row.overdue ? "OVERDUE: " : "") + "proof test of " + row.component +
                                        " (" + sifs + ")"));
     line("DESCRIPTION:" +
-         escape_ical_text("Proof test of " + row.component + " for " + sifs + "; interval " +
-                          format_duration(Duration{row.interval_hours}) + "; last test " +
-                          (row.last_test ? to_iso(*row.last_test) : "none (in service since " +
-                                                                        to_iso(row.in_service_since) + ")") +
-                          "; due " + to_iso(row.next_due) + (row.overdue ? ", OVERDUE on " + to_iso(r.as_of) : "") +
-                          ".\n" + kCaution));
+         escape_ical_text(
+             "Proof test of " + row.component + " for " + sifs + "; interval " +
+             format_duration(Duration{row.interval_hours}) + "; last test " +
+             (row.last_test ? to_iso(*row.last_test) : "none (in service since " + to_iso(row.in_service_since) + ")") +
+             "; due " + to_iso(row.next_due) + (row.overdue ? ", OVERDUE on " + to_iso(r.as_of) : "") + ".\n" +
+             kCaution));
     line("CATEGORIES:proof test,safety instrumented function");  // a list: the comma separates
     line("TRANSP:TRANSPARENT");
     line("END:VEVENT");

@@ -28,8 +28,10 @@ json estimate_json(const RateEstimate& e) {
 }
 
 json count_json(const CountCheck& c) {
-  return {{"observed", c.observed}, {"expected", opt(c.expected, "expected count")},
-          {"probability_at_least", opt(c.probability_at_least, "probability")}, {"flagged", c.flagged}};
+  return {{"observed", c.observed},
+          {"expected", opt(c.expected, "expected count")},
+          {"probability_at_least", opt(c.probability_at_least, "probability")},
+          {"flagged", c.flagged}};
 }
 
 json sif_json(const SifService& s) {
@@ -120,9 +122,17 @@ json service_json(const ServiceResult& r) {
 }
 
 std::string service_csv(const ServiceResult& r) {
-  static const char* kColumns[] = {"model", "devices", "failures", "service_hours", "observed_rate_per_h",
-                                   "ci90_low_per_h", "ci90_high_per_h", "posterior_mean_per_h",
-                                   "posterior_upper90_per_h", "design_rate_per_h", "exceeds_design_at_70",
+  static const char* kColumns[] = {"model",
+                                   "devices",
+                                   "failures",
+                                   "service_hours",
+                                   "observed_rate_per_h",
+                                   "ci90_low_per_h",
+                                   "ci90_high_per_h",
+                                   "posterior_mean_per_h",
+                                   "posterior_upper90_per_h",
+                                   "design_rate_per_h",
+                                   "exceeds_design_at_70",
                                    "exceeds_design_at_90"};
   std::string out;
   for (const char* c : kColumns) out += std::string(out.empty() ? "" : ",") + c;

@@ -51,8 +51,9 @@ std::string sifs_text(const ServiceResult& r) {
               format_duration(s.restore->longest) + " (" + std::to_string(s.restore->whole_months) +
               " whole months) on all its tested subsystems.";
     else if (s.restore && s.restore->outcome == IntervalOutcome::kNone)
-      line += "No proof-test interval restores it: the terms the interval does not touch exceed the requirement; "
-              "the design must change.";
+      line +=
+          "No proof-test interval restores it: the terms the interval does not touch exceed the requirement; "
+          "the design must change.";
     else if (s.restore)
       line += "Any interval up to the mission time meets it.";
     else
@@ -88,8 +89,8 @@ std::string counts_text(const ServiceResult& r) {
 std::string schedule_text(const ServiceResult& r) {
   TextTable t({"component", "last test", "interval", "next due", "status"}, {false, false, true, false, false});
   for (const auto& row : r.schedule)
-    t.add_row({row.component, row.last_test ? to_iso(*row.last_test) : "none", format_duration(Duration{row.interval_hours}),
-               to_iso(row.next_due), row.overdue ? "OVERDUE" : "due"});
+    t.add_row({row.component, row.last_test ? to_iso(*row.last_test) : "none",
+               format_duration(Duration{row.interval_hours}), to_iso(row.next_due), row.overdue ? "OVERDUE" : "due"});
   TextTable per_sif({"SIF", "earliest due", "component", "status"});
   for (const auto& s : r.sifs)
     if (s.earliest_due)

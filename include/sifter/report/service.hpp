@@ -2,7 +2,6 @@
 /// Writers of a service assessment: terminal text, `sifter-service/1` JSON, CSV of the models,
 /// iCalendar of the due proof tests, and the report's "service" section.
 #include <nlohmann/json.hpp>
-
 #include <string>
 #include <string_view>
 
