@@ -9,6 +9,7 @@
 #include <nlohmann/json.hpp>
 #include <sstream>
 
+#include "sifter/lopa.hpp"
 #include "sifter/report/service.hpp"
 
 namespace sifter {
@@ -146,14 +147,19 @@ TEST(Service, LogicSolverSharedByTwoSifsIsScheduledOnceForBoth) {
   EXPECT_EQ(r.sifs, (std::vector<std::string>{"SIF-401", "SIF-403"}));
 }
 
-// LOPA-401-1: (0.1 + 0.3)/yr x 0.9 enabling x 0.1 for the alarm before the SIF = 0.036/yr.
+// The expected count is the LOPA's demand rate on the SIF (as check reports it) times the
+// years since the first of its devices went into service.
 TEST(Service, DemandsOnSif401AreComparedWithTheLopasDemandRate) {
   const SifService& s = sif("SIF-401");
   EXPECT_EQ(s.demands.observed, 2);  // two dates; five devices saw each
-  const double years = 24.0 * kDaysInService / 8760.0;
+  const Project& project = example().loaded.project;
+  double rate = 0.0;
+  for (const auto& req : sif_requirements(evaluate_scenarios(project, lopa_context_from_project(project))))
+    if (req.sif == "SIF-401") rate = req.demand_rate_per_yr;
+  const double m = rate * 24.0 * kDaysInService / 8760.0;
   ASSERT_TRUE(s.demands.expected);
-  EXPECT_NEAR(*s.demands.expected, 0.036 * years, 1e-9);
-  const double m = 0.036 * years;
+  EXPECT_NEAR(*s.demands.expected, m, 1e-12 * m);
+  // P(N >= 2 | m) = 1 - e^-m (1 + m), by hand.
   EXPECT_NEAR(*s.demands.probability_at_least, 1.0 - std::exp(-m) * (1.0 + m), 1e-12);
   EXPECT_EQ(s.demands.flagged, *s.demands.probability_at_least < 0.05);
 }

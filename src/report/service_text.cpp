@@ -18,7 +18,7 @@ std::string exceeds_text(const RateEstimate& e) {
 }
 
 std::string models_text(const ServiceResult& r) {
-  TextTable observed({"model", "devices", "failures", "device-yr", "observed/h", "90% low", "90% high"},
+  TextTable observed({"model", "dev", "fail", "dev-yr", "observed", "90% low", "90% high"},
                      {false, true, true, true, true, true, true});
   TextTable design({"model", "design/h", "posterior/h", "upper 90%", "P(>design)", "exceeds"},
                    {false, true, true, true, true, true});
@@ -31,7 +31,7 @@ std::string models_text(const ServiceResult& r) {
     design.add_row({m.model, sci(e.design_per_hour), sci(e.posterior_mean_per_hour), sci(e.posterior_upper90_per_hour),
                     percent(e.probability_above_design), exceeds_text(e)});
   }
-  return "Observed lambda_DU by component model (devices in service pooled)\n" + observed.render() +
+  return "Observed lambda_DU per hour by component model (devices in service pooled)\n" + observed.render() +
          "\nAgainst the design rate (posterior: prior of " + format_duration(Duration{r.prior_hours}) +
          " at the design rate)\n" + design.render();
 }
