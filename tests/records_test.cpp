@@ -109,7 +109,7 @@ TEST(Records, TheProjectRefusesAnInServiceDateThatIsNoCalendarDay) {
     FAIL() << "accepted";
   } catch (const InputError& e) {
     EXPECT_EQ(std::string(e.what()),
-              "p.json:2:65: /components/0/in_service_since: expected a date written YYYY-MM-DD (ISO 8601), found "
+              "p.json:2:59: /components/0/in_service_since: expected a date written YYYY-MM-DD (ISO 8601), found "
               "\"2023-02-29\"\n  hint: a real calendar day between 1900 and 2999, e.g. 2024-02-29\n"
               "1 problem in the input; nothing was computed or written");
   }
