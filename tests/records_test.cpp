@@ -63,7 +63,7 @@ INSTANTIATE_TEST_SUITE_P(Catalogue, BadRecords, ::testing::ValuesIn(catalogue_fi
 
 TEST(Records, TheJsonAndCsvFormsOfTheExampleHoldTheSameEvents) {
   const auto json =
-      load_records_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40_records.json", unit40(), kAsOf);
+      load_records_file(std::string(SIFTER_SOURCE_DIR) + "/examples/records/unit40.json", unit40(), kAsOf);
   const auto csv = load_records_file(std::string(SIFTER_TEST_DATA) + "/service/unit40_records.csv", unit40(), kAsOf);
   ASSERT_EQ(json.events.size(), csv.events.size());
   EXPECT_EQ(json.in_service_since, csv.in_service_since);

@@ -12,7 +12,7 @@ using testing::fresh_folder;
 using testing::run_sifter;
 using testing::slurp;
 
-const std::string kExample = "examples/unit40.json examples/unit40_records.json --as-of 2025-06-30";
+const std::string kExample = "examples/unit40.json examples/records/unit40.json --as-of 2025-06-30";
 
 TEST(ServiceCli, TheExampleShowsTheFailingModelTheOverdueTestAndTheChangedVerdict) {
   const auto r = run_sifter("service " + kExample);
@@ -55,13 +55,13 @@ TEST(ServiceCli, BadRecordsWriteNothingAndExitWithTwo) {
 }
 
 TEST(ServiceCli, AnAsOfDateThatIsNoCalendarDayIsAUsageError) {
-  const auto r = run_sifter("service examples/unit40.json examples/unit40_records.json --as-of 2025-02-29");
+  const auto r = run_sifter("service examples/unit40.json examples/records/unit40.json --as-of 2025-02-29");
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_EQ(r.err, "sifter: --as-of: expected a date written YYYY-MM-DD (ISO 8601), found \"2025-02-29\"\n");
 }
 
 TEST(ServiceCli, RecordsBeforeTheirReviewDateAreRefused) {
-  const auto r = run_sifter("service examples/unit40.json examples/unit40_records.json --as-of 2024-01-01");
+  const auto r = run_sifter("service examples/unit40.json examples/records/unit40.json --as-of 2024-01-01");
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_NE(r.err.find("expected a date on or before the as-of date 2024-01-01"), std::string::npos);
 }
@@ -69,7 +69,7 @@ TEST(ServiceCli, RecordsBeforeTheirReviewDateAreRefused) {
 TEST(ServiceCli, TheReportGainsAServiceSectionWithRecords) {
   const auto dir = fresh_folder("service_report");
   const auto r = run_sifter("report examples/unit40.json -o " + (dir / "r.html").string() +
-                            " --records examples/unit40_records.json --as-of 2025-06-30");
+                            " --records examples/records/unit40.json --as-of 2025-06-30");
   EXPECT_EQ(r.exit_code, 0) << r.err;
   const std::string html = slurp(dir / "r.html");
   EXPECT_NE(html.find("<section class=\"service\" id=\"service\">"), std::string::npos);

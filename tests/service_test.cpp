@@ -31,7 +31,7 @@ const Example& example() {
     Example x;
     x.loaded = load_project_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40.json");
     x.records =
-        load_records_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40_records.json", x.loaded.project, kAsOf);
+        load_records_file(std::string(SIFTER_SOURCE_DIR) + "/examples/records/unit40.json", x.loaded.project, kAsOf);
     x.result = assess_service(x.loaded, x.records, ServiceOptions{});
     return x;
   }();
