@@ -54,8 +54,8 @@ TEST_P(BadRecords, AreRefusedWithTheCataloguedMessageWordForWord) {
 }
 
 INSTANTIATE_TEST_SUITE_P(Catalogue, BadRecords, ::testing::ValuesIn(catalogue_files()),
-                         [](const ::testing::TestParamInfo<std::string>& info) {
-                           std::string name = info.param;
+                         [](const ::testing::TestParamInfo<std::string>& param_info) {
+                           std::string name = param_info.param;
                            for (char& c : name)
                              if (!std::isalnum(static_cast<unsigned char>(c))) c = '_';
                            return name;
