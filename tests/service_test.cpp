@@ -199,7 +199,9 @@ TEST(Service, ICalendarLinesAreFoldedAt75OctetsAndUnfoldToTheOriginal) {
     EXPECT_LE(line.size(), 75u);
     EXPECT_NE(static_cast<unsigned char>(line.back()) & 0xC0, 0xC0) << "a UTF-8 character was split";
     unfolded += start == 0 ? line : line.substr(1);
-    if (start > 0) EXPECT_EQ(line[0], ' ');
+    if (start > 0) {
+      EXPECT_EQ(line[0], ' ');
+    }
     start = end + 2;
   }
   EXPECT_EQ(unfolded, text);
