@@ -20,7 +20,7 @@ std::string exceeds_text(const RateEstimate& e) {
 std::string models_text(const ServiceResult& r) {
   TextTable observed({"model", "dev", "fail", "dev-yr", "observed", "90% low", "90% high"},
                      {false, true, true, true, true, true, true});
-  TextTable design({"model", "design/h", "posterior/h", "upper 90%", "P(>design)", "exceeds"},
+  TextTable design({"model", "design", "posterior", "upper 90%", "P(>design)", "above"},
                    {false, true, true, true, true, true});
   for (const auto& m : r.models) {
     if (m.devices.empty()) continue;
@@ -32,7 +32,7 @@ std::string models_text(const ServiceResult& r) {
                     percent(e.probability_above_design), exceeds_text(e)});
   }
   return "Observed lambda_DU per hour by component model (devices in service pooled)\n" + observed.render() +
-         "\nAgainst the design rate (posterior: prior worth " + plain(r.prior_hours) +
+         "\nAgainst the design rate, per hour (prior: " + plain(r.prior_hours) +
          " h of service at the design rate)\n" + design.render();
 }
 
