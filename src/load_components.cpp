@@ -4,6 +4,7 @@
 #include <map>
 #include <set>
 
+#include "sifter/civil_date.hpp"
 #include "sifter/detail/load_parts.hpp"
 #include "sifter/json_source.hpp"
 #include "sifter/uncertainty.hpp"
@@ -272,6 +273,11 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     if (r.has("id") && c.id.empty() && r.member("id")->is_string())
       ctx.error(0, r.at("id"), "a component id that is not empty", "\"\"", "use the device's tag, e.g. \"PT-101A\"");
     c.model = r.string("model").value_or("");
+    if (auto since = r.string("in_service_since")) {  // for the in-service records
+      if (parse_iso_date(*since)) c.in_service_since = *since;
+      else ctx.error(0, r.at("in_service_since"), "a date written YYYY-MM-DD (ISO 8601)", "\"" + *since + "\"",
+                     "a real calendar day between 1900 and 2999, e.g. 2024-02-29");
+    }
     allow_descriptive(r);
     ElementFields own = read_element_fields(r);
     r.finish();

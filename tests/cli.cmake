@@ -49,3 +49,18 @@ add_test(NAME browser_renders_the_requirements_report
          COMMAND sh ${CMAKE_CURRENT_SOURCE_DIR}/browser_test.sh $<TARGET_FILE:sifter>
                  ${PROJECT_SOURCE_DIR}/examples/unit70_requirements.json ${CMAKE_CURRENT_BINARY_DIR}/browser-70 4 20)
 set_tests_properties(browser_renders_the_requirements_report PROPERTIES SKIP_RETURN_CODE 77 TIMEOUT 300)
+
+# In-service records of the example (invented): the failing solenoid model, the overdue test and
+# the changed verdict of SIF-401 (exit 1: a SIF falls short with the service rates).
+add_test(NAME example_unit40_service
+         COMMAND sifter service ${PROJECT_SOURCE_DIR}/examples/unit40.json ${PROJECT_SOURCE_DIR}/examples/records/unit40.json
+                 --as-of 2025-06-30)
+set_tests_properties(example_unit40_service PROPERTIES WILL_FAIL TRUE)
+add_test(NAME example_unit40_service_report
+         COMMAND sifter report ${PROJECT_SOURCE_DIR}/examples/unit40.json -o ${CMAKE_CURRENT_BINARY_DIR}/unit40_service.html
+                 --records ${PROJECT_SOURCE_DIR}/examples/records/unit40.json --as-of 2025-06-30)
+find_program(SIFTER_PYTHON3 python3 PATHS /usr/bin NO_DEFAULT_PATH)  # as schema.cmake finds it
+add_test(NAME service_icalendar_parses
+         COMMAND ${SIFTER_PYTHON3} ${CMAKE_CURRENT_SOURCE_DIR}/service_ics_test.py $<TARGET_FILE:sifter>
+                 ${PROJECT_SOURCE_DIR}/examples/unit40.json ${PROJECT_SOURCE_DIR}/examples/records/unit40.json
+                 ${CMAKE_CURRENT_BINARY_DIR}/service_ics)

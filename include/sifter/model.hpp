@@ -75,6 +75,7 @@ struct Component {
   std::optional<FieldData> field_data;
   std::string data_source;  ///< where the failure data come from (a safety manual, a database)
   bool dangerous_rates_stated = false;  ///< the project or its library states lambda_D (checked in loading)
+  std::string in_service_since;  ///< ISO 8601 date the device went into service, empty if not stated
   std::string pointer;  ///< where it is defined, e.g. "/components/3"
   std::optional<PriorUse> prior_use;        ///< prior-use claim, IEC 61511-1:2016 11.5.3
   std::optional<DataSource> source;         ///< the data source in full (data_source holds its one line)

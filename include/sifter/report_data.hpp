@@ -2,6 +2,7 @@
 /// What the report draws besides the verification results: the PFD(t) curve, the sweep of the
 /// proof-test intervals, the sensitivity ranking, the required line. Computed here, once, so
 /// that the writers only format.
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -12,6 +13,8 @@
 #include "sifter/verify.hpp"
 
 namespace sifter {
+
+struct ServiceResult;
 
 /// One row of the sensitivity ranking: the SIF's PFDavg with one input at its low and at its
 /// high value, the others as in the project. Filled by the what-if engine once it is wired.
@@ -40,6 +43,7 @@ struct ReportData {
   std::vector<SifReportData> sifs;  ///< one per ProjectResult::sifs, same order
   DeliverableData deliverable;      ///< document control, component data, requirements
   bool compact = false;             ///< register mode: figures and long tables left out
+  std::shared_ptr<const ServiceResult> service;  ///< in-service records assessed (report --records), or null
 };
 
 /// Options of a report run.

@@ -5,6 +5,7 @@
 #include <functional>
 #include <string>
 
+#include "sifter/civil_date.hpp"
 #include "sifter/model.hpp"
 
 namespace sifter::cli {
@@ -49,5 +50,10 @@ Action add_init_command(CLI::App& app);
 Action add_import_command(CLI::App& app);
 /// `sifter export PROJECT --csv-dir DIR`: a project as CSV tables.
 Action add_export_command(CLI::App& app);
+
+/// `sifter service PROJECT RECORDS`: in-service records against the design.
+Action add_service_command(CLI::App& app);
+/// The --as-of date: YYYY-MM-DD, or today (UTC; SOURCE_DATE_EPOCH when set) when empty.
+CivilDate as_of_arg(const std::string& text);
 
 }  // namespace sifter::cli

@@ -4,6 +4,7 @@
 #include <ctime>
 #include <filesystem>
 #include <memory>
+#include <optional>
 
 #include "commands.hpp"
 #include "sifter/diagnostics.hpp"
@@ -11,6 +12,7 @@
 #include "sifter/report/html.hpp"
 #include "sifter/report/markdown.hpp"
 #include "sifter/report/output_file.hpp"
+#include "sifter/service.hpp"
 #include "sifter/report_data.hpp"
 #include "sifter/verify.hpp"
 
@@ -24,6 +26,8 @@ struct ReportCommandOptions {
   int samples = 0;
   std::uint64_t seed = 1;
   bool compact = false;
+  std::string records;  ///< in-service records for the "service" section
+  std::string as_of;
 };
 
 enum class ReportFormat { kHtml, kMarkdown };
@@ -66,11 +70,19 @@ Action add_report_command(CLI::App& app) {
   cmd->add_option("--seed", opts->seed, "seed of the Monte Carlo (the same seed gives the same report)");
   cmd->add_flag("--compact", opts->compact,
                 "register mode: each SIF's tables without its curves and rankings, for long registers");
+  cmd->add_option("--records", opts->records, "in-service records (as for `sifter service`): adds a service section");
+  cmd->add_option("--as-of", opts->as_of, "the date of the records' review, YYYY-MM-DD (default: today, UTC)");
   return [opts]() {
-    report::refuse_overwriting_inputs({opts->output}, {opts->project});
+    report::refuse_overwriting_inputs({opts->output}, {opts->project, opts->records});
     const ReportFormat format = format_of(opts->output);
     const LoadedProject loaded = load_project_file(opts->project);
-    report::refuse_overwriting_inputs({opts->output}, loaded.inputs);
+    std::vector<std::string> inputs = loaded.inputs;
+    if (!opts->records.empty()) inputs.push_back(opts->records);
+    report::refuse_overwriting_inputs({opts->output}, inputs);
+    if (!opts->records.empty() && format == ReportFormat::kMarkdown)
+      throw UsageError("--records: the service section is written in the HTML report; name the output NAME.html");
+    std::optional<ServiceRecords> records;  // read before anything is computed
+    if (!opts->records.empty()) records = load_records_file(opts->records, loaded.project, as_of_arg(opts->as_of));
     VerifyOptions vo;
     vo.exact = !opts->no_exact;
     vo.samples = opts->samples;
@@ -80,7 +92,12 @@ Action add_report_command(CLI::App& app) {
     ro.date = run_date();
     ro.exact = vo.exact;
     ro.compact = opts->compact;
-    const ReportData data = build_report_data(loaded.project, result, ro);
+    ReportData data = build_report_data(loaded.project, result, ro);
+    if (records) {
+      ServiceOptions so;
+      so.verify = vo;
+      data.service = std::make_shared<const ServiceResult>(assess_service(loaded, *records, so));
+    }
     const std::string text = format == ReportFormat::kMarkdown ? report::render_markdown(result, data)
                                                                : report::render_html(result, data);
     report::write_output(opts->output, text);

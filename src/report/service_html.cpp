@@ -1,0 +1,98 @@
+// The report's "service" section: the plant in service against its design.
+#include "sifter/report/format.hpp"
+#include "sifter/report/service.hpp"
+#include "sifter/report/svg.hpp"
+#include "sifter/results.hpp"
+
+namespace sifter::report {
+namespace {
+
+std::string esc(const std::string& text) { return escape_html(text); }
+
+std::string verdict(const std::optional<bool>& meets) {
+  return !meets ? "not judged" : *meets ? "meets" : "falls short";
+}
+
+// A table: header cells, then rows; a cell starting with "!" is drawn as bad.
+std::string table(const std::string& caption, const std::vector<std::string>& header,
+                  const std::vector<std::vector<std::string>>& rows) {
+  std::string out = "<table>\n<caption>" + esc(caption) + "</caption>\n<thead><tr>";
+  for (const auto& h : header) out += "<th>" + esc(h) + "</th>";
+  out += "</tr></thead>\n<tbody>\n";
+  for (const auto& row : rows) {
+    out += "<tr>";
+    for (const auto& c : row)
+      out += !c.empty() && c[0] == '!' ? "<td class=\"bad\">" + esc(c.substr(1)) + "</td>" : "<td>" + esc(c) + "</td>";
+    out += "</tr>\n";
+  }
+  return out + "</tbody>\n</table>\n";
+}
+
+std::string models_table(const ServiceResult& r) {
+  std::vector<std::vector<std::string>> rows;
+  for (const auto& m : r.models) {
+    if (m.devices.empty()) continue;
+    const RateEstimate& e = m.estimate;
+    const std::string exceeds = e.exceeds_design_at_90 ? "!at 90%" : e.exceeds_design_at_70 ? "!at 70%" : "no";
+    rows.push_back({m.model, std::to_string(m.devices.size()), std::to_string(e.failures),
+                    plain(e.service_hours / kHoursPerYear), sci_or_dash(e.observed_per_hour),
+                    sci_or_dash(e.ci90_low_per_hour) + " .. " + sci_or_dash(e.ci90_high_per_hour),
+                    sci(e.design_per_hour), sci(e.posterior_mean_per_hour), sci(e.posterior_upper90_per_hour),
+                    exceeds});
+  }
+  return table("Observed lambda_DU per hour by component model, devices pooled; posterior with a prior of " +
+                   format_duration(Duration{r.prior_hours}) + " at the design rate",
+               {"model", "devices", "failures", "device-years", "observed", "90% interval", "design", "posterior mean",
+                "posterior 90%", "exceeds design"},
+               rows);
+}
+
+std::string sifs_table(const ServiceResult& r) {
+  std::vector<std::vector<std::string>> rows;
+  for (const auto& s : r.sifs) {
+    std::string restore = "-";
+    if (s.restore && s.restore->outcome == IntervalOutcome::kFound)
+      restore = "intervals at most " + format_duration(s.restore->longest);
+    else if (s.restore && s.restore->outcome == IntervalOutcome::kNone)
+      restore = "no interval restores it";
+    auto count = [](const CountCheck& c) {
+      std::string t = std::to_string(c.observed) + (c.expected ? " (expected " + plain(*c.expected) + ")" : "");
+      return c.flagged ? "!" + t : t;
+    };
+    rows.push_back({s.id, sci_or_dash(s.measure_design), sci_or_dash(s.measure_judged),
+                    (s.meets_judged == false ? "!" : "") + verdict(s.meets_judged), s.verdict_changed ? "!yes" : "no",
+                    restore, count(s.demands), count(s.spurious_trips),
+                    s.earliest_due ? (s.any_overdue ? "!" : "") + to_iso(*s.earliest_due) : "-"});
+  }
+  return table(
+      "SIFs re-verified with the posterior rates (the engine and judge of check); counts against the "
+      "predicted rates, flagged below " +
+          percent(r.flag_below),
+      {"SIF", "PFDavg / PFH design", "with service", "verdict", "changed", "restored by", "demands", "spurious trips",
+       "earliest due"},
+      rows);
+}
+
+std::string schedule_table(const ServiceResult& r) {
+  std::vector<std::vector<std::string>> rows;
+  for (const auto& row : r.schedule)
+    rows.push_back({row.component, row.last_test ? to_iso(*row.last_test) : "none",
+                    format_duration(Duration{row.interval_hours}), (row.overdue ? "!" : "") + to_iso(row.next_due),
+                    row.overdue ? "!overdue" : "due"});
+  return table("Proof-test schedule on " + to_iso(r.as_of),
+               {"component", "last test", "interval", "next due", "status"}, rows);
+}
+
+}  // namespace
+
+std::string service_html(const ServiceResult& r) {
+  std::string out = "<section class=\"service\" id=\"service\">\n<h2>In service up to " + esc(to_iso(r.as_of)) +
+                    "</h2>\n<p class=\"facts\">Records: " + esc(r.records_file) + ".</p>\n";
+  out += models_table(r) + sifs_table(r) + schedule_table(r);
+  out += "<ul>\n";
+  for (const auto& n : r.notes) out += "<li>" + esc(n) + "</li>\n";
+  out += "</ul>\n<aside class=\"caution\"><strong>Caution</strong><p>" + esc(kCaution) + "</p></aside>\n";
+  return out + "</section>\n";
+}
+
+}  // namespace sifter::report
