@@ -7,6 +7,7 @@
 #include <sstream>
 
 #include "sifter/detail/load_parts.hpp"
+#include "sifter/detail/load_pressure.hpp"
 #include "sifter/json_source.hpp"
 #include "sifter/plant_graph.hpp"
 #include "sifter/sha256.hpp"
@@ -162,7 +163,11 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.member("scenarios");
   top.member("lopa");
   detail::read_scenarios(ctx, *root, project);
+  top.member("pressure");
+  top.member("options");
+  detail::read_pressure(ctx, *root, project);
   top.finish();
+  if (ctx.problems.empty()) out.pressure = detail::screen_and_generate(ctx, project);
   if (ctx.problems.empty()) {
     const auto graph_problems = validate_project_graph(project);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);

@@ -4,6 +4,7 @@
 #include <set>
 
 #include "sifter/detail/load_parts.hpp"
+#include "sifter/detail/load_pressure.hpp"
 #include "sifter/json_source.hpp"
 #include "sifter/uncertainty.hpp"
 
@@ -200,6 +201,7 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     c.model = r.string("model").value_or("");
     allow_descriptive(r);
     ElementFields own = read_element_fields(r);
+    c.status = read_status(r);
     r.finish();
     if (!c.id.empty() && !seen.insert(c.id).second)
       ctx.error(0, r.at("id"), "a component id used once", "\"" + c.id + "\" a second time",

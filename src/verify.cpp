@@ -11,6 +11,7 @@
 
 #include "sifter/constraints.hpp"
 #include "sifter/cross_check.hpp"
+#include "sifter/maturity.hpp"
 #include "sifter/sif_uncertainty.hpp"
 #include "sifter/sil.hpp"
 #include "sifter/spurious.hpp"
@@ -498,6 +499,8 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
     out.scenarios = evaluate_scenarios(project, context);
     out.shared_devices = shared_devices(project);
   }
+  out.pressure = loaded.pressure;
+  mark_preliminary(project, out);
   refuse_figures_beyond_finite(project, out);
   return out;
 }

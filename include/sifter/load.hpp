@@ -5,6 +5,7 @@
 
 #include "sifter/diagnostics.hpp"
 #include "sifter/model.hpp"
+#include "sifter/pressure.hpp"
 
 namespace sifter {
 
@@ -17,6 +18,7 @@ struct LoadedProject {
   Project project;
   std::vector<Warning> warnings;
   std::string sha256;  ///< of the project file's bytes, for the report
+  std::optional<PressureScreening> pressure;  ///< the overpressure screening, when the project has one
 };
 
 /// Reads, validates and resolves a project file. Throws InputError carrying every problem

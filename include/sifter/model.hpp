@@ -6,6 +6,7 @@
 #include <string_view>
 #include <vector>
 
+#include "sifter/pressure_model.hpp"
 #include "sifter/quantity.hpp"
 
 namespace sifter {
@@ -55,6 +56,7 @@ struct Component {
   std::optional<RateUncertainty> uncertainty;
   std::optional<FieldData> field_data;
   std::string data_source;  ///< where the failure data come from (a safety manual, a database)
+  DataStatus status = DataStatus::kVendor;  ///< maturity of its data
   std::string pointer;  ///< where it is defined, e.g. "/components/3"
 };
 
@@ -177,6 +179,7 @@ struct Cause {
   Rate frequency;  ///< initiating event frequency (stored per hour; reported per year)
   std::vector<std::string> devices;
   std::vector<EnablingCondition> enabling;
+  DataStatus status = DataStatus::kVendor;  ///< maturity of the frequency
   std::string pointer;
 };
 
@@ -227,6 +230,8 @@ struct Scenario {
   std::vector<Modifier> modifiers;
   std::vector<Layer> layers;
   std::vector<NotCredited> not_credited;
+  bool generated = false;              ///< made by the overpressure screening
+  std::vector<std::string> estimates;  ///< the estimates a generated scenario rests on
   std::string pointer;
 };
 
@@ -245,6 +250,8 @@ struct Project {
   std::vector<Sif> sifs;
   RiskCriteria risk_criteria;
   std::vector<Scenario> scenarios;
+  std::optional<PressureSection> pressure;  ///< overpressure screening input
+  OptionsSection options;                   ///< alternatives to compare per scenario
 };
 
 /// The readable name of a role, a demand mode, a basis, a layer kind.

@@ -8,6 +8,7 @@
 
 #include "sifter/curve.hpp"
 #include "sifter/interval_curve.hpp"
+#include "sifter/options.hpp"
 #include "sifter/verify.hpp"
 
 namespace sifter {
@@ -35,6 +36,7 @@ struct ReportData {
   std::string tool_version;  ///< SIFTER_VERSION
   bool exact_requested = true;
   std::vector<SifReportData> sifs;  ///< one per ProjectResult::sifs, same order
+  std::vector<ScenarioOptions> options;  ///< the options of each scenario that lists some
 };
 
 /// Options of a report run.

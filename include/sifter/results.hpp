@@ -92,6 +92,9 @@ struct SifResult {
   double spurious_trip_rate_per_yr = 0.0;
   std::optional<double> mttf_spurious_yr;
   std::optional<UncertaintyResult> uncertainty;
+  // Data maturity: the verdict rests on these estimates (empty: it does not).
+  bool preliminary = false;
+  std::vector<std::string> preliminary_because;
 };
 
 }  // namespace sifter

@@ -7,6 +7,7 @@
 
 #include "commands.hpp"
 #include "sifter/load.hpp"
+#include "sifter/maturity.hpp"
 #include "sifter/report/csv.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/output_file.hpp"
@@ -23,6 +24,7 @@ struct CheckOptions {
   std::string csv_path;
   bool quiet = false;
   bool no_exact = false;
+  bool final = false;
   int samples = 0;
   std::uint64_t seed = 1;
   int threads = 0;
@@ -52,6 +54,8 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("--worksheet-csv", opts->worksheet_csv_path, "write the LOPA worksheet rows as CSV to FILE");
   cmd->add_option("--csv", opts->csv_path, "write one CSV row per SIF with its key results to FILE");
   cmd->add_flag("--quiet,-q", opts->quiet, "print no summary (errors and warnings still go to stderr)");
+  cmd->add_flag("--final", opts->final,
+                "fail (exit 1) while any verdict rests on a datum marked \"estimate\", and list them");
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
   cmd->add_option("--samples", opts->samples, "Monte Carlo samples per SIF on the uncertain failure data")
       ->check(CLI::Range(0, 10000000));
@@ -91,6 +95,11 @@ Action add_check_command(CLI::App& app) {
     if (csv_out) csv_out->commit();
     if (rows_out) rows_out->commit();
     if (summary_to_stdout) std::cout << summary;
+    if (opts->final) {
+      const auto preliminary = preliminary_verdicts(result);
+      for (const auto& line : preliminary) std::cerr << "sifter: preliminary, not final: " << line << "\n";
+      if (!preliminary.empty()) return static_cast<int>(ExitCode::kShortfall);
+    }
     return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
   };
 }

@@ -36,5 +36,7 @@ Action add_sensitivity_command(CLI::App& app);
 Action add_diff_command(CLI::App& app);
 /// `sifter report PROJECT -o FILE`: write the HTML or Markdown report.
 Action add_report_command(CLI::App& app);
+/// `sifter options PROJECT --scenario ID`: the alternatives for a scenario, ranked by cost.
+Action add_options_command(CLI::App& app);
 
 }  // namespace sifter::cli

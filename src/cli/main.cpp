@@ -25,6 +25,7 @@ int main(int argc, char** argv) {
   add(&sifter::cli::add_sensitivity_command);
   add(&sifter::cli::add_diff_command);
   add(&sifter::cli::add_report_command);
+  add(&sifter::cli::add_options_command);
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {

@@ -68,7 +68,8 @@ Action add_report_command(CLI::App& app) {
     ReportOptions ro;
     ro.date = run_date();
     ro.exact = vo.exact;
-    const ReportData data = build_report_data(loaded.project, result, ro);
+    ReportData data = build_report_data(loaded.project, result, ro);
+    data.options = compare_all_options(loaded, vo);
     const std::string text = format == ReportFormat::kMarkdown ? report::render_markdown(result, data)
                                                                : report::render_html(result, data);
     report::write_output(opts->output, text);

@@ -5,6 +5,7 @@
 #include "sifter/report/diagrams.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/html_style.hpp"
+#include "sifter/report/options_text.hpp"
 #include "sifter/report/svg.hpp"
 #include "sifter/report/tables.hpp"
 
@@ -217,6 +218,7 @@ std::string render_html(const ProjectResult& r, const ReportData& d) {
   for (std::size_t i = 0; i < r.sifs.size(); ++i)
     out += sif_section(r.sifs[i], i < d.sifs.size() ? d.sifs[i] : SifReportData{}, i);
   for (std::size_t i = 0; i < r.scenarios.size(); ++i) out += scenario_section(r.scenarios[i], i);
+  out += options_sections_html(d.options);
   out += closing(r, d);
   out += "<footer>Written by sifter " + esc(d.tool_version) + " on " + esc(d.date) + " from " + esc(r.file) +
          ". " + esc(kCaution) + "</footer>\n</body>\n</html>\n";

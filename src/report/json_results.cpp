@@ -94,6 +94,9 @@ json scenario_json(const ScenarioResult& s) {
   j["findings"] = json::array();
   for (const auto& f : s.findings) j["findings"].push_back({{"kind", to_string(f.kind)}, {"message", f.message}});
   j["assumptions"] = s.assumptions;
+  j["generated"] = s.generated;
+  j["preliminary"] = s.preliminary;
+  j["preliminary_because"] = s.preliminary_because;
   return all_finite(std::move(j));
 }
 
@@ -147,10 +150,35 @@ json sif_json(const SifResult& s) {
   } else {
     j["uncertainty"] = nullptr;
   }
+  j["preliminary"] = s.preliminary;
+  j["preliminary_because"] = s.preliminary_because;
   return all_finite(std::move(j));
 }
 
 namespace {
+
+// The overpressure screening: one entry per item a source reaches.
+json pressure_json(const PressureScreening& p) {
+  json j;
+  j["equipment"] = json::array();
+  for (const auto& e : p.equipment)
+    j["equipment"].push_back({{"id", e.id},
+                              {"title", e.title},
+                              {"max_pressure_barg", checked(e.max_pressure_barg, "max pressure")},
+                              {"mawp_barg", checked(e.mawp_barg, "mawp")},
+                              {"test_pressure_barg", checked(e.test_pressure_barg, "test pressure")},
+                              {"ratio", checked(e.ratio, "ratio")},
+                              {"category", to_string(e.category)},
+                              {"source", e.source},
+                              {"path", e.path},
+                              {"static_head_bar", checked(e.static_head_bar, "static head")},
+                              {"preliminary", e.preliminary()},
+                              {"preliminary_because", e.estimates}});
+  j["not_reached"] = p.not_reached;
+  j["generated_scenarios"] = p.generated;
+  j["missing_for_scenarios"] = p.missing;
+  return j;
+}
 
 // Everything but the SIFs and the scenarios.
 json results_head(const ProjectResult& r) {
@@ -168,6 +196,7 @@ json results_head(const ProjectResult& r) {
   j["warnings"] = json::array();
   for (const auto& w : r.warnings) j["warnings"].push_back({{"where", w.where}, {"message", w.message}});
   j["caution"] = kCaution;
+  if (r.pressure) j["pressure"] = pressure_json(*r.pressure);
   return all_finite(std::move(j));
 }
 

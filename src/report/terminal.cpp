@@ -1,6 +1,7 @@
 // The terminal summary: one block per SIF, then warnings, shared devices and the caution.
 #include "sifter/report/terminal.hpp"
 
+#include "sifter/report/pressure_text.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/report/worksheet.hpp"
@@ -90,6 +91,7 @@ std::string render_terminal(const ProjectResult& r) {
   out += "\n";
   for (const auto& s : r.scenarios) out += render_worksheet(s) + "\n";
   for (const auto& s : r.sifs) out += render_sif(s) + "\n";
+  out += render_pressure_text(r);
   if (!r.shared_components.empty()) {
     out += "Components shared between SIFs (check their independence)\n";
     for (const auto& c : r.shared_components) {
