@@ -5,8 +5,11 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <cstdio>
 #include <fstream>
 #include <sstream>
+
+#include <nlohmann/json.hpp>
 
 #include "sifter/load.hpp"
 #include "sifter/maturity.hpp"
@@ -18,6 +21,13 @@ namespace {
 
 constexpr double kRelTol = 1e-12;
 constexpr double kHandTol = 1e-6;  // values worked by hand to seven figures
+
+/// The simplified engine alone: the exact cross-check is not what these tests specify.
+VerifyOptions without_exact() {
+  VerifyOptions o;
+  o.exact = false;
+  return o;
+}
 
 LoadedProject load_inline(const std::string& text) {
   return load_project_text(text, "inline.json", std::string(SIFTER_SOURCE_DIR) + "/examples");
@@ -204,7 +214,7 @@ TEST(PressureExample, AnEstimatedShutoffMarksTheItemsPreliminaryAndGeneratesNoth
 
 TEST(PressureExample, AGeneratedScenarioGivesTheSameLopaResultAsTheSameScenarioWrittenByHand) {
   const auto loaded = load_example("unit70_booster.json");
-  const auto generated = verify_project(loaded, VerifyOptions{false});
+  const auto generated = verify_project(loaded, without_exact());
   // The same scenario written by hand in the project file, without the pressure section.
   std::ifstream in(std::string(SIFTER_SOURCE_DIR) + "/examples/unit70_booster.json");
   std::stringstream text;
@@ -216,7 +226,7 @@ TEST(PressureExample, AGeneratedScenarioGivesTheSameLopaResultAsTheSameScenarioW
       "consequences": [{"category": "safety", "severity": 3}],
       "causes": [{"id": "blocked-outlet", "frequency": "0.1/yr"}],
       "layers": [{"sif": "SIF-701"}]}])");
-  const auto by_hand = verify_project(load_inline(j.dump()), VerifyOptions{false});
+  const auto by_hand = verify_project(load_inline(j.dump()), without_exact());
   ASSERT_EQ(generated.scenarios.size(), 1u);
   ASSERT_EQ(by_hand.scenarios.size(), 1u);
   const auto& a = generated.scenarios[0];
@@ -237,7 +247,7 @@ TEST(Maturity, AnEstimateInASourceMarksTheItemItsScenarioAndTheSifItFeeds) {
   nlohmann::json j = nlohmann::json::parse(text.str());
   j["pressure"]["sources"][0]["status"] = "estimate";
   const auto loaded = load_inline(j.dump());
-  const auto r = verify_project(loaded, VerifyOptions{false});
+  const auto r = verify_project(loaded, without_exact());
   EXPECT_TRUE(r.pressure->equipment[1].preliminary());
   ASSERT_EQ(r.scenarios.size(), 1u);
   EXPECT_TRUE(r.scenarios[0].preliminary);
@@ -253,7 +263,7 @@ class ExampleOptions : public ::testing::Test {
  protected:
   static void SetUpTestSuite() {
     options_ = new ScenarioOptions(
-        compare_options(load_example("unit70_booster.json"), "OP-M-702-by-P-701", VerifyOptions{false}));
+        compare_options(load_example("unit70_booster.json"), "OP-M-702-by-P-701", without_exact()));
   }
   static void TearDownTestSuite() { delete options_; }
   static const OptionResult& option(const std::string& id) {
@@ -323,7 +333,7 @@ TEST(Options, AReRateZeroPointOneBarShortLeavesTheScenario) {
   j["options"]["alternatives"] = nlohmann::json::array(
       {{{"scenario", "OP-M-702-by-P-701"}, {"id", "just"}, {"kind", "rerate"}, {"new_mawp", just}},
        {{"scenario", "OP-M-702-by-P-701"}, {"id", "short"}, {"kind", "rerate"}, {"new_mawp", short_}}});
-  const auto r = compare_options(load_inline(j.dump()), "OP-M-702-by-P-701", VerifyOptions{false});
+  const auto r = compare_options(load_inline(j.dump()), "OP-M-702-by-P-701", without_exact());
   ASSERT_EQ(r.options.size(), 2u);
   EXPECT_EQ(r.options[0].id, "just");
   EXPECT_TRUE(r.options[0].feasible);
