@@ -42,10 +42,10 @@ class QuantityReader {
       basis_ = p->written;
       basis_at_ = r.at(key);
     } else if (*basis_ != p->written) {
-      const char* first = *basis_ == PressureBasis::kGauge ? "gauge" : "absolute";
-      const char* now = p->written == PressureBasis::kGauge ? "gauge" : "absolute";
-      ctx_.error(r.source(), r.at(key), std::string("a ") + first + " pressure, as at " + basis_at_,
-                 std::string("a ") + now + " pressure", kOneBasisHint);
+      const char* first = *basis_ == PressureBasis::kGauge ? "a gauge" : "an absolute";
+      const char* now = p->written == PressureBasis::kGauge ? "a gauge" : "an absolute";
+      ctx_.error(r.source(), r.at(key), std::string(first) + " pressure, as at " + basis_at_,
+                 std::string(now) + " pressure", kOneBasisHint);
     }
     return p;
   }
