@@ -5,6 +5,8 @@
 
 #include "sifter/lopa.hpp"
 #include "sifter/report/format.hpp"
+#include "sifter/report/terminal.hpp"
+#include "sifter/report/text_table.hpp"
 #include "sifter/results.hpp"
 
 namespace sifter::report {
@@ -18,14 +20,22 @@ std::string money(double v) {
 
 std::string yes_no(bool v) { return v ? "yes" : "no"; }
 
+// Prose lines fit an 80-column terminal: the text is wrapped so that indent + text <= 78.
+constexpr std::size_t kLineWidth = 78;
+std::string fitted(const std::string& text, const std::string& indent) {
+  return wrap(text, kLineWidth - indent.size(), indent);
+}
+
 }  // namespace
 
 std::string render_options_text(const ScenarioOptions& o) {
-  std::string out = "Options for scenario " + o.scenario + "\n  " + o.title + "\n";
+  std::string out = "Options for scenario " + o.scenario + "\n" + fitted(o.title, "  ");
   out += "  target " + format_number(o.target_frequency_per_yr) + "/yr; without any SIF " +
          format_number(o.frequency_unprotected_per_yr) + "/yr\n";
-  out += "  lifecycle cost = capex + present value over " + format_number(o.mission_years) + " yr at " +
-         format_number(100.0 * o.discount_rate) + " %/yr of annual costs, proof tests, spurious trips\n\n";
+  out += fitted("lifecycle cost = capex + present value over " + format_number(o.mission_years) + " yr at " +
+                    format_number(100.0 * o.discount_rate) + " %/yr of annual costs, proof tests, spurious trips",
+                "  ") +
+         "\n";
   char line[160];
   std::snprintf(line, sizeof line, "  %-4s %-18s %-7s %-8s %-9s %14s\n", "rank", "option", "kind", "feasible",
                 "tolerable", "lifecycle cost");
@@ -39,16 +49,17 @@ std::string render_options_text(const ScenarioOptions& o) {
   }
   out += "\n";
   for (const auto& r : o.options) {
-    out += "  " + r.id + ": capex " + money(r.capex) + ", annual " + money(r.pv_annual_cost) + ", tests " +
-           money(r.pv_test_cost) + ", trips " + money(r.pv_trip_cost) + " (present values)\n";
-    if (!r.reason.empty()) out += "    " + std::string(r.feasible ? "" : "infeasible: ") + r.reason + "\n";
+    out += fitted(r.id + ": capex " + money(r.capex) + ", annual " + money(r.pv_annual_cost) + ", tests " +
+                      money(r.pv_test_cost) + ", trips " + money(r.pv_trip_cost) + " (present values)",
+                  "  ");
+    if (!r.reason.empty()) out += fitted(std::string(r.feasible ? "" : "infeasible: ") + r.reason, "    ");
     if (r.preliminary) {
-      out += "    PRELIMINARY, rests on:";
-      for (const auto& e : r.preliminary_because) out += " " + e + ";";
-      out += "\n";
+      std::string rests = "PRELIMINARY, rests on:";
+      for (const auto& e : r.preliminary_because) rests += " " + e + ";";
+      out += fitted(rests, "    ");
     }
   }
-  out += "\n" + std::string(kCaution) + "\n";
+  out += "\n" + wrapped_caution(kLineWidth);
   return out;
 }
 
