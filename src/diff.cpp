@@ -442,6 +442,7 @@ ProjectDiff diff_projects(const Project& old_project, const ProjectResult& old_r
       for (std::size_t i = span.first; i < span.second; ++i) out.project_inputs.push_back(component_changes[i]);
   order(out.sifs);
   order(out.scenarios);
+  out.equipment = diff_equipment(old_result, new_result);
   return out;
 }
 

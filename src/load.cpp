@@ -9,6 +9,7 @@
 #include "sifter/detail/load_parts.hpp"
 #include "sifter/detail/load_reuse.hpp"
 #include "sifter/json_comments.hpp"
+#include "sifter/detail/load_pressure.hpp"
 #include "sifter/json_source.hpp"
 #include "sifter/plant_graph.hpp"
 #include "sifter/sha256.hpp"
@@ -173,8 +174,12 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.member("lopa");
   detail::read_scenarios(ctx, *root, project);
   detail::finish_reuse(ctx, reuse, project);
+  top.member("pressure");
+  top.member("options");
+  detail::read_pressure(ctx, *root, project);
   top.finish();
   detail::check_project_plausibility(ctx, project);
+  if (ctx.problems.empty()) out.pressure = detail::screen_and_generate(ctx, project);
   if (ctx.problems.empty()) {
     const auto graph_problems = validate_project_graph(project, &out.graph);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);

@@ -6,6 +6,7 @@
 
 #include "sifter/civil_date.hpp"
 #include "sifter/detail/load_parts.hpp"
+#include "sifter/detail/load_pressure.hpp"
 #include "sifter/json_source.hpp"
 #include "sifter/uncertainty.hpp"
 
@@ -280,6 +281,7 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     }
     allow_descriptive(r);
     ElementFields own = read_element_fields(r);
+    c.status = read_status(r);
     r.finish();
     if (!c.id.empty() && !seen.insert(c.id).second)
       ctx.error(0, r.at("id"), "a component id used once", "\"" + c.id + "\" a second time",

@@ -3,6 +3,7 @@
 #include <unordered_set>
 
 #include "sifter/detail/load_parts.hpp"
+#include "sifter/detail/load_pressure.hpp"
 
 namespace sifter::detail {
 namespace {
@@ -196,6 +197,7 @@ void read_causes(LoadContext& ctx, ObjectReader& r, Scenario& s) {
                           .value_or(Rate{});
     cause.devices = c.strings("devices");
     cause.enabling = read_enabling(ctx, c);
+    cause.status = read_status(c);
     c.allow({"note"});
     c.finish();
     s.causes.push_back(std::move(cause));

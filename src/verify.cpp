@@ -14,6 +14,7 @@
 #include "sifter/plausibility.hpp"
 #include "sifter/probability_cap.hpp"
 #include "sifter/requirements.hpp"
+#include "sifter/maturity.hpp"
 #include "sifter/sif_uncertainty.hpp"
 #include "sifter/sil.hpp"
 #include "sifter/spurious.hpp"
@@ -560,6 +561,8 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
     out.scenarios = evaluate_scenarios(project, context);
     out.shared_devices = shared_devices(project);
   }
+  out.pressure = loaded.pressure;
+  mark_preliminary(project, out);
   refuse_figures_beyond_finite(project, out);
   attach_sif_warnings(project, out.warnings, out.sifs);
   return out;

@@ -64,3 +64,23 @@ add_test(NAME service_icalendar_parses
          COMMAND ${SIFTER_PYTHON3} ${CMAKE_CURRENT_SOURCE_DIR}/service_ics_test.py $<TARGET_FILE:sifter>
                  ${PROJECT_SOURCE_DIR}/examples/unit40.json ${PROJECT_SOURCE_DIR}/examples/records/unit40.json
                  ${CMAKE_CURRENT_BINARY_DIR}/service_ics)
+
+# The overpressure example: estimate (revision A) and vendor curve (revision B).
+add_test(NAME example_unit70_estimate_check
+         COMMAND sifter check ${PROJECT_SOURCE_DIR}/examples/unit70_booster_estimate.json)
+add_test(NAME example_unit70_estimate_is_not_final
+         COMMAND sifter check --final ${PROJECT_SOURCE_DIR}/examples/unit70_booster_estimate.json)
+set_tests_properties(example_unit70_estimate_is_not_final PROPERTIES WILL_FAIL TRUE)
+add_test(NAME example_unit70_vendor_curve_falls_short
+         COMMAND sifter check ${PROJECT_SOURCE_DIR}/examples/unit70_booster.json)
+set_tests_properties(example_unit70_vendor_curve_falls_short PROPERTIES WILL_FAIL TRUE)
+add_test(NAME example_unit70_options
+         COMMAND sifter options ${PROJECT_SOURCE_DIR}/examples/unit70_booster.json --scenario OP-M-702-by-P-701)
+add_test(NAME example_unit70_diff_moves_the_skid
+         COMMAND sifter diff ${PROJECT_SOURCE_DIR}/examples/unit70_booster_estimate.json
+                 ${PROJECT_SOURCE_DIR}/examples/unit70_booster.json)
+set_tests_properties(example_unit70_diff_moves_the_skid PROPERTIES
+                     PASS_REGULAR_EXPRESSION "M-702 MOVED: none at 19.00 barg \\(preliminary\\) -> leak_possible at 22.11 barg")
+add_test(NAME example_unit70_report
+         COMMAND sifter report ${PROJECT_SOURCE_DIR}/examples/unit70_booster.json -o ${CMAKE_CURRENT_BINARY_DIR}/unit70.html)
+set_tests_properties(example_unit70_report PROPERTIES WILL_FAIL TRUE)

@@ -40,6 +40,12 @@ SEMANTIC = {
     "unknown_component": "a reference into components",
     "unknown_model": "a reference into the libraries",
     "unknown_sif_in_layers": "a reference into sifs",
+    "pressure_connection_cycle": "a cycle across the connections",
+    "pressure_connection_to_unknown_id": "a reference into sources and equipment",
+    "pressure_curve_rising_head": "one curve point against the one before",
+    "pressure_density_zero": "the value inside a quantity string (zero is not positive)",
+    "pressure_gauge_and_absolute_mixed": "one pressure's basis against another's",
+    "pressure_test_below_mawp": "one pressure against another",
     "vote_n_differs": "the vote's N against the number of channels",
     # Plausibility decided in loading (DEVELOPERS.md, "Never silently wrong").
     "applies_to_unknown_category": "a reference into risk_criteria",

@@ -68,6 +68,20 @@ struct FunctionDiff {
   }
 };
 
+/// How the overpressure verdict of one equipment item moved between the revisions.
+struct EquipmentDiff {
+  std::string id;
+  std::optional<std::string> old_category;  ///< empty: not screened in that revision
+  std::optional<std::string> new_category;
+  std::optional<double> old_max_pressure_barg;
+  std::optional<double> new_max_pressure_barg;
+  bool old_preliminary = false;
+  bool new_preliminary = false;
+};
+
+/// The items whose category, maximum pressure or maturity differ, in the new revision's order.
+std::vector<EquipmentDiff> diff_equipment(const ProjectResult& old_result, const ProjectResult& new_result);
+
 /// Two revisions compared.
 struct ProjectDiff {
   std::string old_file;
@@ -77,6 +91,7 @@ struct ProjectDiff {
   std::vector<FunctionDiff> sifs;
   std::vector<FunctionDiff> scenarios;
   std::vector<InputChange> project_inputs;  ///< defaults, basis, risk criteria, components no SIF uses
+  std::vector<EquipmentDiff> equipment;     ///< overpressure verdicts that moved
   /// Some SIF or scenario verdict worsened.
   [[nodiscard]] bool any_worsened() const;
 };

@@ -6,6 +6,7 @@
 
 #include "sifter/diagnostics.hpp"
 #include "sifter/model.hpp"
+#include "sifter/pressure.hpp"
 
 namespace sifter {
 
@@ -24,6 +25,7 @@ struct LoadedProject {
   /// The graph the loader validated, of the project as loaded; verify_project reuses it.
   /// Reset it when changing the structure (SIFs, groups, channels) of `project`.
   std::shared_ptr<const PlantGraph> graph;
+  std::optional<PressureScreening> pressure;  ///< the overpressure screening, when the project has one
 };
 
 /// Reads, validates and resolves a project file. Throws InputError carrying every problem

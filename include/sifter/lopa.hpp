@@ -186,6 +186,10 @@ struct ScenarioResult {
   std::vector<Finding> findings;
   std::vector<std::string> assumptions;
   std::vector<WorksheetRow> worksheet;
+  bool generated = false;  ///< made by the overpressure screening
+  // Data maturity: the verdict rests on these estimates (empty: it does not).
+  bool preliminary = false;
+  std::vector<std::string> preliminary_because;
 };
 
 /// Evaluates one scenario (CCPS 2001): per consequence, frequency without the SIF = sum over

@@ -6,6 +6,7 @@
 #include <string_view>
 #include <vector>
 
+#include "sifter/pressure_model.hpp"
 #include "sifter/quantity.hpp"
 
 namespace sifter {
@@ -76,6 +77,7 @@ struct Component {
   std::string data_source;  ///< where the failure data come from (a safety manual, a database)
   bool dangerous_rates_stated = false;  ///< the project or its library states lambda_D (checked in loading)
   std::string in_service_since;  ///< ISO 8601 date the device went into service, empty if not stated
+  DataStatus status = DataStatus::kVendor;  ///< maturity of its data
   std::string pointer;  ///< where it is defined, e.g. "/components/3"
   std::optional<PriorUse> prior_use;        ///< prior-use claim, IEC 61511-1:2016 11.5.3
   std::optional<DataSource> source;         ///< the data source in full (data_source holds its one line)
@@ -234,6 +236,7 @@ struct Cause {
   Rate frequency;  ///< initiating event frequency (stored per hour; reported per year)
   std::vector<std::string> devices;
   std::vector<EnablingCondition> enabling;
+  DataStatus status = DataStatus::kVendor;  ///< maturity of the frequency
   std::string pointer;
 };
 
@@ -286,6 +289,8 @@ struct Scenario {
   std::vector<Modifier> modifiers;
   std::vector<Layer> layers;
   std::vector<NotCredited> not_credited;
+  bool generated = false;              ///< made by the overpressure screening
+  std::vector<std::string> estimates;  ///< the estimates a generated scenario rests on
   std::string pointer;
 };
 
@@ -316,6 +321,8 @@ struct Project {
   RiskCriteria risk_criteria;
   std::vector<Scenario> scenarios;
   std::optional<DocumentControl> document;
+  std::optional<PressureSection> pressure;  ///< overpressure screening input
+  OptionsSection options;                   ///< alternatives to compare per scenario
 };
 
 /// The readable name of a role, a demand mode, a basis, a layer kind.

@@ -10,6 +10,7 @@
 #include "sifter/curve.hpp"
 #include "sifter/deliverable.hpp"
 #include "sifter/interval_curve.hpp"
+#include "sifter/options.hpp"
 #include "sifter/verify.hpp"
 
 namespace sifter {
@@ -44,6 +45,7 @@ struct ReportData {
   DeliverableData deliverable;      ///< document control, component data, requirements
   bool compact = false;             ///< register mode: figures and long tables left out
   std::shared_ptr<const ServiceResult> service;  ///< in-service records assessed (report --records), or null
+  std::vector<ScenarioOptions> options;  ///< the options of each scenario that lists some
 };
 
 /// Options of a report run.

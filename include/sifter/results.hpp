@@ -127,6 +127,9 @@ struct SifResult {
   std::optional<double> response_time_limit_s;  ///< fraction x process safety time; empty without one
   std::vector<ResponseTimeStep> response_budget;  ///< the subsystems in signal order
   std::vector<RequirementCheck> requirement_checks;
+  // Data maturity: the verdict rests on these estimates (empty: it does not).
+  bool preliminary = false;
+  std::vector<std::string> preliminary_because;
 };
 
 }  // namespace sifter

@@ -61,6 +61,7 @@ struct ProjectResult {
   std::vector<SharedDevice> shared_devices;  ///< devices several SIFs or scenarios rely on
   RiskCriteria risk_criteria;
   std::vector<Warning> warnings;
+  std::optional<PressureScreening> pressure;  ///< the overpressure screening, when there is one
   /// Every judged SIF meets its target and every scenario its tolerable frequency.
   [[nodiscard]] bool all_met() const;
 };

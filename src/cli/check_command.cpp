@@ -8,6 +8,7 @@
 #include "commands.hpp"
 #include "sifter/load.hpp"
 #include "sifter/printable.hpp"
+#include "sifter/maturity.hpp"
 #include "sifter/report/csv.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/output_file.hpp"
@@ -30,6 +31,7 @@ struct CheckOptions {
   bool quiet = false;
   bool no_exact = false;
   bool pretty = false;
+  bool final = false;
   int samples = 0;
   std::uint64_t seed = 1;
   int threads = 0;
@@ -103,6 +105,11 @@ int run_check(const CheckOptions& options) {
     for (const auto& w : result.warnings)
       std::cerr << "sifter: warning: " << escape_controls(w.where) << ": " << escape_controls(w.message) << "\n";
   }
+  if (options.final) {
+    const auto preliminary = preliminary_verdicts(result);
+    for (const auto& line : preliminary) std::cerr << "sifter: preliminary, not final: " << escape_controls(line) << "\n";
+    if (!preliminary.empty()) return static_cast<int>(ExitCode::kShortfall);
+  }
   return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
 }
 }  // namespace
@@ -123,6 +130,8 @@ Action add_check_command(CLI::App& app) {
                     " SIFs)");
   cmd->add_flag("--pretty", opts->pretty, "indent the --json output for reading (compact by default)");
   cmd->add_flag("--quiet,-q", opts->quiet, "print no summary (errors and warnings still go to stderr)");
+  cmd->add_flag("--final", opts->final,
+                "fail (exit 1) while any verdict rests on a datum marked \"estimate\", and list them");
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
   cmd->add_option("--samples", opts->samples, "Monte Carlo samples per SIF on the uncertain failure data")
       ->check(CLI::Range(0, 10000000));

@@ -55,5 +55,7 @@ Action add_export_command(CLI::App& app);
 Action add_service_command(CLI::App& app);
 /// The --as-of date: YYYY-MM-DD, or today (UTC; SOURCE_DATE_EPOCH when set) when empty.
 CivilDate as_of_arg(const std::string& text);
+/// `sifter options PROJECT --scenario ID`: the alternatives for a scenario, ranked by cost.
+Action add_options_command(CLI::App& app);
 
 }  // namespace sifter::cli

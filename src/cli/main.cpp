@@ -31,6 +31,7 @@ int main(int argc, char** argv) {
   add(&sifter::cli::add_export_command);
   add(&sifter::cli::add_srs_command);
   add(&sifter::cli::add_service_command);
+  add(&sifter::cli::add_options_command);
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {

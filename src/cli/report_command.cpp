@@ -98,6 +98,7 @@ Action add_report_command(CLI::App& app) {
       so.verify = vo;
       data.service = std::make_shared<const ServiceResult>(assess_service(loaded, *records, so));
     }
+    data.options = compare_all_options(loaded, vo);
     const std::string text = format == ReportFormat::kMarkdown ? report::render_markdown(result, data)
                                                                : report::render_html(result, data);
     report::write_output(opts->output, text);

@@ -1,6 +1,7 @@
 // Terminal text and JSON of `sifter diff`.
 #include "sifter/report/diff_text.hpp"
 
+#include "sifter/report/pressure_text.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/text_table.hpp"
@@ -116,6 +117,7 @@ std::string render_diff(const ProjectDiff& diff) {
       t.add_row({c.pointer, c.what, value_text(c.old_value, c.unit), value_text(c.new_value, c.unit)});
     out += t.render("    ") + "\n";
   }
+  out += render_equipment_diff(diff.equipment);
   if (!unchanged.empty()) out += wrap("Unchanged: " + unchanged, 92, "") + "\n";
   auto count = [](int n, const char* one, const char* many) { return std::to_string(n) + " " + (n == 1 ? one : many); };
   out += "Summary: " + count(changed_sifs, "SIF", "SIFs") + " and " + count(changed_scenarios, "scenario", "scenarios") +
@@ -134,6 +136,7 @@ json diff_json(const ProjectDiff& diff) {
   j["scenarios"] = json::array();
   for (const auto& d : diff.scenarios) j["scenarios"].push_back(function_json(d));
   j["project_inputs"] = inputs_json(diff.project_inputs);
+  j["equipment"] = equipment_diff_json(diff.equipment);
   j["caution"] = kCaution;
   return j;
 }

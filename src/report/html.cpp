@@ -7,6 +7,7 @@
 #include "sifter/report/html_deliverable.hpp"
 #include "sifter/report/html_style.hpp"
 #include "sifter/report/service.hpp"
+#include "sifter/report/options_text.hpp"
 #include "sifter/report/svg.hpp"
 #include "sifter/report/tables.hpp"
 
@@ -223,6 +224,7 @@ std::string render_html(const ProjectResult& r, const ReportData& d) {
   for (std::size_t i = 0; i < r.scenarios.size(); ++i) out += scenario_section(r.scenarios[i], i);
   out += component_data_html(d.deliverable);
   if (d.service) out += service_html(*d.service);
+  out += options_sections_html(d.options);
   out += closing(r, d);
   out += "<footer>Written by sifter " + esc(d.tool_version) + " on " + esc(d.date) + " from " + esc(r.file) +
          ". " + esc(kCaution) + "</footer>\n" + print_footer_html(d.deliverable, "SIL verification report") + "</body>\n</html>\n";

@@ -170,6 +170,9 @@ void emit_scenario(W& w, const ScenarioResult& s) {
   }
   w.end_array();
   w.key("assumptions").value(s.assumptions);
+  w.key("generated").value(s.generated);
+  w.key("preliminary").value(s.preliminary);
+  w.key("preliminary_because").value(s.preliminary_because);
   w.end_object();
 }
 
@@ -255,6 +258,36 @@ void emit_sif(W& w, const SifResult& s) {
     w.end_object();
   }
   w.end_array();
+  w.key("preliminary").value(s.preliminary);
+  w.key("preliminary_because").value(s.preliminary_because);
+  w.end_object();
+}
+
+// The overpressure screening: one entry per item a source reaches.
+template <typename W>
+void emit_pressure(W& w, const PressureScreening& p) {
+  w.key("pressure").begin_object();
+  w.key("equipment").begin_array();
+  for (const auto& e : p.equipment) {
+    w.begin_object();
+    w.key("id").value(e.id);
+    w.key("title").value(e.title);
+    w.key("max_pressure_barg").number(e.max_pressure_barg, "max pressure");
+    w.key("mawp_barg").number(e.mawp_barg, "mawp");
+    w.key("test_pressure_barg").number(e.test_pressure_barg, "test pressure");
+    w.key("ratio").number(e.ratio, "ratio");
+    w.key("category").value(to_string(e.category));
+    w.key("source").value(e.source);
+    w.key("path").value(e.path);
+    w.key("static_head_bar").number(e.static_head_bar, "static head");
+    w.key("preliminary").value(e.preliminary());
+    w.key("preliminary_because").value(e.estimates);
+    w.end_object();
+  }
+  w.end_array();
+  w.key("not_reached").value(p.not_reached);
+  w.key("generated_scenarios").value(p.generated);
+  w.key("missing_for_scenarios").value(p.missing);
   w.end_object();
 }
 
@@ -286,6 +319,7 @@ void emit_results(W& w, const ProjectResult& r) {
   for (const auto& x : r.warnings) w.begin_object().key("where").value(x.where).key("message").value(x.message).end_object();
   w.end_array();
   w.key("caution").value(kCaution);
+  if (r.pressure) emit_pressure(w, *r.pressure);
   w.key("sifs").begin_array();
   for (const auto& s : r.sifs) emit_sif(w, s);
   w.end_array();

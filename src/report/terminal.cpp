@@ -5,6 +5,7 @@
 #include <algorithm>
 #include <set>
 
+#include "sifter/report/pressure_text.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/tables.hpp"
 #include "sifter/report/text_table.hpp"
@@ -233,6 +234,7 @@ std::string render_terminal(const ProjectResult& r, const TerminalOptions& optio
     for (const auto& s : r.sifs)
       if (!filtered || chosen.count(s.id)) out += render_sif(s, width) + "\n";
   }
+  out += render_pressure_text(r);
   std::vector<std::pair<std::string, std::vector<std::string>>> shared;
   for (const auto& c : r.shared_components) shared.emplace_back(c.component, c.sifs);
   out += users_list("Components shared between SIFs (check their independence)", shared, width);

@@ -1,0 +1,21 @@
+#pragma once
+/// The terminal's overpressure screening and preliminary-verdict sections.
+#include <string>
+
+#include <nlohmann/json.hpp>
+
+#include "sifter/diff.hpp"
+#include "sifter/verify.hpp"
+
+namespace sifter::report {
+
+/// The screening table (item, max pressure, MAWP, ratio, category, source, path) and the list
+/// of verdicts resting on estimates; empty when the project has neither.
+std::string render_pressure_text(const ProjectResult& result);
+
+/// The diff's "Overpressure verdicts" section; empty when none moved.
+std::string render_equipment_diff(const std::vector<EquipmentDiff>& items);
+/// The same as JSON: [{id, old_category, new_category, old_max_pressure_barg, ...}].
+nlohmann::json equipment_diff_json(const std::vector<EquipmentDiff>& items);
+
+}  // namespace sifter::report

@@ -1,0 +1,79 @@
+// The overpressure screening and the preliminary verdicts, for the terminal.
+#include "sifter/report/pressure_text.hpp"
+
+#include <cstdio>
+
+#include "sifter/maturity.hpp"
+
+namespace sifter::report {
+
+std::string render_pressure_text(const ProjectResult& r) {
+  std::string out;
+  if (r.pressure) {
+    out += "Overpressure screening (blocked outlet, no friction credit)\n";
+    char line[200];
+    std::snprintf(line, sizeof line, "  %-10s %10s %10s %6s %-16s %s\n", "item", "max barg", "MAWP barg", "ratio",
+                  "category", "path");
+    out += line;
+    for (const auto& e : r.pressure->equipment) {
+      std::string path;
+      for (const auto& p : e.path) path += (path.empty() ? "" : ">") + p;
+      std::snprintf(line, sizeof line, "  %-10.10s %10.2f %10.2f %6.3f %-16s %s%s\n", e.id.c_str(), e.max_pressure_barg,
+                    e.mawp_barg, e.ratio, to_string(e.category).c_str(), path.c_str(), e.preliminary() ? " *" : "");
+      out += line;
+    }
+    for (const auto& id : r.pressure->not_reached) out += "  " + id + ": no source reaches it\n";
+    for (const auto& id : r.pressure->generated) out += "  generated scenario " + id + "\n";
+    out += "\n";
+  }
+  const auto preliminary = preliminary_verdicts(r);
+  if (!preliminary.empty()) {
+    out += "PRELIMINARY verdicts (rest on estimates; `check --final` refuses them)\n";
+    for (const auto& p : preliminary) out += "  * " + p + "\n";
+    out += "\n";
+  }
+  return out;
+}
+
+}  // namespace sifter::report
+
+namespace sifter::report {
+namespace {
+
+std::string category_text(const std::optional<std::string>& category, const std::optional<double>& p, bool preliminary) {
+  if (!category) return "not screened";
+  char buf[96];
+  std::snprintf(buf, sizeof buf, "%s at %.2f barg%s", category->c_str(), *p, preliminary ? " (preliminary)" : "");
+  return buf;
+}
+
+}  // namespace
+
+std::string render_equipment_diff(const std::vector<EquipmentDiff>& items) {
+  if (items.empty()) return "";
+  std::string out = "Overpressure verdicts\n";
+  for (const auto& d : items) {
+    const bool moved = d.old_category != d.new_category;
+    out += "  " + d.id + (moved ? " MOVED: " : ": ") +
+           category_text(d.old_category, d.old_max_pressure_barg, d.old_preliminary) + " -> " +
+           category_text(d.new_category, d.new_max_pressure_barg, d.new_preliminary) + "\n";
+  }
+  return out + "\n";
+}
+
+nlohmann::json equipment_diff_json(const std::vector<EquipmentDiff>& items) {
+  nlohmann::json j = nlohmann::json::array();
+  auto opt = [](const auto& v) { return v ? nlohmann::json(*v) : nlohmann::json(nullptr); };
+  for (const auto& d : items)
+    j.push_back({{"id", d.id},
+                 {"old_category", opt(d.old_category)},
+                 {"new_category", opt(d.new_category)},
+                 {"old_max_pressure_barg", opt(d.old_max_pressure_barg)},
+                 {"new_max_pressure_barg", opt(d.new_max_pressure_barg)},
+                 {"old_preliminary", d.old_preliminary},
+                 {"new_preliminary", d.new_preliminary},
+                 {"moved", d.old_category != d.new_category}});
+  return j;
+}
+
+}  // namespace sifter::report
