@@ -47,6 +47,12 @@ json subsystem_json(const SubsystemResult& s) {
   j["constraint_notes"] = s.constraint_notes;
   j["pfd_avg_exact"] = opt(s.pfd_avg_exact, "pfd_avg_exact");
   j["pfh_exact"] = opt(s.pfh_exact_per_hour, "pfh_exact");
+  j["pfd_avg_simplified"] = opt(s.pfd_avg_simplified, "pfd_avg_simplified");
+  j["pfh_simplified"] = opt(s.pfh_simplified_per_hour, "pfh_simplified");
+  j["pfd_avg_judged"] = opt(s.pfd_avg, "pfd_avg_judged");
+  j["pfh_judged"] = opt(s.pfh_per_hour, "pfh_judged");
+  j["judged_on"] = to_string(s.judged_on);
+  j["test_duration_term"] = checked(s.test_duration_term, "test duration term");
   j["spurious_trip_rate_per_yr"] = checked(s.spurious_trip_rate_per_yr, "spurious trip rate");
   j["mttf_spurious_yr"] = opt(s.mttf_spurious_yr, "mttf_spurious_yr");
   return j;
@@ -69,6 +75,8 @@ json scenario_json(const ScenarioResult& s) {
   j["demand_mode"] = to_string(s.demand_mode.value_or(demand > 1.0 ? DemandMode::kHigh : DemandMode::kLow));
   j["required_pfh"] = opt(s.required_pfh_per_hour, "required_pfh");
   j["mitigated_frequency_per_yr"] = opt(s.mitigated_frequency_per_yr, "mitigated frequency");
+  j["sif_credit_pfd"] = opt(s.sif_credit_pfd, "sif_credit_pfd");
+  j["sif_credit_capped"] = opt(s.sif_credit_capped);
   j["meets_target"] = opt(s.meets_target);
   j["consequences"] = json::array();
   for (const auto& c : s.consequences)
@@ -133,6 +141,15 @@ json sif_json(const SifResult& s) {
   j["pfd_avg_exact"] = opt(s.pfd_avg_exact, "pfd_avg_exact");
   j["pfh_exact"] = opt(s.pfh_exact_per_hour, "pfh_exact");
   j["simplified_over_exact"] = opt(s.simplified_over_exact, "ratio");
+  j["pfd_avg_simplified"] = opt(s.pfd_avg_simplified, "pfd_avg_simplified");
+  j["pfh_simplified"] = opt(s.pfh_simplified_per_hour, "pfh_simplified");
+  j["pfd_avg_judged"] = opt(s.pfd_avg, "pfd_avg_judged");
+  j["pfh_judged"] = opt(s.pfh_per_hour, "pfh_judged");
+  j["judged_on"] = (s.pfd_avg || s.pfh_per_hour) ? json(to_string(s.judged_on)) : json(nullptr);
+  j["judged_why"] = to_string(s.judged_why);
+  j["demand_mode_raised"] = s.demand_mode_raised;
+  j["credit_pfd"] = opt(s.credit_pfd, "credit_pfd");
+  j["credit_capped"] = s.credit_capped;
   j["spurious_trip_rate_per_yr"] = checked(s.spurious_trip_rate_per_yr, "spurious trip rate");
   j["mttf_spurious_yr"] = opt(s.mttf_spurious_yr, "mttf_spurious_yr");
   if (s.uncertainty) {
