@@ -14,8 +14,12 @@ struct Choice {
   JudgedWhy why = JudgedWhy::kOnlyFigure;
 };
 
-// Whether the simplified figure of a group stands outside its validity.
-bool beyond_simplified(const Project& project, const Subsystem& sub, double simplified) {
+// Whether the simplified figure of a group stands outside its validity. The lDU T1 limit is
+// that of the PFD linearisation; a PFH (high demand) is a rate, not linearised in T1 (1oo1 PFH
+// = lDU whatever the interval, IEC 61508-6:2010 B.3.3.2, from memory), so in high demand the
+// default rule (the more conservative) stands.
+bool beyond_simplified(const Project& project, const Subsystem& sub, double simplified, bool low) {
+  if (!low) return false;
   if (simplified > 1.0) return true;
   const GroupData g = group_data_for(project, sub);
   for (int i = 0; i < g.vote.n; ++i)
@@ -48,7 +52,7 @@ void choose_judged_figures(const Project& project, const Sif& sif, SifResult& r)
     if (!simplified || sub.is_vendor()) continue;  // vendor figures stand as given
     const std::optional<double> exact = low ? s.pfd_avg_exact : s.pfh_exact_per_hour;
     const bool differ = !group_data_for(project, sub).channels_identical();
-    const bool beyond = beyond_simplified(project, sub, *simplified);
+    const bool beyond = beyond_simplified(project, sub, *simplified, low);
     const Choice c = choose(project.judge_on, *simplified, exact, differ || beyond,
                             differ ? JudgedWhy::kChannelsDiffer : JudgedWhy::kBeyondSimplified);
     if (exact && (differ || beyond)) {
