@@ -26,7 +26,8 @@ void check_sif(FiniteCheck& f, const SifResult& s) {
   f("RRF", s.rrf);
   // The simplified figure is printed beside the judged one: its RRF must stay finite too, or
   // the input (rates far below physical values) is refused as before the judged figure existed.
-  if (s.pfd_avg_simplified) f("RRF", 1.0 / *s.pfd_avg_simplified);
+  // A PFDavg of exactly zero (no dangerous rate) has no RRF, as for the judged figure.
+  if (s.pfd_avg_simplified && *s.pfd_avg_simplified > 0.0) f("RRF", 1.0 / *s.pfd_avg_simplified);
   f("required RRF", s.required_rrf);
   f("required PFDavg", s.required_pfd);
   f("required PFH", s.required_pfh_per_hour);
