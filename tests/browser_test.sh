@@ -11,11 +11,11 @@ sifter=$1 project=$2 work=$3 min_pages=$4 max_pages=$5
 if ! command -v chromium >/dev/null 2>&1; then
   case "${CI:-}" in
     "" | false | 0)
-      echo "browser test SKIPPED: chromium is not installed here (sh cmake/install-deps.sh installs it)."
+      echo "browser test SKIPPED: chromium is not installed here (sh cmake/install-deps.sh tests installs it)."
       echo "In CI (CI=true) a missing chromium fails this test."
       exit 77 ;;
     *)
-      echo "browser test FAILED: chromium is missing and CI=$CI requires it; cmake/install-deps.sh installs it." >&2
+      echo "browser test FAILED: chromium is missing and CI=$CI requires it; sh cmake/install-deps.sh tests installs it." >&2
       exit 1 ;;
   esac
 fi

@@ -22,7 +22,7 @@ import tempfile
 try:
     import jsonschema
 except ImportError:
-    sys.exit("schema_test: python3-jsonschema is missing (sh cmake/install-deps.sh installs it)")
+    sys.exit("schema_test: python3-jsonschema is missing (sh cmake/install-deps.sh tests installs it)")
 
 # Bad inputs whose badness the schema cannot see: it is in another file, across the document,
 # or in the bytes before parsing.

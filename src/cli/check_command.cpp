@@ -12,7 +12,9 @@
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
+#include "sifter/report/xlsx.hpp"
 #include "sifter/verify.hpp"
+#include "terminal_width.hpp"
 
 namespace sifter::cli {
 namespace {
@@ -21,6 +23,9 @@ struct CheckOptions {
   std::string json_path;
   std::string worksheet_csv_path;
   std::string csv_path;
+  std::string xlsx_path;
+  std::vector<std::string> sifs;
+  bool summary = false;
   bool quiet = false;
   bool no_exact = false;
   int samples = 0;
@@ -42,6 +47,60 @@ std::function<void(long long, long long)> progress_bar() {
               << (done >= total ? "\n" : "") << std::flush;
   };
 }
+
+// Verifies, renders every output, then commits them all: nothing is written if any fails.
+int run_check(const CheckOptions& options) {
+  report::refuse_overwriting_inputs({options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path},
+                                    {options.project});
+  const LoadedProject loaded = load_project_file(options.project);
+  for (const auto& id : options.sifs) find_sif(loaded.project, id);  // an unknown id is a usage error
+  VerifyOptions vo;
+  vo.exact = !options.no_exact;
+  vo.samples = options.samples;
+  vo.seed = options.seed;
+  vo.threads = options.threads;
+  if (options.samples > 0) vo.progress = progress_bar();
+  const ProjectResult result = verify_project(loaded, vo);
+  // Render everything before any output is renamed into place, so that a failure leaves no
+  // partial output. The JSON goes SIF by SIF into its temporary file: a register of
+  // thousands of SIFs is never one tree in memory.
+  std::optional<report::AtomicOutput> json_out, csv_out, rows_out, xlsx_out;
+  if (!options.json_path.empty()) {
+    json_out.emplace(options.json_path);
+    report::write_results_json(result, json_out->stream());
+    json_out->stream() << "\n";
+  }
+  if (!options.worksheet_csv_path.empty()) {
+    csv_out.emplace(options.worksheet_csv_path);
+    csv_out->stream() << report::worksheet_csv(result);
+  }
+  if (!options.csv_path.empty()) {
+    rows_out.emplace(options.csv_path);
+    rows_out->stream() << report::sif_csv(result);
+  }
+  if (!options.xlsx_path.empty()) {
+    const std::string workbook = report::workbook_xlsx(result, loaded.project.components);
+    xlsx_out.emplace(options.xlsx_path);
+    xlsx_out->stream() << workbook;
+  }
+  const bool summary_to_stdout = !options.quiet && options.json_path != "-";
+  report::TerminalOptions terminal;
+  terminal.width = terminal_width();
+  terminal.sifs = options.sifs;
+  terminal.summary = options.summary;
+  const std::string summary = summary_to_stdout ? report::render_terminal(result, terminal) : "";
+  if (json_out) json_out->commit();
+  if (csv_out) csv_out->commit();
+  if (rows_out) rows_out->commit();
+  if (xlsx_out) xlsx_out->commit();
+  if (summary_to_stdout) {
+    std::cout << summary;
+  } else {
+    // Without the summary the warnings still reach the user, as --quiet promises.
+    for (const auto& w : result.warnings) std::cerr << "sifter: warning: " << w.where << ": " << w.message << "\n";
+  }
+  return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
+}
 }  // namespace
 
 Action add_check_command(CLI::App& app) {
@@ -51,6 +110,13 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("--json", opts->json_path, "write sifter-results/1 JSON to FILE ('-' for stdout)");
   cmd->add_option("--worksheet-csv", opts->worksheet_csv_path, "write the LOPA worksheet rows as CSV to FILE");
   cmd->add_option("--csv", opts->csv_path, "write one CSV row per SIF with its key results to FILE");
+  cmd->add_option("--xlsx", opts->xlsx_path, "write the results as a spreadsheet workbook (.xlsx) to FILE");
+  cmd->add_option("--sif", opts->sifs, "show only this SIF (full block) and its scenarios; repeatable")
+      ->allow_extra_args(false)  // one id per --sif, so that a project named after it is not taken for one
+      ->multi_option_policy(CLI::MultiOptionPolicy::TakeAll);
+  cmd->add_flag("--summary", opts->summary,
+                "one line per SIF and scenario (the default above " + std::to_string(report::kSummaryAboveSifs) +
+                    " SIFs)");
   cmd->add_flag("--quiet,-q", opts->quiet, "print no summary (errors and warnings still go to stderr)");
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
   cmd->add_option("--samples", opts->samples, "Monte Carlo samples per SIF on the uncertain failure data")
@@ -58,41 +124,7 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("--seed", opts->seed, "seed of the Monte Carlo (same seed, same results)");
   cmd->add_option("--threads", opts->threads, "threads for the Monte Carlo (default: every core)")
       ->check(CLI::Range(0, 256));
-  return [opts]() {
-    report::refuse_overwriting_inputs({opts->json_path, opts->worksheet_csv_path, opts->csv_path}, {opts->project});
-    const LoadedProject loaded = load_project_file(opts->project);
-    VerifyOptions vo;
-    vo.exact = !opts->no_exact;
-    vo.samples = opts->samples;
-    vo.seed = opts->seed;
-    vo.threads = opts->threads;
-    if (opts->samples > 0) vo.progress = progress_bar();
-    const ProjectResult result = verify_project(loaded, vo);
-    // Render everything before any output is renamed into place, so that a failure leaves no
-    // partial output. The JSON goes SIF by SIF into its temporary file: a register of
-    // thousands of SIFs is never one tree in memory.
-    std::optional<report::AtomicOutput> json_out, csv_out, rows_out;
-    if (!opts->json_path.empty()) {
-      json_out.emplace(opts->json_path);
-      report::write_results_json(result, json_out->stream());
-      json_out->stream() << "\n";
-    }
-    if (!opts->worksheet_csv_path.empty()) {
-      csv_out.emplace(opts->worksheet_csv_path);
-      csv_out->stream() << report::worksheet_csv(result);
-    }
-    if (!opts->csv_path.empty()) {
-      rows_out.emplace(opts->csv_path);
-      rows_out->stream() << report::sif_csv(result);
-    }
-    const bool summary_to_stdout = !opts->quiet && opts->json_path != "-";
-    const std::string summary = summary_to_stdout ? report::render_terminal(result) : "";
-    if (json_out) json_out->commit();
-    if (csv_out) csv_out->commit();
-    if (rows_out) rows_out->commit();
-    if (summary_to_stdout) std::cout << summary;
-    return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
-  };
+  return [opts]() { return run_check(*opts); };
 }
 
 }  // namespace sifter::cli

@@ -1,13 +1,22 @@
-// The terminal summary: one block per SIF, then warnings, shared devices and the caution.
+// The terminal summary: one block per SIF (or one line per SIF on a register), then warnings,
+// shared devices, what falls short and the caution, fitted to the terminal's width.
 #include "sifter/report/terminal.hpp"
 
+#include <algorithm>
+#include <set>
+
 #include "sifter/report/format.hpp"
+#include "sifter/report/tables.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/report/worksheet.hpp"
+#include "sifter/report_data.hpp"
 #include "sifter/sil.hpp"
 
 namespace sifter::report {
 namespace {
+
+// Prose (limits, assumptions, warnings) stays at a readable measure on a wide terminal.
+constexpr std::size_t kProseWidth = 96;
 
 std::string verdict_words(const std::optional<bool>& meets) {
   if (!meets) return "NOT JUDGED (no target)";
@@ -16,8 +25,14 @@ std::string verdict_words(const std::optional<bool>& meets) {
 
 std::string sil_text(int sil) { return sil == 0 ? "below SIL 1" : "SIL " + std::to_string(sil); }
 
+std::string joined(const std::vector<std::string>& items) {
+  std::string out;
+  for (const auto& i : items) out += (out.empty() ? "" : ", ") + i;
+  return out;
+}
+
 // The spurious trips in one line: the SIF's rate and MTTF, then each subsystem's rate.
-std::string spurious_line(const SifResult& s) {
+std::string spurious_line(const SifResult& s, std::size_t width) {
   std::string text = "spurious trips " + sci(s.spurious_trip_rate_per_yr) + "/yr";
   if (s.mttf_spurious_yr) text += ", MTTF spurious " + plain(*s.mttf_spurious_yr) + " yr";
   std::string parts;
@@ -27,21 +42,75 @@ std::string spurious_line(const SifResult& s) {
     parts += (parts.empty() ? "" : ", ") + sub.name + " " + (vendor ? "not given" : sci(sub.spurious_trip_rate_per_yr));
   }
   if (!parts.empty()) text += " (" + parts + ")";
-  return wrap(text, 92, "  ");
+  return fit_line(text, std::min(width, kProseWidth), "  ", "    ");
 }
 
-}  // namespace
+// What keeps the SIF where it is, in a few words: its limits, else the results that set the
+// achieved SIL.
+std::string limit_words(const SifResult& s) {
+  if (!s.limits.empty()) return limits_words(s);
+  return sil_text(s.sil_achieved) + " set by " + joined(limiting_results(s));
+}
 
-std::string wrapped_caution(std::size_t width) { return wrap(std::string("CAUTION: ") + kCaution, width, ""); }
+// The figure the verdict rests on, with its unit.
+std::string figure_text(const SifResult& s) {
+  return s.demand_mode == DemandMode::kLow ? sci_or_dash(s.pfd_avg) : sci_or_dash(s.pfh_per_hour) + "/h";
+}
 
-std::string render_sif(const SifResult& s) {
+std::string sif_lines(const ProjectResult& r, std::size_t width) {
+  TextTable t({"SIF", "mode", "SIL req", "SIL ach", "PFDavg or PFH", "verdict", "limited by"},
+              {false, false, true, true, true, false, false});
+  t.set_fit({Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kWrap});
+  for (const auto& s : r.sifs)
+    t.add_row({s.id, to_string(s.demand_mode), s.sil_required ? std::to_string(*s.sil_required) : "-",
+               std::to_string(s.sil_achieved), figure_text(s),
+               s.meets_target ? (*s.meets_target ? "meets" : "FALLS SHORT") : "not judged", limit_words(s)});
+  return "SIFs (one line each; --sif ID for the full block)\n" + t.render("  ", width);
+}
+
+std::string scenario_lines(const ProjectResult& r, std::size_t width) {
+  TextTable t({"scenario", "SIF", "req SIL", "required RRF", "with SIF [/yr]", "target [/yr]", "verdict"},
+              {false, false, true, true, true, true, false});
+  for (const auto& s : r.scenarios)
+    t.add_row({s.id, s.sif.value_or("-"), std::to_string(s.required_sil), plain(s.required_rrf),
+               sci_or_dash(s.mitigated_frequency_per_yr), sci(s.target_frequency_per_yr),
+               s.meets_target ? (*s.meets_target ? "tolerable" : "NOT TOLERABLE") : "not judged"});
+  return "Scenarios (one line each)\n" + t.render("  ", width);
+}
+
+// Every SIF and scenario of the project that falls short, so the end of a long run says
+// which, not only how many.
+std::string shortfalls(const ProjectResult& r, std::size_t width) {
+  std::string out;
+  for (const auto& s : r.sifs)
+    if (s.meets_target && !*s.meets_target)
+      out += fit_line("- SIF " + s.id + ": achieved " + sil_text(s.sil_achieved) +
+                          (s.sil_required ? ", required " + sil_text(*s.sil_required) : std::string()) + "; " +
+                          limit_words(s),
+                      std::min(width, kProseWidth), "  ");
+  for (const auto& s : r.scenarios)
+    if (s.meets_target && !*s.meets_target)
+      out += fit_line("- scenario " + s.id + ": " + sci_or_dash(s.mitigated_frequency_per_yr) +
+                          "/yr with the SIF against a target of " + sci(s.target_frequency_per_yr) + "/yr",
+                      std::min(width, kProseWidth), "  ");
+  return out.empty() ? "" : "Falling short\n" + out;
+}
+
+std::string users_list(const std::string& title,
+                       const std::vector<std::pair<std::string, std::vector<std::string>>>& items, std::size_t width) {
+  if (items.empty()) return "";
+  std::string out = fit_line(title, width, "");
+  for (const auto& [name, users] : items) out += fit_line(name + ": " + joined(users), width, "  ", "    ");
+  return out + "\n";
+}
+
+// The subsystems with their figures and constraints, and the SIF's sum.
+std::string subsystem_table(const SifResult& s, std::size_t width) {
   const bool low = s.demand_mode == DemandMode::kLow;
-  std::string out = s.id + (s.title.empty() ? "" : "  " + s.title) + "\n";
-  out += "  demand mode  " + to_string(s.demand_mode) + " (" + s.demand_mode_basis + ")\n";
-  out += "  target       " + (s.target_text.empty() ? std::string("none") : s.target_text) + "\n\n";
-
   TextTable t({"subsystem", "role", "vote", low ? "PFDavg" : "PFH [1/h]", "exact", "share", "HFT", "SIL arch", "SC"},
               {false, false, false, true, true, true, true, true, true});
+  t.set_fit(
+      {Fit::kWrap, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep});
   for (const auto& sub : s.subsystems) {
     t.add_row({sub.name, to_string(sub.role), sub.vote, sci_or_dash(low ? sub.pfd_avg : sub.pfh_per_hour),
                sci_or_dash(low ? sub.pfd_avg_exact : sub.pfh_exact_per_hour), percent(sub.share),
@@ -51,68 +120,45 @@ std::string render_sif(const SifResult& s) {
   t.add_rule();
   t.add_row({"SIF", "", "", sci_or_dash(low ? s.pfd_avg : s.pfh_per_hour),
              sci_or_dash(low ? s.pfd_avg_exact : s.pfh_exact_per_hour), percent(1.0), "", "", ""});
-  out += t.render("  ");
-  out += "\n";
-  if (low) {
-    out += "  RRF " + (s.rrf ? plain(*s.rrf) : std::string("-"));
-    if (s.required_rrf) out += "   required RRF " + plain(*s.required_rrf);
+  return t.render("  ", width);
+}
+
+// RRF or PFH against the requirement, the three SILs, the exact cross-check, the uncertainty.
+std::string figure_lines(const SifResult& s, std::size_t width) {
+  std::string figures;
+  if (s.demand_mode == DemandMode::kLow) {
+    figures = "RRF " + (s.rrf ? plain(*s.rrf) : std::string("-"));
+    if (s.required_rrf) figures += "   required RRF " + plain(*s.required_rrf);
   } else {
-    out += "  PFH " + sci_or_dash(s.pfh_per_hour) + "/h";
-    if (s.required_pfh_per_hour) out += "   required PFH <= " + sci(*s.required_pfh_per_hour) + "/h";
+    figures = "PFH " + sci_or_dash(s.pfh_per_hour) + "/h";
+    if (s.required_pfh_per_hour) figures += "   required PFH <= " + sci(*s.required_pfh_per_hour) + "/h";
   }
-  out += "\n";
-  out += "  SIL  probability " + sil_text(s.sil_probability) + " | architecture " + sil_text(s.sil_architecture) +
-         " | systematic " + sil_text(s.sil_systematic) + "  ->  achieved " + sil_text(s.sil_achieved);
-  out += s.sil_required ? ", required " + sil_text(*s.sil_required) + "\n" : "\n";
+  std::string out = fit_line(figures, width, "  ");
+  // The three SILs, then the outcome; on a narrow terminal the outcome takes the next line.
+  const std::string sils = "SIL  probability " + sil_text(s.sil_probability) + " | architecture " +
+                           sil_text(s.sil_architecture) + " | systematic " + sil_text(s.sil_systematic);
+  const std::string outcome = "->  achieved " + sil_text(s.sil_achieved) +
+                              (s.sil_required ? ", required " + sil_text(*s.sil_required) : std::string());
+  if (2 + display_width(sils) + 2 + display_width(outcome) <= width)
+    out += "  " + sils + "  " + outcome + "\n";
+  else
+    out += fit_line(sils, width, "  ", "     ") + fit_line(outcome, width, "       ", "    ");
   if (s.simplified_over_exact)
-    out += "  exact cross-check  simplified/exact = " + plain(*s.simplified_over_exact) +
-           " (multi-phase Markov over the mission)\n";
+    out += fit_line("exact cross-check  simplified/exact = " + plain(*s.simplified_over_exact) +
+                        " (multi-phase Markov over the mission)",
+                    width, "  ", "    ");
   if (s.uncertainty)
-    out += "  uncertainty  mean " + sci(s.uncertainty->mean) + ", 5%-95% " + sci(s.uncertainty->p05) + " to " +
-           sci(s.uncertainty->p95) + ", P(meets target) " + percent(s.uncertainty->probability_meets_target) + " (" +
-           std::to_string(s.uncertainty->samples) + " samples)\n";
-  out += "  verdict  " + verdict_words(s.meets_target) + "\n";
-  out += spurious_line(s);
-  if (!s.limits.empty()) {
-    out += "  limited by\n";
-    for (const auto& l : s.limits) out += wrap("[" + l.kind + "] " + l.message, 92, "    ");
-  }
-  if (!s.assumptions.empty()) {
-    out += "  assumptions\n";
-    for (const auto& a : s.assumptions) out += wrap("- " + a, 92, "    ");
-  }
+    out +=
+        fit_line("uncertainty  mean " + sci(s.uncertainty->mean) + ", 5%-95% " + sci(s.uncertainty->p05) + " to " +
+                     sci(s.uncertainty->p95) + ", P(meets target) " + percent(s.uncertainty->probability_meets_target) +
+                     " (" + std::to_string(s.uncertainty->samples) + " samples)",
+                 width, "  ", "    ");
   return out;
 }
 
-std::string render_terminal(const ProjectResult& r) {
-  std::string out = "sifter " SIFTER_VERSION " check: " + r.file + "\n";
-  if (!r.title.empty()) out += r.title + "\n";
-  out += "\n";
-  for (const auto& s : r.scenarios) out += render_worksheet(s) + "\n";
-  for (const auto& s : r.sifs) out += render_sif(s) + "\n";
-  if (!r.shared_components.empty()) {
-    out += "Components shared between SIFs (check their independence)\n";
-    for (const auto& c : r.shared_components) {
-      std::string users;
-      for (const auto& s : c.sifs) users += (users.empty() ? "" : ", ") + s;
-      out += "  " + c.component + ": " + users + "\n";
-    }
-    out += "\n";
-  }
-  if (!r.shared_devices.empty()) {
-    out += "Devices several SIFs or scenarios rely on\n";
-    for (const auto& d : r.shared_devices) {
-      std::string users;
-      for (const auto& u : d.users) users += (users.empty() ? "" : ", ") + u;
-      out += "  " + d.tag + ": " + users + "\n";
-    }
-    out += "\n";
-  }
-  if (!r.warnings.empty()) {
-    out += "Warnings\n";
-    for (const auto& w : r.warnings) out += wrap(w.where + ": " + w.message, 92, "  ");
-    out += "\n";
-  }
+// The counts of the whole project, then which SIFs and scenarios fall short.
+std::string counts(const ProjectResult& r, std::size_t width) {
+  std::string out;
   int met = 0, judged = 0;
   for (const auto& s : r.sifs)
     if (s.meets_target) {
@@ -122,13 +168,79 @@ std::string render_terminal(const ProjectResult& r) {
   if (!r.scenarios.empty()) {
     int tolerable = 0;
     for (const auto& s : r.scenarios) tolerable += s.meets_target.value_or(false) ? 1 : 0;
-    out += "Scenarios: " + std::to_string(tolerable) + " of " + std::to_string(r.scenarios.size()) +
-           " reach their tolerable frequency\n";
+    out += fit_line("Scenarios: " + std::to_string(tolerable) + " of " + std::to_string(r.scenarios.size()) +
+                        " reach their tolerable frequency",
+                    width, "");
   }
-  out += "Summary: " + std::to_string(met) + " of " + std::to_string(judged) + " judged SIFs meet their targets";
+  std::string summary =
+      "Summary: " + std::to_string(met) + " of " + std::to_string(judged) + " judged SIFs meet their targets";
   if (judged < static_cast<int>(r.sifs.size()))
-    out += " (" + std::to_string(r.sifs.size() - static_cast<std::size_t>(judged)) + " without a target)";
-  out += "\n\n" + wrapped_caution();
+    summary += " (" + std::to_string(r.sifs.size() - static_cast<std::size_t>(judged)) + " without a target)";
+  out += fit_line(summary, width, "");
+  const std::string short_list = shortfalls(r, width);
+  if (!short_list.empty()) out += "\n" + short_list;
+  return out;
+}
+
+}  // namespace
+
+std::string wrapped_caution(std::size_t width) { return wrap(std::string("CAUTION: ") + kCaution, width, ""); }
+
+std::string render_sif(const SifResult& s, std::size_t width) {
+  std::string out = fit_line(s.id + (s.title.empty() ? "" : "  " + s.title), width, "");
+  const std::string under_value(13, ' ');  // continuation lines start under the value
+  out +=
+      fit_line("demand mode  " + to_string(s.demand_mode) + " (" + s.demand_mode_basis + ")", width, "  ", under_value);
+  out += fit_line("target       " + (s.target_text.empty() ? std::string("none") : s.target_text), width, "  ",
+                  under_value) +
+         "\n";
+  out += subsystem_table(s, width) + "\n";
+  out += figure_lines(s, width);
+  out += "  verdict  " + verdict_words(s.meets_target) + "\n";
+  out += spurious_line(s, width);
+  const std::size_t prose = std::min(width, kProseWidth);
+  if (!s.limits.empty()) {
+    out += "  limited by\n";
+    for (const auto& l : s.limits) out += fit_line("[" + l.kind + "] " + l.message, prose, "    ", "  ");
+  }
+  if (!s.assumptions.empty()) {
+    out += "  assumptions\n";
+    for (const auto& a : s.assumptions) out += fit_line("- " + a, prose, "    ");
+  }
+  return out;
+}
+
+std::string render_terminal(const ProjectResult& r, const TerminalOptions& options) {
+  const std::size_t width = std::max<std::size_t>(options.width, 20);
+  std::string out = fit_line("sifter " SIFTER_VERSION " check: " + r.file, width, "");
+  if (!r.title.empty()) out += fit_line(r.title, width, "");
+  out += "\n";
+  const std::set<std::string> chosen(options.sifs.begin(), options.sifs.end());
+  const bool filtered = !chosen.empty();
+  const bool one_line_each = !filtered && (options.summary || r.sifs.size() > kSummaryAboveSifs);
+  if (one_line_each) {
+    if (!r.scenarios.empty()) out += scenario_lines(r, width) + "\n";
+    out += sif_lines(r, width) + "\n";
+  } else {
+    for (const auto& s : r.scenarios)
+      if (!filtered || (s.sif && chosen.count(*s.sif))) out += render_worksheet(s, width) + "\n";
+    for (const auto& s : r.sifs)
+      if (!filtered || chosen.count(s.id)) out += render_sif(s, width) + "\n";
+  }
+  std::vector<std::pair<std::string, std::vector<std::string>>> shared;
+  for (const auto& c : r.shared_components) shared.emplace_back(c.component, c.sifs);
+  out += users_list("Components shared between SIFs (check their independence)", shared, width);
+  shared.clear();
+  for (const auto& d : r.shared_devices) shared.emplace_back(d.tag, d.users);
+  out += users_list("Devices several SIFs or scenarios rely on", shared, width);
+  if (!r.warnings.empty()) {
+    out += "Warnings\n";
+    for (const auto& w : r.warnings)
+      out += fit_line(w.where + ": " + w.message, std::min(width, kProseWidth), "  ", "    ");
+    out += "\n";
+  }
+  out += counts(r, width);
+  out += "\n" + wrapped_caution(std::min(width, kProseWidth));
   return out;
 }
 

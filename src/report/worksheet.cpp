@@ -1,6 +1,8 @@
 // LOPA worksheets: the terminal table and the CSV rows.
 #include "sifter/report/worksheet.hpp"
 
+#include <algorithm>
+
 #include "sifter/report/format.hpp"
 #include "sifter/report/text_table.hpp"
 
@@ -39,14 +41,16 @@ std::string credit_text(const WorksheetRow& row) {
 
 }  // namespace
 
-std::string render_worksheet(const ScenarioResult& s) {
-  std::string out = "Scenario " + s.id + (s.title.empty() ? "" : "  " + s.title) + "\n";
+std::string render_worksheet(const ScenarioResult& s, std::size_t width) {
+  std::string out = fit_line("Scenario " + s.id + (s.title.empty() ? "" : "  " + s.title), width, "");
   TextTable t({"step", "title", "value", "credit", "frequency [/yr]", "note"}, {false, false, true, false, true, false});
+  // In a narrow terminal the title breaks between words and the note goes under its row.
+  t.set_fit({Fit::kKeep, Fit::kWrap, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kBelow});
   std::string last_consequence;
   for (const auto& row : s.worksheet) {
     if (!row.consequence.empty() && row.consequence != last_consequence) {
       t.add_rule();
-      t.add_row({"consequence: " + row.consequence, "", "", "", "", ""});
+      t.add_section("consequence: " + row.consequence);
       last_consequence = row.consequence;
     }
     // The SIF row's role is said by its credit column; the target row's note carries the gap.
@@ -54,24 +58,26 @@ std::string render_worksheet(const ScenarioResult& s) {
     t.add_row({step_label(row), row.title, value_text(row), credit_text(row),
                row.frequency_per_yr ? sci(*row.frequency_per_yr) : "", note});
   }
-  out += t.render("  ");
-  out += "  required: PFD " + sci(s.required_pfd) + ", RRF " + plain(s.required_rrf) + ", SIL " +
-         std::to_string(s.required_sil);
+  out += t.render("  ", width);
+  std::string required = "required: PFD " + sci(s.required_pfd) + ", RRF " + plain(s.required_rrf) + ", SIL " +
+                         std::to_string(s.required_sil);
   if (s.demand_rate_per_yr)
-    out += "; demand on the SIF " + sci(*s.demand_rate_per_yr) + "/yr (" + to_string(s.demand_mode.value_or(DemandMode::kLow)) +
-           " demand)";
-  out += "\n";
+    required += "; demand on the SIF " + sci(*s.demand_rate_per_yr) + "/yr (" +
+                to_string(s.demand_mode.value_or(DemandMode::kLow)) + " demand)";
+  out += fit_line(required, width, "  ");
   if (s.mitigated_frequency_per_yr)
-    out += "  with the SIF: " + sci(*s.mitigated_frequency_per_yr) + "/yr against a target of " +
-           sci(s.target_frequency_per_yr) + "/yr -> " +
-           (s.meets_target ? (*s.meets_target ? "TOLERABLE" : "NOT TOLERABLE") : std::string("not judged")) + "\n";
+    out += fit_line("with the SIF: " + sci(*s.mitigated_frequency_per_yr) + "/yr against a target of " +
+                        sci(s.target_frequency_per_yr) + "/yr -> " +
+                        (s.meets_target ? (*s.meets_target ? "TOLERABLE" : "NOT TOLERABLE") : std::string("not judged")),
+                    width, "  ");
+  const std::size_t text_width = std::min<std::size_t>(width, 96);
   if (!s.findings.empty()) {
     out += "  findings\n";
-    for (const auto& f : s.findings) out += wrap("- [" + to_string(f.kind) + "] " + f.message, 92, "    ");
+    for (const auto& f : s.findings) out += fit_line("- [" + to_string(f.kind) + "] " + f.message, text_width, "    ");
   }
   if (!s.assumptions.empty()) {
     out += "  assumptions\n";
-    for (const auto& a : s.assumptions) out += wrap("- " + a, 92, "    ");
+    for (const auto& a : s.assumptions) out += fit_line("- " + a, text_width, "    ");
   }
   return out;
 }

@@ -8,7 +8,8 @@ namespace sifter::report {
 
 /// One scenario as a worksheet: causes, enabling conditions, each layer with its credit (or
 /// why none), modifiers, the frequency after each step, the target and the gap; then findings.
-std::string render_worksheet(const ScenarioResult& scenario);
+/// Fitted to `width` columns (see TextTable::render).
+std::string render_worksheet(const ScenarioResult& scenario, std::size_t width = 100);
 
 /// Every scenario's worksheet rows as CSV (RFC 4180 quoting), one row per step.
 std::string worksheet_csv(const ProjectResult& result);
