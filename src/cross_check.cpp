@@ -136,13 +136,11 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
   // From the two figures as printed, so that the ratio reads as the printed pair gives.
   const double ratio = as_printed(*simplified) / as_printed(sif_exact_value);
   r.simplified_over_exact = ratio;
-  char ratio_text[32];
-  std::snprintf(ratio_text, sizeof ratio_text, "%.3f", ratio);
   const bool whole = mission_whole_intervals(project, sif);
   r.assumptions.push_back(std::string("exact cross-check: multi-phase Markov model over the mission of ") +
                           format_duration(project.defaults.mission_time) +
                           (whole ? "" : " (not a whole number of proof-test intervals: the last interval is cut short)") +
-                          "; simplified/exact = " + ratio_text);
+                          "; simplified/exact = " + ratio_text(ratio));
   if (ratio < 1.0 - kNonConservativeTolerance)
     warnings.push_back({sif.pointer, "the simplified " + std::string(low ? "PFDavg" : "PFH") + " is " +
                                          pct(1.0 - ratio) +
@@ -150,7 +148,7 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
                                          "\"judge_on\" says otherwise"});
   else if (std::abs(ratio - 1.0) > kDisagreementTolerance)
     warnings.push_back({sif.pointer, "the simplified and exact " + std::string(low ? "PFDavg" : "PFH") + " differ by " +
-                                         pct(std::abs(ratio - 1.0)) + " (simplified/exact = " + ratio_text + ")"});
+                                         pct(std::abs(ratio - 1.0)) + " (simplified/exact = " + ratio_text(ratio) + ")"});
 }
 
 SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
@@ -181,6 +179,12 @@ SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
   }
   c.pfd_avg_exact = 1.0 - (1.0 - vendor_total) * (1.0 - exact.pfd_avg);
   return c;
+}
+
+std::string ratio_text(double ratio) {
+  char text[32];
+  std::snprintf(text, sizeof text, "%.3f", ratio);
+  return text;
 }
 
 }  // namespace sifter
