@@ -2,7 +2,9 @@
 #include "sifter/cross_check.hpp"
 
 #include <cmath>
+#include <algorithm>
 #include <cstdio>
+#include <cstdlib>
 
 #include "sifter/diagnostics.hpp"
 #include "sifter/lopa.hpp"
@@ -16,28 +18,18 @@ std::string pct(double v) {
   return buf;
 }
 
-bool channels_differ(const Project& project, const Subsystem& sub) {
-  auto rates = [&](const Channel& ch) {
-    FailureRates r;
-    for (auto c : ch.components) r += project.components[c].rates;
-    return r;
-  };
-  const FailureRates first = rates(sub.channels.front());
-  for (const auto& ch : sub.channels) {
-    const FailureRates r = rates(ch);
-    auto same = [](double a, double b) { return std::abs(a - b) <= 1e-12 * std::max(std::abs(a), std::abs(b)); };
-    if (!same(r.lambda_du.per_hour, first.lambda_du.per_hour) || !same(r.lambda_dd.per_hour, first.lambda_dd.per_hour))
-      return true;
-  }
-  return false;
+// The exact measure comparable with the simplified PFH under the same assumption: IEC
+// 61508-6:2010 B.3.3.2 takes a detected failure to the safe state, so only failures whose last
+// is undetected count; with "alarm_only" every failure counts.
+double comparable_pfh(const ExactGroupResult& g, bool alarm_only) {
+  return alarm_only ? g.failure_frequency_per_hour : g.undetected_failure_frequency_per_hour;
 }
 
-// The exact measure comparable with the simplified one: PFDavg, or the undetected part of the
-// failure frequency plus the detected common-cause term (Annex B takes a detected single
-// failure to a safe state).
-double comparable_pfh(const ExactGroupResult& g, const ExactGroupInput& in) {
-  const double ldd = in.channels.front().lambda_dd.per_hour;
-  return g.undetected_failure_frequency_per_hour + (in.vote.failures_to_fail() > 1 ? in.beta_d * ldd : 0.0);
+// The figure as printed (three significant digits), so that a ratio matches the printed pair.
+double as_printed(double v) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.3g", v);
+  return std::strtod(buf, nullptr);
 }
 
 // The bytes of every number that defines a group: equal keys, equal exact results.
@@ -58,6 +50,16 @@ void append_key(std::string& key, const ExactGroupInput& g) {
                    g.staggered ? 1.0 : 0.0, g.track_each_channel ? 1.0 : 0.0})
     put(v);
   key += '|';
+}
+
+// Whether the mission is a whole number of every modelled group's proof-test interval.
+bool mission_whole_intervals(const Project& project, const Sif& sif) {
+  for (const auto& sub : sif.subsystems) {
+    if (sub.is_vendor() || !(sub.proof_test_interval.hours > 0.0)) continue;
+    const double n = project.defaults.mission_time.hours / sub.proof_test_interval.hours;
+    if (std::abs(n - std::round(n)) > 1e-6 * std::max(1.0, n)) return false;
+  }
+  return true;
 }
 
 }  // namespace
@@ -115,16 +117,7 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
     auto& sub = r.subsystems[i];
     const ExactGroupResult& g = exact.groups[k++];
     if (low) sub.pfd_avg_exact = g.pfd_avg;
-    else sub.pfh_exact_per_hour = comparable_pfh(g, *inputs[i]);
-    if (channels_differ(project, sif.subsystems[i])) {
-      // Different channels: the exact value is the subsystem's figure; the simplified
-      // equations would need identical channels.
-      if (low) sub.pfd_avg = g.pfd_avg;
-      else sub.pfh_per_hour = sub.pfh_exact_per_hour;
-      sub.equation = "exact multi-phase Markov model (channels differ, so no Annex B form applies)";
-      r.assumptions.push_back(sub.name + ": the channels differ; its " + (low ? "PFDavg" : "PFH") +
-                              " comes from the exact engine");
-    }
+    else sub.pfh_exact_per_hour = comparable_pfh(g, sif.subsystems[i].alarm_only_on_detected);
     for (const auto& note : g.notes) r.assumptions.push_back(sub.name + " (exact engine): " + note);
   }
   // The SIF's exact value: the product form of the modelled groups, with the vendor figures
@@ -134,27 +127,29 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
     sif_exact_value = 1.0 - (1.0 - vendor_constant) * (1.0 - exact.pfd_avg);
     r.pfd_avg_exact = sif_exact_value;
   } else {
-    double ccf_detected = 0.0;
-    for (const auto& in : modelled)
-      ccf_detected += in.vote.failures_to_fail() > 1 ? in.beta_d * in.channels.front().lambda_dd.per_hour : 0.0;
-    sif_exact_value = exact.undetected_failure_frequency_per_hour + ccf_detected + vendor_constant;
+    // Subsystems in series: their failure frequencies add (each under its own assumption).
+    for (const auto& sub : r.subsystems) sif_exact_value += sub.pfh_exact_per_hour.value_or(0.0);
+    sif_exact_value += vendor_constant;
     r.pfh_exact_per_hour = sif_exact_value;
   }
-  const std::optional<double> simplified = low ? r.pfd_avg : r.pfh_per_hour;
+  const std::optional<double> simplified = low ? r.pfd_avg_simplified : r.pfh_simplified_per_hour;
   if (!simplified || !(sif_exact_value > 0.0)) return;
-  const double ratio = *simplified / sif_exact_value;
+  // From the two figures as printed, so that the ratio reads as the printed pair gives.
+  const double ratio = as_printed(*simplified) / as_printed(sif_exact_value);
   r.simplified_over_exact = ratio;
+  const bool whole = mission_whole_intervals(project, sif);
   r.assumptions.push_back(std::string("exact cross-check: multi-phase Markov model over the mission of ") +
-                          format_duration(project.defaults.mission_time) + "; simplified/exact = " +
-                          format_number(ratio));
+                          format_duration(project.defaults.mission_time) +
+                          (whole ? "" : " (not a whole number of proof-test intervals: the last interval is cut short)") +
+                          "; simplified/exact = " + ratio_text(ratio));
   if (ratio < 1.0 - kNonConservativeTolerance)
     warnings.push_back({sif.pointer, "the simplified " + std::string(low ? "PFDavg" : "PFH") + " is " +
                                          pct(1.0 - ratio) +
-                                         " below the exact value (non-conservative); judge the SIF on the exact result"});
+                                         " below the exact value (non-conservative); the verdict rests on the exact figure unless the project's "
+                                         "\"judge_on\" says otherwise"});
   else if (std::abs(ratio - 1.0) > kDisagreementTolerance)
     warnings.push_back({sif.pointer, "the simplified and exact " + std::string(low ? "PFDavg" : "PFH") + " differ by " +
-                                         pct(std::abs(ratio - 1.0)) + " (simplified/exact = " +
-                                         format_number(ratio) + ")"});
+                                         pct(std::abs(ratio - 1.0)) + " (simplified/exact = " + ratio_text(ratio) + ")"});
 }
 
 SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
@@ -185,6 +180,12 @@ SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
   }
   c.pfd_avg_exact = 1.0 - (1.0 - vendor_total) * (1.0 - exact.pfd_avg);
   return c;
+}
+
+std::string ratio_text(double ratio) {
+  char text[32];
+  std::snprintf(text, sizeof text, "%.3f", ratio);
+  return text;
 }
 
 }  // namespace sifter

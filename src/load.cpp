@@ -154,6 +154,10 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.string("$schema");  // where an editor finds the schema; sifter needs nothing from it
   project.document = detail::read_document(top);
   project.constraints = detail::parse_constraint_basis(top.choice("constraints", {"iec61511", "route_1h", "route_2h"}));
+  if (const auto judge_on = top.choice("judge_on", {"conservative", "simplified", "exact"}))
+    project.judge_on = *judge_on == "simplified" ? JudgeOn::kSimplified
+                       : *judge_on == "exact"    ? JudgeOn::kExact
+                                                 : JudgeOn::kConservative;
   top.member("defaults");
   read_defaults(ctx, *root, project);
   detail::ModelIndex models;

@@ -213,6 +213,7 @@ Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string&
   sub.response_time = r.duration("response_time");
   sub.staggered = r.boolean("staggered").value_or(false);
   sub.trip_on_detected = r.boolean("trip_on_detected").value_or(false);
+  sub.alarm_only_on_detected = r.choice("on_detected_failure", {"safe_state", "alarm_only"}) == "alarm_only";
   sub.diverse = r.boolean("diverse").value_or(false);
   sub.diversity_note = r.string("diversity_note").value_or("");
   if (sub.diverse && sub.diversity_note.empty())

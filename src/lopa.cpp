@@ -141,7 +141,8 @@ double after_sif_product(const LayerAssessment& a) {
 void decide_demand_mode(ScenarioResult& r, double demand_per_yr) {
   r.demand_rate_per_yr = demand_per_yr;
   const DemandMode from_rate = at_most(demand_per_yr, kHighDemandAbovePerYear) ? DemandMode::kLow : DemandMode::kHigh;
-  r.demand_mode = r.demand_mode_stated.value_or(from_rate);
+  // The stricter applies: demanded more than once a year is high demand whatever is stated.
+  r.demand_mode = from_rate == DemandMode::kHigh ? DemandMode::kHigh : r.demand_mode_stated.value_or(from_rate);
   if (!r.demand_mode_stated || *r.demand_mode_stated == from_rate) return;
   const bool high = from_rate == DemandMode::kHigh;
   r.findings.push_back(
@@ -149,7 +150,8 @@ void decide_demand_mode(ScenarioResult& r, double demand_per_yr) {
        *r.sif + " is stated to be in " + mode_phrase(*r.demand_mode_stated) + " demand mode, but scenario " + r.id +
            " demands it " + format_number(demand_per_yr) + " times a year, " +
            (high ? "more than once a year (high" : "no more than once a year (low") +
-           " demand, IEC 61511-1:2016 3.2.39); the stated mode is kept."});
+           " demand, IEC 61511-1:2016 3.2.39); " +
+           (high ? "it is judged in high demand (the stricter)." : "the stated mode is kept.")});
 }
 
 // Everything the consequences share: per cause, the split by SIF credit, the SIF's figures.
@@ -275,6 +277,21 @@ void sif_figure_assumptions(ScenarioResult& r, Flow& f, const SifFigures* figure
   }
   r.sif_pfd_avg = f.pfd_avg;
   r.sif_pfh_per_hour = f.pfh_per_hour;
+  // The SIF is credited for the SIL it achieves, no more (IEC 61511-1:2016 clause 9, from
+  // memory): the credit replaces the figure in the mitigated frequency.
+  if (figures && figures->credit && (f.high ? f.pfh_per_hour : f.pfd_avg)) {
+    (f.high ? f.pfh_per_hour : f.pfd_avg) = figures->credit;
+    r.sif_credit_capped = figures->credit_capped;
+    if (figures->credit_capped)
+      r.assumptions.push_back(*r.sif + " is credited with " + (f.high ? "a PFH of " : "a PFD of ") +
+                              format_number(*figures->credit) + (f.high ? "/h" : "") +
+                              ", the best of the SIL band it achieves, not its computed " + (f.high ? "PFH " : "PFDavg ") +
+                              format_number(*(f.high ? r.sif_pfh_per_hour : r.sif_pfd_avg)) +
+                              ": a SIF is credited only for the SIL it achieves (IEC 61511-1:2016 clause 9).");
+  } else if (f.pfd_avg || f.pfh_per_hour) {
+    r.sif_credit_capped = false;
+  }
+  r.sif_credit_pfd = f.high ? f.pfh_per_hour : f.pfd_avg;
   if (f.high && f.pfh_per_hour)
     r.assumptions.push_back("In high demand the mitigated frequency is the PFH x 8760 h/yr x the PFD of the layers "
                             "credited after the SIF x the modifiers, and no more than the frequency without the SIF.");
@@ -357,7 +374,7 @@ void add_scenario(SifRequirement& req, const ScenarioResult& r) {
 void decide_sif_mode(SifRequirement& req, std::optional<DemandMode> stated, bool one_high) {
   const DemandMode from_rate =
       at_most(req.demand_rate_per_yr, kHighDemandAbovePerYear) ? DemandMode::kLow : DemandMode::kHigh;
-  req.demand_mode = stated.value_or(from_rate);
+  req.demand_mode = from_rate == DemandMode::kHigh ? DemandMode::kHigh : stated.value_or(from_rate);
   if (req.scenarios.size() > 1)
     req.assumptions.push_back("The demands of scenarios " + and_list(req.scenarios) + " on " + req.sif +
                               " are added (" + format_number(req.demand_rate_per_yr) +
@@ -369,7 +386,7 @@ void decide_sif_mode(SifRequirement& req, std::optional<DemandMode> stated, bool
                             req.sif + " is stated to be in low demand mode, but scenarios " + and_list(req.scenarios) +
                                 " together demand it " + format_number(req.demand_rate_per_yr) +
                                 " times a year, more than once a year (high demand, IEC 61511-1:2016 3.2.39); "
-                                "the stated mode is kept."});
+                                "it is judged in high demand (the stricter)."});
 }
 
 }  // namespace

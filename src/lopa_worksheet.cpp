@@ -89,13 +89,18 @@ void consequence_rows(std::vector<WorksheetRow>& rows, const Scenario& scenario,
   rows.push_back({WorksheetStep::kTarget, c.category, "", "", consequence_label(c), c.target_frequency_per_yr, true,
                   note, c.frequency_without_sif_per_yr, c.required_rrf});
   if (!r.sif || !c.mitigated_frequency_per_yr) return;
-  const std::optional<double> figure = r.sif_pfd_avg ? r.sif_pfd_avg : r.sif_pfh_per_hour;
+  const std::optional<double> figure =
+      r.sif_credit_pfd ? r.sif_credit_pfd : (r.sif_pfd_avg ? r.sif_pfd_avg : r.sif_pfh_per_hour);
+  const bool capped = r.sif_credit_capped.value_or(false);
   const double ratio = *c.mitigated_frequency_per_yr / c.target_frequency_per_yr;
   const std::string verdict = c.meets_target.value_or(false)
                                   ? "meets the target"
                                   : "misses the target by a factor of " + format_number(ratio);
   rows.push_back({WorksheetStep::kWithSif, c.category, "", *r.sif,
-                  r.sif_pfd_avg ? "with the SIF's PFDavg" : "with the SIF's PFH per hour", figure, true, verdict,
+                  capped ? (r.sif_pfd_avg ? "with the SIF's credit, capped at the best PFD of the SIL it achieves"
+                                          : "with the SIF's credit, capped at the best PFH of the SIL it achieves")
+                         : (r.sif_pfd_avg ? "with the SIF's PFDavg" : "with the SIF's PFH per hour"),
+                  figure, true, verdict,
                   c.mitigated_frequency_per_yr, std::nullopt});
 }
 

@@ -1,20 +1,65 @@
-// The Monte Carlo of one SIF on its uncertain failure data.
+// The Monte Carlo of one SIF on its uncertain failure data, on the resolved group models.
 #include "sifter/sif_uncertainty.hpp"
 
-#include "sifter/sil.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/group_model.hpp"
+#include "sifter/judge.hpp"
 
 namespace sifter {
 namespace {
 
-// One subsystem as the sampler sees it: the base group data and, per component of one
-// channel, its stated rates (the channels of a group are identical copies).
+// One subsystem as the sampler sees it: its resolved model, each channel's components with
+// their stated rates, and the factor that carries the simplified form onto the judged figure.
 struct SampledGroup {
   GroupData base;
-  std::vector<std::pair<std::size_t, FailureRates>> channel_components;
+  std::vector<std::vector<std::pair<std::size_t, FailureRates>>> channels;
+  double scale = 1.0;        // judged figure / simplified form at the stated rates
   double fixed_value = 0.0;  // vendor figures
   bool vendor = false;
 };
+
+double group_value(const GroupData& g, bool low) { return low ? group_pfd_avg_value(g) : group_pfh(g).pfh_per_hour; }
+
+// The group at one sample: every channel's own components scaled by their own sources' factors.
+void sample_group(const SampledGroup& g, const UncertaintyPlan& plan, std::span<const double> factors, GroupData& out) {
+  out = g.base;
+  FailureRates mean;
+  for (std::size_t i = 0; i < g.channels.size(); ++i) {
+    FailureRates rates;
+    for (const auto& [index, stated] : g.channels[i]) {
+      const double f = factors.empty() ? 1.0 : component_factor(plan, factors, index);
+      rates.lambda_du.per_hour += f * stated.lambda_du.per_hour;
+      rates.lambda_dd.per_hour += f * stated.lambda_dd.per_hour;
+      rates.lambda_su.per_hour += f * stated.lambda_su.per_hour;
+      rates.lambda_sd.per_hour += f * stated.lambda_sd.per_hour;
+    }
+    out.channels[i] = rates;
+    mean += rates;
+  }
+  const double n = static_cast<double>(g.channels.size());
+  out.channel = FailureRates{Rate{mean.lambda_du.per_hour / n}, Rate{mean.lambda_dd.per_hour / n},
+                             Rate{mean.lambda_su.per_hour / n}, Rate{mean.lambda_sd.per_hour / n}};
+}
+
+SampledGroup sampled_group(const Project& project, const Subsystem& sub, const SubsystemResult& verified, bool low) {
+  SampledGroup g;
+  if (sub.is_vendor()) {
+    g.vendor = true;
+    g.fixed_value = (low ? verified.pfd_avg : verified.pfh_per_hour).value_or(0.0);
+    return g;
+  }
+  g.base = group_data_for(project, sub);
+  g.base.channels.resize(sub.channels.size());  // every channel its own entry while sampling
+  for (const auto& ch : sub.channels) {
+    g.channels.emplace_back();
+    for (auto c : ch.components) g.channels.back().emplace_back(c, project.components[c].rates);
+  }
+  GroupData stated;
+  sample_group(g, UncertaintyPlan{}, {}, stated);  // no factors: the stated rates
+  const double at_stated = group_value(stated, low);
+  const std::optional<double> judged = low ? verified.pfd_avg : verified.pfh_per_hour;
+  if (judged && at_stated > 0.0) g.scale = *judged / at_stated;
+  return g;
+}
 
 }  // namespace
 
@@ -22,28 +67,26 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
                                   const UncertaintyPlan& plan, const MonteCarloOptions& options) {
   const bool low = verified.demand_mode == DemandMode::kLow;
   std::vector<SampledGroup> groups;
-  for (std::size_t i = 0; i < sif.subsystems.size(); ++i) {
-    const Subsystem& sub = sif.subsystems[i];
-    SampledGroup g;
-    if (sub.is_vendor()) {
-      g.vendor = true;
-      g.fixed_value = low ? verified.subsystems[i].pfd_avg.value_or(0.0) : verified.subsystems[i].pfh_per_hour.value_or(0.0);
-    } else {
-      g.base = group_data_for(project, sub);
-      for (auto c : sub.channels.front().components) g.channel_components.emplace_back(c, project.components[c].rates);
-    }
-    groups.push_back(std::move(g));
-  }
-  const double required = low ? verified.required_pfd.value_or(sil_upper_limit(verified.sil_required.value_or(0), DemandMode::kLow))
-                              : verified.required_pfh_per_hour.value_or(
-                                    sil_upper_limit(verified.sil_required.value_or(0), DemandMode::kHigh));
+  for (std::size_t i = 0; i < sif.subsystems.size(); ++i)
+    groups.push_back(sampled_group(project, sif.subsystems[i], verified.subsystems.at(i), low));
+  // The SIF's judged figure may be its exact one (judged_figure.hpp): carry each sample onto it.
+  double subsystem_sum = 0.0;
+  for (const auto& s : verified.subsystems) subsystem_sum += (low ? s.pfd_avg : s.pfh_per_hour).value_or(0.0);
+  const std::optional<double> judged = low ? verified.pfd_avg : verified.pfh_per_hour;
+  const double sif_scale = judged && subsystem_sum > 0.0 ? *judged / subsystem_sum : 1.0;
+  SifTarget target;
+  target.mode = verified.demand_mode;
+  target.sil = verified.sil_required;
+  target.required_pfd = verified.required_pfd;
+  target.required_pfh_per_hour = verified.required_pfh_per_hour;
   MonteCarloOptions used = options;
   for (const auto& g : groups)
-    for (const auto& [index, rates] : g.channel_components)
-      if (index < plan.source_of_component.size() && plan.source_of_component[index] != kNoSource)
-        used.sources.push_back(plan.source_of_component[index]);
+    for (const auto& ch : g.channels)
+      for (const auto& [index, rates] : ch)
+        if (index < plan.source_of_component.size() && plan.source_of_component[index] != kNoSource)
+          used.sources.push_back(plan.source_of_component[index]);
   if (used.sources.empty()) used.sources.push_back(0);  // nothing uncertain: draw one pair, use none
-  const auto evaluate = [&groups, &plan, low](std::span<const double> factors) {
+  const auto evaluate = [&groups, &plan, low, sif_scale](std::span<const double> factors) {
     // Copy-assigning into a per-thread scratch reuses its storage: no allocation per sample.
     thread_local GroupData scratch;
     double total = 0.0;
@@ -52,20 +95,13 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
         total += g.fixed_value;
         continue;
       }
-      scratch = g.base;
-      scratch.channel = FailureRates{};
-      for (const auto& [index, rates] : g.channel_components) {
-        const double f = component_factor(plan, factors, index);
-        scratch.channel.lambda_du.per_hour += f * rates.lambda_du.per_hour;
-        scratch.channel.lambda_dd.per_hour += f * rates.lambda_dd.per_hour;
-        scratch.channel.lambda_su.per_hour += f * rates.lambda_su.per_hour;
-        scratch.channel.lambda_sd.per_hour += f * rates.lambda_sd.per_hour;
-      }
-      total += low ? group_pfd_avg_value(scratch) : group_pfh(scratch).pfh_per_hour;
+      sample_group(g, plan, factors, scratch);
+      total += g.scale * group_value(scratch, low);
     }
-    return total;
+    return sif_scale * total;
   };
-  const UncertaintySummary s = run_monte_carlo(plan, used, evaluate, required);
+  const UncertaintySummary s =
+      run_monte_carlo(plan, used, evaluate, [&target](double v) { return judge(target, v).value_or(false); });
   UncertaintyResult out;
   out.mean = s.mean;
   out.p05 = s.p05;
@@ -73,8 +109,10 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
   out.p95 = s.p95;
   out.probability_meets_target = s.probability_meets_target;
   out.samples = s.samples;
-  out.method = "Monte Carlo on the IEC 61508-6 Annex B simplified equations; lognormal factors with the stated "
-               "rates as means; components of one library model share one factor (state-of-knowledge dependence)";
+  out.method = "Monte Carlo: each channel's components scaled by their own sources' lognormal factors (stated rates "
+               "as means; components of one library model share one factor), each group evaluated on its resolved "
+               "model with the simplified form and carried onto its judged figure by the ratio at the stated rates; "
+               "every sample judged by the verdict's rule (band edge and required value)";
   return out;
 }
 

@@ -196,6 +196,10 @@ double percentile(std::vector<double>& values, double p) {
 }
 
 UncertaintySummary summarize_samples(std::vector<double>& values, double required_value) {
+  return summarize_samples(values, [required_value](double v) { return at_most(v, required_value); });
+}
+
+UncertaintySummary summarize_samples(std::vector<double>& values, const SampleJudge& meets) {
   assert(!values.empty());
   UncertaintySummary out;
   out.samples = static_cast<int>(values.size());
@@ -206,7 +210,7 @@ UncertaintySummary summarize_samples(std::vector<double>& values, double require
   for (const double v : values) {
     assert(std::isfinite(v));
     sum += v;
-    if (at_most(v, required_value)) ++meeting;
+    if (meets(v)) ++meeting;
   }
   const double n = static_cast<double>(values.size());
   out.mean = sum / n;
@@ -240,6 +244,11 @@ int worker_count(int requested, int chunks) {
 
 UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarloOptions& options,
                                    const SampleEvaluator& evaluate, double required_value) {
+  return run_monte_carlo(plan, options, evaluate, [required_value](double v) { return at_most(v, required_value); });
+}
+
+UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarloOptions& options,
+                                   const SampleEvaluator& evaluate, const SampleJudge& meets) {
   assert(options.samples >= 1);
   const FactorSampler sampler(plan);
   // The plan's table serves only the seed and sample count it was drawn for.
@@ -312,7 +321,7 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
   for (const auto& e : errors)
     if (e) std::rethrow_exception(e);
   if (options.progress) options.progress(completed.load());
-  return summarize_samples(values, required_value);
+  return summarize_samples(values, meets);
 }
 
 }  // namespace sifter

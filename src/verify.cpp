@@ -15,6 +15,9 @@
 #include "sifter/probability_cap.hpp"
 #include "sifter/requirements.hpp"
 #include "sifter/maturity.hpp"
+#include "sifter/group_model.hpp"
+#include "sifter/judge.hpp"
+#include "sifter/judged_figure.hpp"
 #include "sifter/sif_uncertainty.hpp"
 #include "sifter/sil.hpp"
 #include "sifter/spurious.hpp"
@@ -26,33 +29,6 @@ std::string num(double v) {
   char buf[32];
   std::snprintf(buf, sizeof buf, "%.4g", v);
   return buf;
-}
-
-std::vector<TestSlice> test_slices(const Subsystem& sub, Duration mission) {
-  // Shares of lambda_du and the interval that reveals each (IEC 61508-6:2010 B.3.2.5 for an
-  // imperfect proof test; the partial stroke test adds its own slice before it).
-  std::vector<TestSlice> slices;
-  double rest = 1.0;
-  if (sub.partial_stroke) {
-    slices.push_back({sub.partial_stroke->coverage, sub.partial_stroke->interval});
-    rest -= sub.partial_stroke->coverage;
-  }
-  const double ptc = sub.proof_test_coverage;
-  if (rest * ptc > 0.0) slices.push_back({rest * ptc, sub.proof_test_interval});
-  if (rest * (1.0 - ptc) > 0.0) slices.push_back({rest * (1.0 - ptc), mission});
-  if (slices.empty()) slices.push_back({1.0, sub.proof_test_interval});
-  return slices;
-}
-
-std::string describe_target(const Target& t, DemandMode mode) {
-  switch (t.kind) {
-    case Target::Kind::kSil: return "SIL " + num(t.value) + (mode == DemandMode::kLow ? " (PFDavg < " : " (PFH < ") +
-                                    num(sil_upper_limit(static_cast<int>(t.value), mode)) + ")";
-    case Target::Kind::kRrf: return "RRF " + num(t.value) + " (PFDavg <= " + num(1.0 / t.value) + ")";
-    case Target::Kind::kPfdAvg: return "PFDavg <= " + num(t.value);
-    case Target::Kind::kPfh: return "PFH <= " + num(t.value) + "/h";
-  }
-  return {};
 }
 
 // Defaults applied, gathered per kind so that the output names each once with its subsystems.
@@ -78,6 +54,8 @@ void describe_defaults(const Project& project, const DefaultsApplied& d, std::ve
     assumptions.push_back("beta_D taken equal to beta (not given): " + joined(d.beta_d_equals_beta));
 }
 
+bool p_test_duration(const Subsystem& sub) { return sub.test_duration && sub.test_duration->hours > 0.0; }
+
 SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub, DemandMode mode,
                                    std::vector<std::string>& assumptions, DefaultsApplied& defaults) {
   SubsystemResult r;
@@ -100,12 +78,17 @@ SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub,
     return r;
   }
   r.vote = sub.vote.text();
-  for (auto c : sub.channels.front().components)
+  std::vector<std::size_t> seen;
+  for (const auto& ch : sub.channels)
+    for (auto c : ch.components) {
+    if (std::find(seen.begin(), seen.end(), c) != seen.end()) continue;
+    seen.push_back(c);
     if (const auto& fd = project.components[c].field_data)
       assumptions.push_back(sub.name + ": lambda_du of " + project.components[c].id + " from field data, " +
                             std::to_string(fd->failures) + " failures in " + num(fd->device_hours.hours) +
                             " device-hours at " + num(100 * fd->confidence) +
                             "% confidence: chi-squared(c; 2n+2)/(2T) = " + format_rate(project.components[c].rates.lambda_du));
+    }
   const GroupData g = group_data_for(project, sub);
   r.channel_rates = g.channel;
   r.beta_effective = g.beta;
@@ -113,6 +96,8 @@ SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub,
   if (mode == DemandMode::kLow) {
     const GroupPfd p = group_pfd_avg(g);
     r.pfd_avg = p.pfd_avg;
+    r.pfd_avg_simplified = p.pfd_avg;
+    r.test_duration_term = p.test_duration;
     r.independent_undetected = p.independent_undetected;
     r.independent_detected = p.independent_detected;
     r.common_cause = p.common_cause;
@@ -120,6 +105,7 @@ SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub,
   } else {
     const GroupPfh p = group_pfh(g);
     r.pfh_per_hour = p.pfh_per_hour;
+    r.pfh_simplified_per_hour = p.pfh_per_hour;
     r.common_cause = p.common_cause_per_hour;
     r.independent_undetected = p.pfh_per_hour - p.common_cause_per_hour;
     r.equation = p.equation;
@@ -136,6 +122,13 @@ SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub,
     assumptions.push_back(sub.name + ": proof-test coverage " + num(sub.proof_test_coverage * 100) +
                           "%; failures the test misses stay until the end of the mission (" +
                           format_duration(project.defaults.mission_time) + ")");
+  if (p_test_duration(sub))
+    assumptions.push_back(sub.name + ": each channel out of service " + format_duration(*sub.test_duration) +
+                          " per proof test; the simplified figure adds it (1oo1/NooN: N TD/T1; KooN: N TD/T1 x the "
+                          "Ko(N-1) group, common practice)");
+  if (sub.alarm_only_on_detected && mode == DemandMode::kHigh)
+    assumptions.push_back(sub.name + ": a detected dangerous failure only raises an alarm, so it counts as dangerous "
+                          "until restored (lDD and beta_D lDD in the PFH; the exact engine counts every failure)");
   if (sub.partial_stroke)
     assumptions.push_back(sub.name + ": partial stroke test every " + format_duration(sub.partial_stroke->interval) +
                           " reveals " + num(sub.partial_stroke->coverage * 100) + "% of lambda_du");
@@ -173,21 +166,16 @@ void apply_constraints(const Project& project, const Sif& sif, SifResult& r, con
                            : r.constraints == ConstraintBasis::kRoute1H ? "IEC 61508-2:2010 7.4.4.2, Tables 2 and 3"
                                                                          : "IEC 61508-2:2010 7.4.4.3") +
                           ")");
-  if (!r.sil_required) return;
+  if (!r.sil_required || !achieved) return;
   ProbabilityCheck p;
   p.mode = r.demand_mode;
   p.sil = r.sil_probability;
-  p.achieved = achieved.value_or(0.0);
+  p.achieved = *achieved;
   p.required = required.value_or(sil_upper_limit(*r.sil_required, r.demand_mode));
-  if (achieved) r.limits = limits_for(p, c, *r.sil_required);
+  r.limits = limits_for(p, c, *r.sil_required);
   if (r.meets_target)
     r.meets_target = *r.meets_target && r.sil_architecture >= *r.sil_required && r.sil_systematic >= *r.sil_required;
 }
-
-// The Annex B equations linearise exp(-lDU T1); for one channel, lDU T1 / 2 overstates the
-// exact average 1 - (1 - exp(-x)) / x by about 3.4 % at x = 0.1 and 36 % at x = 1
-// (REFERENCES.md section 8, computed).
-constexpr double kSimplifiedLimitLambdaT = 0.1;
 
 void warn_beyond_simplified_range(const Sif& sif, const SifResult& r, std::vector<Warning>& warnings) {
   for (std::size_t i = 0; i < r.subsystems.size() && i < sif.subsystems.size(); ++i) {
@@ -202,43 +190,17 @@ void warn_beyond_simplified_range(const Sif& sif, const SifResult& r, std::vecto
 
 }  // namespace
 
-GroupData group_data_for(const Project& project, const Subsystem& sub) {
-  GroupData g;
-  g.vote = sub.vote;
-  // Identical channels: one channel's rates (series elements added). Different channels: the
-  // largest of each rate over the channels, a conservative stand-in for the Annex B forms,
-  // which assume identical channels (the exact engine models each channel).
-  for (std::size_t i = 0; i < sub.channels.size(); ++i) {
-    FailureRates rates;
-    for (auto c : sub.channels[i].components) rates += project.components[c].rates;
-    if (i == 0) {
-      g.channel = rates;
-      continue;
-    }
-    g.channel.lambda_du.per_hour = std::max(g.channel.lambda_du.per_hour, rates.lambda_du.per_hour);
-    g.channel.lambda_dd.per_hour = std::max(g.channel.lambda_dd.per_hour, rates.lambda_dd.per_hour);
-    g.channel.lambda_su.per_hour = std::max(g.channel.lambda_su.per_hour, rates.lambda_su.per_hour);
-    g.channel.lambda_sd.per_hour = std::max(g.channel.lambda_sd.per_hour, rates.lambda_sd.per_hour);
-  }
-  const double multiplier = sub.ccf_scaling == CcfScaling::kIec61508TableD5 && table_d5_covers(sub.vote.k, sub.vote.n)
-                                ? ccf_multiplier_table_d5(sub.vote.k, sub.vote.n)
-                                : 1.0;
-  g.beta = std::min(1.0, sub.beta * multiplier);
-  g.beta_d = std::min(1.0, sub.beta_d * multiplier);
-  g.tests = test_slices(sub, project.defaults.mission_time);
-  g.mttr = sub.mttr;
-  g.mrt = sub.mrt;
-  return g;
-}
-
 SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings) {
   ExactCache cache;
   return verify_sif(project, sif, lopa, options, warnings, cache);
 }
 
-SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
-                     const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache) {
+namespace {
+
+// Identity, constraint basis, demand mode and its reason. A SIF its scenarios demand more than
+// once a year is judged in high demand whatever its stated mode (IEC 61511-1:2016 3.2.39).
+SifResult start_result(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa) {
   SifResult r;
   r.id = sif.id;
   r.title = sif.title;
@@ -247,131 +209,86 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
     r.demand_mode = lopa->demand_mode;
     r.demand_mode_basis = lopa->demand_basis;
     r.scenarios = lopa->scenarios;
+    r.demand_mode_raised = sif.demand_mode_stated == DemandMode::kLow && lopa->demand_mode == DemandMode::kHigh;
+    if (r.demand_mode_raised)
+      r.demand_mode_basis = "stated low demand, but " + r.demand_mode_basis + "; judged in high demand (the stricter)";
   } else {
     r.demand_mode = sif.demand_mode();
     r.demand_mode_basis = sif.demand_mode_stated ? "stated in the project" : "not stated; low demand assumed";
   }
+  return r;
+}
+
+// Series subsystems: the SIF's simplified PFDavg (PFH) is the sum of theirs (IEC 61508-6:2010
+// B.2.2, rare-event approximation of 1 - prod(1 - PFD_i)). False where a figure is missing.
+bool sum_simplified(const Sif& sif, SifResult& r, std::vector<Warning>& warnings) {
   const bool low = r.demand_mode == DemandMode::kLow;
+  double total = 0.0;
+  bool complete = true;
+  for (std::size_t i = 0; i < r.subsystems.size(); ++i) {
+    const auto& v = low ? r.subsystems[i].pfd_avg : r.subsystems[i].pfh_per_hour;
+    if (v) {
+      total += *v;
+      continue;
+    }
+    complete = false;
+    warnings.push_back({sif.subsystems[i].pointer, "the supplier gives no " + std::string(low ? "PFDavg" : "PFH") +
+                                                       " for " + r.demand_mode_basis +
+                                                       " operation; the SIF cannot be verified"});
+  }
+  r.assumptions.insert(r.assumptions.begin(),
+                       std::string("SIF ") + (low ? "PFDavg" : "PFH") +
+                           " = sum over its subsystems in series (IEC 61508-6:2010 Annex B simplified equations)");
+  if (!complete) return false;
+  if (low) r.pfd_avg_simplified = total;
+  else r.pfh_simplified_per_hour = total;
+  return true;
+}
+
+void record_target(const SifTarget& t, SifResult& r) {
+  r.target_text = t.text;
+  r.sil_required = t.sil;
+  r.required_pfd = t.required_pfd;
+  r.required_pfh_per_hour = t.required_pfh_per_hour;
+  if (t.required_rrf && r.demand_mode == DemandMode::kLow) r.required_rrf = t.required_rrf;
+}
+
+// The judged figure's SIL, RRF and verdict, from the one judge.
+void apply_verdict(const SifTarget& target, SifResult& r) {
+  const bool low = r.demand_mode == DemandMode::kLow;
+  const std::optional<double> figure = low ? r.pfd_avg : r.pfh_per_hour;
+  if (!figure) return;
+  r.sil_probability = low ? sil_from_pfd_avg(*figure) : sil_from_pfh(*figure);
+  if (low) r.rrf = *figure > 0.0 ? std::optional<double>(1.0 / *figure) : std::nullopt;
+  r.meets_target = judge(target, *figure);
+}
+
+}  // namespace
+
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+                     const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache) {
+  SifResult r = start_result(project, sif, lopa);
   DefaultsApplied defaults;
   for (const auto& sub : sif.subsystems)
     r.subsystems.push_back(evaluate_subsystem(project, sub, r.demand_mode, r.assumptions, defaults));
   describe_defaults(project, defaults, r.assumptions);
   warn_beyond_simplified_range(sif, r, warnings);
-
-  // Series subsystems: the SIF's PFDavg (PFH) is the sum of theirs (IEC 61508-6:2010 B.2.2,
-  // rare-event approximation of 1 - prod(1 - PFD_i)).
-  double total = 0.0;
-  bool complete = true;
-  for (const auto& s : r.subsystems) {
-    const auto& v = low ? s.pfd_avg : s.pfh_per_hour;
-    if (v) total += *v;
-    else complete = false;
-  }
-  for (auto& s : r.subsystems) {
-    const auto& v = low ? s.pfd_avg : s.pfh_per_hour;
-    s.share = v && total > 0.0 ? *v / total : 0.0;
-  }
-  r.assumptions.insert(r.assumptions.begin(),
-                       std::string("SIF ") + (low ? "PFDavg" : "PFH") +
-                           " = sum over its subsystems in series (IEC 61508-6:2010 Annex B simplified equations)");
-  if (!complete) {
-    for (std::size_t i = 0; i < r.subsystems.size(); ++i)
-      if (!(low ? r.subsystems[i].pfd_avg : r.subsystems[i].pfh_per_hour))
-        warnings.push_back({sif.subsystems[i].pointer,
-                            "the supplier gives no " + std::string(low ? "PFDavg" : "PFH") + " for " +
-                                r.demand_mode_basis + " operation; the SIF cannot be verified"});
-  } else if (low) {
-    r.pfd_avg = total;
-    r.rrf = total > 0.0 ? std::optional<double>(1.0 / total) : std::nullopt;
-    r.sil_probability = sil_from_pfd_avg(total);
-  } else {
-    r.pfh_per_hour = total;
-    r.sil_probability = sil_from_pfh(total);
-  }
-
-  // The requirement: the SIF's own target and, where scenarios feed it, the risk analysis;
-  // the stricter applies.
-  std::optional<double> required_pfd;  // low demand
-  std::optional<double> required_pfh;  // high demand
-  std::optional<int> required_sil;
-  if (sif.target) {
-    const Target& t = *sif.target;
-    r.target_text = describe_target(t, r.demand_mode);
-    switch (t.kind) {
-      case Target::Kind::kSil: required_sil = static_cast<int>(t.value); break;
-      case Target::Kind::kRrf:
-        required_pfd = 1.0 / t.value;
-        r.required_rrf = t.value;
-        required_sil = sil_required_from_rrf(t.value);
-        break;
-      case Target::Kind::kPfdAvg:
-        required_pfd = t.value;
-        r.required_rrf = 1.0 / t.value;
-        required_sil = sil_required_from_rrf(1.0 / t.value);
-        break;
-      case Target::Kind::kPfh:
-        required_pfh = t.value;
-        required_sil = sil_required_from_pfh(t.value);
-        break;
-    }
-  }
-  if (lopa) {
-    const int lopa_sil = low || !lopa->required_pfh_per_hour ? sil_required_from_rrf(lopa->required_rrf)
-                                                              : sil_required_from_pfh(*lopa->required_pfh_per_hour);
-    if (required_sil && *required_sil != lopa_sil)
-      warnings.push_back({sif.pointer + "/target", "the stated target (" + r.target_text + ") differs from the SIL " +
-                                                        std::to_string(lopa_sil) +
-                                                        " the LOPA requires; the stricter applies"});
-    // A required RRF at or below 1 asks for no reduction at all: the required PFD is capped at 1
-    // (a probability), and the text says that no SIF is needed.
-    const bool none_needed = !(lopa->required_rrf > 1.0);
-    const double lopa_pfd = none_needed ? 1.0 : 1.0 / lopa->required_rrf;
-    if (!required_pfd || lopa_pfd < *required_pfd) {
-      required_pfd = lopa_pfd;
-      r.required_rrf = lopa->required_rrf;
-    }
-    if (lopa->required_pfh_per_hour && (!required_pfh || *lopa->required_pfh_per_hour < *required_pfh))
-      required_pfh = lopa->required_pfh_per_hour;
-    required_sil = std::max(required_sil.value_or(0), lopa_sil);
-    r.target_text = (r.target_text.empty() ? "" : r.target_text + "; ") + "LOPA: " +
-                    (low ? (none_needed ? "no SIF needed (required RRF " + num(lopa->required_rrf) + ", PFD capped at 1)"
-                                        : "RRF " + num(lopa->required_rrf))
-                         : "PFH <= " + num(required_pfh.value_or(0.0)) + "/h");
-  }
-  r.sil_required = required_sil;
-  r.required_pfd = low ? required_pfd : std::nullopt;
-  r.required_pfh_per_hour = low ? std::nullopt : required_pfh;
-  // The band of the required SIL must be reached, and the value itself where one is required.
-  const auto judge = [&]() {
-    bool met = r.sil_probability >= *required_sil;
-    if (low && required_pfd) met = met && at_most(total, *required_pfd);
-    if (!low && required_pfh) met = met && at_most(total, *required_pfh);
-    r.meets_target = met;
-  };
-  if (required_sil && complete) judge();
+  const bool complete = sum_simplified(sif, r, warnings);
+  const SifTarget target = sif_target(sif, r.demand_mode, lopa, warnings);
+  record_target(target, r);
   if (!sif.target && !lopa)
     warnings.push_back({sif.pointer, "no target and no scenario names this SIF; it is computed but not judged"});
-  if (options.exact && complete) {
-    apply_exact_cross_check(project, sif, r, warnings, cache);
-    // Groups of different channels take their exact value: the SIF's figure follows.
-    double revised = 0.0;
-    for (const auto& sub : r.subsystems) revised += (low ? sub.pfd_avg : sub.pfh_per_hour).value_or(0.0);
-    if (revised != total) {
-      total = revised;
-      for (auto& sub : r.subsystems) sub.share = total > 0.0 ? (low ? sub.pfd_avg : sub.pfh_per_hour).value_or(0.0) / total : 0.0;
-      if (low) {
-        r.pfd_avg = total;
-        r.rrf = 1.0 / total;
-        r.sil_probability = sil_from_pfd_avg(total);
-      } else {
-        r.pfh_per_hour = total;
-        r.sil_probability = sil_from_pfh(total);
-      }
-      if (r.meets_target && required_sil) judge();
-    }
-  }
+  if (options.exact && complete) apply_exact_cross_check(project, sif, r, warnings, cache);
+  if (complete) choose_judged_figures(project, sif, r);
+  apply_verdict(target, r);
   add_spurious_trips(project, sif, r);
-  apply_constraints(project, sif, r, low ? required_pfd : required_pfh, complete ? std::optional(total) : std::nullopt);
+  const std::optional<double> judged = r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
+  apply_constraints(project, sif, r, target.limit(), judged);
+  if (judged) {
+    const SifCredit credit = sif_credit(*judged, r.sil_achieved, r.demand_mode);
+    r.credit_pfd = credit.value;
+    r.credit_capped = credit.capped;
+  }
   apply_requirement_checks(project, sif, r, warnings);  // the stated requirements join the verdict here
   return r;
 }
@@ -552,6 +469,8 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
     auto& figures = context.sifs[sif.id];
     figures.pfd_avg = r.pfd_avg;
     if (r.pfh_per_hour) figures.pfh = Rate{*r.pfh_per_hour};
+    figures.credit = r.credit_pfd;
+    figures.credit_capped = r.credit_capped;
   }
   if (options.samples > 0) {
     run_uncertainty(project, options, out);

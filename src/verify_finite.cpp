@@ -21,8 +21,13 @@ struct FiniteCheck {
 
 void check_sif(FiniteCheck& f, const SifResult& s) {
   f("PFDavg", s.pfd_avg);
+  f("PFDavg", s.pfd_avg_simplified);
   f("PFH", s.pfh_per_hour);
   f("RRF", s.rrf);
+  // The simplified figure is printed beside the judged one: its RRF must stay finite too, or
+  // the input (rates far below physical values) is refused as before the judged figure existed.
+  // A PFDavg of exactly zero (no dangerous rate) has no RRF, as for the judged figure.
+  if (s.pfd_avg_simplified && *s.pfd_avg_simplified > 0.0) f("RRF", 1.0 / *s.pfd_avg_simplified);
   f("required RRF", s.required_rrf);
   f("required PFDavg", s.required_pfd);
   f("required PFH", s.required_pfh_per_hour);
@@ -34,6 +39,8 @@ void check_sif(FiniteCheck& f, const SifResult& s) {
   for (const auto& sub : s.subsystems) {
     f("subsystem PFDavg", sub.pfd_avg);
     f("subsystem PFH", sub.pfh_per_hour);
+    f("subsystem PFDavg", sub.pfd_avg_simplified);
+    f("subsystem PFH", sub.pfh_simplified_per_hour);
     f("share", sub.share);
     f("independent term", sub.independent_undetected);
     f("independent term", sub.independent_detected);

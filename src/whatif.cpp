@@ -75,8 +75,10 @@ SifResult WhatIf::verify(const Project& modified, std::size_t sif) const {
   const Sif& s = modified.sifs.at(sif);
   auto it = requirements_.find(s.id);
   std::vector<Warning> ignored;
+  // The same options as check: the exact engine runs, so that the judged figure, and so every
+  // answer, is the one check gives (groups of different channels are judged on it).
   VerifyOptions options;
-  options.exact = false;
+  options.threads = 1;
   SifResult r = verify_sif(modified, s, it == requirements_.end() ? std::nullopt : std::optional(it->second), options,
                            ignored);
   cap_probabilities(s, r, ignored);  // as check does: no probability above 1 leaves an engine

@@ -291,11 +291,13 @@ TEST(LopaDemandMode, StatedModeContradictedByTheRateIsAMismatch) {
   s.causes = {cause("C1", 2.0)};
   s.layers = {sif_layer("SIF-7")};
   const auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
-  EXPECT_EQ(*r.demand_mode, DemandMode::kLow) << "the stated mode is kept";
+  // The stricter mode applies (IEC 61511-1:2016 3.2.39, from memory; DEVELOPERS.md Methods):
+  // demanded more than once a year, the SIF is judged in high demand whatever is stated.
+  EXPECT_EQ(*r.demand_mode, DemandMode::kHigh) << "judged in high demand, the stricter";
   const auto m = messages_of(r, FindingKind::kModeMismatch);
   ASSERT_EQ(m.size(), 1u);
   EXPECT_EQ(m[0], "SIF-7 is stated to be in low demand mode, but scenario S-MODE demands it 2 times a year, more "
-                  "than once a year (high demand, IEC 61511-1:2016 3.2.39); the stated mode is kept.");
+                  "than once a year (high demand, IEC 61511-1:2016 3.2.39); it is judged in high demand (the stricter).");
 }
 
 // Issue 4 item 3: a SIF named by several scenarios must satisfy each; the largest RRF governs.
@@ -352,16 +354,18 @@ TEST(LopaSifRequirements, DemandsOfSeveralScenariosAddUp) {
   EXPECT_EQ(reqs[0].sil_required, 1);
   EXPECT_TRUE(reqs[0].findings.empty());
 
-  // Stated low, the sum contradicts it: a mismatch on the SIF, the stated mode kept.
+  // Stated low, the sum contradicts it: a mismatch on the SIF, judged in high demand (the
+  // stricter applies; IEC 61511-1:2016 3.2.39, from memory; DEVELOPERS.md Methods).
   p.sifs[0].demand_mode_stated = DemandMode::kLow;
   for (auto& r : results) r.demand_mode_stated = DemandMode::kLow;
   reqs = sif_requirements(results);
-  EXPECT_EQ(reqs[0].demand_mode, DemandMode::kLow);
+  EXPECT_EQ(reqs[0].demand_mode, DemandMode::kHigh);
   ASSERT_EQ(reqs[0].findings.size(), 1u);
   EXPECT_EQ(reqs[0].findings[0].kind, FindingKind::kModeMismatch);
   EXPECT_EQ(reqs[0].findings[0].message,
             "SIF-1 is stated to be in low demand mode, but scenarios S-A and S-B together demand it 1.2 times a "
-            "year, more than once a year (high demand, IEC 61511-1:2016 3.2.39); the stated mode is kept.");
+            "year, more than once a year (high demand, IEC 61511-1:2016 3.2.39); it is judged in high demand (the "
+            "stricter).");
 }
 
 TEST(LopaFormat, NumbersKeepThreeSignificantDigits) {

@@ -260,16 +260,16 @@ TEST(ExactGroup, FailureFrequencyTendsToAnnexBPfh) {
   }
 }
 
-// With detected failures, Annex B's PFH counts the groups whose last failure is undetected,
-// plus beta_D lambda_dd (IEC 61508-6:2010 B.3.3.2, REFERENCES.md §3, from memory: a detected
-// failure is taken to put the process in a safe state, so the 1oo1 PFH is lambda_du).
+// With detected failures, Annex B's PFH counts the groups whose last failure is undetected
+// (IEC 61508-6:2010 B.3.3.2, from memory; DEVELOPERS.md Methods: a detected failure is taken to
+// put the process in a safe state, so the 1oo1 PFH is lambda_du and the common-cause term is
+// beta lambda_du alone; the 2000 edition's beta_D lambda_dd is no longer added).
 TEST(ExactGroup, UndetectedFailureFrequencyTendsToAnnexBPfhWithDetectedFailures) {
   for (const auto& [k, n] : {std::pair{1, 1}, std::pair{1, 2}, std::pair{2, 3}}) {
     const auto g = table_b3_group({k, n, 1e-7, 0.1, 0.9, 0.0});
     const auto r = group_exact(g);
-    const double common_detected = k < n ? g.beta_d * g.channels[0].lambda_dd.per_hour : 0.0;
-    expect_relative(r.undetected_failure_frequency_per_hour + common_detected,
-                    group_pfh(simplified_of(g)).pfh_per_hour, kSmallRateRelTol);
+    expect_relative(r.undetected_failure_frequency_per_hour, group_pfh(simplified_of(g)).pfh_per_hour,
+                    kSmallRateRelTol);
     EXPECT_GT(r.failure_frequency_per_hour, r.undetected_failure_frequency_per_hour);
   }
 }

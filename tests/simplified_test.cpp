@@ -160,7 +160,10 @@ TEST(AnnexBPfh, SingleAndSeriesChannelsAreTheirUndetectedRate) {
 
 TEST(AnnexBPfh, RedundantGroupsMatchTheHandComputedForms) {
   const auto& h = kHand;
-  const double ccf = h.beta_d * h.ldd + h.beta * h.ldu;
+  // IEC 61508-6:2010 B.3.3.2 (from memory; DEVELOPERS.md Methods): a detected failure takes the
+  // system to its safe state, so the common-cause term is beta lDU alone. The 2000 edition
+  // also added beta_D lDD, which made every redundant vote worse than one channel.
+  const double ccf = h.beta * h.ldu;
   const auto g12 = hand_group(1, 2, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt);
   expect_relative(group_pfh(g12).pfh_per_hour, 2 * h.x() * (1 - h.beta) * h.ldu * h.t(2) + ccf, kExactRelTol);
   const auto g23 = hand_group(2, 3, h.ldu, h.ldd, h.beta, h.beta_d, h.t1, h.mttr, h.mrt);

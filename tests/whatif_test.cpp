@@ -366,13 +366,15 @@ TEST(LongestInterval, InHighDemandAOneChannelPfhDoesNotDependOnTheInterval) {
 }
 
 TEST(LongestInterval, InHighDemandARedundantGroupIsSolvedOnItsPfh) {
-  // The common-cause terms beta lDU + beta_D lDD = 1.1e-7 per hour do not depend on the interval.
+  // The common-cause term beta lDU = 1e-7 per hour does not depend on the interval (IEC
+  // 61508-6:2010 B.3.3.2, from memory; DEVELOPERS.md Methods: the 2000 edition's beta_D lDD is
+  // no longer added, a detected failure takes the system to its safe state).
   const std::string text = high_demand("1oo2", 2, "2e-7/h");
   const auto r = longest_proof_test_interval(WhatIf(load(text)), 0, std::nullopt, 0.0);
   ASSERT_EQ(r.outcome, IntervalOutcome::kFound);
   EXPECT_EQ(r.requirement.mode, DemandMode::kHigh);
   expect_relative(r.measure_at_longest, 2e-7, kSolverRelTol);
-  expect_relative(r.measure_at_zero, 1.1e-7 + 2 * (0.98 * 5e-7 + 0.95 * 2e-6) * 0.95 * 2e-6 * (2e-6 * 24 + 5e-7 * 8) / 2.5e-6,
+  expect_relative(r.measure_at_zero, 1e-7 + 2 * (0.98 * 5e-7 + 0.95 * 2e-6) * 0.95 * 2e-6 * (2e-6 * 24 + 5e-7 * 8) / 2.5e-6,
                   kExactRelTol);
 }
 

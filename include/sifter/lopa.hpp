@@ -59,6 +59,10 @@ struct SifFigures {
   std::optional<double> pfd_avg;                  ///< computed PFDavg (low demand)
   std::optional<Rate> pfh;                        ///< computed PFH (high demand), per hour
   std::optional<DemandMode> demand_mode_stated;   ///< Sif::demand_mode_stated
+  /// The PFD (PFH) the scenarios credit: the judged figure, no better than the lower edge of
+  /// the band of the SIL the SIF achieves (judge.hpp sif_credit); absent = the figure above.
+  std::optional<double> credit;
+  bool credit_capped = false;
 };
 
 /// Everything LOPA takes from outside the scenario: per SIF id, its computed figures.
@@ -178,6 +182,8 @@ struct ScenarioResult {
   std::optional<double> required_pfh_per_hour;     ///< high demand: the smallest over consequences
   std::optional<double> sif_pfd_avg;               ///< the SIF's computed PFDavg used (low demand)
   std::optional<double> sif_pfh_per_hour;          ///< the SIF's computed PFH used (high demand)
+  std::optional<double> sif_credit_pfd;            ///< what the SIF is credited with (PFD, or PFH high demand)
+  std::optional<bool> sif_credit_capped;           ///< the band of its achieved SIL caps the credit
   std::optional<double> mitigated_frequency_per_yr;
   std::optional<bool> meets_target;                ///< every consequence meets its target
   std::size_t governing_consequence = 0;           ///< index into consequences

@@ -140,6 +140,9 @@ struct Subsystem {
   std::optional<Duration> test_duration;  ///< channel bypassed while tested (exact engine)
   bool staggered = false;                 ///< tests spread evenly over the interval (exact engine)
   bool trip_on_detected = false;          ///< a detected dangerous failure trips the process
+  /// "on_detected_failure": "alarm_only": a detected dangerous failure only raises an alarm and
+  /// stays dangerous until restored (IEC 61508-6:2010 B.3.3.2 assumes the safe state instead).
+  bool alarm_only_on_detected = false;
   // Vendor figures (instead of channels).
   std::optional<double> vendor_pfd_avg;
   std::optional<Rate> vendor_pfh;
@@ -211,6 +214,10 @@ struct Sif {
 
   [[nodiscard]] DemandMode demand_mode() const { return demand_mode_stated.value_or(DemandMode::kLow); }
 };
+
+/// Which figure a verdict rests on: the more conservative of simplified and exact (default),
+/// or one of them (project key "judge_on").
+enum class JudgeOn { kConservative, kSimplified, kExact };
 
 /// Project-wide defaults applied where a subsystem leaves a value out.
 struct Defaults {
@@ -315,6 +322,7 @@ struct Project {
   std::string file;  ///< path as given
   Defaults defaults;
   std::optional<ConstraintBasis> constraints;
+  JudgeOn judge_on = JudgeOn::kConservative;
   double operator_time_multiple = 2.0;  ///< time available must be at least this x response time
   std::vector<Component> components;
   std::vector<Sif> sifs;

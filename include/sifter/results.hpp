@@ -45,6 +45,25 @@ struct RequirementCheck {
   std::string message;
 };
 
+/// The figure a verdict rests on.
+enum class JudgedOn { kSimplified, kExact };
+
+/// Why the judged figure is the one it is.
+enum class JudgedWhy {
+  kOnlyFigure,         ///< no exact figure (not run, or the exact engine cannot model a group)
+  kMoreConservative,   ///< the default rule: the larger of the two
+  kProjectChoice,      ///< the project's "judge_on"
+  kChannelsDiffer,     ///< the Annex B forms need identical channels
+  kBeyondSimplified,   ///< the simplified figure is outside its validity (lDU T1 large, or above 1)
+};
+
+/// "simplified" or "exact"; and the reason in words.
+std::string to_string(JudgedOn on);
+std::string to_string(JudgedWhy why);
+
+/// The one text of a simplified/exact ratio (three decimals), used wherever a ratio is printed.
+std::string ratio_text(double ratio);
+
 /// The result of one subsystem (voting group or vendor figure).
 struct SubsystemResult {
   std::string name;
@@ -72,6 +91,13 @@ struct SubsystemResult {
   // Exact cross-check.
   std::optional<double> pfd_avg_exact;
   std::optional<double> pfh_exact_per_hour;
+  // The judged figure (what the verdict rests on) and the simplified one kept for comparison.
+  std::optional<double> pfd_avg_judged;
+  std::optional<double> pfh_judged_per_hour;
+  std::optional<double> pfd_avg_simplified;
+  std::optional<double> pfh_simplified_per_hour;
+  JudgedOn judged_on = JudgedOn::kSimplified;
+  double test_duration_term = 0.0;  ///< PFD added by the channels' test duration (simplified)
   // Spurious trips.
   double spurious_trip_rate_per_yr = 0.0;
   std::optional<double> mttf_spurious_yr;
@@ -118,6 +144,14 @@ struct SifResult {
   std::optional<double> pfd_avg_exact;
   std::optional<double> pfh_exact_per_hour;
   std::optional<double> simplified_over_exact;
+  // The judged figure: pfd_avg / pfh_per_hour above are it; these say which and why.
+  std::optional<double> pfd_avg_simplified;
+  std::optional<double> pfh_simplified_per_hour;
+  JudgedOn judged_on = JudgedOn::kSimplified;
+  JudgedWhy judged_why = JudgedWhy::kOnlyFigure;
+  bool demand_mode_raised = false;  ///< stated low demand, demanded more than once a year: judged high
+  std::optional<double> credit_pfd;  ///< the PFD (or PFH) its scenarios credit: judged, no better than its SIL band
+  bool credit_capped = false;
   // Spurious trips.
   double spurious_trip_rate_per_yr = 0.0;
   std::optional<double> mttf_spurious_yr;

@@ -1,5 +1,6 @@
 #pragma once
 /// IEC 61508-6:2010 Annex B simplified equations: PFDavg and PFH of one voting group.
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -15,15 +16,30 @@ struct TestSlice {
   Duration interval;   ///< hours between the tests that reveal it
 };
 
-/// Everything the simplified equations need about one group of identical channels.
+/// The resolved model of one voting group (built once by group_model.hpp): everything the
+/// simplified equations, the Monte Carlo and the what-ifs read about it.
 struct GroupData {
   Vote vote;
-  FailureRates channel;  ///< rates of one channel (series elements added)
+  FailureRates channel;  ///< rates of one channel (series elements added); the mean where channels differ
+  std::vector<FailureRates> channels;  ///< each channel's own rates; empty = N copies of `channel`
   double beta = 0.0;     ///< effective beta after any Table D.5 scaling
   double beta_d = 0.0;   ///< effective beta_D after any Table D.5 scaling
   std::vector<TestSlice> tests;  ///< how lambda_du is revealed; shares add to 1
   Duration mttr;
   Duration mrt;
+  Duration proof_test_interval;           ///< T1 (the test-duration term divides by it)
+  std::optional<Duration> test_duration;  ///< each channel out of service this long per proof test
+  bool staggered = false;                 ///< tests spread over the interval (exact engine only)
+  /// IEC 61508-6:2010 B.3.3.2: a detected dangerous failure takes the process to its safe state.
+  /// False ("on_detected_failure": "alarm_only"): detected failures stay dangerous until restored.
+  bool detected_to_safe_state = true;
+
+  /// Whether every channel has the same rates (the Annex B forms assume it).
+  [[nodiscard]] bool channels_identical() const;
+  /// The rates of channel i (0 <= i < vote.n).
+  [[nodiscard]] const FailureRates& rates_of(int i) const {
+    return channels.empty() ? channel : channels[static_cast<std::size_t>(i)];
+  }
 };
 
 /// The PFDavg of a group, split into the terms a reviewer looks at.
@@ -32,6 +48,7 @@ struct GroupPfd {
   double independent_undetected = 0.0;  ///< independent failures, share due to undetected ones
   double independent_detected = 0.0;    ///< independent failures, share due to detected ones
   double common_cause = 0.0;            ///< the beta and beta_D terms
+  double test_duration = 0.0;           ///< channels out of service while tested (included in pfd_avg)
   std::string equation;                 ///< the published equation used, with its clause
 };
 

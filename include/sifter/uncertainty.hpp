@@ -164,6 +164,16 @@ inline constexpr std::size_t kMaxFactorTableBytes = std::size_t{256} << 20;
 UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarloOptions& options,
                                    const SampleEvaluator& evaluate, double required_value);
 
+/// Whether one sample's value meets the requirement (the one judge of judge.hpp, bound to a SIF).
+using SampleJudge = std::function<bool(double value)>;
+
+/// The same, each sample judged by `meets` (so that a sample is counted by the rule the verdict uses).
+UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarloOptions& options,
+                                   const SampleEvaluator& evaluate, const SampleJudge& meets);
+
+/// Summarises values already computed (reorders `values`), each judged by `meets`.
+UncertaintySummary summarize_samples(std::vector<double>& values, const SampleJudge& meets);
+
 /// Summarises values already computed (reorders `values`).
 UncertaintySummary summarize_samples(std::vector<double>& values, double required_value);
 

@@ -6,25 +6,14 @@
 #include <vector>
 
 #include "sifter/dependency_graph.hpp"
+#include "sifter/group_model.hpp"
+#include "sifter/judge.hpp"
 #include "sifter/load.hpp"
 #include "sifter/lopa.hpp"
 #include "sifter/results.hpp"
 #include "sifter/simplified.hpp"
 
 namespace sifter {
-
-/// How the simplified equations see one subsystem: effective beta (Table D.5), test slices
-/// for imperfect and partial stroke tests, one channel's rates.
-GroupData group_data_for(const Project& project, const Subsystem& sub);
-
-/// The SIF requirement from the risk analysis, when scenarios feed it.
-struct RequirementFromLopa {
-  double required_rrf = 0.0;            ///< the largest over the scenarios (low demand)
-  std::optional<double> required_pfh_per_hour;  ///< high demand: the smallest over the scenarios
-  DemandMode demand_mode = DemandMode::kLow;
-  std::vector<std::string> scenarios;
-  std::string demand_basis;
-};
 
 /// What the risk analysis asks of each SIF its scenarios credit, by SIF id (empty without
 /// scenarios); the LOPA findings go to `warnings`. It does not depend on the SIFs' own figures.

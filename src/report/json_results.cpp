@@ -94,6 +94,12 @@ void emit_subsystem(W& w, const SubsystemResult& s) {
   w.key("pfh_exact").number(s.pfh_exact_per_hour, "pfh_exact");
   w.key("spurious_trip_rate_per_yr").number(s.spurious_trip_rate_per_yr, "spurious trip rate");
   w.key("mttf_spurious_yr").number(s.mttf_spurious_yr, "mttf_spurious_yr");
+  w.key("pfd_avg_simplified").number(s.pfd_avg_simplified, "pfd_avg_simplified");
+  w.key("pfh_simplified").number(s.pfh_simplified_per_hour, "pfh_simplified");
+  w.key("pfd_avg_judged").number(s.pfd_avg, "pfd_avg_judged");
+  w.key("pfh_judged").number(s.pfh_per_hour, "pfh_judged");
+  w.key("judged_on").value(to_string(s.judged_on));
+  w.key("test_duration_term").number(s.test_duration_term, "test duration term");
   w.key("systematic_basis").begin_array();
   for (const auto& e : s.systematic_basis) {
     w.begin_object();
@@ -170,6 +176,8 @@ void emit_scenario(W& w, const ScenarioResult& s) {
   }
   w.end_array();
   w.key("assumptions").value(s.assumptions);
+  w.key("sif_credit_pfd").number(s.sif_credit_pfd, "sif_credit_pfd");
+  w.key("sif_credit_capped").value(s.sif_credit_capped);
   w.key("generated").value(s.generated);
   w.key("preliminary").value(s.preliminary);
   w.key("preliminary_because").value(s.preliminary_because);
@@ -258,6 +266,16 @@ void emit_sif(W& w, const SifResult& s) {
     w.end_object();
   }
   w.end_array();
+  w.key("pfd_avg_simplified").number(s.pfd_avg_simplified, "pfd_avg_simplified");
+  w.key("pfh_simplified").number(s.pfh_simplified_per_hour, "pfh_simplified");
+  w.key("pfd_avg_judged").number(s.pfd_avg, "pfd_avg_judged");
+  w.key("pfh_judged").number(s.pfh_per_hour, "pfh_judged");
+  if (s.pfd_avg || s.pfh_per_hour) w.key("judged_on").value(to_string(s.judged_on));
+  else w.key("judged_on").null();
+  w.key("judged_why").value(to_string(s.judged_why));
+  w.key("demand_mode_raised").value(s.demand_mode_raised);
+  w.key("credit_pfd").number(s.credit_pfd, "credit_pfd");
+  w.key("credit_capped").value(s.credit_capped);
   w.key("preliminary").value(s.preliminary);
   w.key("preliminary_because").value(s.preliminary_because);
   w.end_object();
