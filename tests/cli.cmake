@@ -81,6 +81,6 @@ add_test(NAME example_unit70_diff_moves_the_skid
                  ${PROJECT_SOURCE_DIR}/examples/unit70_booster.json)
 set_tests_properties(example_unit70_diff_moves_the_skid PROPERTIES
                      PASS_REGULAR_EXPRESSION "M-702 MOVED: none at 19.00 barg \\(preliminary\\) -> leak_possible at 22.11 barg")
-add_test(NAME example_unit70_report
-         COMMAND sifter report ${PROJECT_SOURCE_DIR}/examples/unit70_booster.json -o ${CMAKE_CURRENT_BINARY_DIR}/unit70.html)
-set_tests_properties(example_unit70_report PROPERTIES WILL_FAIL TRUE)
+add_test(NAME example_unit70_booster_report
+         COMMAND sifter report ${PROJECT_SOURCE_DIR}/examples/unit70_booster.json -o ${CMAKE_CURRENT_BINARY_DIR}/unit70-booster.html)
+set_tests_properties(example_unit70_booster_report PROPERTIES WILL_FAIL TRUE)
