@@ -302,7 +302,7 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
     running = 1;
     work(0);
     if (errors[0]) std::rethrow_exception(errors[0]);
-    return summarize_samples(values, required_value);
+    return summarize_samples(values, meets);
   }
   std::vector<std::thread> workers;
   workers.reserve(static_cast<std::size_t>(threads));
