@@ -10,6 +10,7 @@
 
 #include "results_support.hpp"
 #include "sifter/csv_text.hpp"
+#include "sifter/printable.hpp"
 
 namespace sifter {
 namespace {
