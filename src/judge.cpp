@@ -74,7 +74,10 @@ SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<Requir
       warnings.push_back({sif.pointer + "/target", "the stated target (" + out.text + ") differs from the SIL " +
                                                         std::to_string(lopa_sil) +
                                                         " the LOPA requires; the stricter applies"});
-    const double lopa_pfd = 1.0 / lopa->required_rrf;
+    // A required RRF at or below 1 asks for no reduction at all: the required PFD is capped at 1
+    // (a probability), and the text says that no SIF is needed.
+    const bool none_needed = !(lopa->required_rrf > 1.0);
+    const double lopa_pfd = none_needed ? 1.0 : 1.0 / lopa->required_rrf;
     if (!out.required_pfd || lopa_pfd < *out.required_pfd) {
       out.required_pfd = lopa_pfd;
       out.required_rrf = lopa->required_rrf;
@@ -83,7 +86,9 @@ SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<Requir
       out.required_pfh_per_hour = lopa->required_pfh_per_hour;
     out.sil = std::max(out.sil.value_or(0), lopa_sil);
     out.text = (out.text.empty() ? "" : out.text + "; ") + "LOPA: " +
-               (low ? "RRF " + num(lopa->required_rrf) : "PFH <= " + num(out.required_pfh_per_hour.value_or(0.0)) + "/h");
+               (low ? (none_needed ? "no SIF needed (required RRF " + num(lopa->required_rrf) + ", PFD capped at 1)"
+                                   : "RRF " + num(lopa->required_rrf))
+                    : "PFH <= " + num(out.required_pfh_per_hour.value_or(0.0)) + "/h");
   }
   if (low) out.required_pfh_per_hour.reset();
   else out.required_pfd.reset();
@@ -109,7 +114,8 @@ SifCredit sif_credit(double judged, int sil_achieved, DemandMode mode) {
   const double edge = sil_band_lower_edge(sil_achieved, mode);
   SifCredit c;
   c.capped = judged < edge * (1.0 - kEdgeRelTol);
-  c.value = c.capped ? edge : judged;
+  // A credit is a probability: never above 1, whatever a figure outside the equations' validity says.
+  c.value = std::min(1.0, c.capped ? edge : judged);
   return c;
 }
 

@@ -3,6 +3,8 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
+
 #include <cmath>
 
 namespace sifter {
@@ -122,8 +124,11 @@ TEST(Verify, ASifWithoutTargetIsComputedButNotJudged) {
   const auto r = verify_text(project(R"("title": "no target")", "1oo1", R"(["XV-1"])"));
   EXPECT_FALSE(r.sifs[0].meets_target);
   EXPECT_TRUE(r.all_met());
-  ASSERT_FALSE(r.warnings.empty());
-  EXPECT_EQ(r.warnings.back().message, "no target and no scenario names this SIF; it is computed but not judged");
+  // Other warnings (failure data without a source) may stand beside it; this one must be there.
+  bool said = false;
+  for (const auto& w : r.warnings)
+    said = said || w.message == "no target and no scenario names this SIF; it is computed but not judged";
+  EXPECT_TRUE(said);
 }
 
 // Where the Annex B equations stop being accurate: for one channel, lDU T1 / 2 overstates the
@@ -145,7 +150,9 @@ TEST(Verify, AChannelBeyondLambdaTimesIntervalOfOneTenthIsWarnedAbout) {
   // 2e-5/h x 8760 h = 0.1752
   const auto r = verify_text(one_channel("2e-5/h", "1 yr"));
   ASSERT_TRUE(warns_of_accuracy(r));
-  const auto& w = r.warnings.back();
+  const auto& w = *std::find_if(r.warnings.begin(), r.warnings.end(), [](const Warning& x) {
+    return x.message.find("lose accuracy") != std::string::npos;
+  });
   EXPECT_EQ(w.where, "/sifs/0/subsystems/0");
   EXPECT_EQ(w.message, "lDU·T1 = 0.1752 for a channel of valve: the simplified equations lose accuracy above "
                        "lDU·T1 = 0.1; see the exact cross-check");
