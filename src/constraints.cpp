@@ -1,4 +1,4 @@
-// Architectural constraints and systematic capability (see ../shared/REFERENCES.md §5).
+// Architectural constraints and systematic capability (DEVELOPERS.md, Methods M5).
 #include "sifter/constraints.hpp"
 
 #include <algorithm>

@@ -1,4 +1,4 @@
-// SIL bands and tolerant comparisons (REFERENCES.md §4, IEC 61508-1:2010 Tables 2/3, seen).
+// SIL bands and tolerant comparisons (DEVELOPERS.md, Methods M4, IEC 61508-1:2010 Tables 2/3, seen).
 #include "sifter/sil.hpp"
 
 #include <algorithm>

@@ -1,4 +1,4 @@
-// IEC 61508-6:2010 Annex B simplified PFDavg and PFH (see ../shared/REFERENCES.md §1-§3).
+// IEC 61508-6:2010 Annex B simplified PFDavg and PFH (DEVELOPERS.md, Methods M1-M3).
 #include "sifter/simplified.hpp"
 
 #include <array>
@@ -222,7 +222,7 @@ GroupPfh group_pfh(const GroupData& g) {
 bool table_d5_covers(int k, int n) { return k >= 1 && k <= n && (n <= 5 || k == n); }
 
 double ccf_multiplier_table_d5(int k, int n) {
-  // IEC 61508-6:2010 Annex D, Table D.5 (REFERENCES.md §1, from memory); rows M = K, columns N.
+  // IEC 61508-6:2010 Annex D, Table D.5 (DEVELOPERS.md, Methods M1, from memory); rows M = K, columns N.
   static constexpr std::array<std::array<double, 4>, 4> kTable{{
       {1.0, 0.5, 0.3, 0.2},   // M = 1: N = 2, 3, 4, 5
       {0.0, 1.5, 0.6, 0.4},   // M = 2

@@ -1,4 +1,4 @@
-// Spurious trip rates of voting groups and SIFs (REFERENCES.md §7, Gruhn & Cheddie, from memory).
+// Spurious trip rates of voting groups and SIFs (DEVELOPERS.md, Methods M7, Gruhn & Cheddie, from memory).
 #include "sifter/spurious.hpp"
 
 #include <cassert>

@@ -187,7 +187,7 @@ TEST(ProbabilityLimit, BelowTheBandSaysWhatPfdAvgTheFunctionMustReach) {
 }
 
 // A required PFD from the risk analysis is met when the PFDavg is no more than it
-// (REFERENCES.md §4), not merely when it falls in the same band.
+// (DEVELOPERS.md, Methods M4), not merely when it falls in the same band.
 TEST(ProbabilityLimit, InTheBandButAboveTheRequiredValueIsStillALimit) {
   const auto limits = limits_for(ProbabilityCheck{DemandMode::kLow, 3, 5e-4, 3.3e-4}, SifConstraints{}, 3);
   ASSERT_FALSE(limits.empty());

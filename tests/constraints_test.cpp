@@ -45,7 +45,7 @@ struct Table6Cell {
 };
 class Table6 : public ::testing::TestWithParam<Table6Cell> {};
 
-// IEC 61511-1:2016 11.4 Table 6 [seen, REFERENCES.md §5]: SIL 1: 0; SIL 2 low demand: 0;
+// IEC 61511-1:2016 11.4 Table 6 [seen, DEVELOPERS.md, Methods M5]: SIL 1: 0; SIL 2 low demand: 0;
 // SIL 2 high demand or continuous: 1; SIL 3: 1; SIL 4: 2.
 TEST_P(Table6, MinimumHftMatchesTheTable) {
   const auto& c = GetParam();
@@ -83,7 +83,7 @@ struct Route1hCell {
 };
 class Route1hTables : public ::testing::TestWithParam<Route1hCell> {};
 
-// IEC 61508-2:2010 Table 2 (Type A) and Table 3 (Type B) [seen, REFERENCES.md §5]; one SFF
+// IEC 61508-2:2010 Table 2 (Type A) and Table 3 (Type B) [seen, DEVELOPERS.md, Methods M5]; one SFF
 // inside each band; 0 is the "not allowed" cell.
 TEST_P(Route1hTables, CellMatchesTheTable) {
   const auto& c = GetParam();

@@ -39,7 +39,7 @@ void expect_relative(double actual, double expected, double rel_tol) {
 }
 
 // IEC 61508-6:2010 B.3.2.2.1, 1oo1: PFDavg = lDU (T1/2 + MRT) + lDD MTTR (from memory,
-// ../shared/REFERENCES.md section 1), written out here by hand.
+// DEVELOPERS.md, Methods M1), written out here by hand.
 TEST(Curve, OneOutOfOneAveragesToTheAnnexBFormOverAProofTestInterval) {
   const GroupData g = group(1, 1, 2e-6, 5e-6, 0.0, 0.0, 16.0);
   const double by_hand = 2e-6 * (kOneYear / 2 + 16.0) + 5e-6 * 8.0;

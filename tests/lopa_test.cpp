@@ -164,7 +164,7 @@ TEST(LopaDemandMode, ExactlyOnceAYearIsLowDemand) {
   EXPECT_EQ(*r.demand_mode, DemandMode::kHigh);
 }
 
-// Only the layers that act before the SIF reduce the demand on it (REFERENCES.md §6, seen).
+// Only the layers that act before the SIF reduce the demand on it (DEVELOPERS.md, Methods M6, seen).
 TEST(LopaDemandMode, OnlyLayersBeforeTheSifReduceItsDemand) {
   Project p = project_with_criteria();
   add_sif(p, "SIF-1", {"PT-1"});

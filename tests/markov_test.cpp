@@ -74,7 +74,7 @@ reference::Group reference_of(const ExactGroupInput& g) {
 class SingleChannelClosedForm : public ::testing::TestWithParam<double> {};
 
 // One channel, undetected failures, perfect tests: PFDavg = 1 - (1 - exp(-x)) / x with
-// x = lDU T1 (../shared/REFERENCES.md §8, computed there from the exponential law).
+// x = lDU T1 (DEVELOPERS.md, Methods M8, computed there from the exponential law).
 TEST_P(SingleChannelClosedForm, AverageIsOneMinusMeanSurvival) {
   const double x = GetParam();
   const auto g = du_group(1, 1, x / kYear, 0.0, 1.0, 10.0 * kYear);
@@ -186,7 +186,7 @@ void PrintTo(const LimitCase& c, std::ostream* os) { *os << c.k << "oo" << c.n <
 class SmallRateLimit : public ::testing::TestWithParam<LimitCase> {};
 
 // For lDU T1 -> 0 the exact average tends to the Annex B value (IEC 61508-6:2010 B.3.2.2 and
-// its general KooN form, REFERENCES.md §1, from memory): lDU T1 = 8.8e-4 here.
+// its general KooN form, DEVELOPERS.md, Methods M1, from memory): lDU T1 = 8.8e-4 here.
 TEST_P(SmallRateLimit, ExactAndSimplifiedAgree) {
   const auto c = GetParam();
   const auto g = du_group(c.k, c.n, 1e-7, c.beta, 1.0, 10.0 * kYear);
@@ -229,7 +229,7 @@ class DetectedFailuresLimit : public ::testing::TestWithParam<TableB3Case> {};
 
 // With detected failures and MTTR, small rates: the exact average against Annex B
 // (IEC 61508-6:2010 B.3.2.2, from memory) within 1 %, and against the printed cell of
-// Table B.3 (from memory, REFERENCES.md §8) within its two digits. At DC 99 % in redundant
+// Table B.3 (from memory, DEVELOPERS.md, Methods M8) within its two digits. At DC 99 % in redundant
 // groups the exact common-cause term is lower (each channel restored on its own), so those
 // cells are left out.
 TEST_P(DetectedFailuresLimit, ExactMatchesAnnexBAndTableB3) {
@@ -250,7 +250,7 @@ INSTANTIATE_TEST_SUITE_P(
                       TableB3Case{2, 3, 1e-7, 0.02, 0.9, 4.4e-7}));
 
 // The failure frequency against the Annex B PFH for small rates (IEC 61508-6:2010 B.3.3.2,
-// REFERENCES.md §3, from memory); undetected failures, which both count the same way.
+// DEVELOPERS.md, Methods M3, from memory); undetected failures, which both count the same way.
 TEST(ExactGroup, FailureFrequencyTendsToAnnexBPfh) {
   for (const auto& [k, n] : {std::pair{1, 1}, std::pair{2, 2}, std::pair{1, 2}, std::pair{2, 3}}) {
     auto g = du_group(k, n, 1e-7, 0.05, 1.0, 10.0 * kYear);
@@ -275,7 +275,7 @@ TEST(ExactGroup, UndetectedFailureFrequencyTendsToAnnexBPfhWithDetectedFailures)
 }
 
 // Imperfect proof test, small rates: PTC lDU T1/2 + (1 - PTC) lDU T2/2 with T2 the mission
-// (IEC 61508-6:2010 B.3.2.5, REFERENCES.md §2, from memory, low confidence).
+// (IEC 61508-6:2010 B.3.2.5, DEVELOPERS.md, Methods M2, from memory, low confidence).
 TEST(ExactGroup, ImperfectProofTestTendsToWeightedIntervals) {
   const double lambda = 1e-8;
   const auto g = du_group(1, 1, lambda, 0.0, 0.7, 10.0 * kYear);
@@ -283,7 +283,7 @@ TEST(ExactGroup, ImperfectProofTestTendsToWeightedIntervals) {
   expect_relative(group_exact(g).pfd_avg, simplified, kSmallRateRelTol);
 }
 
-// Partial stroke, small rates: C lDU T_PST/2 + (1 - C) lDU T_FT/2 (REFERENCES.md §2, from memory).
+// Partial stroke, small rates: C lDU T_PST/2 + (1 - C) lDU T_FT/2 (DEVELOPERS.md, Methods M2, from memory).
 TEST(ExactGroup, PartialStrokeTendsToWeightedIntervals) {
   const double lambda = 1e-8;
   auto g = du_group(1, 1, lambda, 0.0, 1.0, 10.0 * kYear);

@@ -1,5 +1,5 @@
 // Specification of the SIL bands, IEC 61508-1:2010 Tables 2/3 and IEC 61511-1:2016 Tables 4/5
-// (REFERENCES.md §4, seen).
+// (DEVELOPERS.md, Methods M4, seen).
 #include "sifter/sil.hpp"
 
 #include <gtest/gtest.h>
@@ -21,7 +21,7 @@ TEST(SilBands, LowDemandBandsAreHalfOpenAtTheUpperEdge) {
 }
 
 TEST(SilBands, ProductsOfDecimalFactorsAreReadAtTheEdge) {
-  // 1e-5 / (0.1 x 0.1 x 0.01) is 0.09999999999999999 in binary floating point (REFERENCES.md §4).
+  // 1e-5 / (0.1 x 0.1 x 0.01) is 0.09999999999999999 in binary floating point (DEVELOPERS.md, Methods M4).
   const double required = 1e-5 / (0.1 * 0.1 * 0.01);
   ASSERT_NE(required, 0.1);
   EXPECT_EQ(sil_from_pfd_avg(required), 0);

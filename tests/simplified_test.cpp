@@ -48,7 +48,7 @@ struct TableB3Cell {
 class TableB3 : public ::testing::TestWithParam<TableB3Cell> {};
 
 // IEC 61508-6:2010 Table B.3 (T1 = 1 yr, MTTR = MRT = 8 h); cells from memory of the printed
-// table, as collected in ../shared/REFERENCES.md §8.
+// table, as collected in DEVELOPERS.md, Methods M8.
 TEST_P(TableB3, CellMatchesPrintedTwoDigits) {
   const auto& c = GetParam();
   const auto r = group_pfd_avg(table_b3_group(c.vote, c.lambda_per_hour, c.beta, c.dc));
@@ -89,7 +89,7 @@ GroupData hand_group(int k, int n, double ldu, double ldd, double beta, double b
   return g;
 }
 
-// The Annex B forms written out by hand (IEC 61508-6:2010 B.3.2.2, REFERENCES.md §1, from
+// The Annex B forms written out by hand (IEC 61508-6:2010 B.3.2.2, DEVELOPERS.md, Methods M1, from
 // memory), evaluated independently of the general construction in simplified.cpp.
 struct HandForms {
   double ldu, ldd, beta, beta_d, t1, mttr, mrt;
@@ -123,7 +123,7 @@ TEST(AnnexB, OneOutOfTwoAndTwoOutOfThreeMatchTheHandComputedForms) {
 }
 
 TEST(AnnexB, OneOutOfTwoDMatchesTheHandComputedForm) {
-  // IEC 61508-6:2010 B.3.2.2.5 (REFERENCES.md §1, from memory).
+  // IEC 61508-6:2010 B.3.2.2.5 (DEVELOPERS.md, Methods M1, from memory).
   const double ldu = 2e-6, ldd = 8e-6, lsd = 5e-6, beta = 0.05, beta_d = 0.02, t1 = 8760, mttr = 8, mrt = 24;
   auto g = hand_group(1, 2, ldu, ldd, beta, beta_d, t1, mttr, mrt);
   g.vote.diagnostic = true;
@@ -138,7 +138,7 @@ TEST(AnnexB, OneOutOfTwoDMatchesTheHandComputedForm) {
 class GeneralKooN : public ::testing::TestWithParam<std::pair<int, int>> {};
 
 // With beta = DC = MRT = 0 the Annex B construction reduces to the undetected-only KooN
-// form C(N, N-K+1) (lDU T1)^(N-K+1) / (N-K+2) (Rausand 2014; REFERENCES.md §1, from memory).
+// form C(N, N-K+1) (lDU T1)^(N-K+1) / (N-K+2) (Rausand 2014; DEVELOPERS.md, Methods M1, from memory).
 TEST_P(GeneralKooN, EqualsTheUndetectedOnlyFormWithoutCommonCauseOrRepair) {
   const auto [k, n] = GetParam();
   const double ldu = 3e-6, t1 = 8760.0;
@@ -153,7 +153,7 @@ INSTANTIATE_TEST_SUITE_P(Votes, GeneralKooN,
                                            std::pair{1, 4}, std::pair{4, 8}));
 
 TEST(AnnexBPfh, SingleAndSeriesChannelsAreTheirUndetectedRate) {
-  // IEC 61508-6:2010 B.3.3.2 (REFERENCES.md §3, from memory): 1oo1 PFH = lDU, 2oo2 = 2 lDU.
+  // IEC 61508-6:2010 B.3.3.2 (DEVELOPERS.md, Methods M3, from memory): 1oo1 PFH = lDU, 2oo2 = 2 lDU.
   expect_relative(group_pfh(hand_group(1, 1, 2e-7, 5e-7, 0, 0, 8760, 8, 8)).pfh_per_hour, 2e-7, kExactRelTol);
   expect_relative(group_pfh(hand_group(2, 2, 2e-7, 5e-7, 0, 0, 8760, 8, 8)).pfh_per_hour, 4e-7, kExactRelTol);
 }
@@ -181,7 +181,7 @@ TEST(AnnexBPfh, PfhCheckValueForOneOutOfTwoAtTwoPercentBeta) {
 }
 
 TEST(TableD5, MultipliersOfTheOneOutOfTwoBeta) {
-  // IEC 61508-6:2010 Table D.5 (REFERENCES.md §1, from memory).
+  // IEC 61508-6:2010 Table D.5 (DEVELOPERS.md, Methods M1, from memory).
   EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(1, 2), 1.0);
   EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(1, 3), 0.5);
   EXPECT_DOUBLE_EQ(ccf_multiplier_table_d5(2, 3), 1.5);
@@ -196,7 +196,7 @@ TEST(TableD5, MultipliersOfTheOneOutOfTwoBeta) {
 }
 
 TEST(ImperfectProofTest, OneOutOfOneMatchesClauseB325) {
-  // IEC 61508-6:2010 B.3.2.5 (REFERENCES.md §2, from memory, low confidence):
+  // IEC 61508-6:2010 B.3.2.5 (DEVELOPERS.md, Methods M2, from memory, low confidence):
   // PFD = PTC lDU (T1/2 + MRT) + (1 - PTC) lDU (T2/2 + MRT) + lDD MTTR.
   const double ldu = 1e-6, ldd = 2e-6, ptc = 0.9, t1 = 8760, t2 = 20 * 8760.0, mttr = 8, mrt = 16;
   auto g = hand_group(1, 1, ldu, ldd, 0, 0, t1, mttr, mrt);
@@ -206,7 +206,7 @@ TEST(ImperfectProofTest, OneOutOfOneMatchesClauseB325) {
 }
 
 TEST(PartialStrokeTest, OneOutOfOneMatchesTheWeightedForm) {
-  // Partial stroke (REFERENCES.md §2, from memory): C lDU T_PST/2 + (1 - C) lDU T_FT/2 with MRT = 0.
+  // Partial stroke (DEVELOPERS.md, Methods M2, from memory): C lDU T_PST/2 + (1 - C) lDU T_FT/2 with MRT = 0.
   const double ldu = 2e-6, c = 0.6, t_pst = 730, t_ft = 8760;
   auto g = hand_group(1, 1, ldu, 0, 0, 0, t_ft, 0, 0);
   g.tests = {{c, Duration{t_pst}}, {1 - c, Duration{t_ft}}};
@@ -254,7 +254,7 @@ double pfd_of(const Project& p) { return group_pfd_avg(group_data_for(p, p.sifs[
 
 class TestSlicesPerVote : public ::testing::TestWithParam<const char*> {};
 
-// REFERENCES.md §2 (IEC 61508-6:2010 B.3.2.5, from memory): with PTC = 1 the imperfect-test
+// DEVELOPERS.md, Methods M2 (IEC 61508-6:2010 B.3.2.5, from memory): with PTC = 1 the imperfect-test
 // form is the plain B.3.2.2 equation; our generalisation to every vote keeps that property.
 TEST_P(TestSlicesPerVote, ProofTestCoverageOneGivesBackThePlainEquations) {
   const std::string vote = GetParam();
@@ -263,7 +263,7 @@ TEST_P(TestSlicesPerVote, ProofTestCoverageOneGivesBackThePlainEquations) {
   EXPECT_GT(pfd_of(one_group_project(vote, R"(, "proof_test_coverage": 0.9)")), plain);
 }
 
-// REFERENCES.md §2 (partial stroke, from memory): a partial stroke test that reveals nothing
+// DEVELOPERS.md, Methods M2 (partial stroke, from memory): a partial stroke test that reveals nothing
 // leaves the full-test result.
 TEST_P(TestSlicesPerVote, PartialStrokeCoverageZeroGivesBackTheFullTestResult) {
   const std::string vote = GetParam();
@@ -276,7 +276,7 @@ TEST_P(TestSlicesPerVote, PartialStrokeCoverageZeroGivesBackTheFullTestResult) {
 INSTANTIATE_TEST_SUITE_P(Votes, TestSlicesPerVote, ::testing::Values("1oo1", "1oo2", "2oo2", "2oo3", "1oo3"));
 
 TEST(TestSlices, ImperfectProofTestOfOneChannelFollowsClauseB325FromTheProjectFile) {
-  // IEC 61508-6:2010 B.3.2.5 (REFERENCES.md §2, from memory): T2 is the mission time (15 yr).
+  // IEC 61508-6:2010 B.3.2.5 (DEVELOPERS.md, Methods M2, from memory): T2 is the mission time (15 yr).
   const auto p = one_group_project("1oo1", R"(, "proof_test_coverage": "80%")");
   const double ldu = 2e-6, ldd = 5e-7, t1 = 8760.0, t2 = 15 * 8760.0, mrt = 16.0, mttr = 8.0;
   expect_relative(pfd_of(p), 0.8 * ldu * (t1 / 2 + mrt) + 0.2 * ldu * (t2 / 2 + mrt) + ldd * mttr, kExactRelTol);
@@ -284,7 +284,7 @@ TEST(TestSlices, ImperfectProofTestOfOneChannelFollowsClauseB325FromTheProjectFi
 
 TEST(TestSlices, PartialStrokeAndImperfectProofTestShareTheUndetectedRate) {
   // The partial stroke reveals its share at its own interval; the proof test reveals PTC of the
-  // rest, and what both miss stays to the end of the mission (REFERENCES.md §2, generalised).
+  // rest, and what both miss stays to the end of the mission (DEVELOPERS.md, Methods M2, generalised).
   const auto p = one_group_project("1oo1", R"(, "proof_test_coverage": 0.9, "partial_stroke": {"interval": "1 mo", "coverage": 0.6})");
   const double ldu = 2e-6, ldd = 5e-7, t_pst = 730.0, t1 = 8760.0, t2 = 15 * 8760.0, mrt = 16.0, mttr = 8.0;
   const double expected = 0.6 * ldu * (t_pst / 2 + mrt) + 0.4 * 0.9 * ldu * (t1 / 2 + mrt) +

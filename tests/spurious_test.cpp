@@ -33,7 +33,7 @@ void expect_relative(double actual, double expected, double rel_tol) {
   EXPECT_NEAR(actual, expected, std::fabs(expected) * rel_tol) << "expected " << expected;
 }
 
-// Gruhn & Cheddie, Safety Instrumented Systems, 2nd ed., 8.9 (REFERENCES.md §7, from memory).
+// Gruhn & Cheddie, Safety Instrumented Systems, 2nd ed., 8.9 (DEVELOPERS.md, Methods M7, from memory).
 TEST(SpuriousTrips, OneOutOfOneTripsOnEverySafeFailure) {
   expect_relative(group_spurious_trip_rate_per_hour(group(1, 1)), kLs, kExactRelTol);
 }
@@ -107,7 +107,7 @@ TEST(SpuriousTrips, TheSifTripsWhenAnySubsystemDoesAndCheckReportsIt) {
     { "name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"] } ] } ]
 })");
   const auto& s = r.sifs[0];
-  // Sensors: lS = 300 + 450 FIT (detected failures trip); 1oo2, beta 10 % (REFERENCES.md §7).
+  // Sensors: lS = 300 + 450 FIT (detected failures trip); 1oo2, beta 10 % (DEVELOPERS.md, Methods M7).
   const double sensors = (2 * 0.9 * 750e-9 + 0.1 * 750e-9) * 8760.0;
   const double valve = 500e-9 * 8760.0;
   expect_relative(s.subsystems[0].spurious_trip_rate_per_yr, sensors, kExactRelTol);

@@ -50,7 +50,7 @@ TEST(Verify, TheSifPfdIsTheSumOfItsSubsystems) {
   double sum = 0.0;
   for (const auto& sub : s.subsystems) sum += *sub.pfd_avg;
   EXPECT_NEAR(*s.pfd_avg, sum, sum * kRelTol);
-  // The valve alone: lDU (T1/2 + MRT) = 5e-7 x (4380 + 8) h (REFERENCES.md §1, 1oo1).
+  // The valve alone: lDU (T1/2 + MRT) = 5e-7 x (4380 + 8) h (DEVELOPERS.md, Methods M1, 1oo1).
   EXPECT_NEAR(*s.subsystems[2].pfd_avg, 5e-7 * 4388.0, 5e-7 * 4388.0 * kRelTol);
 }
 
@@ -89,7 +89,7 @@ TEST(Verify, ALogicSolverOfSystematicCapabilityTwoCapsASilThreeFunction) {
 }
 
 TEST(Verify, APfdAboveTheRequiredValueFallsShortEvenInsideTheSameBand) {
-  // REFERENCES.md §4: a target by RRF is met only when PFDavg <= 1/RRF, not by the band.
+  // DEVELOPERS.md, Methods M4: a target by RRF is met only when PFDavg <= 1/RRF, not by the band.
   const auto r = verify_text(project(R"("target": {"rrf": 500})", "1oo1", R"(["XV-1"])"));
   const auto& s = r.sifs[0];
   EXPECT_EQ(s.sil_probability, 2);
@@ -132,7 +132,7 @@ TEST(Verify, ASifWithoutTargetIsComputedButNotJudged) {
 }
 
 // Where the Annex B equations stop being accurate: for one channel, lDU T1 / 2 overstates the
-// exact 1 - (1 - exp(-x)) / x by about 3.4 % at x = lDU T1 = 0.1 (REFERENCES.md section 8, computed).
+// exact 1 - (1 - exp(-x)) / x by about 3.4 % at x = lDU T1 = 0.1 (DEVELOPERS.md, Methods M8, computed).
 std::string one_channel(const std::string& lambda_du, const std::string& interval) {
   return R"({"format": "sifter-project/1", "defaults": {"proof_test_interval": ")" + interval + R"(", "mttr": "8 h"},
     "components": [{"id": "XV-1", "lambda_du": ")" + lambda_du + R"(", "element_type": "A", "systematic_capability": 3}],

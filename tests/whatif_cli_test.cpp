@@ -41,7 +41,7 @@ TEST(WhatIfCli, IntervalJsonCarriesTheContractKeys) {
 }
 
 TEST(WhatIfCli, IntervalWithNoAnswerExitsOne) {
-  // lDD MTTR = 1e-4 x 8 h = 8e-4 alone exceeds the required 5e-4 (REFERENCES.md §1, 1oo1).
+  // lDD MTTR = 1e-4 x 8 h = 8e-4 alone exceeds the required 5e-4 (DEVELOPERS.md, Methods M1, 1oo1).
   const auto r = run_sifter("interval tests/data/whatif_no_interval.json --sif S1 --json -");
   EXPECT_EQ(r.exit_code, 1) << r.err;
   const json j = json::parse(r.out);
@@ -120,7 +120,7 @@ TEST(WhatIfCli, CompareShowsEachVoteWithSpuriousTrips) {
   for (const char* key : {"pfd_avg", "rrf", "sil_probability", "hft", "sil_architecture", "spurious_trip_rate_per_yr",
                           "mttf_spurious_yr", "meets_target"})
     EXPECT_TRUE(j["rows"][0].contains(key)) << key;
-  // 1oo2 trips on either transmitter, 2oo3 needs two: fewer spurious trips (REFERENCES.md §7).
+  // 1oo2 trips on either transmitter, 2oo3 needs two: fewer spurious trips (DEVELOPERS.md, Methods M7).
   EXPECT_GT(j["rows"][1]["spurious_trip_rate_per_yr"].get<double>(), j["rows"][2]["spurious_trip_rate_per_yr"].get<double>());
   // The current vote gives what check gives.
   const json check = json::parse(run_sifter("check examples/unit40.json --json -").out);

@@ -52,7 +52,7 @@ constexpr const char* kRates = R"("lambda_du": "2e-6/h", "lambda_dd": "5e-7/h", 
 
 // ---- Longest interval -------------------------------------------------------------------
 
-// From REFERENCES.md §1 (IEC 61508-6:2010 B.3.2.2, from memory), 1oo1: PFD = lDU (T1/2 + MRT)
+// From DEVELOPERS.md, Methods M1 (IEC 61508-6:2010 B.3.2.2, from memory), 1oo1: PFD = lDU (T1/2 + MRT)
 // + lDD MTTR, so the longest T1 with PFD <= PFDreq is 2 (PFDreq - lDD MTTR)/lDU - 2 MRT.
 TEST(LongestInterval, OneOutOfOneMatchesTheClosedForm) {
   const double pfd_req = 5e-3, ldu = 2e-6, ldd = 5e-7, mttr = 8.0, mrt = 24.0;
@@ -106,7 +106,7 @@ INSTANTIATE_TEST_SUITE_P(Votes, LongestIntervalPutBack,
                          ::testing::Values(std::pair{"1oo2", 2}, std::pair{"2oo3", 3}, std::pair{"1oo3", 3}));
 
 TEST(LongestInterval, NoIntervalMeetsATargetTheDetectedFailuresAloneExceed) {
-  // lDD MTTR = 1e-4 x 8 = 8e-4 > 5e-4: no proof-test interval can help (REFERENCES.md §1, 1oo1).
+  // lDD MTTR = 1e-4 x 8 = 8e-4 > 5e-4: no proof-test interval can help (DEVELOPERS.md, Methods M1, 1oo1).
   const WhatIf w(load(one_group("1oo1", 1, R"({"pfd_avg": 0.0005})",
                                 R"("lambda_du": "1e-7/h", "lambda_dd": "1e-4/h")")));
   const auto r = longest_proof_test_interval(w, 0, std::nullopt, 0.0);
@@ -126,7 +126,7 @@ TEST(LongestInterval, EveryIntervalUpToTheMissionMeetsAnEasyTarget) {
 }
 
 TEST(LongestInterval, ASilTargetStopsJustInsideTheHalfOpenBand) {
-  // REFERENCES.md §4 [seen]: PFDavg exactly 0.01 is SIL 1, so a SIL 2 answer must stay below it.
+  // DEVELOPERS.md, Methods M4 [seen]: PFDavg exactly 0.01 is SIL 1, so a SIL 2 answer must stay below it.
   const WhatIf w(load(one_group("1oo1", 1, R"({"sil": 2})", kRates)));
   const auto r = longest_proof_test_interval(w, 0, std::nullopt, 0.0);
   ASSERT_EQ(r.outcome, IntervalOutcome::kFound);
@@ -297,7 +297,7 @@ TEST(CompareVotes, ARedundantVoteWithoutBetaNeedsOneGiven) {
               "with --beta (for example --beta 5%)");
   }
   const auto r = compare_votes(w, 0, 0, {Vote{1, 2}}, 0.1);
-  // 1oo2, lDD = 0, MRT = MTTR = 8 h (REFERENCES.md §1): 2 ((1-b) lDU)^2 tCE tGE + b lDU (T1/2 + MRT).
+  // 1oo2, lDD = 0, MRT = MTTR = 8 h (DEVELOPERS.md, Methods M1): 2 ((1-b) lDU)^2 tCE tGE + b lDU (T1/2 + MRT).
   const double ldu = 2e-6, t1 = 8760.0, mrt = 8.0, b = 0.1;
   const double expected = 2 * std::pow((1 - b) * ldu, 2) * (t1 / 2 + mrt) * (t1 / 3 + mrt) + b * ldu * (t1 / 2 + mrt);
   expect_relative(*r.rows[0].result.pfd_avg, expected, kExactRelTol);
@@ -306,7 +306,7 @@ TEST(CompareVotes, ARedundantVoteWithoutBetaNeedsOneGiven) {
 // ---- Sensitivity ------------------------------------------------------------------------
 
 TEST(Sensitivity, AOneChannelFunctionIsLinearInItsRates) {
-  // With one 1oo1 subsystem the PFDavg is proportional to the rates (REFERENCES.md §1).
+  // With one 1oo1 subsystem the PFDavg is proportional to the rates (DEVELOPERS.md, Methods M1).
   const WhatIf w(load(one_group("1oo1", 1, R"({"sil": 2})", kRates)));
   const auto r = sensitivity(w, 0, 2.0);
   const SensitivityInput* rates = nullptr;
@@ -357,7 +357,7 @@ std::string high_demand(const std::string& vote, int n, const std::string& pfh) 
 }
 
 TEST(LongestInterval, InHighDemandAOneChannelPfhDoesNotDependOnTheInterval) {
-  // IEC 61508-6:2010 B.3.3.2 (REFERENCES.md §3, from memory): 1oo1 PFH = lDU = 2e-6 per hour.
+  // IEC 61508-6:2010 B.3.3.2 (DEVELOPERS.md, Methods M3, from memory): 1oo1 PFH = lDU = 2e-6 per hour.
   const auto meets = longest_proof_test_interval(WhatIf(load(high_demand("1oo1", 1, "3e-6/h"))), 0, std::nullopt, 0.0);
   EXPECT_EQ(meets.outcome, IntervalOutcome::kWholeMission);
   expect_relative(meets.measure_at_longest, 2e-6, kExactRelTol);

@@ -4,7 +4,7 @@
 ///
 /// Method: CCPS, Layer of Protection Analysis (2001) and Guidelines for Enabling Conditions and
 /// Conditional Modifiers in LOPA (2013); demand mode IEC 61511-1:2016 3.2.39; BPCS credit
-/// IEC 61511-1:2016 clause 9.3 (../shared/REFERENCES.md §6). Pure functions: no I/O.
+/// IEC 61511-1:2016 clause 9.3 (DEVELOPERS.md, Methods M6). Pure functions: no I/O.
 #include <cstddef>
 #include <map>
 #include <optional>

@@ -1,6 +1,6 @@
 #pragma once
 /// Spurious trips: how often a voting group, and a SIF, shuts the process down without a demand
-/// (Gruhn & Cheddie, Safety Instrumented Systems, 2nd ed., 8.9; ../shared/REFERENCES.md §7,
+/// (Gruhn & Cheddie, Safety Instrumented Systems, 2nd ed., 8.9; DEVELOPERS.md, Methods M7,
 /// from memory). Pure functions: no I/O.
 #include <optional>
 #include <string>
@@ -28,7 +28,7 @@ struct SpuriousGroupData {
 double channel_trip_rate_per_hour(const FailureRates& channel, bool trip_on_detected);
 
 /// Spurious trip rate of a KooN group, per hour. The group trips when K of its channels send a
-/// trip (K votes to trip, so K safe failures must overlap). REFERENCES.md §7 forms for
+/// trip (K votes to trip, so K safe failures must overlap). DEVELOPERS.md, Methods M7 forms for
 /// 1oo1 (lS), 1oo2 (2 (1-beta) lS + beta lS), 2oo2 (2 lS^2 MTTR + beta lS) and
 /// 2oo3 (6 lS^2 MTTR + beta lS); for other votes the same construction generalised:
 ///   STR = K C(N, K) lS_i^K MTTR^(K-1) + beta lS   (N >= 2; beta term absent for N = 1)

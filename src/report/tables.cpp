@@ -257,7 +257,7 @@ std::optional<std::pair<int, int>> vote_of(const std::string& vote) {
 }
 
 // The Annex B form behind an equation name, written out (IEC 61508-6:2010 B.3.2.2 and B.3.3.2,
-// as ../shared/REFERENCES.md sections 1 and 3 collect them; the general KooN form as DEVELOPERS.md states it).
+// as DEVELOPERS.md, Methods M1 and M3 collect them; the general KooN form as DEVELOPERS.md states it).
 std::string annex_b_form(const std::string& equation, const std::string& vote) {
   const auto kn = vote_of(vote);
   if (!kn) return "";
