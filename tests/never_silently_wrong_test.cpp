@@ -136,7 +136,8 @@ TEST(LayerCredit, AReliefDeviceClaimingOneInABillionIsAFinding) {
 TEST(LayerCredit, APfdOfOneInAHundredThousandIsNotQuestioned) {
   json p = project();
   p["scenarios"][0]["layers"][0]["pfd"] = 1e-5;
-  for (const auto& f : checked(p).scenarios[0].findings) EXPECT_NE(f.kind, FindingKind::kImplausiblyLowPfd);
+  const ProjectResult r = checked(p);  // the result outlives the loop over its findings
+  for (const auto& f : r.scenarios[0].findings) EXPECT_NE(f.kind, FindingKind::kImplausiblyLowPfd);
 }
 
 // --- Probabilities ------------------------------------------------------------------------

@@ -137,7 +137,8 @@ std::string service_csv(const ServiceResult& r) {
   std::string out;
   for (const char* c : kColumns) out += std::string(out.empty() ? "" : ",") + c;
   out += "\r\n";
-  for (const auto& m : service_json(r)["models"]) {
+  const json whole = service_json(r);  // kept alive while its models are read
+  for (const auto& m : whole["models"]) {
     std::string line;
     for (const char* c : kColumns) {
       const json& v = m[c];
