@@ -14,3 +14,8 @@ add_test(NAME init_writes_what_check_schema_and_readme_agree_on
 # The --xlsx workbook read back with Debian's python3-openpyxl (tests/xlsx_test.py).
 add_test(NAME xlsx_workbook_reads_back_as_the_results
          COMMAND ${SIFTER_PYTHON3} ${CMAKE_CURRENT_SOURCE_DIR}/xlsx_test.py ${PROJECT_SOURCE_DIR} $<TARGET_FILE:sifter>)
+
+# The contributor guide's map matches the tree, results are a leaf, and each "Where to start"
+# answer names the file where that change is made.
+add_test(NAME guide_map_matches_the_tree
+         COMMAND python3 ${CMAKE_CURRENT_SOURCE_DIR}/guide_test.py ${PROJECT_SOURCE_DIR})

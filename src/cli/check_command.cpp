@@ -6,16 +6,16 @@
 #include <optional>
 
 #include "commands.hpp"
-#include "sifter/load.hpp"
-#include "sifter/printable.hpp"
-#include "sifter/maturity.hpp"
+#include "sifter/input/load.hpp"
+#include "sifter/model/printable.hpp"
+#include "sifter/analysis/maturity.hpp"
 #include "sifter/report/csv.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
 #include "sifter/report/xlsx.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/analysis/verify.hpp"
 #include "terminal_width.hpp"
 
 namespace sifter::cli {

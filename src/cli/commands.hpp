@@ -5,8 +5,8 @@
 #include <functional>
 #include <string>
 
-#include "sifter/civil_date.hpp"
-#include "sifter/model.hpp"
+#include "sifter/model/civil_date.hpp"
+#include "sifter/model/model.hpp"
 
 namespace sifter::cli {
 

@@ -6,9 +6,9 @@
 #include <nlohmann/json.hpp>
 
 #include "commands.hpp"
-#include "sifter/cross_check.hpp"
-#include "sifter/load.hpp"
-#include "sifter/printable.hpp"
+#include "sifter/engines/cross_check.hpp"
+#include "sifter/input/load.hpp"
+#include "sifter/model/printable.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/terminal.hpp"

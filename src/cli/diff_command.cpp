@@ -2,8 +2,8 @@
 #include <memory>
 
 #include "commands.hpp"
-#include "sifter/diff.hpp"
-#include "sifter/load.hpp"
+#include "sifter/analysis/diff.hpp"
+#include "sifter/input/load.hpp"
 #include "sifter/report/diff_text.hpp"
 #include "sifter/report/output_file.hpp"
 #include "whatif_args.hpp"

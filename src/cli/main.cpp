@@ -3,8 +3,8 @@
 #include <map>
 
 #include "commands.hpp"
-#include "sifter/diagnostics.hpp"
-#include "sifter/printable.hpp"
+#include "sifter/model/diagnostics.hpp"
+#include "sifter/model/printable.hpp"
 
 int main(int argc, char** argv) {
   CLI::App app{"sifter: LOPA and SIL verification of safety instrumented functions (IEC 61511 / IEC 61508)"};

@@ -4,8 +4,8 @@
 #include <optional>
 
 #include "commands.hpp"
-#include "sifter/load.hpp"
-#include "sifter/options.hpp"
+#include "sifter/input/load.hpp"
+#include "sifter/analysis/options.hpp"
 #include "sifter/report/options_text.hpp"
 #include "sifter/report/output_file.hpp"
 

@@ -7,14 +7,14 @@
 #include <optional>
 
 #include "commands.hpp"
-#include "sifter/diagnostics.hpp"
-#include "sifter/load.hpp"
+#include "sifter/model/diagnostics.hpp"
+#include "sifter/input/load.hpp"
 #include "sifter/report/html.hpp"
 #include "sifter/report/markdown.hpp"
 #include "sifter/report/output_file.hpp"
-#include "sifter/service.hpp"
-#include "sifter/report_data.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/analysis/service.hpp"
+#include "sifter/analysis/report_data.hpp"
+#include "sifter/analysis/verify.hpp"
 
 namespace sifter::cli {
 namespace {

@@ -2,7 +2,7 @@
 #include <memory>
 
 #include "commands.hpp"
-#include "sifter/load.hpp"
+#include "sifter/input/load.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/whatif_json.hpp"
 #include "sifter/report/whatif_text.hpp"

@@ -3,12 +3,12 @@
 #include <memory>
 
 #include "commands.hpp"
-#include "sifter/deliverable.hpp"
-#include "sifter/diagnostics.hpp"
-#include "sifter/load.hpp"
+#include "sifter/analysis/deliverable.hpp"
+#include "sifter/model/diagnostics.hpp"
+#include "sifter/input/load.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/srs.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/analysis/verify.hpp"
 
 namespace sifter::cli {
 namespace {

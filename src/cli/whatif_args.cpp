@@ -6,15 +6,14 @@
 #include <cmath>
 #include <iostream>
 
-#include "sifter/diagnostics.hpp"
-#include "sifter/printable.hpp"
-#include "sifter/quantity.hpp"
+#include "sifter/model/diagnostics.hpp"
+#include "sifter/model/printable.hpp"
+#include "sifter/model/quantity.hpp"
 #include "sifter/report/output_file.hpp"
 
 namespace sifter::cli {
 namespace {
 
-constexpr int kMaxChannels = 8;  // as the loader allows
 
 std::optional<double> read_number(std::string_view text) {
   while (!text.empty() && std::isspace(static_cast<unsigned char>(text.front()))) text.remove_prefix(1);

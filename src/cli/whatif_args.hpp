@@ -6,8 +6,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/model.hpp"
-#include "sifter/whatif.hpp"
+#include "sifter/model/model.hpp"
+#include "sifter/analysis/whatif.hpp"
 
 namespace sifter::cli {
 

@@ -2,7 +2,7 @@
 #include "sifter/report/deliverable_tables.hpp"
 
 #include "sifter/report/format.hpp"
-#include "sifter/requirements.hpp"
+#include "sifter/model/vocabulary.hpp"
 
 namespace sifter::report {
 namespace {

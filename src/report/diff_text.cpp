@@ -5,7 +5,7 @@
 #include "sifter/report/format.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/text_table.hpp"
-#include "sifter/results.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter::report {
 namespace {
@@ -49,10 +49,7 @@ std::string render_function(const FunctionDiff& d, const std::string& kind) {
     out += "  results\n";
     TextTable t({"result", "old", "new"});
     for (const auto& c : d.results) {
-      const std::string unit = c.quantity.find("per_yr") != std::string::npos ? "/yr"
-                               : c.quantity.find("pfh") != std::string::npos ? "/h"
-                                                                               : "";
-      t.add_row({c.quantity, value_text(c.old_value, unit), value_text(c.new_value, unit)});
+      t.add_row({c.quantity, value_text(c.old_value, c.unit), value_text(c.new_value, c.unit)});
     }
     out += t.render("    ");
   }

@@ -4,7 +4,7 @@
 #include <cmath>
 #include <cstdio>
 
-#include "sifter/diagnostics.hpp"
+#include "sifter/model/diagnostics.hpp"
 
 namespace sifter::report {
 

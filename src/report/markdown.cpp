@@ -3,7 +3,7 @@
 
 #include <string_view>
 
-#include "sifter/printable.hpp"
+#include "sifter/model/printable.hpp"
 #include "sifter/report/deliverable_tables.hpp"
 #include "sifter/report/format.hpp"
 

@@ -2,7 +2,8 @@
 #include <algorithm>
 #include <cstdio>
 
-#include "sifter/lopa.hpp"
+#include "sifter/results/lopa.hpp"
+#include "sifter/model/vocabulary.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/options_text.hpp"
 #include "sifter/report/svg.hpp"

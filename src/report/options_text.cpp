@@ -3,11 +3,12 @@
 
 #include <cstdio>
 
-#include "sifter/lopa.hpp"
+#include "sifter/results/lopa.hpp"
+#include "sifter/model/vocabulary.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/text_table.hpp"
-#include "sifter/results.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter::report {
 namespace {

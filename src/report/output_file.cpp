@@ -13,7 +13,7 @@
 #include <iostream>
 #include <random>
 
-#include "sifter/diagnostics.hpp"
+#include "sifter/model/diagnostics.hpp"
 
 namespace sifter::report {
 namespace fs = std::filesystem;

@@ -3,7 +3,7 @@
 
 #include <cstdio>
 
-#include "sifter/maturity.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 

@@ -3,7 +3,7 @@
 
 #include "sifter/report/format.hpp"
 #include "sifter/report/text_table.hpp"
-#include "sifter/requirements.hpp"
+#include "sifter/model/vocabulary.hpp"
 
 namespace sifter::report {
 

@@ -2,7 +2,7 @@
 #include "sifter/report/format.hpp"
 #include "sifter/report/service.hpp"
 #include "sifter/report/svg.hpp"
-#include "sifter/results.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter::report {
 namespace {

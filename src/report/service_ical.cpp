@@ -1,6 +1,6 @@
 // The due proof tests as iCalendar (RFC 5545): CRLF lines folded at 75 octets, escaped TEXT.
 #include "sifter/report/service.hpp"
-#include "sifter/results.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter::report {
 

@@ -3,7 +3,7 @@
 
 #include "sifter/report/format.hpp"
 #include "sifter/report/service.hpp"
-#include "sifter/results.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter::report {
 namespace {

@@ -62,7 +62,6 @@ Cell scenario_verdict(const std::optional<bool>& meets) {
   return *meets ? Cell{"✔ tolerable", Tone::kGood} : Cell{"✘ not tolerable", Tone::kBad};
 }
 
-std::string sil_words(int sil) { return sil == 0 ? "below SIL 1" : "SIL " + std::to_string(sil); }
 
 std::string limits_words(const SifResult& sif) {
   std::vector<std::string> parts;
@@ -245,27 +244,15 @@ Table worksheet_table(const ScenarioResult& s) {
 
 namespace {
 
-// The vote K and N of a result's vote text ("2oo3", "1oo2D"); empty for a supplier's figure.
-std::optional<std::pair<int, int>> vote_of(const std::string& vote) {
-  const auto oo = vote.find("oo");
-  if (oo == std::string::npos || oo == 0 || vote.rfind("vendor", 0) == 0) return std::nullopt;
-  try {
-    return std::make_pair(std::stoi(vote.substr(0, oo)), std::stoi(vote.substr(oo + 2)));
-  } catch (const std::exception&) {
-    return std::nullopt;
-  }
-}
-
 // The Annex B form behind an equation name, written out (IEC 61508-6:2010 B.3.2.2 and B.3.3.2,
 // as DEVELOPERS.md, Methods M1 and M3 collect them; the general KooN form as DEVELOPERS.md states it).
-std::string annex_b_form(const std::string& equation, const std::string& vote) {
-  const auto kn = vote_of(vote);
-  if (!kn) return "";
-  const bool pfh = equation.find("B.3.3") != std::string::npos;
-  const auto [k, n] = *kn;
+std::string annex_b_form(const SubsystemResult& sub) {
+  if (!sub.voting) return "";  // a supplier's figure
+  const bool pfh = sub.pfh_per_hour.has_value();
+  const auto [k, n, diagnostic] = *sub.voting;
   const int m = n - k + 1;
   const std::string nn = std::to_string(n);
-  if (vote.find('D') != std::string::npos)
+  if (diagnostic)
     return pfh ? "PFH = 2(1−β)λDU[(1−β)λDU + (1−βD)λDD + λSD]·tCE′ + βD·λDD + β·λDU"
                : "PFD = 2(1−β)λDU[(1−β)λDU + (1−βD)λDD + λSD]·tCE′·tGE′ + CCF";
   if (m == 1) return pfh ? "PFH = " + (n > 1 ? nn + "·" : std::string()) + "λDU"
@@ -290,7 +277,7 @@ Table equations_table(const ProjectResult& result, const ReportData& data) {
   for (const auto& s : result.sifs)
     for (const auto& sub : s.subsystems) {
       if (sub.equation.empty()) continue;
-      const auto key = std::make_pair(sub.equation, annex_b_form(sub.equation, sub.vote));
+      const auto key = std::make_pair(sub.equation, annex_b_form(sub));
       auto it = std::find_if(used.begin(), used.end(), [&](const auto& u) { return u.first == key; });
       if (it == used.end()) it = used.insert(used.end(), {key, {}});
       it->second.push_back(s.id + " " + sub.name);

@@ -6,13 +6,13 @@
 #include <set>
 
 #include "sifter/report/pressure_text.hpp"
+#include "sifter/model/vocabulary.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/tables.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/report/worksheet.hpp"
 #include "sifter/report/requirements_text.hpp"
-#include "sifter/report_data.hpp"
-#include "sifter/sil.hpp"
+#include "sifter/results/report.hpp"
 
 namespace sifter::report {
 namespace {
@@ -25,7 +25,6 @@ std::string verdict_words(const std::optional<bool>& meets) {
   return *meets ? "MEETS TARGET" : "FALLS SHORT";
 }
 
-std::string sil_text(int sil) { return sil == 0 ? "below SIL 1" : "SIL " + std::to_string(sil); }
 
 std::string joined(const std::vector<std::string>& items) {
   std::string out;
@@ -40,7 +39,7 @@ std::string spurious_line(const SifResult& s, std::size_t width) {
   std::string parts;
   for (const auto& sub : s.subsystems) {
     // A supplier's figure carries no safe failure rates (spurious.hpp counts it as zero).
-    const bool vendor = sub.vote.rfind("vendor", 0) == 0;
+    const bool vendor = !sub.voting;
     parts += (parts.empty() ? "" : ", ") + sub.name + " " + (vendor ? "not given" : sci(sub.spurious_trip_rate_per_yr));
   }
   if (!parts.empty()) text += " (" + parts + ")";
@@ -51,7 +50,7 @@ std::string spurious_line(const SifResult& s, std::size_t width) {
 // achieved SIL.
 std::string limit_words(const SifResult& s) {
   if (!s.limits.empty()) return limits_words(s);
-  return sil_text(s.sil_achieved) + " set by " + joined(limiting_results(s));
+  return sil_words(s.sil_achieved) + " set by " + joined(limiting_results(s));
 }
 
 // The figure the verdict rests on, with its unit.
@@ -86,8 +85,8 @@ std::string shortfalls(const ProjectResult& r, std::size_t width) {
   std::string out;
   for (const auto& s : r.sifs)
     if (s.meets_target && !*s.meets_target)
-      out += fit_line("- SIF " + s.id + ": achieved " + sil_text(s.sil_achieved) +
-                          (s.sil_required ? ", required " + sil_text(*s.sil_required) : std::string()) + "; " +
+      out += fit_line("- SIF " + s.id + ": achieved " + sil_words(s.sil_achieved) +
+                          (s.sil_required ? ", required " + sil_words(*s.sil_required) : std::string()) + "; " +
                           limit_words(s),
                       std::min(width, kProseWidth), "  ");
   for (const auto& s : r.scenarios)
@@ -137,10 +136,10 @@ std::string figure_lines(const SifResult& s, std::size_t width) {
   }
   std::string out = fit_line(figures, width, "  ");
   // The three SILs, then the outcome; on a narrow terminal the outcome takes the next line.
-  const std::string sils = "SIL  probability " + sil_text(s.sil_probability) + " | architecture " +
-                           sil_text(s.sil_architecture) + " | systematic " + sil_text(s.sil_systematic);
-  const std::string outcome = "->  achieved " + sil_text(s.sil_achieved) +
-                              (s.sil_required ? ", required " + sil_text(*s.sil_required) : std::string());
+  const std::string sils = "SIL  probability " + sil_words(s.sil_probability) + " | architecture " +
+                           sil_words(s.sil_architecture) + " | systematic " + sil_words(s.sil_systematic);
+  const std::string outcome = "->  achieved " + sil_words(s.sil_achieved) +
+                              (s.sil_required ? ", required " + sil_words(*s.sil_required) : std::string());
   if (2 + display_width(sils) + 2 + display_width(outcome) <= width)
     out += "  " + sils + "  " + outcome + "\n";
   else

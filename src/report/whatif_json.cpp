@@ -5,7 +5,7 @@
 
 #include "sifter/report/format.hpp"
 #include "sifter/report/worksheet.hpp"
-#include "sifter/results.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter::report {
 namespace {

@@ -4,10 +4,10 @@
 #include <algorithm>
 #include <cstdio>
 
+#include "sifter/model/vocabulary.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/text_table.hpp"
-#include "sifter/spurious.hpp"
 
 namespace sifter::report {
 namespace {
@@ -16,7 +16,6 @@ const char* measure_name(DemandMode mode) { return mode == DemandMode::kLow ? "P
 
 std::string measure_text(double v, DemandMode mode) { return sci(v) + (mode == DemandMode::kLow ? "" : "/h"); }
 
-std::string sil_words(int sil) { return sil == 0 ? "below 1" : std::to_string(sil); }
 
 std::string verdict(const std::optional<bool>& meets) {
   if (!meets) return "not judged";
@@ -141,8 +140,8 @@ std::string render_sweep(const SweepResult& r) {
     }
     row.push_back(sci_or_dash(low ? s.pfd_avg : s.pfh_per_hour));
     row.push_back(low && s.rrf ? plain(*s.rrf) : "-");
-    row.push_back(sil_words(s.sil_probability));
-    row.push_back(sil_words(s.sil_achieved));
+    row.push_back(sil_number(s.sil_probability));
+    row.push_back(sil_number(s.sil_achieved));
     row.push_back(verdict(s.meets_target));
     t.add_row(row);
   }
@@ -165,8 +164,8 @@ std::string render_compare(const CompareResult& r) {
     const SubsystemResult& sub = s.subsystems.at(r.subsystem_index);
     t.add_row({row.vote + (row.current ? " (now)" : ""), sci_or_dash(low ? sub.pfd_avg : sub.pfh_per_hour),
                sci_or_dash(low ? s.pfd_avg : s.pfh_per_hour), low && s.rrf ? plain(*s.rrf) : "-",
-               sil_words(s.sil_probability), sub.hft ? std::to_string(*sub.hft) : "-",
-               sil_words(sub.sil_architecture) + " / " + sil_words(s.sil_architecture), sci(s.spurious_trip_rate_per_yr),
+               sil_number(s.sil_probability), sub.hft ? std::to_string(*sub.hft) : "-",
+               sil_number(sub.sil_architecture) + " / " + sil_number(s.sil_architecture), sci(s.spurious_trip_rate_per_yr),
                s.mttf_spurious_yr ? plain(*s.mttf_spurious_yr) : "-", verdict(s.meets_target)});
   }
   out += t.render("  ");

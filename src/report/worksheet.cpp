@@ -1,5 +1,5 @@
 // LOPA worksheets: the terminal table and the CSV rows.
-#include "sifter/printable.hpp"
+#include "sifter/model/printable.hpp"
 #include "sifter/report/worksheet.hpp"
 
 #include <algorithm>

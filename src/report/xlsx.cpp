@@ -13,7 +13,7 @@
 #include <optional>
 #include <sstream>
 
-#include "sifter/diagnostics.hpp"
+#include "sifter/model/diagnostics.hpp"
 #include "sifter/report/format.hpp"
 #include "sifter/report/tables.hpp"
 

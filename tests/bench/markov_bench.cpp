@@ -1,7 +1,7 @@
 // Timings of the exact engine: one group over a long mission, and a SIF of three groups.
 #include <benchmark/benchmark.h>
 
-#include "sifter/markov.hpp"
+#include "sifter/engines/markov.hpp"
 
 namespace {
 

@@ -8,8 +8,8 @@
 #include <utility>
 #include <vector>
 
-#include "sifter/simplified.hpp"
-#include "sifter/uncertainty.hpp"
+#include "sifter/engines/simplified.hpp"
+#include "sifter/engines/uncertainty.hpp"
 
 namespace sifter {
 namespace {

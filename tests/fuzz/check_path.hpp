@@ -7,16 +7,16 @@
 
 #include <cmath>
 
-#include "sifter/load.hpp"
+#include "sifter/input/load.hpp"
 #include "sifter/report/csv.hpp"
 #include "sifter/report/html.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/markdown.hpp"
-#include "sifter/report_data.hpp"
+#include "sifter/analysis/report_data.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
-#include "sifter/verify.hpp"
-#include "sifter/whatif.hpp"
+#include "sifter/analysis/verify.hpp"
+#include "sifter/analysis/whatif.hpp"
 
 namespace sifter::fuzzing {
 

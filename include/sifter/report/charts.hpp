@@ -6,8 +6,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/report_data.hpp"
-#include "sifter/results.hpp"
+#include "sifter/results/report.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter::report {
 

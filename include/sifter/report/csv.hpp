@@ -2,7 +2,7 @@
 /// One CSV row per SIF with its key results, for spreadsheets (RFC 4180 quoting).
 #include <string>
 
-#include "sifter/verify.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 

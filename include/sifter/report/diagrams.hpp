@@ -3,8 +3,8 @@
 /// frequency staircase. They draw the results; they compute nothing.
 #include <string>
 
-#include "sifter/lopa.hpp"
-#include "sifter/results.hpp"
+#include "sifter/results/lopa.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter::report {
 

@@ -4,7 +4,7 @@
 
 #include <nlohmann/json.hpp>
 
-#include "sifter/diff.hpp"
+#include "sifter/results/diff.hpp"
 
 namespace sifter::report {
 

@@ -5,7 +5,7 @@
 #include <ostream>
 
 #include "sifter/report/json_stream.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 

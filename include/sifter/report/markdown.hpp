@@ -3,8 +3,8 @@
 #include <string>
 
 #include "sifter/report/tables.hpp"
-#include "sifter/report_data.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/results/report.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 

@@ -6,7 +6,7 @@
 #include <string>
 #include <vector>
 
-#include "sifter/options.hpp"
+#include "sifter/results/options.hpp"
 
 namespace sifter::report {
 

@@ -4,8 +4,8 @@
 
 #include <nlohmann/json.hpp>
 
-#include "sifter/diff.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/results/diff.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 

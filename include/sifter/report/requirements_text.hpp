@@ -2,7 +2,7 @@
 /// The terminal's lines on a SIF's stated requirements: response time and each computed check.
 #include <string>
 
-#include "sifter/results.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter::report {
 

@@ -5,7 +5,7 @@
 #include <string>
 #include <string_view>
 
-#include "sifter/service.hpp"
+#include "sifter/results/service.hpp"
 
 namespace sifter::report {
 

@@ -6,9 +6,9 @@
 #include <string>
 #include <vector>
 
-#include "sifter/deliverable.hpp"
+#include "sifter/results/deliverable.hpp"
 #include "sifter/report/tables.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 

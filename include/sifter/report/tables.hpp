@@ -5,8 +5,9 @@
 #include <string>
 #include <vector>
 
-#include "sifter/report_data.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/model/vocabulary.hpp"
+#include "sifter/results/report.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 
@@ -33,8 +34,6 @@ struct Table {
 Cell sif_verdict(const std::optional<bool>& meets);
 /// "✔ tolerable", "✘ not tolerable" or "– not judged".
 Cell scenario_verdict(const std::optional<bool>& meets);
-/// "SIL 2", or "below SIL 1" for 0.
-std::string sil_words(int sil);
 /// The limits of a SIF in a few words: "architecture at valve (XV-1): SIL 1; ...".
 std::string limits_words(const SifResult& sif);
 /// What keeps a SIF at its achieved SIL: its limits (kind, subsystem, element), else the

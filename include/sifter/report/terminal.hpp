@@ -4,7 +4,7 @@
 #include <string>
 #include <vector>
 
-#include "sifter/verify.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 

@@ -4,7 +4,7 @@
 
 #include <nlohmann/json.hpp>
 
-#include "sifter/whatif.hpp"
+#include "sifter/results/whatif.hpp"
 
 namespace sifter::report {
 

@@ -2,7 +2,7 @@
 /// Terminal text of the what-if commands; each ends with the caution.
 #include <string>
 
-#include "sifter/whatif.hpp"
+#include "sifter/results/whatif.hpp"
 
 namespace sifter::report {
 

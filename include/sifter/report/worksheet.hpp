@@ -2,7 +2,7 @@
 /// The LOPA worksheet of each scenario, for the terminal and as CSV.
 #include <string>
 
-#include "sifter/verify.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 

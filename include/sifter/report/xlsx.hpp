@@ -3,8 +3,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/model.hpp"
-#include "sifter/verify.hpp"
+#include "sifter/model/model.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 

@@ -1,0 +1,57 @@
+#pragma once
+/// The one requirement of a SIF and the one judge of a figure against it: verify, the
+/// what-ifs, every Monte Carlo sample, the LOPA credit and the writers all ask here.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "sifter/model/diagnostics.hpp"
+#include "sifter/model/model.hpp"
+
+namespace sifter {
+
+/// The SIF requirement from the risk analysis, when scenarios feed it.
+struct RequirementFromLopa {
+  double required_rrf = 0.0;            ///< the largest over the scenarios (low demand)
+  std::optional<double> required_pfh_per_hour;  ///< high demand: the smallest over the scenarios
+  DemandMode demand_mode = DemandMode::kLow;
+  std::vector<std::string> scenarios;
+  std::string demand_basis;
+};
+
+/// What one SIF must reach: the stricter of its stated target and its scenarios' requirement.
+/// A figure meets it when its SIL band reaches `sil` (IEC 61511-1:2016 Tables 4/5, half-open
+/// edges) and, where a value is required, it is at_most that value.
+struct SifTarget {
+  DemandMode mode = DemandMode::kLow;
+  std::optional<int> sil;                    ///< the required SIL; none = the SIF is not judged
+  std::optional<double> required_pfd;        ///< low demand: the required PFDavg, if a value is set
+  std::optional<double> required_pfh_per_hour;  ///< high demand: the required PFH, if set
+  std::optional<double> required_rrf;        ///< low demand: 1 / required_pfd where stated so
+  std::string text;                          ///< the target as a reviewer reads it
+  /// The value a figure must not exceed: the required value or the band's upper edge, the smaller.
+  [[nodiscard]] std::optional<double> limit() const;
+};
+
+/// Builds the one requirement of a SIF in `mode`; a stated target that differs from what the
+/// LOPA asks is reported in `warnings` (the stricter applies).
+SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<RequirementFromLopa>& lopa,
+                     std::vector<Warning>& warnings);
+
+/// The one judge: whether `figure` (PFDavg, or PFH per hour, as target.mode says) meets the
+/// target. No SIL required: std::nullopt.
+std::optional<bool> judge(const SifTarget& target, double figure);
+
+/// The lower edge of the band of a SIL: the best figure a SIF of that SIL may be credited with
+/// (IEC 61511-1:2016 Tables 4/5; SIL 0 is the band above SIL 1: 0.1 low demand, 1e-5/h high).
+double sil_band_lower_edge(int sil, DemandMode mode);
+
+/// The PFD a SIF is credited with in its scenarios: the judged PFD, but no better than the
+/// lower edge of the band of the SIL it achieves (IEC 61511-1:2016 clause 9, from memory).
+struct SifCredit {
+  double value = 1.0;
+  bool capped = false;  ///< the band edge, not the judged figure, sets the credit
+};
+SifCredit sif_credit(double judged, int sil_achieved, DemandMode mode);
+
+}  // namespace sifter

@@ -1,0 +1,51 @@
+#pragma once
+/// Per-SIF orchestration: the one place that decides a SIF's verdict.
+#include <cstdint>
+#include <functional>
+#include <map>
+#include <vector>
+
+#include "sifter/graph/dependency_graph.hpp"
+#include "sifter/engines/group_model.hpp"
+#include "sifter/analysis/judge.hpp"
+#include "sifter/input/load.hpp"
+#include "sifter/engines/lopa.hpp"
+#include "sifter/results/sif.hpp"
+#include "sifter/engines/simplified.hpp"
+#include "sifter/results/project.hpp"
+
+namespace sifter {
+
+/// What the risk analysis asks of each SIF its scenarios credit, by SIF id (empty without
+/// scenarios); the LOPA findings go to `warnings`. It does not depend on the SIFs' own figures.
+std::map<std::string, RequirementFromLopa> lopa_requirements(const Project& project, std::vector<Warning>& warnings);
+
+/// Options of a verification run.
+struct VerifyOptions {
+  bool exact = true;  ///< run the exact time-dependent cross-check
+  int samples = 0;    ///< Monte Carlo samples per SIF on the uncertain failure data; 0 = none
+  std::uint64_t seed = 1;
+  int threads = 0;    ///< 0 = every core
+  /// Called with (samples done, samples in all) during the Monte Carlo, for a progress bar.
+  std::function<void(long long, long long)> progress;
+};
+
+/// Verifies one SIF: PFDavg or PFH of every subsystem and of the SIF, RRF, the SIL from
+/// probability, the target and the verdict, with the assumptions applied.
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+                     const VerifyOptions& options, std::vector<Warning>& warnings);
+
+class ExactCache;
+/// The same, sharing exact results between SIFs of identical architecture and data.
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+                     const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache);
+
+/// Throws InputError (exit 2) naming each SIF and scenario whose figures left the finite
+/// numbers, as rates and durations far from physical values make them (1e300/h over 1e300 h,
+/// or 1e-160/h squared below the smallest double); verify_project calls it before returning.
+void refuse_figures_beyond_finite(const Project& project, const ProjectResult& result);
+
+/// Verifies every SIF of a loaded project (and, once scenarios exist, its LOPA).
+ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& options = {});
+
+}  // namespace sifter

@@ -1,0 +1,29 @@
+#pragma once
+/// PFDavg of a SIF against its proof-test intervals, all scaled together, and the longest
+/// scaling that still meets the required PFD. Pure functions: no I/O.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "sifter/model/model.hpp"
+#include "sifter/results/report.hpp"
+
+namespace sifter {
+
+/// The range of factors the sweep draws (multiples of every present proof-test interval).
+inline constexpr double kSweepMinFactor = 1.0 / 16.0;
+inline constexpr double kSweepMaxFactor = 16.0;
+/// The range in which the longest allowed factor is searched.
+inline constexpr double kSearchMinFactor = 1.0 / 1024.0;
+inline constexpr double kSearchMaxFactor = 1024.0;
+
+/// The SIF's PFDavg with every subsystem's proof-test interval multiplied by `factor` (partial
+/// stroke intervals and the mission time unchanged), by re-running verify_sif on a copy of the
+/// SIF in low demand.
+double pfd_avg_with_intervals_scaled(const Project& project, const Sif& sif, double factor);
+
+/// The sweep with `points_per_doubling` points per factor of two, and the longest allowed factor
+/// by bisection on log(factor): PFDavg grows with every proof-test interval.
+IntervalSweep interval_sweep(const Project& project, const Sif& sif, double required_pfd, int points_per_doubling = 4);
+
+}  // namespace sifter

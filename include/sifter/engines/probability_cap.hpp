@@ -1,0 +1,16 @@
+#pragma once
+/// No probability above 1 leaves the engines: where the simplified equations of IEC 61508-6
+/// Annex B (a rare-event sum) give a PFDavg above 1 they are outside their validity.
+#include <string>
+#include <vector>
+
+#include "sifter/results/sif.hpp"
+
+namespace sifter {
+
+/// Caps the SIF's and its subsystems' PFDavg figures (simplified, exact, uncertainty) at 1,
+/// saying so in the SIF's assumptions and in `warnings`; the RRF then is 1. Called after the
+/// judge, which compares the uncapped figure (it falls short of any target either way).
+void cap_probabilities(const Sif& sif, SifResult& r, std::vector<Warning>& warnings);
+
+}  // namespace sifter

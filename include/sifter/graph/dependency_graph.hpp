@@ -1,0 +1,93 @@
+#pragma once
+/// Who relies on which device: components, SIFs, scenarios, causes and protection layers as
+/// vertices of one Boost.Graph, with an edge from each of them to what it relies on.
+///
+/// Independence of protection layers (CCPS, Layer of Protection Analysis, 2001: an IPL is
+/// independent of the initiating event and of the other credited layers) is checked here as
+/// plain graph reachability: two parties share a device when the same device vertex can be
+/// reached from both.
+#include <cstddef>
+#include <map>
+#include <string>
+#include <vector>
+
+#include <boost/graph/adjacency_list.hpp>
+
+#include "sifter/model/model.hpp"
+#include "sifter/results/project.hpp"
+
+namespace sifter {
+
+/// What a vertex of the dependency graph stands for.
+enum class DependencyKind { kDevice, kComponent, kSif, kScenario, kCause, kLayer };
+
+/// The vertices added for one scenario: the scenario itself, its causes and its layers, in the
+/// order of Scenario::causes and Scenario::layers.
+struct ScenarioVertices {
+  std::size_t scenario = 0;
+  std::vector<std::size_t> causes;
+  std::vector<std::size_t> layers;
+};
+
+/// The dependency graph. Edges: component -> the device of the same tag; SIF -> each
+/// component of its channels; scenario -> its causes and layers; cause or layer -> each device
+/// it lists; a SIF layer -> the SIF it names. Device tags and component ids live in one
+/// namespace, so a layer listing "LT-400" shares that device with a SIF using component LT-400.
+class DependencyGraph {
+ public:
+  using Vertex = std::size_t;
+
+  /// An empty graph; add parties with the add_* functions.
+  DependencyGraph() = default;
+  /// The graph of the whole project: every component, SIF and scenario.
+  explicit DependencyGraph(const Project& project);
+
+  /// The device vertex of a tag, created on first use.
+  Vertex add_device(const std::string& tag);
+  /// The component vertex of an id (and its device), created on first use.
+  Vertex add_component(const std::string& id);
+  /// The SIF vertex with edges to its components (Project::components by channel index);
+  /// created on first use, so adding the same SIF again returns the same vertex.
+  Vertex add_sif(const Project& project, const Sif& sif);
+  /// A scenario with its causes and layers; a SIF layer naming a SIF of the project gets an
+  /// edge to it (the SIF is added if needed). A SIF id not in the project adds no edge.
+  ScenarioVertices add_scenario(const Project& project, const Scenario& scenario);
+
+  /// Device tags reachable from a vertex, sorted; through SIF vertices too.
+  [[nodiscard]] std::vector<std::string> devices_of(Vertex v) const;
+  /// Device tags reachable from both vertices, sorted.
+  [[nodiscard]] std::vector<std::string> common_devices(Vertex a, Vertex b) const;
+  /// Devices on which at least two SIFs or scenarios rely. A SIF relies on the devices of its
+  /// components; a scenario on those its causes and layers list (not on those of a SIF it
+  /// credits, which would only repeat the SIF's own use). Sorted by tag.
+  [[nodiscard]] std::vector<SharedDevice> shared_devices() const;
+
+  /// What a vertex stands for and its name (tag, id, or "scenario/cause" for causes and layers).
+  [[nodiscard]] DependencyKind kind(Vertex v) const { return graph_[v].kind; }
+  [[nodiscard]] const std::string& name(Vertex v) const { return graph_[v].name; }
+  [[nodiscard]] std::size_t vertex_count() const { return boost::num_vertices(graph_); }
+
+ private:
+  struct Node {
+    DependencyKind kind = DependencyKind::kDevice;
+    std::string name;
+  };
+  // setS out-edges: a device listed twice by one party is one edge. bidirectionalS keeps the
+  // in-edges for queries from the device side.
+  using Graph = boost::adjacency_list<boost::setS, boost::vecS, boost::bidirectionalS, Node>;
+
+  Vertex add_vertex(DependencyKind kind, const std::string& name);
+  // Device vertices reachable from v; through_sifs = false stops at SIF vertices.
+  [[nodiscard]] std::vector<Vertex> reach_devices(Vertex v, bool through_sifs) const;
+
+  Graph graph_;
+  std::map<std::string, Vertex> devices_;
+  std::map<std::string, Vertex> components_;
+  std::map<std::string, Vertex> sifs_;
+};
+
+/// The devices of a project on which several SIFs or scenarios rely (see
+/// DependencyGraph::shared_devices).
+std::vector<SharedDevice> shared_devices(const Project& project);
+
+}  // namespace sifter

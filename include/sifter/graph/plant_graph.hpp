@@ -1,0 +1,71 @@
+#pragma once
+/// The SIFs as a Boost.Graph of signal flow (SIF -> groups -> channels -> components),
+/// its validation, and the components that several SIFs share.
+#include <memory>
+#include <string>
+#include <unordered_map>
+#include <vector>
+
+#include <boost/graph/adjacency_list.hpp>
+
+#include "sifter/model/model.hpp"
+#include "sifter/results/project.hpp"
+
+namespace sifter {
+
+/// A problem in the SIF structure, with the pointer of the place it concerns.
+struct GraphProblem {
+  std::string pointer;
+  std::string expected;
+  std::string found;
+  std::string hint;
+};
+
+/// What a vertex of the plant graph stands for.
+enum class VertexKind { kSif, kGroup, kChannel, kComponent };
+
+/// A vertex: its kind, a readable label (tag) and the index of what it stands for.
+struct PlantVertex {
+  VertexKind kind = VertexKind::kComponent;
+  std::string label;
+  std::size_t sif = 0;        ///< index of the SIF (groups and channels)
+  std::size_t subsystem = 0;  ///< index of the subsystem in its SIF (groups and channels)
+  std::size_t index = 0;      ///< component index (components), channel index (channels)
+};
+
+/// Directed graph: edges follow the signal from the process input to the final elements
+/// (SIF -> first group -> next group ...) and from each group down to what it is made of.
+using PlantGraphType = boost::adjacency_list<boost::vecS, boost::vecS, boost::bidirectionalS, PlantVertex>;
+
+/// The graph of a project's SIFs.
+class PlantGraph {
+ public:
+  /// Builds the graph; channel references that do not resolve are kept as problems.
+  explicit PlantGraph(const Project& project);
+
+  /// Every structural problem: unknown ids, a component twice in one group, empty groups,
+  /// K > N, a vote whose N differs from the number of channels.
+  [[nodiscard]] const std::vector<GraphProblem>& problems() const { return problems_; }
+  /// Components used by more than one SIF, in component order.
+  [[nodiscard]] std::vector<SharedComponent> shared_components() const;
+  /// The groups of a SIF in signal order (sensor -> logic -> final as written).
+  [[nodiscard]] std::vector<std::size_t> signal_order(std::size_t sif) const;
+  [[nodiscard]] const PlantGraphType& graph() const { return graph_; }
+
+ private:
+  void add_sif(const Project& project, std::size_t s);
+  void check_groups(const Project& project);
+
+  PlantGraphType graph_;
+  std::unordered_map<std::string, std::size_t> component_index_;
+  std::vector<PlantGraphType::vertex_descriptor> component_vertex_;
+  std::vector<PlantGraphType::vertex_descriptor> sif_vertex_;
+  std::vector<GraphProblem> problems_;
+};
+
+/// Validates the SIF structure and resolves every channel's component ids into indices. When
+/// `keep` is given and there is no problem, the graph built for it is handed over there, so
+/// that verification does not build it again.
+std::vector<GraphProblem> validate_project_graph(Project& project, std::shared_ptr<const PlantGraph>* keep = nullptr);
+
+}  // namespace sifter

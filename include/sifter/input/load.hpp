@@ -1,0 +1,38 @@
+#pragma once
+/// Reading a `sifter-project/1` file (and the libraries it names) into a validated Project.
+#include <memory>
+#include <string>
+#include <vector>
+
+#include "sifter/model/diagnostics.hpp"
+#include "sifter/model/model.hpp"
+#include "sifter/engines/pressure.hpp"
+
+namespace sifter {
+
+class PlantGraph;  // plant_graph.hpp
+
+/// The format names this version reads.
+inline constexpr const char* kProjectFormat = "sifter-project/1";
+inline constexpr const char* kLibraryFormat = "sifter-library/1";
+
+/// A project that passed every check, with the plausibility warnings found on the way.
+struct LoadedProject {
+  Project project;
+  std::vector<Warning> warnings;
+  std::string sha256;  ///< of the project file's bytes, for the report
+  std::vector<std::string> inputs;  ///< every file read: the project, then its libraries
+  /// The graph the loader validated, of the project as loaded; verify_project reuses it.
+  /// Reset it when changing the structure (SIFs, groups, channels) of `project`.
+  std::shared_ptr<const PlantGraph> graph;
+  std::optional<PressureScreening> pressure;  ///< the overpressure screening, when the project has one
+};
+
+/// Reads, validates and resolves a project file. Throws InputError carrying every problem
+/// found (file:line:column, pointer, expected, found, hint).
+LoadedProject load_project_file(const std::string& path);
+
+/// The same from text in memory; `name` is used in messages and `base_dir` resolves libraries.
+LoadedProject load_project_text(const std::string& text, const std::string& name, const std::string& base_dir);
+
+}  // namespace sifter

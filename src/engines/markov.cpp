@@ -1,0 +1,237 @@
+// Exact engine, one group: propagation by matrix exponentials, Van Loan's integrals, the API.
+#include "sifter/engines/markov.hpp"
+
+#include <unsupported/Eigen/MatrixFunctions>
+
+#include <algorithm>
+#include <cmath>
+#include <deque>
+#include <stdexcept>
+
+#include "engines/exact_memo.hpp"
+#include "engines/markov_chain.hpp"
+#include "sifter/engines/simplified.hpp"
+
+namespace sifter {
+namespace detail {
+namespace {
+
+constexpr int kColumns = 3;
+
+// Segments whose lengths differ by less than this share reuse one exponential.
+constexpr double kSameLength = 1e-10;
+
+// exp([[Q, F], [0, 0]] L) = [[exp(Q L), int_0^L exp(Q s) ds F], [0, I]] (Van Loan 1978), with
+// F = [f, g, g_u]: one exponential gives the step and every integral of the segment.
+struct Segment {
+  ChannelMask bypassed = 0;
+  double length_hours = 0.0;
+  Eigen::MatrixXd step_transposed;  // exp(Q L)^T, to step a column state
+  Eigen::MatrixXd integrals;        // int_0^L exp(Q s) ds [f, g, g_u]
+};
+
+class Stepper {
+ public:
+  explicit Stepper(const GroupChain& chain) : chain_(chain) {}
+
+  double pfd(ChannelMask m, const Eigen::VectorXd& p) { return p.dot(indicators(m).col(0)); }
+
+  const Segment& segment(ChannelMask m, double length) {
+    for (const auto& s : segments_)
+      if (s.bypassed == m && std::fabs(s.length_hours - length) <= kSameLength * length) return s;
+    const int n = chain_.size();
+    const auto& f = indicators(m);
+    // The integral columns are scaled down by a power of two so that they do not raise the
+    // norm, and with it the number of squarings; the scale is undone exactly afterwards.
+    const double scale = std::ldexp(1.0, -std::ilogb(length * n) - 1);
+    Eigen::MatrixXd block = Eigen::MatrixXd::Zero(n + kColumns, n + kColumns);
+    block.topLeftCorner(n, n) = chain_.generator() * length;
+    block.topRightCorner(n, kColumns) = f * (length * scale);
+    const auto shared = memo_exp(block);  // the same segment recurs across the SIFs of a register
+    const Eigen::MatrixXd& e = *shared;
+    segments_.push_back({m, length, e.topLeftCorner(n, n).transpose(), e.topRightCorner(n, kColumns) / scale});
+    return segments_.back();
+  }
+
+  const Jump& jump(const Action& a) {
+    for (const auto& [key, j] : jumps_)
+      if (key.kind == a.kind && key.channels == a.channels) return j;
+    jumps_.emplace_back(a, a.kind == Action::kPartialStroke ? chain_.partial_stroke() : chain_.proof_test(a.channels));
+    return jumps_.back().second;
+  }
+
+ private:
+  // [f, g, g_u]: failed states, rate of entering them, the part due to undetected failures.
+  const Eigen::Matrix<double, Eigen::Dynamic, kColumns>& indicators(ChannelMask m) {
+    for (const auto& [mask, fg] : indicators_)
+      if (mask == m) return fg;
+    Eigen::Matrix<double, Eigen::Dynamic, kColumns> fg(chain_.size(), kColumns);
+    fg << chain_.failed(m), chain_.entering(m), chain_.entering_undetected(m);
+    indicators_.emplace_back(m, std::move(fg));
+    return indicators_.back().second;
+  }
+
+  const GroupChain& chain_;
+  std::deque<Segment> segments_;  // deque: references stay valid as it grows
+  std::deque<std::pair<Action, Jump>> jumps_;
+  std::deque<std::pair<ChannelMask, Eigen::Matrix<double, Eigen::Dynamic, kColumns>>> indicators_;
+};
+
+void apply(const Jump& jump, Eigen::VectorXd& p, Eigen::VectorXd& scratch) {
+  scratch.setZero(p.size());
+  for (Eigen::Index i = 0; i < p.size(); ++i) scratch(jump[static_cast<std::size_t>(i)]) += p(i);
+  p.swap(scratch);
+}
+
+}  // namespace
+
+GroupTrace propagate(const GroupChain& chain, const std::vector<double>& grid,
+                     const std::vector<std::vector<Action>>& actions, bool keep_states) {
+  Stepper stepper(chain);
+  GroupTrace trace;
+  const std::size_t count = grid.size();
+  trace.pfd_before.resize(count);
+  trace.pfd_after.resize(count);
+  trace.bypassed.resize(count);
+  if (keep_states) trace.state_after.resize(count);
+  Eigen::VectorXd p = Eigen::VectorXd::Zero(chain.size());
+  p(0) = 1.0;  // state 0: every channel working
+  Eigen::VectorXd scratch;
+  ChannelMask bypassed = 0;
+  for (std::size_t i = 0; i < count; ++i) {
+    trace.pfd_before[i] = stepper.pfd(bypassed, p);
+    for (const auto& a : actions[i]) {
+      if (a.kind == Action::kBypassStart) {
+        bypassed |= a.channels;
+        continue;
+      }
+      apply(stepper.jump(a), p, scratch);
+      if (a.kind == Action::kBypassEnd) bypassed &= ~a.channels;
+    }
+    trace.pfd_after[i] = stepper.pfd(bypassed, p);
+    trace.bypassed[i] = bypassed;
+    if (keep_states) trace.state_after[i] = p;
+    if (i + 1 == count) break;
+    const auto& s = stepper.segment(bypassed, grid[i + 1] - grid[i]);
+    const Eigen::RowVector3d integrals = p.transpose() * s.integrals;
+    trace.pfd_integral_hours += integrals(0);
+    trace.expected_failures += integrals(1);
+    trace.expected_undetected_failures += integrals(2);
+    scratch.noalias() = s.step_transposed * p;
+    p.swap(scratch);
+  }
+  return trace;
+}
+
+PfdCurve curve_on_grid(const std::vector<double>& grid, const std::vector<bool>& acts,
+                       const std::vector<double>& before, const std::vector<double>& after) {
+  PfdCurve c;
+  for (std::size_t i = 0; i < grid.size(); ++i) {
+    if (acts[i]) {
+      c.time_hours.push_back(grid[i]);
+      c.pfd.push_back(before[i]);
+    }
+    c.time_hours.push_back(grid[i]);
+    c.pfd.push_back(after[i]);
+  }
+  return c;
+}
+
+std::vector<std::string> group_notes(const ExactGroupInput& in, const GroupChain& chain) {
+  std::vector<std::string> notes;
+  if (in.vote.diagnostic) notes.emplace_back("1oo2D modelled as 1oo2: the switch-over of the diagnostics is not modelled");
+  if (in.vote.k == in.vote.n && (in.beta > 0.0 || in.beta_d > 0.0))
+    notes.emplace_back("no common cause for a " + in.vote.text() + " vote, as in IEC 61508-6 Annex B");
+  if (chain.per_channel() && in.channels.size() > 1 && in.beta > 0.0)
+    notes.emplace_back("common cause at beta times the smallest channel rate");
+  if (in.mttr.hours <= 0.0) notes.emplace_back("MTTR = 0: detected failures are restored at once");
+  if (in.partial_stroke && in.partial_stroke->coverage > in.proof_test_coverage)
+    notes.emplace_back("the proof test is taken to reveal all the partial stroke test reveals");
+  if (chain.per_channel())
+    notes.emplace_back("channels tracked one by one (" + std::to_string(chain.size()) + " states)");
+  return notes;
+}
+
+}  // namespace detail
+
+std::string exact_group_unsupported(const ExactGroupInput& g) {
+  const int k = g.vote.k;
+  const int n = g.vote.n;
+  const std::string where = "exact engine, " + g.vote.text() + ": ";
+  if (k < 1 || k > n) return where + "the vote needs 1 <= K <= N";
+  if (n > kMaxChannels) return where + "at most 8 channels";
+  if (g.channels.size() != 1 && g.channels.size() != static_cast<std::size_t>(n))
+    return where + "give the rates of one channel or of each of the " + std::to_string(n) + " channels";
+  const bool tracked = detail::tracks_each_channel(g);
+  if (tracked && n > detail::kMaxChannelsTracked)
+    return where + "channels that are different, staggered or bypassed are tracked one by one, at most 4";
+  for (const auto& r : g.channels)
+    if (!(r.lambda_du.per_hour >= 0.0) || !(r.lambda_dd.per_hour >= 0.0)) return where + "rates must be >= 0";
+  auto fraction = [](double x) { return x >= 0.0 && x <= 1.0; };
+  if (!fraction(g.beta) || !fraction(g.beta_d)) return where + "beta and beta_D must lie in [0, 1]";
+  if (!fraction(g.proof_test_coverage)) return where + "the proof test coverage must lie in [0, 1]";
+  if (!(g.mission_time.hours > 0.0)) return where + "the mission time must be > 0";
+  const double t1 = g.proof_test_interval.hours;
+  if (!(t1 > 0.0)) return where + "the proof test interval must be > 0";
+  if (!(g.mttr.hours >= 0.0) || !(g.mrt.hours >= 0.0)) return where + "MTTR and MRT must be >= 0";
+  if (g.partial_stroke) {
+    if (!fraction(g.partial_stroke->coverage)) return where + "the partial stroke coverage must lie in [0, 1]";
+    if (!(g.partial_stroke->interval.hours > 0.0)) return where + "the partial stroke interval must be > 0";
+  }
+  if (g.test_duration) {
+    const double tau = g.test_duration->hours;
+    if (!(tau >= 0.0) || tau >= t1 / n)
+      return where + "each channel's test must end before the next channel's begins (test duration < T1 / N)";
+  }
+  return {};
+}
+
+ExactGroupResult group_exact(const ExactGroupInput& group) {
+  if (auto why = exact_group_unsupported(group); !why.empty()) throw std::invalid_argument(why);
+  const detail::GroupChain chain(group);
+  const auto timeline = detail::group_timeline(group, chain);
+  std::vector<double> times;
+  for (const auto& ta : timeline) times.push_back(ta.time_hours);
+  const auto grid = detail::merge_grid(std::move(times), group.mission_time.hours);
+  const auto actions = detail::actions_on_grid(timeline, grid);
+  const auto trace = detail::propagate(chain, grid, actions, false);
+  ExactGroupResult r;
+  r.pfd_avg = trace.pfd_integral_hours / group.mission_time.hours;
+  r.failure_frequency_per_hour = trace.expected_failures / group.mission_time.hours;
+  r.undetected_failure_frequency_per_hour = trace.expected_undetected_failures / group.mission_time.hours;
+  std::vector<bool> acts(grid.size());
+  for (std::size_t i = 0; i < grid.size(); ++i) acts[i] = !actions[i].empty();
+  r.curve = detail::curve_on_grid(grid, acts, trace.pfd_before, trace.pfd_after);
+  r.states = chain.size();
+  r.per_channel = chain.per_channel();
+  r.notes = detail::group_notes(group, chain);
+  return r;
+}
+
+ExactGroupInput exact_group_input(const Subsystem& s, const std::vector<Component>& components,
+                                  Duration mission_time) {
+  if (s.is_vendor() || s.channels.empty())
+    throw std::invalid_argument("exact engine: subsystem '" + s.name + "' has no channels to model");
+  ExactGroupInput in;
+  in.vote = s.vote;
+  for (const auto& ch : s.channels) {
+    FailureRates sum;
+    for (std::size_t c : ch.components) sum += components.at(c).rates;
+    in.channels.push_back(sum);
+  }
+  const bool scaled = s.ccf_scaling == CcfScaling::kIec61508TableD5 && table_d5_covers(s.vote.k, s.vote.n);
+  const double multiplier = scaled ? ccf_multiplier_table_d5(s.vote.k, s.vote.n) : 1.0;
+  in.beta = s.beta * multiplier;
+  in.beta_d = s.beta_d * multiplier;
+  in.proof_test_interval = s.proof_test_interval;
+  in.mttr = s.mttr;
+  in.mrt = s.mrt;
+  in.proof_test_coverage = s.proof_test_coverage;
+  in.partial_stroke = s.partial_stroke;
+  in.test_duration = s.test_duration;
+  in.staggered = s.staggered;
+  in.mission_time = mission_time;
+  return in;
+}
+
+}  // namespace sifter

@@ -1,0 +1,133 @@
+// The project's dependency graph: who relies on which device.
+#include "sifter/graph/dependency_graph.hpp"
+
+#include <algorithm>
+#include <iterator>
+#include <unordered_set>
+
+namespace sifter {
+
+DependencyGraph::DependencyGraph(const Project& project) {
+  for (const auto& c : project.components) add_component(c.id);
+  for (const auto& s : project.sifs) add_sif(project, s);
+  for (const auto& sc : project.scenarios) add_scenario(project, sc);
+}
+
+DependencyGraph::Vertex DependencyGraph::add_vertex(DependencyKind kind, const std::string& name) {
+  return boost::add_vertex(Node{kind, name}, graph_);
+}
+
+DependencyGraph::Vertex DependencyGraph::add_device(const std::string& tag) {
+  auto [it, inserted] = devices_.try_emplace(tag, 0);
+  if (inserted) it->second = add_vertex(DependencyKind::kDevice, tag);
+  return it->second;
+}
+
+DependencyGraph::Vertex DependencyGraph::add_component(const std::string& id) {
+  auto found = components_.find(id);
+  if (found != components_.end()) return found->second;
+  const Vertex v = add_vertex(DependencyKind::kComponent, id);
+  components_.emplace(id, v);
+  boost::add_edge(v, add_device(id), graph_);
+  return v;
+}
+
+DependencyGraph::Vertex DependencyGraph::add_sif(const Project& project, const Sif& sif) {
+  auto found = sifs_.find(sif.id);
+  if (found != sifs_.end()) return found->second;
+  const Vertex v = add_vertex(DependencyKind::kSif, sif.id);
+  sifs_.emplace(sif.id, v);
+  for (const auto& sub : sif.subsystems)
+    for (const auto& channel : sub.channels)
+      for (std::size_t index : channel.components)
+        if (index < project.components.size())
+          boost::add_edge(v, add_component(project.components[index].id), graph_);
+  return v;
+}
+
+ScenarioVertices DependencyGraph::add_scenario(const Project& project, const Scenario& scenario) {
+  ScenarioVertices out;
+  out.scenario = add_vertex(DependencyKind::kScenario, scenario.id);
+  for (const auto& cause : scenario.causes) {
+    const Vertex c = add_vertex(DependencyKind::kCause, scenario.id + "/" + cause.id);
+    boost::add_edge(out.scenario, c, graph_);
+    for (const auto& tag : cause.devices) boost::add_edge(c, add_device(tag), graph_);
+    out.causes.push_back(c);
+  }
+  for (const auto& layer : scenario.layers) {
+    const std::string label = layer.id.empty() ? layer.sif : layer.id;
+    const Vertex l = add_vertex(DependencyKind::kLayer, scenario.id + "/" + label);
+    boost::add_edge(out.scenario, l, graph_);
+    for (const auto& tag : layer.devices) boost::add_edge(l, add_device(tag), graph_);
+    if (!layer.sif.empty()) {
+      auto known = sifs_.find(layer.sif);
+      if (known != sifs_.end()) {
+        boost::add_edge(l, known->second, graph_);
+      } else {
+        auto sif = std::find_if(project.sifs.begin(), project.sifs.end(),
+                                [&](const Sif& s) { return s.id == layer.sif; });
+        if (sif != project.sifs.end()) boost::add_edge(l, add_sif(project, *sif), graph_);
+      }
+    }
+    out.layers.push_back(l);
+  }
+  return out;
+}
+
+std::vector<DependencyGraph::Vertex> DependencyGraph::reach_devices(Vertex v, bool through_sifs) const {
+  // A depth-first walk over out-edges. The visited set is local to the walk, so a query costs
+  // what it reaches, not the size of the whole project's graph.
+  std::vector<Vertex> devices;
+  std::unordered_set<Vertex> seen{v};
+  std::vector<Vertex> stack{v};
+  while (!stack.empty()) {
+    const Vertex u = stack.back();
+    stack.pop_back();
+    if (graph_[u].kind == DependencyKind::kDevice) devices.push_back(u);
+    if (!through_sifs && u != v && graph_[u].kind == DependencyKind::kSif) continue;
+    for (auto [e, end] = boost::out_edges(u, graph_); e != end; ++e) {
+      const Vertex w = boost::target(*e, graph_);
+      if (seen.insert(w).second) stack.push_back(w);
+    }
+  }
+  return devices;
+}
+
+std::vector<std::string> DependencyGraph::devices_of(Vertex v) const {
+  std::vector<std::string> tags;
+  for (Vertex d : reach_devices(v, true)) tags.push_back(graph_[d].name);
+  std::sort(tags.begin(), tags.end());
+  return tags;
+}
+
+std::vector<std::string> DependencyGraph::common_devices(Vertex a, Vertex b) const {
+  const auto da = devices_of(a);
+  const auto db = devices_of(b);
+  std::vector<std::string> common;
+  std::set_intersection(da.begin(), da.end(), db.begin(), db.end(), std::back_inserter(common));
+  return common;
+}
+
+std::vector<SharedDevice> DependencyGraph::shared_devices() const {
+  // Walk forward once from every user and invert: cheaper than a backward walk per device.
+  std::map<std::string, std::vector<std::string>> users_of;  // tag -> users, sorted by tag
+  auto collect = [&](DependencyKind kind) {
+    for (auto [v, end] = boost::vertices(graph_); v != end; ++v) {
+      if (graph_[*v].kind != kind) continue;
+      for (Vertex d : reach_devices(*v, false)) users_of[graph_[d].name].push_back(graph_[*v].name);
+    }
+  };
+  // SIFs first, then scenarios, each in the order they were added (project order).
+  collect(DependencyKind::kSif);
+  collect(DependencyKind::kScenario);
+  std::vector<SharedDevice> shared;
+  for (auto& [tag, users] : users_of)
+    if (users.size() >= 2) shared.push_back({tag, std::move(users)});
+  return shared;
+}
+
+std::vector<SharedDevice> shared_devices(const Project& project) {
+  return DependencyGraph(project).shared_devices();
+}
+
+}  // namespace sifter

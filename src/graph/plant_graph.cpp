@@ -1,0 +1,137 @@
+// The signal-flow graph of the SIFs: construction, validation and shared components.
+#include "sifter/graph/plant_graph.hpp"
+
+#include <map>
+#include <set>
+#include <unordered_map>
+
+#include "input/json_reader.hpp"
+
+namespace sifter {
+
+PlantGraph::PlantGraph(const Project& project) {
+  for (std::size_t c = 0; c < project.components.size(); ++c) component_index_.emplace(project.components[c].id, c);
+  for (std::size_t c = 0; c < project.components.size(); ++c)
+    component_vertex_.push_back(
+        boost::add_vertex(PlantVertex{VertexKind::kComponent, project.components[c].id, 0, 0, c}, graph_));
+  for (std::size_t s = 0; s < project.sifs.size(); ++s) add_sif(project, s);
+  check_groups(project);
+}
+
+void PlantGraph::add_sif(const Project& project, std::size_t s) {
+  const auto& by_id = component_index_;
+  std::vector<std::string> ids;
+  const Sif& sif = project.sifs[s];
+  const auto sv = boost::add_vertex(PlantVertex{VertexKind::kSif, sif.id, s, 0, s}, graph_);
+  sif_vertex_.push_back(sv);
+  auto previous = sv;
+  for (std::size_t g = 0; g < sif.subsystems.size(); ++g) {
+    const Subsystem& sub = sif.subsystems[g];
+    const auto gv = boost::add_vertex(PlantVertex{VertexKind::kGroup, sub.name, s, g, g}, graph_);
+    boost::add_edge(previous, gv, graph_);  // the signal passes from one subsystem to the next
+    previous = gv;
+    for (std::size_t c = 0; c < sub.channels.size(); ++c) {
+      const auto cv = boost::add_vertex(PlantVertex{VertexKind::kChannel, sub.channels[c].pointer, s, g, c}, graph_);
+      boost::add_edge(gv, cv, graph_);
+      const Channel& ch = sub.channels[c];
+      for (std::size_t e = 0; e < ch.component_ids.size(); ++e) {
+        auto it = by_id.find(ch.component_ids[e]);
+        if (it == by_id.end()) {
+          if (ids.empty())
+            for (const auto& comp : project.components) ids.push_back(comp.id);
+          const auto near = detail::nearest(ch.component_ids[e], ids);
+          problems_.push_back({ch.component_ids.size() > 1 ? ch.pointer + "/" + std::to_string(e) : ch.pointer,
+                               "the id of a component", "\"" + ch.component_ids[e] + "\", which is not defined",
+                               near.empty() ? "add it to \"components\"" : "did you mean \"" + near + "\"?"});
+          continue;
+        }
+        boost::add_edge(cv, component_vertex_[it->second], graph_);
+      }
+    }
+  }
+}
+
+void PlantGraph::check_groups(const Project& project) {
+  for (auto v : boost::make_iterator_range(boost::vertices(graph_))) {
+    const PlantVertex& pv = graph_[v];
+    if (pv.kind != VertexKind::kGroup) continue;
+    const Subsystem& sub = project.sifs[pv.sif].subsystems[pv.subsystem];
+    if (sub.is_vendor()) continue;
+    std::vector<PlantGraphType::vertex_descriptor> channels;
+    for (auto e : boost::make_iterator_range(boost::out_edges(v, graph_)))
+      if (graph_[boost::target(e, graph_)].kind == VertexKind::kChannel) channels.push_back(boost::target(e, graph_));
+    const auto n_channels = static_cast<int>(channels.size());
+    if (n_channels == 0) {
+      problems_.push_back({sub.pointer, "a subsystem with channels, or a vendor \"pfd_avg\" or \"pfh\"",
+                           "no channels", "list the component ids under \"channels\""});
+      continue;
+    }
+    if (sub.vote.k > sub.vote.n)
+      problems_.push_back({sub.pointer + "/vote", "a vote with K no more than N", sub.vote.text(),
+                           "K is the number of channels that must work"});
+    if (sub.vote.n != n_channels)
+      problems_.push_back({sub.pointer + "/channels", std::to_string(sub.vote.n) + " channels for vote " + sub.vote.text(),
+                           std::to_string(n_channels) + " channels", "make the vote's N equal to the channel count"});
+    // A component used twice in the group is reported where it is written the second time.
+    std::map<std::string, std::string> first_use;
+    for (const auto& ch : sub.channels)
+      for (std::size_t e = 0; e < ch.component_ids.size(); ++e) {
+        const std::string place = ch.component_ids.size() > 1 ? ch.pointer + "/" + std::to_string(e) : ch.pointer;
+        auto [at, fresh] = first_use.emplace(ch.component_ids[e], place);
+        if (!fresh)
+          problems_.push_back({place, "each component once in a group",
+                               "\"" + ch.component_ids[e] + "\" again (first at " + at->second + ")",
+                               "redundant channels need their own devices"});
+      }
+  }
+}
+
+std::vector<SharedComponent> PlantGraph::shared_components() const {
+  std::vector<SharedComponent> out;
+  for (auto cv : component_vertex_) {
+    std::set<std::size_t> sifs;
+    for (auto e : boost::make_iterator_range(boost::in_edges(cv, graph_))) sifs.insert(graph_[boost::source(e, graph_)].sif);
+    if (sifs.size() < 2) continue;
+    SharedComponent shared{graph_[cv].label, {}};
+    for (auto s : sifs) shared.sifs.push_back(graph_[sif_vertex_[s]].label);
+    out.push_back(std::move(shared));
+  }
+  return out;
+}
+
+std::vector<std::size_t> PlantGraph::signal_order(std::size_t sif) const {
+  std::vector<std::size_t> order;
+  auto v = sif_vertex_.at(sif);
+  while (true) {
+    bool moved = false;
+    for (auto e : boost::make_iterator_range(boost::out_edges(v, graph_))) {
+      auto t = boost::target(e, graph_);
+      if (graph_[t].kind == VertexKind::kGroup) {
+        order.push_back(graph_[t].subsystem);
+        v = t;
+        moved = true;
+        break;
+      }
+    }
+    if (!moved) return order;
+  }
+}
+
+std::vector<GraphProblem> validate_project_graph(Project& project, std::shared_ptr<const PlantGraph>* keep) {
+  auto built = std::make_shared<const PlantGraph>(project);
+  const PlantGraph& graph = *built;
+  if (!graph.problems().empty()) return graph.problems();
+  if (keep) *keep = std::move(built);
+  // Resolve ids into indices now that every one is known.
+  std::unordered_map<std::string, std::size_t> by_id;
+  for (std::size_t c = 0; c < project.components.size(); ++c) by_id.emplace(project.components[c].id, c);
+  for (auto& sif : project.sifs)
+    for (auto& sub : sif.subsystems)
+      for (auto& ch : sub.channels) {
+        ch.components.clear();
+        for (const auto& id : ch.component_ids) ch.components.push_back(by_id.at(id));
+      }
+  return {};
+}
+
+}  // namespace sifter

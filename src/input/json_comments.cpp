@@ -1,0 +1,37 @@
+// Comments blanked to spaces, so that the JSON left over keeps every offset of the file as written.
+#include "sifter/input/json_comments.hpp"
+
+namespace sifter {
+
+std::optional<CommentProblem> blank_json_comments(std::string& text) {
+  const std::size_t n = text.size();
+  std::size_t i = 0;
+  while (i < n) {
+    const char c = text[i];
+    if (c == '"') {  // a string: skip to its closing quote, honouring backslash escapes
+      for (++i; i < n && text[i] != '"'; ++i)
+        if (text[i] == '\\') ++i;
+      ++i;
+      continue;
+    }
+    if (c != '/' || i + 1 >= n || (text[i + 1] != '/' && text[i + 1] != '*')) {
+      ++i;  // a lone slash is left for the parser to refuse
+      continue;
+    }
+    if (text[i + 1] == '/') {
+      for (; i < n && text[i] != '\n' && text[i] != '\r'; ++i) text[i] = ' ';
+      continue;
+    }
+    const std::size_t open = i;
+    const std::size_t close = text.find("*/", i + 2);
+    if (close == std::string::npos)
+      return CommentProblem{position_of_offset(text, open), "a block comment closed by \"*/\"",
+                            "\"/*\" that is never closed", "close the comment, or use // for a one-line comment"};
+    // Newlines inside the comment stay, so that the lines after it keep their numbers.
+    for (; i < close + 2; ++i)
+      if (text[i] != '\n' && text[i] != '\r') text[i] = ' ';
+  }
+  return std::nullopt;
+}
+
+}  // namespace sifter

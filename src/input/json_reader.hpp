@@ -1,0 +1,111 @@
+#pragma once
+/// Strict reading of JSON objects into model fields, collecting every problem (loader internals).
+#include <nlohmann/json.hpp>
+
+#include <initializer_list>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "sifter/model/diagnostics.hpp"
+#include "sifter/model/quantity.hpp"
+
+namespace sifter::detail {
+
+using Json = nlohmann::json;
+
+/// A problem whose place is known by file and pointer; positions are filled in at the end.
+struct PendingDiagnostic {
+  int source = 0;  ///< index into LoadContext::sources
+  Diagnostic diagnostic;
+};
+
+/// A text the loader read, kept to locate pointers in it when reporting.
+struct SourceText {
+  std::string path;
+  std::string text;
+};
+
+/// What every loading step shares: the texts read, the problems and the warnings found.
+struct LoadContext {
+  std::vector<SourceText> sources;
+  std::vector<PendingDiagnostic> problems;
+  std::vector<Warning> warnings;
+  std::size_t problems_not_kept = 0;  ///< beyond kMaxReportedProblems, only counted
+  std::size_t follow_ons_suppressed = 0;  ///< problems that follow only from one already reported
+
+  /// A problem already reported in `source` at `pointer` or below it (a root cause).
+  [[nodiscard]] bool has_problem_under(int source, const std::string& pointer) const;
+  /// A library named under "libraries" could not be read, parsed or checked.
+  [[nodiscard]] bool libraries_failed() const;
+
+  void error(int source, const std::string& pointer, std::string expected, std::string found,
+             std::string hint = {});
+  void warn(const std::string& pointer, std::string message);
+  /// Turns the pending problems into diagnostics with line and column.
+  [[nodiscard]] std::vector<Diagnostic> located() const;
+};
+
+/// "the number 8", "the string \"8 hrs\"", "an object", ... for messages.
+std::string describe(const Json& value);
+
+/// The known key nearest to an unknown one (edit distance at most 3), or empty.
+std::string nearest(const std::string& word, const std::vector<std::string>& known);
+
+/// Reads the members of one JSON object; every read marks a key as known, and finish()
+/// reports the keys nobody asked for, with the nearest known key as a hint.
+class ObjectReader {
+ public:
+  ObjectReader(LoadContext& ctx, const Json& value, std::string pointer, int source, std::string what);
+
+  [[nodiscard]] bool is_object() const { return is_object_; }
+  [[nodiscard]] const std::string& pointer() const { return pointer_; }
+  [[nodiscard]] std::string at(const std::string& key) const;
+  [[nodiscard]] bool has(const std::string& key) const;
+  [[nodiscard]] int source() const { return source_; }
+  [[nodiscard]] LoadContext& context() const { return ctx_; }
+
+  /// The raw member, marked known; nullptr when absent.
+  const Json* member(const std::string& key);
+  /// Reports the member as missing when required and absent.
+  const Json* require(const std::string& key, const std::string& expected);
+
+  std::optional<std::string> string(const std::string& key, bool required = false);
+  std::optional<double> number(const std::string& key, bool required = false);
+  std::optional<int> integer(const std::string& key, int lo, int hi, bool required = false);
+  std::optional<bool> boolean(const std::string& key);
+  /// A fraction 0..1 written 0.05 or "5%".
+  std::optional<double> fraction(const std::string& key, bool required = false);
+  /// A probability in [0, 1] (a plain number).
+  std::optional<double> probability(const std::string& key, bool required = false);
+  std::optional<Rate> rate(const std::string& key, bool required = false);
+  std::optional<Duration> duration(const std::string& key, bool required = false);
+  /// A string among the allowed ones.
+  std::optional<std::string> choice(const std::string& key, std::initializer_list<const char*> allowed,
+                                    bool required = false);
+  /// An array of strings (absent = empty).
+  std::vector<std::string> strings(const std::string& key);
+  /// Marks keys that are accepted and ignored (comments, notes kept for people).
+  void allow(std::initializer_list<const char*> keys);
+
+  /// Reports every member that no read asked for.
+  void finish();
+
+ private:
+  void type_error(const std::string& key, const std::string& expected, const Json& found,
+                  const std::string& hint = {});
+
+  LoadContext& ctx_;
+  const Json& value_;
+  std::string pointer_;
+  int source_;
+  std::string what_;
+  bool is_object_;
+  void mark_known(std::string_view key);
+  const Json* present(const std::string& key);
+
+  std::vector<std::string> known_;  ///< a few dozen keys at most: a flat list beats a tree
+};
+
+}  // namespace sifter::detail

@@ -1,0 +1,277 @@
+// Reading a project file: bytes, structure, JSON, sections, libraries, then graph validation.
+#include "sifter/input/load.hpp"
+
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+#include "input/load_parts.hpp"
+#include "input/load_reuse.hpp"
+#include "sifter/input/json_comments.hpp"
+#include "input/load_pressure.hpp"
+#include "sifter/input/json_source.hpp"
+#include "sifter/graph/plant_graph.hpp"
+#include "sifter/input/sha256.hpp"
+
+namespace sifter {
+namespace fs = std::filesystem;
+using detail::Json;
+using detail::LoadContext;
+using detail::ObjectReader;
+
+namespace {
+
+[[noreturn]] void fail_with(const std::string& file, const std::string& expected, const std::string& found,
+                            const std::string& hint = {}) {
+  Diagnostic d;
+  d.file = file;
+  d.expected = expected;
+  d.found = found;
+  d.hint = hint;
+  throw InputError({d});
+}
+
+// Reads a whole file, refusing directories, special files and sizes beyond kMaxInputBytes.
+std::string read_file_bounded(const std::string& path, LoadContext* ctx, int source, const std::string& pointer) {
+  std::error_code ec;
+  const auto status = fs::status(path, ec);
+  auto problem = [&](const std::string& expected, const std::string& found, const std::string& hint) -> std::string {
+    if (ctx) {
+      ctx->error(source, pointer, expected, found, hint);
+      return {};
+    }
+    fail_with(path, expected, found, hint);
+  };
+  if (ec || !fs::exists(status)) return problem("a readable file", "no file at \"" + path + "\"", "check the path");
+  if (fs::is_directory(status)) return problem("a file", "a directory at \"" + path + "\"", "name the JSON file itself");
+  if (!fs::is_regular_file(status)) return problem("a regular file", "a special file at \"" + path + "\"", "");
+  const auto size = fs::file_size(path, ec);
+  if (!ec && size > kMaxInputBytes)
+    return problem("a file of at most " + std::to_string(kMaxInputBytes / (1024 * 1024)) + " MiB",
+                   std::to_string(size / (1024 * 1024)) + " MiB", "split the register into several projects");
+  std::ifstream in(path, std::ios::binary);
+  if (!in) return problem("a readable file", "\"" + path + "\" cannot be opened", "check its permissions");
+  std::ostringstream buf;
+  buf << in.rdbuf();
+  return buf.str();
+}
+
+// The parser quotes the bytes it read last; bytes outside printable ASCII are shown as \xNN,
+// so that a message about invalid UTF-8 is not itself invalid UTF-8.
+std::string printable(const std::string& text) {
+  std::string out;
+  for (unsigned char c : text) {
+    if (c >= 0x20 && c < 0x7F) {
+      out += static_cast<char>(c);
+    } else {
+      char buf[5];
+      std::snprintf(buf, sizeof buf, "\\x%02X", c);
+      out += buf;
+    }
+  }
+  return out;
+}
+
+// Parses text already read into ctx.sources[source]; problems go to ctx. Returns null on failure.
+std::optional<Json> parse_source(LoadContext& ctx, int source, const std::string& pointer_in_parent) {
+  std::string& text = ctx.sources[static_cast<std::size_t>(source)].text;
+  const std::string& path = ctx.sources[static_cast<std::size_t>(source)].path;
+  auto report = [&](TextPosition pos, const std::string& pointer, const std::string& expected,
+                    const std::string& found, const std::string& hint) {
+    Diagnostic d{path, pos.line, pos.column, pointer, expected, found, hint};
+    ctx.problems.push_back({source, d});
+  };
+  (void)pointer_in_parent;
+  if (text.size() >= 3 && static_cast<unsigned char>(text[0]) == 0xEF && static_cast<unsigned char>(text[1]) == 0xBB &&
+      static_cast<unsigned char>(text[2]) == 0xBF) {
+    report({1, 1}, "", "JSON text without a byte-order mark", "a UTF-8 byte-order mark",
+           "save the file as UTF-8 without BOM");
+    return std::nullopt;
+  }
+  if (auto comment = blank_json_comments(text)) {  // the one place comments are handled, before any parser
+    report(comment->position, "", comment->expected, comment->found, comment->hint);
+    return std::nullopt;
+  }
+  const auto structure = scan_json_structure(text);
+  for (const auto& p : structure) report(p.position, p.pointer, p.expected, p.found, p.hint);
+  if (!structure.empty()) return std::nullopt;
+  try {
+    return Json::parse(text);
+  } catch (const Json::parse_error& e) {
+    std::string what = e.what();
+    // nlohmann's message: "[json.exception.parse_error.101] parse error at line 3, column 5: syntax error ..."
+    const auto colon = what.find(": ", what.find("parse error"));
+    std::string detail = printable(colon == std::string::npos ? what : what.substr(colon + 2));
+    const std::size_t offset = e.byte == 0 ? 0 : e.byte - 1;
+    report(position_of_offset(text, offset), "", "valid JSON", detail,
+           "check for a missing comma, quote or bracket near this place");
+    return std::nullopt;
+  } catch (const Json::out_of_range& e) {
+    // nlohmann: "number overflow parsing '1e400'": locate the number in the text.
+    const std::string what = e.what();
+    const auto q1 = what.find('\''), q2 = what.rfind('\'');
+    const std::string token = q1 != std::string::npos && q2 > q1 ? what.substr(q1 + 1, q2 - q1 - 1) : "";
+    const auto at = token.empty() ? std::string::npos : text.find(token);
+    report(position_of_offset(text, at == std::string::npos ? 0 : at), "", "numbers within the range of finite values",
+           token.empty() ? "a number out of range" : "the number " + token, "write a finite number");
+    return std::nullopt;
+  }
+}
+
+void read_defaults(LoadContext& ctx, const Json& root, Project& project) {
+  auto it = root.find("defaults");
+  if (it == root.end()) return;
+  ObjectReader r(ctx, *it, "/defaults", 0, "the defaults");
+  project.defaults.proof_test_interval = r.duration("proof_test_interval");
+  project.defaults.mttr = r.duration("mttr");
+  project.defaults.mrt = r.duration("mrt");
+  if (auto mission = r.duration("mission_time")) {
+    project.defaults.mission_time = *mission;
+    project.defaults.mission_time_defaulted = false;
+    if (mission->hours <= 0.0) ctx.error(0, r.at("mission_time"), "a positive mission time", "zero");
+  }
+  r.finish();
+}
+
+LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
+  LoadedProject out;
+  Project& project = out.project;
+  project.file = ctx.sources[0].path;
+  out.sha256 = sha256_hex(ctx.sources[0].text);
+  auto root = parse_source(ctx, 0, "");
+  if (!root) throw InputError(ctx.located());
+  ObjectReader top(ctx, *root, "", 0, "a project");
+  if (!top.is_object()) throw InputError(ctx.located());
+  if (auto format = top.string("format", true)) {
+    project.format = *format;
+    if (*format != kProjectFormat)
+      ctx.error(0, "/format", std::string("\"") + kProjectFormat + "\"", "\"" + *format + "\"",
+                "this version of sifter reads sifter-project/1");
+  }
+  project.title = top.string("title").value_or("");
+  top.allow({"note", "revision", "author"});
+  top.string("$schema");  // where an editor finds the schema; sifter needs nothing from it
+  project.document = detail::read_document(top);
+  project.constraints = detail::parse_constraint_basis(top.choice("constraints", {"iec61511", "route_1h", "route_2h"}));
+  if (const auto judge_on = top.choice("judge_on", {"conservative", "simplified", "exact"}))
+    project.judge_on = *judge_on == "simplified" ? JudgeOn::kSimplified
+                       : *judge_on == "exact"    ? JudgeOn::kExact
+                                                 : JudgeOn::kConservative;
+  top.member("defaults");
+  read_defaults(ctx, *root, project);
+  detail::ModelIndex models;
+  std::error_code ec;
+  std::vector<std::string> chain{fs::weakly_canonical(project.file, ec).string()};
+  detail::read_libraries(ctx, top, base_dir, models, chain);
+  // Each section's JSON is released once it is read, so that a large register is never held
+  // twice (as JSON and as structs) at its full size.
+  detail::ReuseRecord reuse = detail::expand_reuse(ctx, *root, top);
+  top.member("components");
+  detail::read_components(ctx, *root, models, project);
+  root->erase("components");
+  top.member("sifs");
+  detail::read_sifs(ctx, *root, project);
+  root->erase("sifs");
+  top.member("risk_criteria");
+  top.member("scenarios");
+  top.member("lopa");
+  detail::read_scenarios(ctx, *root, project);
+  detail::finish_reuse(ctx, reuse, project);
+  top.member("pressure");
+  top.member("options");
+  detail::read_pressure(ctx, *root, project);
+  top.finish();
+  detail::check_project_plausibility(ctx, project);
+  if (ctx.problems.empty()) out.pressure = detail::screen_and_generate(ctx, project);
+  if (ctx.problems.empty()) {
+    const auto graph_problems = validate_project_graph(project, &out.graph);
+    for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
+  }
+  detail::settle_reuse_problems(ctx, reuse);
+  if (!ctx.problems.empty()) throw InputError(ctx.located(), ctx.follow_ons_suppressed);
+  out.warnings = std::move(ctx.warnings);
+  for (const auto& source : ctx.sources) out.inputs.push_back(source.path);
+  return out;
+}
+
+}  // namespace
+
+namespace detail {
+
+void read_libraries(LoadContext& ctx, ObjectReader& owner, const std::string& base_dir, ModelIndex& models,
+                    std::vector<std::string>& chain) {
+  const int owner_source = owner.source();
+  const auto paths = owner.strings("libraries");
+  for (std::size_t i = 0; i < paths.size(); ++i) {
+    const std::string pointer = owner.at("libraries") + "/" + std::to_string(i);
+    const fs::path resolved = (fs::path(base_dir) / paths[i]).lexically_normal();
+    // A symbolic-link loop has no canonical form: the error code keeps it a problem of the input.
+    std::error_code loop;
+    const std::string canonical = fs::weakly_canonical(resolved, loop).string();
+    if (loop) {
+      ctx.error(owner_source, pointer, "a readable library file", "\"" + paths[i] + "\": " + loop.message(),
+                "check the path; a symbolic link that points at itself never reaches a file");
+      continue;
+    }
+    if (std::find(chain.begin(), chain.end(), canonical) != chain.end()) {
+      std::string cycle;
+      for (const auto& c : chain) cycle += fs::path(c).filename().string() + " -> ";
+      ctx.error(owner_source, pointer, "libraries that do not include each other in a cycle",
+                "the cycle " + cycle + fs::path(canonical).filename().string(), "remove one of the includes");
+      continue;
+    }
+    const std::string text = read_file_bounded(resolved.string(), &ctx, owner_source, pointer);
+    if (text.empty()) continue;
+    const int source = static_cast<int>(ctx.sources.size());
+    ctx.sources.push_back({resolved.string(), text});
+    auto lib = parse_source(ctx, source, pointer);
+    if (!lib) continue;
+    ObjectReader r(ctx, *lib, "", source, "a component library");
+    if (!r.is_object()) continue;
+    if (auto format = r.string("format", true); format && *format != kLibraryFormat)
+      ctx.error(source, "/format", std::string("\"") + kLibraryFormat + "\"", "\"" + *format + "\"");
+    r.allow({"title", "note", "caution", "source"});
+    r.string("$schema");
+    chain.push_back(canonical);
+    read_libraries(ctx, r, resolved.parent_path().string(), models, chain);
+    chain.pop_back();
+    if (const Json* entries = r.require("models", "an array of component models")) {
+      if (!entries->is_array()) {
+        ctx.error(source, "/models", "an array of component models", describe(*entries));
+      } else {
+        for (std::size_t j = 0; j < entries->size(); ++j) {
+          const std::string mp = "/models/" + std::to_string(j);
+          const Json& e = (*entries)[j];
+          check_model_entry(ctx, e, source, mp);
+          if (!e.is_object() || !e.contains("id") || !e["id"].is_string()) continue;
+          const std::string id = e["id"].get<std::string>();
+          if (models.count(id)) {
+            ctx.error(source, mp + "/id", "a model id defined once across the libraries", "\"" + id + "\" again",
+                      "rename one of them");
+            continue;
+          }
+          models[id] = ModelEntry{e, source, mp};
+        }
+      }
+    }
+    r.finish();
+  }
+}
+
+}  // namespace detail
+
+LoadedProject load_project_text(const std::string& text, const std::string& name, const std::string& base_dir) {
+  LoadContext ctx;
+  ctx.sources.push_back({name, text});
+  return load_from(ctx, base_dir);
+}
+
+LoadedProject load_project_file(const std::string& path) {
+  LoadContext ctx;
+  ctx.sources.push_back({path, read_file_bounded(path, nullptr, 0, "")});  // the one copy of the text
+  const std::string base = fs::path(path).parent_path().string();
+  return load_from(ctx, base.empty() ? "." : base);
+}
+
+}  // namespace sifter

@@ -1,0 +1,238 @@
+// Specification of the command line: exit statuses, outputs written whole, the examples.
+#include <gtest/gtest.h>
+#include <nlohmann/json.hpp>
+
+#include "support/cli_support.hpp"
+
+namespace sifter {
+namespace {
+
+using nlohmann::json;
+using testing::fresh_folder;
+using testing::run_sifter;
+using testing::slurp;
+
+TEST(Cli, VersionAndHelpExitZero) {
+  const auto v = run_sifter("--version");
+  EXPECT_EQ(v.exit_code, 0);
+  EXPECT_EQ(v.out, "sifter " SIFTER_VERSION "\n");
+  const auto h = run_sifter("check --help");
+  EXPECT_EQ(h.exit_code, 0);
+  EXPECT_NE(h.out.find("--json"), std::string::npos);
+}
+
+TEST(Cli, UnknownOptionIsAUsageErrorWithStatusTwo) {
+  const auto r = run_sifter("check examples/unit40.json --jsn out.json");
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_NE(r.err.find("--jsn"), std::string::npos);
+}
+
+TEST(Cli, TheShippedExampleMeetsEveryTargetAndExitsZero) {
+  const auto r = run_sifter("check examples/unit40.json");
+  EXPECT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_NE(r.out.find("SIF-401"), std::string::npos);
+  EXPECT_NE(r.out.find("MEETS TARGET"), std::string::npos);
+  EXPECT_NE(r.out.find("CAUTION: sifter is a calculation aid"), std::string::npos);
+  EXPECT_NE(r.out.find("LS-40: SIF-401, SIF-403"), std::string::npos);  // a shared logic solver
+}
+
+TEST(Cli, JsonResultsCarryTheContractKeys) {
+  const auto r = run_sifter("check examples/unit40.json --json -");
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const json j = json::parse(r.out);
+  EXPECT_EQ(j["format"], "sifter-results/1");
+  ASSERT_EQ(j["sifs"].size(), 3u);
+  const json& s = j["sifs"][0];
+  EXPECT_EQ(s["id"], "SIF-401");
+  EXPECT_EQ(s["demand_mode"], "low");
+  EXPECT_TRUE(s["pfd_avg"].is_number());
+  EXPECT_TRUE(s["pfh"].is_null());
+  EXPECT_NEAR(s["rrf"].get<double>(), 1.0 / s["pfd_avg"].get<double>(), 1e-9 * s["rrf"].get<double>());
+  EXPECT_EQ(s["sil_required"], 2);
+  // LOPA-401-1 feeds SIF-401 (CCPS 2001 arithmetic): (0.1 x 0.9 [IPL-1 no credit: shares DCS-4]
+  // + 0.3 x 0.9 x 0.1) x 0.01 x 0.5 = 5.85e-4 /yr against 1e-5 /yr: RRF 58.5.
+  EXPECT_NEAR(s["required_rrf"].get<double>(), 58.5, 58.5 * 1e-9);
+  EXPECT_EQ(s["meets_target"], true);
+  ASSERT_EQ(s["subsystems"].size(), 3u);
+  double shares = 0.0, sum = 0.0;
+  for (const auto& sub : s["subsystems"]) {
+    shares += sub["share"].get<double>();
+    sum += sub["pfd_avg"].get<double>();
+  }
+  EXPECT_NEAR(shares, 1.0, 1e-12);
+  EXPECT_NEAR(sum, s["pfd_avg"].get<double>(), 1e-15);  // the SIF is the sum of its subsystems
+  EXPECT_EQ(s["subsystems"][0]["vote"], "2oo3");
+  EXPECT_FALSE(s["assumptions"].empty());
+  EXPECT_TRUE(j["warnings"].is_array());
+  EXPECT_NE(j["caution"].get<std::string>().find("competent functional-safety practitioner"), std::string::npos);
+  // SIF-402's own target is RRF 300; LOPA-402-1 asks 0.1 x 0.1 x 0.2 x 0.3 / 1e-6 = 600: the stricter applies.
+  EXPECT_NEAR(j["sifs"][1]["required_rrf"].get<double>(), 600.0, 600.0 * 1e-9);
+  ASSERT_EQ(j["scenarios"].size(), 3u);
+  EXPECT_EQ(j["scenarios"][0]["sif"], "SIF-401");
+  EXPECT_EQ(j["scenarios"][0]["demand_mode"], "low");
+  EXPECT_EQ(j["scenarios"][0]["findings"][0]["kind"], "not_independent");
+  EXPECT_EQ(j["scenarios"][1]["findings"][0]["kind"], "bpcs_credit_capped");
+  EXPECT_EQ(j["scenarios"][2]["findings"][0]["kind"], "response_time");
+  EXPECT_NEAR(j["scenarios"][0]["mitigated_frequency_per_yr"].get<double>(),
+              5.85e-4 * j["sifs"][0]["pfd_avg"].get<double>(), 1e-15);
+}
+
+TEST(Cli, WorksheetCsvHasOneRowPerStep) {
+  const auto dir = fresh_folder("worksheet");
+  const auto out = dir / "ws.csv";
+  const auto r = run_sifter("check examples/unit40.json --quiet --worksheet-csv " + out.string());
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const std::string csv = slurp(out);
+  EXPECT_EQ(csv.rfind("scenario,consequence,step,cause,item,title,value,credited,frequency_per_yr,required_rrf,note\r\n", 0), 0u);
+  // A title with a comma is quoted (RFC 4180).
+  EXPECT_NE(csv.find("\"high level alarm, operator closes the inlet\""), std::string::npos);
+}
+
+TEST(Cli, AFunctionThatFallsShortExitsOne) {
+  const auto r = run_sifter("check examples/unit50_shortfall.json --json -");
+  EXPECT_EQ(r.exit_code, 1);
+  const json j = json::parse(r.out);
+  EXPECT_EQ(j["sifs"][0]["meets_target"], false);
+  EXPECT_EQ(j["sifs"][1]["meets_target"], true);
+}
+
+TEST(Cli, BadInputExitsTwoAndWritesNothing) {
+  const auto dir = fresh_folder("bad_input");
+  const auto out = dir / "results.json";
+  const auto r = run_sifter("check tests/data/bad/typo_in_key.json --json " + out.string());
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_NE(r.err.find("proof_test_intervall"), std::string::npos);
+  EXPECT_FALSE(std::filesystem::exists(out));
+  EXPECT_TRUE(std::filesystem::is_empty(dir));  // no temporary file left behind either
+}
+
+TEST(Cli, BadInputLeavesAnEarlierResultsFileUntouched) {
+  const auto dir = fresh_folder("keep_old");
+  const auto out = dir / "results.json";
+  std::ofstream(out) << "earlier results";
+  run_sifter("check tests/data/bad/unknown_component.json --json " + out.string());
+  EXPECT_EQ(slurp(out), "earlier results");
+}
+
+TEST(Cli, ResultsFileIsWrittenWhole) {
+  const auto dir = fresh_folder("whole");
+  const auto out = dir / "results.json";
+  const auto r = run_sifter("check examples/unit40.json --quiet --json " + out.string());
+  EXPECT_EQ(r.exit_code, 0) << r.err;
+  EXPECT_TRUE(r.out.empty());
+  EXPECT_EQ(json::parse(slurp(out))["sifs"].size(), 3u);
+}
+
+TEST(Cli, RefusesToOverwriteItsOwnInput) {
+  const auto dir = fresh_folder("self");
+  const auto project = dir / "p.json";
+  std::filesystem::copy_file(std::string(SIFTER_SOURCE_DIR) + "/tests/data/bad/typo_in_key.json", project);
+  const std::string before = slurp(project);
+  const auto r = run_sifter("check " + project.string() + " --json " + project.string());
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_NE(r.err.find("refusing to write"), std::string::npos);
+  EXPECT_EQ(slurp(project), before);
+}
+
+TEST(Cli, AMissingProjectFileIsNamed) {
+  const auto r = run_sifter("check no/such/file.json");
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_EQ(r.err, "sifter: no/such/file.json: expected a readable file, found no file at \"no/such/file.json\"\n"
+                   "  hint: check the path\n1 problem in the input; nothing was computed or written\n");
+}
+
+}  // namespace
+}  // namespace sifter
+
+namespace sifter {
+namespace {
+
+TEST(CliCurve, WritesTheExactSawtoothWithEveryTestInstant) {
+  const auto r = run_sifter("curve examples/unit40.json --sif SIF-401 --points 20 --json -");
+  ASSERT_EQ(r.exit_code, 0) << r.err;
+  const auto j = nlohmann::json::parse(r.out);
+  const auto& t = j["time_h"];
+  ASSERT_GT(t.size(), 20u);
+  EXPECT_DOUBLE_EQ(t.front().get<double>(), 0.0);
+  EXPECT_DOUBLE_EQ(t.back().get<double>(), 20 * 8760.0);
+  // The outlet valve is tested every 6 mo (4380 h): the curve holds that instant (twice: before and after).
+  int at_first_test = 0;
+  for (const auto& v : t) at_first_test += v.get<double>() == 4380.0 ? 1 : 0;
+  EXPECT_EQ(at_first_test, 2);
+  EXPECT_EQ(j["subsystems"].size(), 3u);
+  // The average of the curve's engine is the check's pfd_avg_exact.
+  const auto check = nlohmann::json::parse(run_sifter("check examples/unit40.json --json -").out);
+  EXPECT_NEAR(j["pfd_avg_exact"].get<double>(), check["sifs"][0]["pfd_avg_exact"].get<double>(), 1e-12);
+}
+
+TEST(CliCurve, AnUnknownSifIsAUsageErrorListingTheKnownOnes) {
+  const auto r = run_sifter("curve examples/unit40.json --sif SIF-9");
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_EQ(r.err, "sifter: no SIF \"SIF-9\" in examples/unit40.json; its SIFs are: SIF-401, SIF-402, SIF-403\n");
+}
+
+TEST(CliCheck, NoExactSkipsTheCrossCheck) {
+  const auto j = nlohmann::json::parse(run_sifter("check examples/unit40.json --no-exact --json -").out);
+  EXPECT_TRUE(j["sifs"][0]["pfd_avg_exact"].is_null());
+  const auto k = nlohmann::json::parse(run_sifter("check examples/unit40.json --json -").out);
+  EXPECT_TRUE(k["sifs"][0]["pfd_avg_exact"].is_number());
+}
+
+TEST(CliCheck, TheSameSeedGivesTheSameUncertaintyWhateverTheThreads) {
+  const auto one = nlohmann::json::parse(run_sifter("check examples/unit40.json --samples 4000 --seed 7 --threads 1 --json -").out);
+  const auto two = nlohmann::json::parse(run_sifter("check examples/unit40.json --samples 4000 --seed 7 --threads 2 --json -").out);
+  EXPECT_EQ(one["sifs"][1]["uncertainty"], two["sifs"][1]["uncertainty"]);
+  EXPECT_EQ(one["sifs"][1]["uncertainty"]["samples"], 4000);
+}
+
+}  // namespace
+}  // namespace sifter
+
+namespace sifter {
+namespace {
+
+// One function limited by each of the three results: the right limit, exit status 1.
+struct LimitedCase {
+  const char* project;
+  const char* sif;
+  const char* kind;
+  const char* subsystem;  // "" when the limit names no subsystem
+};
+
+class LimitedBy : public ::testing::TestWithParam<LimitedCase> {};
+
+TEST_P(LimitedBy, TheLimitIsNamedAndTheExitStatusIsOne) {
+  const auto& c = GetParam();
+  const auto r = run_sifter(std::string("check ") + c.project + " --json -");
+  ASSERT_EQ(r.exit_code, 1) << r.err;
+  const auto j = nlohmann::json::parse(r.out);
+  const nlohmann::json* sif = nullptr;
+  for (const auto& s : j["sifs"])
+    if (s["id"] == c.sif) sif = &s;
+  ASSERT_NE(sif, nullptr);
+  EXPECT_EQ((*sif)["meets_target"], false);
+  bool found = false;
+  for (const auto& l : (*sif)["limits"])
+    if (l["kind"] == c.kind && (std::string(c.subsystem).empty() || l["subsystem"] == c.subsystem)) found = true;
+  EXPECT_TRUE(found) << (*sif)["limits"].dump(2);
+  EXPECT_LT((*sif)["sil_achieved"].get<int>(), (*sif)["sil_required"].get<int>());
+}
+
+INSTANTIATE_TEST_SUITE_P(
+    ThreeResults, LimitedBy,
+    ::testing::Values(LimitedCase{"examples/unit50_shortfall.json", "SIF-501", "probability", ""},
+                      LimitedCase{"tests/data/good/architecture_limited.json", "S-ARCH", "architecture", "valve"},
+                      LimitedCase{"examples/unit60_existing_logic_solver.json", "SIF-601", "systematic",
+                                  "existing shutdown logic solver"}));
+
+TEST(CliLimits, TheExistingLogicSolverExampleSaysWhatWouldLiftIt) {
+  const auto r = run_sifter("check examples/unit60_existing_logic_solver.json");
+  EXPECT_EQ(r.exit_code, 1);
+  EXPECT_NE(r.out.find("SIL  probability SIL 3 | architecture SIL 3 | systematic SIL 2  ->  achieved SIL 2, required SIL 3"),
+            std::string::npos)
+      << r.out;
+  EXPECT_NE(r.out.find("To lift it: use equipment of SC 3 or"), std::string::npos);
+}
+
+}  // namespace
+}  // namespace sifter

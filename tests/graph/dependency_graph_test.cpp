@@ -1,0 +1,88 @@
+// Specification of the dependency graph: who relies on which device, and what is shared.
+#include "sifter/graph/dependency_graph.hpp"
+
+#include <gtest/gtest.h>
+
+#include "support/lopa_fixtures.hpp"
+
+namespace sifter {
+namespace {
+
+using testing::add_sif;
+using testing::cause;
+using testing::layer;
+using testing::sif_layer;
+
+using Tags = std::vector<std::string>;
+
+TEST(DependencyGraph, SifReliesOnItsComponentsAsDevices) {
+  Project p;
+  add_sif(p, "SIF-1", {"XV-1", "PT-1"});
+  DependencyGraph g;
+  const auto v = g.add_sif(p, p.sifs[0]);
+  EXPECT_EQ(g.kind(v), DependencyKind::kSif);
+  EXPECT_EQ(g.devices_of(v), (Tags{"PT-1", "XV-1"}));
+  EXPECT_EQ(g.add_sif(p, p.sifs[0]), v) << "a SIF is one vertex however often it is added";
+}
+
+// Component ids and device tags are one namespace: a layer listing "PT-1" relies on the same
+// device as the SIF whose component is PT-1; a SIF layer relies on the SIF's devices.
+TEST(DependencyGraph, LayersAndCausesMeetTheSifOnCommonDevices) {
+  Project p;
+  add_sif(p, "SIF-1", {"PT-1", "XV-1"});
+  Scenario s;
+  s.id = "S1";
+  s.causes = {cause("C1", 0.1, {"LV-1", "DCS-1"})};
+  s.layers = {layer("IPL-1", LayerKind::kOperatorResponse, 0.1, {"DCS-1", "PT-1"}), sif_layer("SIF-1")};
+  DependencyGraph g;
+  const auto v = g.add_scenario(p, s);
+  ASSERT_EQ(v.causes.size(), 1u);
+  ASSERT_EQ(v.layers.size(), 2u);
+  EXPECT_EQ(g.name(v.causes[0]), "S1/C1");
+  EXPECT_EQ(g.common_devices(v.layers[0], v.causes[0]), (Tags{"DCS-1"}));
+  EXPECT_EQ(g.common_devices(v.layers[0], v.layers[1]), (Tags{"PT-1"}));
+  EXPECT_TRUE(g.common_devices(v.layers[1], v.causes[0]).empty());
+}
+
+// Issue 4 item 6: devices on which several SIFs or scenarios rely, naming them. A scenario that
+// only credits a SIF does not count as a second user of the SIF's devices.
+TEST(DependencyGraph, SharedDevicesNameEverySifAndScenarioRelyingOnThem) {
+  Project p;
+  add_sif(p, "SIF-1", {"PT-1", "XV-1"});
+  add_sif(p, "SIF-2", {"PT-2"});
+  p.sifs[1].subsystems[0].channels[0].components.push_back(1);  // SIF-2 shares XV-1
+  Scenario s1;
+  s1.id = "S1";
+  s1.causes = {cause("C1", 0.1, {"DCS-4"})};
+  s1.layers = {sif_layer("SIF-1")};
+  Scenario s2;
+  s2.id = "S2";
+  s2.causes = {cause("C1", 0.1, {"P-1"})};
+  s2.layers = {layer("BPCS-1", LayerKind::kBpcsFunction, 0.1, {"DCS-4", "PT-2"})};
+  p.scenarios = {s1, s2};
+  const auto shared = shared_devices(p);
+  ASSERT_EQ(shared.size(), 3u);
+  EXPECT_EQ(shared[0].tag, "DCS-4");
+  EXPECT_EQ(shared[0].users, (Tags{"S1", "S2"}));
+  EXPECT_EQ(shared[1].tag, "PT-2");
+  EXPECT_EQ(shared[1].users, (Tags{"SIF-2", "S2"}));
+  EXPECT_EQ(shared[2].tag, "XV-1");
+  EXPECT_EQ(shared[2].users, (Tags{"SIF-1", "SIF-2"}));
+}
+
+TEST(DependencyGraph, WholeProjectGraphHoldsEveryParty) {
+  Project p;
+  add_sif(p, "SIF-1", {"PT-1"});
+  Scenario s;
+  s.id = "S1";
+  s.causes = {cause("C1", 0.1, {"PT-1"})};
+  s.layers = {sif_layer("SIF-1")};
+  p.scenarios = {s};
+  const DependencyGraph g(p);
+  // device PT-1, component PT-1, SIF-1, scenario S1, cause, layer
+  EXPECT_EQ(g.vertex_count(), 6u);
+  EXPECT_EQ(g.shared_devices().size(), 1u);
+}
+
+}  // namespace
+}  // namespace sifter

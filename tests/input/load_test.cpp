@@ -1,0 +1,175 @@
+// Specification of the project loader: units, strict keys, libraries and every error for people.
+#include "sifter/input/load.hpp"
+
+#include <gtest/gtest.h>
+
+#include "support/catalogue_support.hpp"
+
+#include <cmath>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+namespace sifter {
+namespace {
+
+namespace fs = std::filesystem;
+constexpr double kRelTol = 1e-12;
+
+// Loads inline JSON as if it were a file in examples/, so that library paths resolve.
+LoadedProject load_inline(const std::string& text) {
+  return load_project_text(text, "inline.json", std::string(SIFTER_SOURCE_DIR) + "/examples");
+}
+
+std::string error_of(const std::string& text) {
+  try {
+    load_inline(text);
+  } catch (const InputError& e) {
+    return e.what();
+  }
+  return "no error";
+}
+
+// --- The catalogue of malformed projects: tests/data/bad/NAME.json with NAME.expected -------
+
+class BadInput : public ::testing::TestWithParam<std::string> {};
+
+// Each file's message is checked word for word: place, expectation, finding and hint.
+TEST_P(BadInput, IsRejectedWithItsExactMessage) {
+  const fs::path dir = fs::path(SIFTER_TEST_DATA) / "bad";
+  const std::string message = testing::catalogue_message(dir, GetParam());
+  EXPECT_EQ(message, testing::catalogue_expected(dir, GetParam(), message));
+}
+
+std::vector<std::string> catalogue() { return testing::catalogue_names(fs::path(SIFTER_TEST_DATA) / "bad"); }
+
+INSTANTIATE_TEST_SUITE_P(Catalogue, BadInput, ::testing::ValuesIn(catalogue()),
+                         [](const auto& param_info) { return param_info.param; });
+
+TEST(BadInputCatalogue, HoldsAtLeastFortyDistinctProjects) { EXPECT_GE(catalogue().size(), 40u); }
+
+// --- Good input --------------------------------------------------------------------------
+
+constexpr const char* kMinimal = R"({
+  "format": "sifter-project/1",
+  "defaults": { "proof_test_interval": "1 yr", "mttr": "8 h" },
+  "libraries": ["../data/components/illustrative.json"],
+  "components": [
+    { "id": "LT-1", "model": "level-transmitter-radar" },
+    { "id": "LT-2", "model": "level-transmitter-radar", "lambda_du": "120 FIT" },
+    { "id": "XV-1", "lambda_d": "0.015/yr", "dc": 0.2, "lambda_s": "0.01/yr" }
+  ],
+  "sifs": [ { "id": "S1", "target": { "sil": 1 }, "subsystems": [
+    { "name": "sensing", "role": "sensor", "vote": "1oo1", "channels": ["LT-1"] },
+    { "name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"], "mrt": "3 d" } ] } ]
+})";
+
+TEST(Load, LibraryModelsGiveTheirFieldsAndComponentsOverrideThem) {
+  const auto p = load_inline(kMinimal).project;
+  ASSERT_EQ(p.components.size(), 3u);
+  // level-transmitter-radar in data/components/illustrative.json: 90 FIT undetected, 560 FIT detected.
+  EXPECT_NEAR(p.components[0].rates.lambda_du.per_hour, 90e-9, 90e-9 * kRelTol);
+  EXPECT_NEAR(p.components[0].rates.lambda_dd.per_hour, 560e-9, 560e-9 * kRelTol);
+  EXPECT_NEAR(p.components[1].rates.lambda_du.per_hour, 120e-9, 120e-9 * kRelTol);
+  EXPECT_NEAR(p.components[1].rates.lambda_dd.per_hour, 560e-9, 560e-9 * kRelTol);
+  EXPECT_EQ(p.components[0].element_type, ElementType::kB);
+  EXPECT_EQ(p.components[0].systematic_capability, 3);
+}
+
+TEST(Load, LambdaDWithDcSplitsIntoDetectedAndUndetected) {
+  const auto p = load_inline(kMinimal).project;
+  const auto& xv = p.components[2].rates;
+  EXPECT_NEAR(xv.lambda_dd.per_hour, 0.2 * 0.015 / 8760, 1e-20);
+  EXPECT_NEAR(xv.lambda_du.per_hour, 0.8 * 0.015 / 8760, 1e-20);
+  EXPECT_NEAR(xv.lambda_su.per_hour, 0.01 / 8760, 1e-20);  // lambda_s is taken as undetected
+}
+
+TEST(Load, DefaultsFillWhatSubsystemsLeaveOutAndSayWhich) {
+  const auto p = load_inline(kMinimal).project;
+  const auto& sensing = p.sifs[0].subsystems[0];
+  EXPECT_DOUBLE_EQ(sensing.proof_test_interval.hours, 8760.0);
+  EXPECT_TRUE(sensing.interval_defaulted);
+  EXPECT_TRUE(sensing.mrt_defaulted);
+  EXPECT_DOUBLE_EQ(sensing.mrt.hours, 8.0);
+  const auto& valve = p.sifs[0].subsystems[1];
+  EXPECT_DOUBLE_EQ(valve.mrt.hours, 72.0);
+  EXPECT_FALSE(valve.mrt_defaulted);
+  EXPECT_DOUBLE_EQ(p.defaults.mission_time.hours, 20 * 8760.0);  // 20 yr when not given
+}
+
+TEST(Load, ChannelsResolveToComponentIndices) {
+  const auto p = load_inline(kMinimal).project;
+  ASSERT_EQ(p.sifs[0].subsystems[1].channels.size(), 1u);
+  EXPECT_EQ(p.sifs[0].subsystems[1].channels[0].components, std::vector<std::size_t>{2});
+}
+
+TEST(Load, ImplausibleValuesAreWarningsNotErrors) {
+  std::string text = kMinimal;
+  text.replace(text.find("\"120 FIT\""), 9, "\"0.12/h\"");
+  const auto loaded = load_inline(text);
+  ASSERT_EQ(loaded.warnings.size(), 1u);
+  EXPECT_EQ(loaded.warnings[0].where, "/components/1");
+  EXPECT_EQ(loaded.warnings[0].message,
+            "lambda_du = 1.20e-01/h lies outside the usual 1e-10..1e-3 per hour; check the unit");
+}
+
+TEST(Load, EveryProblemIsReportedAtOnceNotOnlyTheFirst) {
+  std::string text = kMinimal;
+  text.replace(text.find("\"1oo1\""), 6, "\"1o1\"");
+  text.replace(text.find("\"3 d\""), 5, "\"3 days later\"");
+  const std::string message = error_of(text);
+  EXPECT_NE(message.find("/sifs/0/subsystems/0/vote"), std::string::npos);
+  EXPECT_NE(message.find("/sifs/0/subsystems/1/mrt"), std::string::npos);
+  EXPECT_NE(message.find("2 problems in the input"), std::string::npos);
+}
+
+TEST(Load, ALibraryThatIncludesItselfIsACycleNamedByItsPath) {
+  const fs::path dir = fs::temp_directory_path() / "sifter_load_test_cycle";
+  fs::create_directories(dir);
+  std::ofstream(dir / "a.json") << R"({"format": "sifter-library/1", "libraries": ["b.json"], "models": []})";
+  std::ofstream(dir / "b.json") << R"({"format": "sifter-library/1", "libraries": ["a.json"], "models": []})";
+  const std::string text = R"({"format": "sifter-project/1", "libraries": ["a.json"], "sifs": []})";
+  std::string message;
+  try {
+    load_project_text(text, "p.json", dir.string());
+  } catch (const InputError& e) {
+    message = e.what();
+  }
+  EXPECT_NE(message.find("found the cycle p.json -> a.json -> b.json -> a.json"), std::string::npos) << message;
+  fs::remove_all(dir);
+}
+
+TEST(Load, ALibraryPathThatIsADirectoryIsRefused) {
+  const std::string text = R"({"format": "sifter-project/1", "libraries": ["."], "sifs": []})";
+  EXPECT_NE(error_of(text).find("expected a file, found a directory"), std::string::npos);
+}
+
+TEST(Load, HostileNumbersAndStringsAreRejectedCleanly) {
+  EXPECT_NE(error_of(R"({"format": "sifter-project/1", "defaults": {"mission_time": "1e400 h"}})").find("beyond the range of finite values"),
+            std::string::npos);
+  EXPECT_NE(error_of(R"({"format": "sifter-project/1", "components": [{"id": "A", "lambda_du": "NaN/h"}]})")
+                .find("/components/0/lambda_du"),
+            std::string::npos);
+  const std::string big(10 * 1024 * 1024, 'x');
+  EXPECT_NE(error_of("{\"format\": \"sifter-project/1\", \"title\": 5, \"note\": \"" + big + "\"}").find("/title"),
+            std::string::npos);
+}
+
+TEST(Load, ANumberBeyondDoubleRangeIsNotReadAsInfinity) {
+  EXPECT_NE(error_of(R"({"format": "sifter-project/1", "components": [{"id": "A", "systematic_capability": 1e400}]})")
+                .find("inline.json:1:84: expected numbers within the range of finite values, found the number 1e400"),
+            std::string::npos);
+}
+
+TEST(Load, AByteOrderMarkIsRefusedWithAHint) {
+  EXPECT_NE(error_of("\xEF\xBB\xBF{}").find("save the file as UTF-8 without BOM"), std::string::npos);
+}
+
+TEST(Load, InvalidUtf8IsRefusedWithItsPlace) {
+  const std::string message = error_of("{\"format\": \"sifter-project/1\", \"title\": \"\xFF\xFE\"}");
+  EXPECT_NE(message.find("inline.json:1:"), std::string::npos) << message;
+  EXPECT_NE(message.find("expected valid JSON"), std::string::npos) << message;
+}
+
+}  // namespace
+}  // namespace sifter

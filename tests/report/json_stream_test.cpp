@@ -1,0 +1,86 @@
+// Specification of the streamed results JSON: the same values as the tree, compact or indented,
+// numbers in shortest round-trip form, and no non-finite number ever written.
+#include "sifter/report/json_stream.hpp"
+
+#include <gtest/gtest.h>
+
+#include <limits>
+#include <nlohmann/json.hpp>
+#include <sstream>
+
+#include "sifter/input/load.hpp"
+#include "sifter/report/json_results.hpp"
+#include "sifter/analysis/verify.hpp"
+
+namespace sifter {
+namespace {
+
+using report::JsonLayout;
+using report::JsonStream;
+
+std::string written(JsonLayout layout, const std::function<void(JsonStream&)>& body) {
+  std::ostringstream out;
+  {
+    JsonStream w(out, layout);
+    body(w);
+  }
+  return out.str();
+}
+
+TEST(JsonStream, CompactLayoutHasNoSpacesOrLineBreaks) {
+  const auto text = written(JsonLayout::kCompact, [](JsonStream& w) {
+    w.begin_object().key("a").value(1).key("b").begin_array().value("x").null().value(true).end_array();
+    w.key("c").begin_object().end_object().end_object();
+  });
+  EXPECT_EQ(text, R"({"a":1,"b":["x",null,true],"c":{}})");
+}
+
+TEST(JsonStream, PrettyLayoutMatchesTheTreeDumpedWithTwoSpaces) {
+  const auto text = written(JsonLayout::kPretty, [](JsonStream& w) {
+    w.begin_object().key("a").value(1).key("b").begin_array().value("x").number(0.5).end_array();
+    w.key("c").begin_array().end_array().end_object();
+  });
+  EXPECT_EQ(text, nlohmann::json::parse(text).dump(2));
+}
+
+TEST(JsonStream, NumbersAreShortestRoundTripAndStayFloatingPoint) {
+  for (double v : {0.1, 1e-5, 2.0 / 3.0, 1234.5678e-12, 100.0, 0.0, -3.25e300}) {
+    const auto text = written(JsonLayout::kCompact, [v](JsonStream& w) { w.number(v); });
+    const auto parsed = nlohmann::json::parse(text);
+    EXPECT_TRUE(parsed.is_number_float()) << text;
+    EXPECT_EQ(parsed.get<double>(), v) << text;  // round trip: bit for bit
+  }
+  EXPECT_EQ(written(JsonLayout::kCompact, [](JsonStream& w) { w.number(0.1); }), "0.1");
+}
+
+TEST(JsonStream, TextsAreEscapedAsJsonRequires) {
+  const std::string nasty = "quote \" backslash \\ tab \t newline \n bell \x07 degree \xC2\xB0";
+  const auto text = written(JsonLayout::kCompact, [&](JsonStream& w) { w.value(nasty); });
+  EXPECT_EQ(nlohmann::json::parse(text).get<std::string>(), nasty);
+}
+
+TEST(JsonStream, NonFiniteNumberIsRefusedAsAnInternalError) {
+  for (double bad : {std::numeric_limits<double>::quiet_NaN(), std::numeric_limits<double>::infinity()}) {
+    try {
+      written(JsonLayout::kCompact, [bad](JsonStream& w) { w.begin_array().number(bad, "test value").end_array(); });
+      FAIL() << "a non-finite number was written";
+    } catch (const Error& e) {
+      EXPECT_EQ(e.exit_code(), ExitCode::kInternal);
+    }
+  }
+}
+
+// The results of an example, streamed compact and indented, hold the same keys and values as
+// the tree of results_json (the order of keys aside).
+TEST(JsonStream, StreamedResultsOfAnExampleEqualTheTree) {
+  const auto result = verify_project(load_project_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40.json"));
+  const auto tree = report::results_json(result);
+  for (auto layout : {JsonLayout::kCompact, JsonLayout::kPretty}) {
+    std::ostringstream out;
+    report::write_results_json(result, out, layout);
+    EXPECT_EQ(nlohmann::json::parse(out.str()), tree);
+  }
+}
+
+}  // namespace
+}  // namespace sifter
