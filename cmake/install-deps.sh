@@ -9,7 +9,7 @@ program="cmake g++ ninja-build pkg-config libboost-dev libboost-graph-dev nlohma
 libeigen3-dev libxlsxwriter-dev"
 tests="libgtest-dev libgmock-dev libbenchmark-dev python3 python3-jsonschema python3-openpyxl chromium
 fonts-dejavu-core python3-numpy time python3-icalendar"
-ci="clang-14 libclang-rt-14-dev"
+ci="clang-14 libclang-rt-14-dev clang-format-14 clang-tidy-14 clang-format clang-tidy"
 packages="$program"
 for group in "$@"; do
   case "$group" in

@@ -5,6 +5,7 @@
 
 #include <cmath>
 #include <string>
+#include "support/tolerance.hpp"
 
 namespace sifter {
 namespace {
@@ -225,7 +226,6 @@ TEST(AnnexB, TermsAddUpToThePfdAvg) {
 
 #include "sifter/input/load.hpp"
 #include "sifter/analysis/verify.hpp"
-#include "support/tolerance.hpp"
 
 namespace sifter {
 namespace {

@@ -22,7 +22,4 @@ struct ServiceResult;
 /// `project` (its SIFs in the same order).
 ReportData build_report_data(const Project& project, const ProjectResult& result, const ReportOptions& options);
 
-/// The results (of probability, architecture and systematic) whose SIL equals the achieved one.
-std::vector<std::string> limiting_results(const SifResult& sif);
-
 }  // namespace sifter

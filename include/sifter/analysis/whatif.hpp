@@ -39,9 +39,6 @@ class WhatIf {
 /// subsystem gives no figure for that mode.
 std::optional<double> sif_measure(const SifResult& result);
 
-/// The governing requirement of a verified SIF; empty when it has no target and no scenario.
-std::optional<Requirement> governing_requirement(const SifResult& result);
-
 // ---- Longest proof-test interval -------------------------------------------------------
 
 /// Solves for the longest proof-test interval of one subsystem (or of every subsystem with

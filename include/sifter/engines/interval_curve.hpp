@@ -10,13 +10,6 @@
 
 namespace sifter {
 
-/// The range of factors the sweep draws (multiples of every present proof-test interval).
-inline constexpr double kSweepMinFactor = 1.0 / 16.0;
-inline constexpr double kSweepMaxFactor = 16.0;
-/// The range in which the longest allowed factor is searched.
-inline constexpr double kSearchMinFactor = 1.0 / 1024.0;
-inline constexpr double kSearchMaxFactor = 1024.0;
-
 /// The SIF's PFDavg with every subsystem's proof-test interval multiplied by `factor` (partial
 /// stroke intervals and the mission time unchanged), by re-running verify_sif on a copy of the
 /// SIF in low demand.

@@ -89,4 +89,14 @@ struct ReportOptions {
   bool compact = false;             ///< register mode (ReportData::compact); no curves computed
 };
 
+/// The range of factors the sweep draws (multiples of every present proof-test interval).
+inline constexpr double kSweepMinFactor = 1.0 / 16.0;
+
+inline constexpr double kSweepMaxFactor = 16.0;
+
+/// The range in which the longest allowed factor is searched.
+inline constexpr double kSearchMinFactor = 1.0 / 1024.0;
+
+inline constexpr double kSearchMaxFactor = 1024.0;
+
 }  // namespace sifter

@@ -179,4 +179,10 @@ struct Requirement {
 inline constexpr const char* kSpuriousTripSource =
     "Gruhn & Cheddie, Safety Instrumented Systems, 2nd ed., 8.9 (from memory)";
 
+/// The results (of probability, architecture and systematic) whose SIL equals the achieved one.
+std::vector<std::string> limiting_results(const SifResult& sif);
+
+/// The governing requirement of a verified SIF; empty when it has no target and no scenario.
+std::optional<Requirement> governing_requirement(const SifResult& result);
+
 }  // namespace sifter
