@@ -8,7 +8,7 @@ set -eu
 program="cmake g++ ninja-build pkg-config libboost-dev libboost-graph-dev nlohmann-json3-dev libcli11-dev
 libeigen3-dev libxlsxwriter-dev"
 tests="libgtest-dev libgmock-dev libbenchmark-dev python3 python3-jsonschema python3-openpyxl chromium
-fonts-dejavu-core python3-numpy time python3-icalendar"
+fonts-dejavu-core python3-numpy time python3-icalendar poppler-utils"
 ci="clang-14 libclang-rt-14-dev clang-format-14 clang-tidy-14 clang-format clang-tidy"
 packages="$program"
 for group in "$@"; do

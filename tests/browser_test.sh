@@ -48,6 +48,15 @@ python3 "$here/svg_text_check.py" timeout 120 chromium --headless --no-sandbox -
   --virtual-time-budget=5000 -- "$work/report.html" "$work" || { rm -rf "$profile"; exit 1; }
 rm -rf "$profile"
 
+# The summary's tables fit their column on screen and in print (the report only: the SRS has no summary).
+if [ "$document" = report ]; then
+  profile=$(mktemp -d)
+  python3 "$here/table_width_check.py" timeout 120 chromium --headless --no-sandbox --disable-gpu --no-first-run \
+    --disable-background-networking --disable-component-update --disable-sync --hide-scrollbars \
+    --user-data-dir="$profile" -- "$work/report.html" "$work" || { rm -rf "$profile"; exit 1; }
+  rm -rf "$profile"
+fi
+
 render --screenshot="$work/report.png" --window-size=1280,4000
 python3 "$here/png_check.py" "$work/report.png" 1280 4000 4000
 

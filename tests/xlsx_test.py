@@ -164,6 +164,23 @@ def check_project(sifter, project, outdir):
     if not results["scenarios"] and sheet_rows:
         fail(name, "worksheet rows without scenarios")
 
+    # The requirement checks, row for row as check --json gives them (value and limit in the unit the
+    # check's name ends with).
+    checks = rows_of(book["Requirement checks"], 1)
+    expected = [(s["id"], c) for s in results["sifs"] for c in s.get("requirement_checks", [])]
+    if len(checks) != len(expected):
+        fail(name, f"{len(checks)} requirement-check rows for {len(expected)} checks in the JSON")
+    col = {h: i for i, h in enumerate(HEADERS["Requirement checks"])}
+    for row, (sif_id, c) in zip(checks, expected):
+        where = f"{name} {sif_id} {c['check']}"
+        if (row[col["SIF"]], row[col["check"]], row[col["message"]]) != (sif_id, c["check"], c["message"]):
+            fail(where, f"requirement-check row {row}")
+        if row[col["ok"]] is not c["ok"]:
+            fail(where, f"ok {row[col['ok']]!r}, JSON {c['ok']!r}")
+        same_number(where + " value", row[col["value"]], c["value"])
+        same_number(where + " limit", row[col["limit"]], c["limit"])
+    return len(expected)
+
 
 def check_hostile(sifter, source, outdir):
     project = json.loads((source / "examples" / "unit40.json").read_text())
@@ -199,13 +216,16 @@ def main():
     projects = sorted((source / "examples").glob("*.json")) + sorted((source / "tests" / "data" / "good").glob("*.json"))
     with tempfile.TemporaryDirectory() as tmp:
         outdir = pathlib.Path(tmp)
+        checks = 0
         for project in projects:
-            check_project(sifter, project, outdir)
+            checks += check_project(sifter, project, outdir) or 0
+        if checks == 0:  # the examples state requirements: an empty sheet everywhere is a defect
+            fail("requirement checks", "no project gave a requirement-check row to compare")
         check_nothing_written_on_bad_input(sifter, source, outdir)
         check_hostile(sifter, source, outdir)
     for f in failures:
         print("FAIL", f)
-    print(f"xlsx_test: {len(projects)} projects, {len(failures)} failures")
+    print(f"xlsx_test: {len(projects)} projects, {checks} requirement checks compared, {len(failures)} failures")
     return 1 if failures else 0
 
 

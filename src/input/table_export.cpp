@@ -91,7 +91,8 @@ class TableWriter {
   void fill(std::vector<std::string>& row, const Json& object, const std::vector<std::string>& only = {}) const {
     for (const auto& c : layout_.columns) {
       if (c.path.empty() || (!only.empty() && std::find(only.begin(), only.end(), c.header) == only.end())) continue;
-      if (const Json* v = at_path(object, c.path)) set(row, c.header, cell_of(c.kind, *v));
+      // An object is never one cell: a structured data_source fills its own columns instead.
+      if (const Json* v = at_path(object, c.path); v && !v->is_object()) set(row, c.header, cell_of(c.kind, *v));
     }
   }
   void add(const std::vector<std::string>& row) { text_ += csv_line(row); }
@@ -139,6 +140,14 @@ void export_project(const Json& root, const std::string& project_path, const std
     }
   }
   out.push_back(t.done());
+  TableWriter revisions(detail::table_layout("revisions.csv"));
+  if (const Json* history = at_path(root, "document/history"); history && history->is_array())
+    for (const auto& h : *history) {
+      auto row = revisions.blank();
+      revisions.fill(row, h);
+      revisions.add(row);
+    }
+  out.push_back(revisions.done());
 }
 
 void export_sections(const Json& root, std::vector<TableText>& out) {
@@ -161,10 +170,17 @@ void export_sections(const Json& root, std::vector<TableText>& out) {
       }
   out.push_back(crit.done());
   TableWriter sifs(detail::table_layout("sifs.csv")), subs(detail::table_layout("subsystems.csv"));
+  TableWriter reqs(detail::table_layout("requirements.csv"));
   for (const auto& s : items(root, "sifs")) {
     auto row = sifs.blank();
     sifs.fill(row, s);
     sifs.add(row);
+    if (s.contains("requirements")) {
+      auto r = reqs.blank();
+      reqs.set(r, "sif", text_of(s.value("id", Json(""))));
+      reqs.fill(r, s);
+      reqs.add(r);
+    }
     for (const auto& sub : items(s, "subsystems")) {
       auto r = subs.blank();
       subs.set(r, "sif", text_of(s.value("id", Json(""))));
@@ -173,6 +189,7 @@ void export_sections(const Json& root, std::vector<TableText>& out) {
     }
   }
   out.push_back(sifs.done());
+  out.push_back(reqs.done());
   out.push_back(subs.done());
 }
 

@@ -72,9 +72,11 @@ class Importer {
     OJson root = OJson::object();
     root["format"] = kProjectFormat;
     read_project(root);
+    read_revisions(root);
     read_components(root);
     read_criteria(root);
     read_sifs(root);
+    read_requirements(root);
     read_subsystems(root);
     read_scenarios(root);
     read_layers(root);
@@ -318,9 +320,27 @@ class Importer {
     });
   }
 
+  // document/history: one row per revision, in the order of the rows.
+  void read_revisions(OJson& root) {
+    for_rows("revisions.csv", [&](const Table& t, int row) {
+      OJson& history = root["document"]["history"];
+      history.push_back(row_object(t, row, "/document/history/" + std::to_string(history.size())));
+    });
+  }
+
   void read_components(OJson& root) {
+    const std::vector<std::string> structured = {"data_source_kind", "data_source_document", "data_source_revision",
+                                                 "data_source_date", "data_source_note"};
     for_rows("components.csv", [&](const Table& t, int row) {
       const std::string p = "/components/" + std::to_string(root["components"].size());
+      if (!cell(t, row, "data_source").empty())
+        for (const auto& h : structured)
+          if (!cell(t, row, h).empty()) {
+            problem(place(t, row, h), "an empty cell where the data_source cell holds the source as text",
+                    "\"" + cell(t, row, h) + "\"",
+                    "state the source either as text in data_source or in the data_source_* columns, not both");
+            return;
+          }
       root["components"].push_back(row_object(t, row, p));
     });
   }
@@ -375,6 +395,29 @@ class Importer {
       const std::string p = "/sifs/" + std::to_string(sif_index_[cell(t, row, "sif")]) + "/subsystems/" +
                             std::to_string(sif["subsystems"].size());
       sif["subsystems"].push_back(row_object(t, row, p));
+    });
+  }
+
+  // requirements.csv: one row per SIF that states requirements, into the SIF's "requirements".
+  void read_requirements(OJson& root) {
+    std::set<std::string> seen;
+    for_rows("requirements.csv", [&](const Table& t, int row) {
+      if (!refers(t, row, "sif", sif_index_, "the id of a SIF in sifs.csv")) return;
+      const std::string id = cell(t, row, "sif");
+      if (!seen.insert(id).second) {
+        problem(place(t, row, "sif"), "one row per SIF", "\"" + id + "\" a second time",
+                "write all of a SIF's requirements on one row");
+        return;
+      }
+      const std::string p = "/sifs/" + std::to_string(sif_index_[id]);
+      OJson& sif = root["sifs"][sif_index_[id]];
+      places_[p + "/requirements"] = place(t, row, "sif");
+      sif["requirements"] = OJson::object();
+      for (const auto& c : t.layout->columns) {
+        if (c.path.empty()) continue;
+        const std::string text = cell(t, row, c.header);
+        put(sif, p, c.path, text.empty() ? OJson() : value_of(c.kind, text), place(t, row, c.header));
+      }
     });
   }
 

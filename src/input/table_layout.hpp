@@ -30,8 +30,8 @@ struct TableLayout {
   [[nodiscard]] int index(const std::string& header) const;  ///< -1 when absent
 };
 
-/// The tables in the order they are read: project, components, risk_criteria, sifs,
-/// subsystems, scenarios, layers.
+/// The tables in the order they are read: project, revisions, components, risk_criteria, sifs,
+/// requirements, subsystems, scenarios, layers.
 const std::vector<TableLayout>& table_layouts();
 const TableLayout& table_layout(const std::string& file);
 

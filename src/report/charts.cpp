@@ -101,10 +101,16 @@ void draw_level(Canvas& c, const Plot& p, double value, const std::string& cls) 
 }  // namespace
 
 std::string pfd_curve_svg(const SifResult& sif, const PfdPlot& curve, const std::optional<double>& required_pfd) {
-  std::vector<double> values = curve.pfd_sif;
-  if (required_pfd) values.push_back(*required_pfd);
-  if (sif.uncertainty) values.push_back(sif.uncertainty->p95);
-  const auto [lo, hi] = svg::log_range(values, 5);
+  // Every line drawn sets the range; the levels (average, requirement, band) are never cut off.
+  std::vector<double> values = curve.pfd_sif, keep;
+  for (const auto& sub : curve.pfd_subsystems) values.insert(values.end(), sub.begin(), sub.end());
+  if (required_pfd) keep.push_back(*required_pfd);
+  if (sif.pfd_avg) keep.push_back(*sif.pfd_avg);
+  if (sif.uncertainty) {
+    keep.push_back(sif.uncertainty->p95);
+    keep.push_back(sif.uncertainty->p05);
+  }
+  const auto [lo, hi] = svg::log_range(values, 5, keep);
   const double mission_yr = curve.t_hours.empty() ? 1.0 : curve.t_hours.back() / kHoursPerYear;
   const std::size_t entries = curve.pfd_subsystems.size() + 3 + (sif.uncertainty ? 1 : 0);
   const double plot_h = 250.0, top = 14.0, left = 80.0;
@@ -137,9 +143,9 @@ std::string pfd_curve_svg(const SifResult& sif, const PfdPlot& curve, const std:
 }
 
 std::string interval_svg(const SifResult& sif, const IntervalSweep& sweep) {
-  std::vector<double> values{sweep.required_pfd};
+  std::vector<double> values;
   for (const auto& pt : sweep.points) values.push_back(pt.pfd_avg);
-  const auto [lo, hi] = svg::log_range(values, 6);
+  const auto [lo, hi] = svg::log_range(values, 6, {sweep.required_pfd});
   const double left = 80.0, top = 14.0, plot_h = 240.0;
   Canvas c(kWidth, top + plot_h + 86.0);
   Plot p{left, top, kWidth - left - 24.0, plot_h, Scale(kSweepMinFactor, kSweepMaxFactor, left, kWidth - 24.0, true),
@@ -186,8 +192,7 @@ std::string sensitivity_svg(const SifResult& sif, const std::vector<SensitivityR
     values.push_back(r.low_pfd);
     values.push_back(r.high_pfd);
   }
-  if (sif.pfd_avg) values.push_back(*sif.pfd_avg);
-  const auto [lo, hi] = svg::log_range(values, 6);
+  const auto [lo, hi] = svg::log_range(values, 6, sif.pfd_avg ? std::vector<double>{*sif.pfd_avg} : std::vector<double>{});
   const double left = label_width(names), top = 12.0, row = 26.0;
   const double plot_h = row * static_cast<double>(rows.size());
   Canvas c(kWidth, top + plot_h + 56.0);

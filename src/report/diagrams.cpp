@@ -243,12 +243,12 @@ void draw_groups(Canvas& c, const svg::Plot& p, const Staircase& st, double colu
 }
 
 std::pair<double, double> stair_range(const Staircase& st) {
-  std::vector<double> values;
+  std::vector<double> values, targets;
   for (const auto& stair : st.stairs)
     for (const auto& pt : stair.points) values.push_back(pt.second);
   for (const auto& g : st.groups)
-    if (g.target_per_yr) values.push_back(*g.target_per_yr);
-  return svg::log_range(values, 12);  // a staircase shows every step, however far down
+    if (g.target_per_yr) targets.push_back(*g.target_per_yr);
+  return svg::log_range(values, 12, targets);  // a staircase shows every step, however far down
 }
 
 }  // namespace

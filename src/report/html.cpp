@@ -160,8 +160,10 @@ std::string sif_section(const SifResult& s, const SifReportData& d, std::size_t 
     out += list_html(items, "limits");
   }
   out += table_html(subsystem_table(s)) + sif_requirements_html(s, d.deliverable);
+  // The register (compact) leaves out the drawings whose numbers the tables above already hold.
+  if (d.compact) return out + "</section>\n";
   out += figure_html(contribution_svg(s), "Share of each subsystem in the SIF's figure, with its own value.");
-  if (!d.compact) out += probability_figures(s, d) + further_figures(s, d);
+  out += probability_figures(s, d) + further_figures(s, d);
   return out + "</section>\n";
 }
 
@@ -216,7 +218,8 @@ std::string render_html(const ProjectResult& r, const ReportData& d) {
   std::string out = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";
   out += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
   out += "<title>" + esc(r.title.empty() ? r.file : r.title) + ": sifter report</title>\n";
-  out += "<style>" + std::string(html_style()) + deliverable_css() + "</style>\n</head>\n<body" +
+  out += "<style>" + std::string(html_style()) + deliverable_css() +
+         print_footer_css(d.deliverable, "SIL verification report") + "</style>\n</head>\n<body" +
          (d.compact ? " class=\"compact\"" : "") + ">\n";
   out += cover(r, d) + summary(r, d);
   for (std::size_t i = 0; i < r.sifs.size(); ++i)
@@ -227,7 +230,7 @@ std::string render_html(const ProjectResult& r, const ReportData& d) {
   out += options_sections_html(d.options);
   out += closing(r, d);
   out += "<footer>Written by sifter " + esc(d.tool_version) + " on " + esc(d.date) + " from " + esc(r.file) +
-         ". " + esc(kCaution) + "</footer>\n" + print_footer_html(d.deliverable, "SIL verification report") + "</body>\n</html>\n";
+         ". " + esc(kCaution) + "</footer>\n</body>\n</html>\n";
   return out;
 }
 

@@ -1,6 +1,7 @@
 // The deliverable's HTML parts shared by the report and the SRS.
 #include "sifter/report/html_deliverable.hpp"
 
+#include <cstdio>
 #include <cstdlib>
 
 #include "sifter/report/svg.hpp"
@@ -64,14 +65,25 @@ const char* deliverable_css() {
 .doc-control .doc-id { font-size: 12pt; font-weight: 700; margin: 0 0 1mm; }
 table.signatures td { height: 11mm; }
 td.bad.open, .open-items li { color: var(--bad); }
-.doc-footer { display: none; }
 table.wide { font-size: 8pt; }
 table.wide td { overflow-wrap: anywhere; }
 @media print {
-  .doc-footer { display: block; position: fixed; bottom: -10mm; left: 0; right: 0; font-size: 8pt;
-                color: var(--muted); border-top: 0.5px solid var(--rule); padding-top: 1mm; background: #ffffff; }
   section.components { break-before: page; }
   body.compact section.sif, body.compact section.scenario { break-before: auto; }
+  /* The register: smaller type, tighter spacing, smaller drawings, tables that may continue on
+     the next page (a row never splits), so that a SIF takes well under two A4 pages. */
+  body.compact { font-size: 8.5pt; line-height: 1.3; }
+  body.compact table, body.compact .caution { break-inside: auto; }
+  body.compact tr { break-inside: avoid; }
+  body.compact svg.fig { max-height: 50mm; }
+  body.compact h2 { font-size: 12.5pt; }
+  body.compact h3 { margin: 3mm 0 1mm; font-size: 10pt; }
+  body.compact section { margin-top: 5mm; }
+  body.compact table { margin: 1mm 0 2.5mm; font-size: 8pt; }
+  body.compact th, body.compact td { padding-top: 0.5mm; padding-bottom: 0.5mm; }
+  body.compact figure { margin: 1.5mm 0 2.5mm; }
+  body.compact .verdict { font-size: 10.5pt; margin: 1mm 0; padding: 1mm 2.5mm; }
+  body.compact ul li { margin-bottom: 0.3mm; }
 }
 )css";
 }
@@ -90,13 +102,33 @@ std::string document_control_html(const DeliverableData& data) {
   return out + "</div>\n";
 }
 
-std::string print_footer_html(const DeliverableData& data, const std::string& kind) {
+std::string css_string(const std::string& text) {
+  std::string out;
+  for (const char ch : text) {
+    const auto c = static_cast<unsigned char>(ch);
+    if (c == '"' || c == '\\' || c == '<' || c == '>' || c == '&' || c < 0x20 || c == 0x7f) {
+      char buf[8];
+      std::snprintf(buf, sizeof buf, "\\%X ", static_cast<unsigned>(c));  // a hex escape ends at its space
+      out += buf;
+    } else {
+      out += ch;
+    }
+  }
+  return out;
+}
+
+// Chromium prints the page-margin boxes of CSS Paged Media on every page (a position: fixed
+// element is not placed reliably on every printed page: it went missing on long prints).
+std::string print_footer_css(const DeliverableData& data, const std::string& kind) {
   std::string text = kind;
   if (data.document)
     text += " · document " + data.document->number + " revision " + data.document->revision;
   else
     text += " · no document number stated";
-  return "<div class=\"doc-footer\">" + esc(text) + "</div>\n";
+  const std::string box = "font-family: sans-serif; font-size: 7.5pt; color: #4d4d4d; vertical-align: top; "
+                          "padding-top: 2.5mm;";
+  return "\n@page { @bottom-left { content: \"" + css_string(text) + "\"; " + box +
+         " }\n  @bottom-right { content: \"page \" counter(page) \" of \" counter(pages); " + box + " } }\n";
 }
 
 std::string component_data_html(const DeliverableData& data) {

@@ -33,6 +33,13 @@ th { text-align: left; vertical-align: bottom; border-bottom: 2px solid var(--in
      font-weight: 700; }
 td { vertical-align: top; border-bottom: 1px solid var(--hair); padding: 0.9mm 1.6mm; }
 th.num { text-align: right; }
+#summary table { font-size: 8.5pt; }
+#summary th, #summary td { padding-left: 1.2mm; padding-right: 1.2mm; }
+#summary td { overflow-wrap: anywhere; }
+#summary td.key { min-width: 7em; }
+#summary td:nth-child(2) { min-width: 7em; }
+#summary td:nth-child(10) { min-width: 10em; }
+#summary td.key, #summary td.good, #summary td.bad, #summary td.neutral { white-space: normal; }
 td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
 td.key, td.good, td.bad, td.neutral { white-space: nowrap; }
 td.good, .verdict.good { color: var(--good); font-weight: 700; }
@@ -90,6 +97,8 @@ svg .mark-bad { fill: var(--bad); font-size: 14px; font-weight: 700; }
   table, figure, .caution { break-inside: avoid; }
   h2, h3, caption { break-after: avoid; }
   svg.fig { max-height: 76mm; width: auto; }
+  #summary table { font-size: 7.5pt; }
+  #summary th, #summary td { padding: 0.6mm 0.9mm; }
   nav.contents a { color: var(--ink); }
 }
 )css";

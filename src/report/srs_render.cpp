@@ -68,7 +68,8 @@ std::string render_srs_html(const ProjectResult& r, const DeliverableData& d, co
   std::string out = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";
   out += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
   out += "<title>" + esc(title_of(r)) + ": safety requirements specification</title>\n";
-  out += "<style>" + std::string(html_style()) + deliverable_css() + "</style>\n</head>\n<body>\n";
+  out += "<style>" + std::string(html_style()) + deliverable_css() +
+         print_footer_css(d, "Safety requirements specification") + "</style>\n</head>\n<body>\n";
   out += "<header>\n<p class=\"kind\">Safety requirements specification of the safety instrumented functions</p>\n";
   out += "<h1>" + esc(title_of(r)) + "</h1>\n<dl class=\"meta\">\n";
   out += "<dt>date of the run</dt><dd>" + esc(o.date) + "</dd>\n";
@@ -87,8 +88,7 @@ std::string render_srs_html(const ProjectResult& r, const DeliverableData& d, co
     out += blocks_html(srs_sif_blocks(r, d, i)) + "</section>\n";
   }
   out += "<footer>Written by sifter " + esc(o.tool_version) + " on " + esc(o.date) + " from " + esc(r.file) + ". " +
-         esc(kCaution) + "</footer>\n" + print_footer_html(d, "Safety requirements specification") +
-         "</body>\n</html>\n";
+         esc(kCaution) + "</footer>\n</body>\n</html>\n";
   return out;
 }
 

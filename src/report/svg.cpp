@@ -129,16 +129,24 @@ double Scale::operator()(double value) const {
 double decade_floor(double value) { return std::pow(10.0, std::floor(std::log10(value) + 1e-9)); }
 double decade_ceil(double value) { return std::pow(10.0, std::ceil(std::log10(value) - 1e-9)); }
 
-std::pair<double, double> log_range(const std::vector<double>& values, int decades) {
+std::pair<double, double> log_range(const std::vector<double>& values, int decades, const std::vector<double>& keep) {
   double lo = 0.0, hi = 0.0;
-  for (double v : values)
+  auto widen = [&](double v) {
+    if (!(v > 0.0) || !std::isfinite(v)) return;
+    lo = lo == 0.0 ? v : std::min(lo, v);
+    hi = std::max(hi, v);
+  };
+  for (double v : values) widen(v);
+  double keep_lo = 0.0;
+  for (double v : keep)
     if (v > 0.0 && std::isfinite(v)) {
-      lo = lo == 0.0 ? v : std::min(lo, v);
-      hi = std::max(hi, v);
+      widen(v);
+      keep_lo = keep_lo == 0.0 ? v : std::min(keep_lo, v);
     }
   if (hi <= 0.0) return {1e-6, 1.0};
-  hi = decade_ceil(hi * 1.0001);
+  hi = decade_ceil(hi * 1.0001);  // strictly above: a line on a decade never merges with the frame
   lo = std::max(decade_floor(lo), hi * std::pow(10.0, -decades));
+  if (keep_lo > 0.0) lo = std::min(lo, decade_floor(keep_lo));
   if (lo >= hi) lo = hi / 10.0;
   return {lo, hi};
 }

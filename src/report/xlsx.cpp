@@ -255,10 +255,25 @@ void components_sheet(Sheet& s, const std::vector<Component>& components) {
   }
 }
 
-// The requirement checks (response time, spurious trip limit, proof-test interval) join the
-// results with the safety requirements; until then the sheet holds its header only.
-void requirement_checks(Sheet& s) {
-  s.headers(0, {{"SIF", 12}, {"check", 24}, {"ok", 6}, {"value", 12}, {"limit", 12}, {"message", 60}});
+// The requirement checks of each SIF (response time, spurious trip limit, proof-test interval), as
+// `check --json` gives them in `requirement_checks`: value and limit in the unit the check's name ends with.
+void requirement_checks(Sheet& s, const ProjectResult& r) {
+  s.headers(0, {{"SIF", 12},
+                {"check", 24},
+                {"ok", 6},
+                {"value", 14},
+                {"limit", 14},
+                {"message", 60}});
+  for (const auto& sif : r.sifs)
+    for (const auto& c : sif.requirement_checks) {
+      s.text(sif.id);
+      s.text(c.check);
+      s.boolean(c.ok);
+      s.number(c.value, true);
+      s.number(c.limit, true);
+      s.text(c.message);
+      s.next_row();
+    }
 }
 
 // libxlsxwriter writes to a named file: build the workbook in a private temporary folder and
@@ -320,7 +335,7 @@ std::string workbook_xlsx(const ProjectResult& result, const std::vector<Compone
     subsystems(sheets[1], result);
     lopa_worksheet(sheets[2], result);
     components_sheet(sheets[3], components);
-    requirement_checks(sheets[4]);
+    requirement_checks(sheets[4], result);
   } catch (...) {
     workbook_close(book);
     throw;

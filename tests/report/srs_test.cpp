@@ -116,8 +116,13 @@ TEST(Srs, PutsDocumentNumberRevisionAndSignaturesOnTheCover) {
     ASSERT_NE(history, nullptr);
     EXPECT_EQ(history->rows.size(), 2u);
     EXPECT_NE(cover.find("<aside class=\"caution\">"), std::string::npos);
-    // The print footer repeats number and revision on every printed page.
-    EXPECT_NE(html->find("document DEMO-70-SRS-001 revision B</div>"), std::string::npos);
+    // The print footer repeats number and revision on every printed page (a page-margin box;
+    // tests/print_test.py reads it back from each printed page).
+    EXPECT_NE(html->find("@bottom-left { content: \"" + std::string(html == &example().srs
+                                                                         ? "Safety requirements specification"
+                                                                         : "SIL verification report") +
+                         " · document DEMO-70-SRS-001 revision B\""),
+              std::string::npos);
   }
 }
 
@@ -175,6 +180,11 @@ TEST(Report, NamesWarningsBySifAndSubsystemNotByPointer) {
 }
 
 // Every new field of the project carries markup and quotes; none of it reaches the HTML unescaped.
+TEST(Deliverables, CssStringsEscapeWhatCouldEndThemAndKeepOtherText) {
+  EXPECT_EQ(report::css_string("rev \"B\" \\ </style> & ·"), "rev \\22 B\\22  \\5C  \\3C /style\\3E  \\26  ·");
+  EXPECT_EQ(report::css_string("a\nb"), "a\\A b");
+}
+
 TEST(Deliverables, HostileTextInEveryNewFieldStaysEscaped) {
   const std::string hostile = "<script>alert(1)</script><b onmouseover=\"x\">&'";
   json j = json::parse(testing::slurp(std::string(SIFTER_SOURCE_DIR) + "/" + kExample));
@@ -196,6 +206,10 @@ TEST(Deliverables, HostileTextInEveryNewFieldStaysEscaped) {
     EXPECT_EQ(out->find("<b onmouseover"), std::string::npos);
     EXPECT_NE(out->find("&lt;script&gt;alert(1)&lt;/script&gt;&lt;b onmouseover=&quot;x&quot;&gt;&amp;&#39;"),
               std::string::npos);
+    // In the footer's CSS string no quote, bracket or ampersand stands bare: the sheet cannot be ended.
+    EXPECT_NE(out->find("document \\3C script\\3E alert(1)\\3C /script\\3E \\3C b onmouseover=\\22 x\\22 \\3E \\26 '"),
+              std::string::npos);
+    EXPECT_EQ(out->find("</style", out->find("@bottom-left")), out->find("</style>\n</head>"));
   }
   // Markdown escapes markup characters with a backslash: no "<" stands bare.
   for (auto p = d.srs_markdown.find('<'); p != std::string::npos; p = d.srs_markdown.find('<', p + 1))

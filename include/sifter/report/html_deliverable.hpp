@@ -15,8 +15,13 @@ const char* deliverable_css();
 /// Document number, revision and date, the signature block and the revision history; a note
 /// saying none is stated when the project has no "document".
 std::string document_control_html(const DeliverableData& data);
-/// A footer fixed to every printed page: document number, revision, and the kind of document.
-std::string print_footer_html(const DeliverableData& data, const std::string& kind);
+/// Style rules that print a footer on every page (CSS page-margin boxes): the kind of document,
+/// its number and revision at the left, "page N of M" at the right. The text is a CSS string with
+/// every quote, backslash, angle bracket, ampersand and control character escaped, so that no
+/// text of the project can end the string or the style sheet.
+std::string print_footer_css(const DeliverableData& data, const std::string& kind);
+/// Text as the content of a double-quoted CSS string (escapes as above).
+std::string css_string(const std::string& text);
 /// The component-data section (id "component-data").
 std::string component_data_html(const DeliverableData& data);
 /// A SIF's stated requirements, their checks, the response budget and its subsystem parameters.

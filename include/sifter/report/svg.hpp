@@ -77,9 +77,16 @@ std::vector<double> linear_ticks(double lo, double hi, int count);
 /// The decade at or below (floor) and at or above (ceil) a positive value.
 double decade_floor(double value);
 double decade_ceil(double value);
-/// The decades spanned by the positive values, widened to one decade at least and cut to
-/// `decades` below the top; {1e-6, 1} when there is no positive value.
-std::pair<double, double> log_range(const std::vector<double>& values, int decades);
+/// The decades enclosing the positive values: the floor is the decade at or below the smallest,
+/// the ceiling the decade above the largest (strictly: a value on a decade, such as a required
+/// PFD of 1e-2, gets the decade above it, so that its line does not merge with the frame), one
+/// decade apart at least. A series that
+/// dips towards zero (PFD(t) just after a proof test) would push the floor down without end, so
+/// the floor is cut to `decades` below the ceiling, but never above the decade at or below any
+/// of `keep` (the levels a reader must see: an average, a requirement, a band).
+/// {1e-6, 1} when there is no positive value.
+std::pair<double, double> log_range(const std::vector<double>& values, int decades,
+                                    const std::vector<double>& keep = {});
 /// "10⁻³" for a power of ten, with Unicode superscripts.
 std::string power_of_ten_label(double value);
 
