@@ -6,6 +6,7 @@
 
 #include "sifter/constraints.hpp"
 #include "sifter/sil.hpp"
+#include "sifter/report/format.hpp"
 
 namespace sifter {
 namespace {
@@ -115,9 +116,7 @@ std::string lift(const Cap& cap, const SubsystemConstraints& s, int required) {
 
 std::string format_measure(double value, DemandMode mode) {
   if (mode == DemandMode::kHigh) return format_rate(Rate{value});
-  std::array<char, 32> buf{};
-  std::snprintf(buf.data(), buf.size(), "%.2e", value);
-  return buf.data();
+  return report::probability(value);
 }
 
 std::optional<Limit> probability_limit(const ProbabilityCheck& p, int required_sil) {

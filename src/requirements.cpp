@@ -6,17 +6,14 @@
 
 #include "sifter/constraints.hpp"
 #include "sifter/sil.hpp"
+#include "sifter/report/format.hpp"
 
 namespace sifter {
 namespace {
 
 constexpr double kSecondsPerHour = 3600.0;
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.3g", v);
-  return buf;
-}
+std::string num(double v) { return report::figure(v); }
 
 ResponseTimeStep step_of(const Project& project, const Subsystem& sub) {
   ResponseTimeStep step;

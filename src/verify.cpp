@@ -21,15 +21,12 @@
 #include "sifter/sif_uncertainty.hpp"
 #include "sifter/sil.hpp"
 #include "sifter/spurious.hpp"
+#include "sifter/report/format.hpp"
 
 namespace sifter {
 namespace {
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.4g", v);
-  return buf;
-}
+std::string num(double v) { return report::figure(v); }
 
 // Defaults applied, gathered per kind so that the output names each once with its subsystems.
 struct DefaultsApplied {

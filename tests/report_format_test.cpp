@@ -9,6 +9,9 @@
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
+#include "sifter/pressure_units.hpp"
+#include "sifter/quantity.hpp"
+#include "sifter/results.hpp"
 
 namespace sifter {
 namespace {
@@ -122,6 +125,38 @@ TEST(WriterFormat, TheWorksheetRefusesANonFiniteFrequency) {
   ProjectResult r = one_scenario();
   r.scenarios[0].worksheet[0].frequency_per_yr = kNaN;
   EXPECT_TRUE(refused_as_internal([&] { report::worksheet_csv(r); }));
+}
+
+}  // namespace
+}  // namespace sifter
+
+namespace sifter {
+namespace {
+
+// One formatter per kind of quantity (include/sifter/report/format.hpp): the helpers that
+// other rooms kept (the cross-check's ratio, the rate of a component, a pressure) give the
+// very text of the one formatter, so one figure never reads differently in two places.
+TEST(ReportFormat, EveryKindOfQuantityHasOneFormatter) {
+  EXPECT_EQ(report::probability(4.1e-5), "4.10e-05");
+  EXPECT_EQ(report::per_year(1e-4), "1.00e-04/yr");
+  EXPECT_EQ(report::per_hour(2.5e-7), "2.50e-07/h");
+  EXPECT_EQ(report::rrf(833.3), "833.3");
+  EXPECT_EQ(report::ratio(1.0035001), "1.004");
+  EXPECT_EQ(report::percent(0.034), "3.4%");
+  EXPECT_EQ(report::figure(0.513449), "0.5134");
+  EXPECT_EQ(format_pressure(12.5), "12.50 barg");
+  EXPECT_EQ(format_duration(Duration{6 * kHoursPerMonth}), "6 mo");
+  for (double r : {0.9995, 1.0035001, 1.00349999, 7.7e36, 2.0 / 3.0}) EXPECT_EQ(ratio_text(r), report::ratio(r));
+  for (double v : {2.5e-7, 1e-30, 3.3e5}) EXPECT_EQ(format_rate(Rate{v}), report::per_hour(v));
+}
+
+TEST(ReportFormat, TheKindFormattersRefuseNonFiniteNumbers) {
+  for (double bad : {std::numeric_limits<double>::quiet_NaN(), std::numeric_limits<double>::infinity()}) {
+    EXPECT_THROW(report::ratio(bad), Error);
+    EXPECT_THROW(report::figure(bad), Error);
+    EXPECT_THROW(report::per_hour(bad), Error);
+    EXPECT_THROW(report::per_year(bad), Error);
+  }
 }
 
 }  // namespace

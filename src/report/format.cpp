@@ -5,6 +5,7 @@
 #include <cstdio>
 
 #include "sifter/diagnostics.hpp"
+#include "sifter/quantity.hpp"
 
 namespace sifter::report {
 
@@ -33,6 +34,28 @@ std::string percent(double fraction) {
   checked(fraction, "percentage");
   char buf[32];
   std::snprintf(buf, sizeof buf, "%.1f%%", fraction * 100.0);
+  return buf;
+}
+
+std::string probability(double p) { return sci(p); }
+
+std::string per_year(double per_yr) { return sci(per_yr) + "/yr"; }
+
+std::string per_hour(double per_hour) { return format_rate(Rate{checked(per_hour, "rate")}); }
+
+std::string rrf(double value) { return plain(value); }
+
+std::string ratio(double value) {
+  checked(value, "ratio");
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.3f", value);
+  return buf;
+}
+
+std::string figure(double value) {
+  checked(value, "figure");
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.4g", value);
   return buf;
 }
 

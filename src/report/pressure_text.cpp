@@ -4,6 +4,8 @@
 #include <cstdio>
 
 #include "sifter/maturity.hpp"
+#include "sifter/pressure_units.hpp"
+#include "sifter/report/format.hpp"
 
 namespace sifter::report {
 
@@ -42,9 +44,7 @@ namespace {
 
 std::string category_text(const std::optional<std::string>& category, const std::optional<double>& p, bool preliminary) {
   if (!category) return "not screened";
-  char buf[96];
-  std::snprintf(buf, sizeof buf, "%s at %.2f barg%s", category->c_str(), *p, preliminary ? " (preliminary)" : "");
-  return buf;
+  return *category + " at " + format_pressure(*p) + (preliminary ? " (preliminary)" : "");
 }
 
 }  // namespace
