@@ -6,15 +6,12 @@
 #include <cstdio>
 
 #include "sifter/engines/sil.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter {
 namespace {
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.4g", v);
-  return buf;
-}
+std::string num(double v) { return sifter::figure(v); }
 
 std::string describe_target(const Target& t, DemandMode mode) {
   switch (t.kind) {

@@ -21,15 +21,12 @@
 #include "sifter/engines/sif_uncertainty.hpp"
 #include "sifter/engines/sil.hpp"
 #include "sifter/engines/spurious.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter {
 namespace {
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.4g", v);
-  return buf;
-}
+std::string num(double v) { return sifter::figure(v); }
 
 // Defaults applied, gathered per kind so that the output names each once with its subsystems.
 struct DefaultsApplied {

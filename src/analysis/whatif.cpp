@@ -10,6 +10,7 @@
 #include "analysis/whatif_parts.hpp"
 #include "sifter/engines/probability_cap.hpp"
 #include "sifter/engines/sil.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter {
 
@@ -17,11 +18,7 @@ namespace detail {
 
 std::string quoted_name(const std::string& name) { return "'" + name + "'"; }
 
-std::string number_text(double value) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.4g", value);
-  return buf;
-}
+std::string number_text(double value) { return sifter::figure(value); }
 
 std::vector<std::size_t> subsystems_to_vary(const Sif& sif, std::optional<std::size_t> subsystem,
                                             const std::string& what) {

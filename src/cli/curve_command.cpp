@@ -31,12 +31,12 @@ std::string curve_csv(const SifCurve& c) {
   out += "\r\n";
   char buf[40];
   for (std::size_t i = 0; i < c.time_hours.size(); ++i) {
-    std::snprintf(buf, sizeof buf, "%.6g", report::checked(c.time_hours[i], "time"));
+    std::snprintf(buf, sizeof buf, "%.6g", sifter::checked(c.time_hours[i], "time"));
     out += buf;
-    std::snprintf(buf, sizeof buf, ",%.6e", report::checked(c.pfd_sif[i], "pfd"));
+    std::snprintf(buf, sizeof buf, ",%.6e", sifter::checked(c.pfd_sif[i], "pfd"));
     out += buf;
     for (const auto& sub : c.pfd_subsystems) {
-      std::snprintf(buf, sizeof buf, ",%.6e", report::checked(sub[i], "pfd"));
+      std::snprintf(buf, sizeof buf, ",%.6e", sifter::checked(sub[i], "pfd"));
       out += buf;
     }
     out += "\r\n";
@@ -45,7 +45,7 @@ std::string curve_csv(const SifCurve& c) {
 }
 
 nlohmann::json curve_json(const std::string& sif, const SifCurve& c) {
-  nlohmann::json j{{"sif", sif}, {"pfd_avg_exact", report::checked(c.pfd_avg_exact, "pfd")},
+  nlohmann::json j{{"sif", sif}, {"pfd_avg_exact", sifter::checked(c.pfd_avg_exact, "pfd")},
                    {"time_h", c.time_hours}, {"pfd_sif", c.pfd_sif}, {"subsystems", nlohmann::json::array()}};
   for (std::size_t i = 0; i < c.subsystem_names.size(); ++i)
     j["subsystems"].push_back({{"name", c.subsystem_names[i]}, {"pfd", c.pfd_subsystems[i]}});
@@ -85,8 +85,8 @@ Action add_curve_command(CLI::App& app) {
       double peak = 0.0;
       for (double p : c.pfd_sif) peak = std::max(peak, p);
       std::cout << "PFD(t) of " << escape_controls(sif.id) << " over " << format_duration(loaded.project.defaults.mission_time) << ": "
-                << c.time_hours.size() << " points, average " << report::sci(c.pfd_avg_exact) << ", peak "
-                << report::sci(peak) << " (exact multi-phase Markov engine)\n\n"
+                << c.time_hours.size() << " points, average " << sifter::sci(c.pfd_avg_exact) << ", peak "
+                << sifter::sci(peak) << " (exact multi-phase Markov engine)\n\n"
                 << report::wrapped_caution();
     }
     return 0;

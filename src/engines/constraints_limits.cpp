@@ -7,6 +7,7 @@
 #include "sifter/engines/constraints.hpp"
 #include "sifter/engines/sil.hpp"
 #include "sifter/model/vocabulary.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter {
 namespace {
@@ -115,9 +116,7 @@ std::string lift(const Cap& cap, const SubsystemConstraints& s, int required) {
 
 std::string format_measure(double value, DemandMode mode) {
   if (mode == DemandMode::kHigh) return format_rate(Rate{value});
-  std::array<char, 32> buf{};
-  std::snprintf(buf.data(), buf.size(), "%.2e", value);
-  return buf.data();
+  return sifter::probability(value);
 }
 
 std::optional<Limit> probability_limit(const ProbabilityCheck& p, int required_sil) {

@@ -8,15 +8,12 @@
 
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/engines/lopa.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter {
 namespace {
 
-std::string pct(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.1f%%", v * 100.0);
-  return buf;
-}
+std::string pct(double v) { return sifter::percent(v); }
 
 // The exact measure comparable with the simplified PFH under the same assumption: IEC
 // 61508-6:2010 B.3.3.2 takes a detected failure to the safe state, so only failures whose last
@@ -182,10 +179,6 @@ SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
   return c;
 }
 
-std::string ratio_text(double ratio) {
-  char text[32];
-  std::snprintf(text, sizeof text, "%.3f", ratio);
-  return text;
-}
+std::string ratio_text(double ratio) { return sifter::ratio(ratio); }
 
 }  // namespace sifter

@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <cmath>
 #include <deque>
+#include <limits>
 #include <stdexcept>
 
 #include "engines/exact_memo.hpp"
@@ -123,6 +124,196 @@ GroupTrace propagate(const GroupChain& chain, const std::vector<double>& grid,
   return trace;
 }
 
+namespace {
+
+// The instants of a cycle: offsets (or times) with every action there, nearly equal ones merged.
+struct Instant {
+  double time_hours = 0.0;
+  std::vector<Action> actions;
+};
+
+std::vector<Instant> instants_of(const std::vector<TimedAction>& timed, double tol) {
+  std::vector<Instant> out;
+  for (const auto& ta : timed) {
+    if (out.empty() || ta.time_hours - out.back().time_hours > tol) out.push_back({ta.time_hours, {}});
+    out.back().actions.push_back(ta.action);
+  }
+  return out;
+}
+
+// One cycle [c P, (c+1) P) as a linear map of the row state p at c P (before the actions
+// there): p -> p M, and the integrals over the cycle p J. Over r cycles the augmented matrix
+// A = [[M, J], [0, I]] gives A^r = [[M^r, (sum_{j<r} M^j) J], [0, I]]: the state after r
+// cycles and the integrals over all of them, by repeated squaring of A.
+class CycleOperator {
+ public:
+  CycleOperator(Stepper& stepper, int states, const std::vector<Instant>& cycle, double period) : n_(states) {
+    Eigen::MatrixXd x = Eigen::MatrixXd::Identity(n_, n_);  // row i: the distribution from state i
+    Eigen::MatrixXd j = Eigen::MatrixXd::Zero(n_, kColumns);
+    Eigen::MatrixXd scratch;
+    ChannelMask bypassed = 0;
+    double t = 0.0;
+    auto advance = [&](double to) {
+      if (to <= t) return;
+      const auto& s = stepper.segment(bypassed, to - t);
+      j.noalias() += x * s.integrals;
+      scratch.noalias() = x * s.step_transposed.transpose();
+      x.swap(scratch);
+      t = to;
+    };
+    for (const auto& instant : cycle) {
+      advance(instant.time_hours);
+      for (const auto& a : instant.actions) {
+        if (a.kind == Action::kBypassStart) {
+          bypassed |= a.channels;
+          continue;
+        }
+        const Jump& jump = stepper.jump(a);
+        scratch.setZero(n_, n_);
+        for (int i = 0; i < n_; ++i) scratch.col(jump[static_cast<std::size_t>(i)]) += x.col(i);
+        x.swap(scratch);
+        if (a.kind == Action::kBypassEnd) bypassed &= ~a.channels;
+      }
+    }
+    advance(period);
+    Eigen::MatrixXd a = Eigen::MatrixXd::Identity(n_ + kColumns, n_ + kColumns);
+    a.topLeftCorner(n_, n_) = x;
+    a.topRightCorner(n_, kColumns) = j;
+    squares_.push_back(std::move(a));
+  }
+
+  // [p, integrals] after r more cycles: one vector-matrix product per bit of r.
+  void apply(long long r, Eigen::RowVectorXd& row) {
+    Eigen::RowVectorXd scratch;
+    for (std::size_t bit = 0; r > 0; ++bit, r >>= 1) {
+      while (squares_.size() <= bit) squares_.push_back(squares_.back() * squares_.back());
+      if (r & 1) {
+        scratch.noalias() = row * squares_[bit];
+        row.swap(scratch);
+      }
+    }
+  }
+
+ private:
+  int n_;
+  std::vector<Eigen::MatrixXd> squares_;  // A^(2^i)
+};
+
+}  // namespace
+
+GroupTrace propagate_cycles(const GroupChain& chain, const CyclePattern& pattern, double mission_hours,
+                            const std::vector<double>& grid, bool keep_states,
+                            std::vector<std::vector<Action>>& actions) {
+  const double period = pattern.period_hours;
+  const double tol = kSameInstantShare * period;
+  const double last = mission_hours * (1.0 - kSameInstantShare);  // no test at the mission's end
+  const auto head = instants_of(pattern.head, tol);
+  const auto cycle = instants_of(pattern.cycle, tol);
+  Stepper stepper(chain);
+  const int n = chain.size();
+  CycleOperator cycles(stepper, n, cycle, period);
+
+  // The next instant not yet applied: instant `index` of cycle `c` (c = 0: the head).
+  long long c = 0;
+  std::size_t index = 0;
+  auto settle = [&] {
+    while (c == 0 ? index >= head.size() : index >= cycle.size()) {
+      ++c;
+      index = 0;
+      if (cycle.empty()) break;
+    }
+  };
+  auto next_time = [&]() -> double {
+    if (c == 0 && index < head.size())
+      return head[index].time_hours < last ? head[index].time_hours : std::numeric_limits<double>::infinity();
+    if (c == 0 || cycle.empty()) return std::numeric_limits<double>::infinity();
+    const double t = static_cast<double>(c) * period + cycle[index].time_hours;
+    return t < last ? t : std::numeric_limits<double>::infinity();
+  };
+  auto next_actions = [&]() -> const std::vector<Action>& { return c == 0 ? head[index].actions : cycle[index].actions; };
+  settle();
+
+  GroupTrace trace;
+  trace.averaged = true;
+  const std::size_t count = grid.size();
+  trace.pfd_before.resize(count);
+  trace.pfd_after.resize(count);
+  trace.bypassed.resize(count);
+  trace.segment_integrals.assign(count > 0 ? count - 1 : 0, Eigen::RowVector3d::Zero());
+  if (keep_states) trace.state_after.resize(count);
+  actions.assign(count, {});
+  Eigen::RowVectorXd row = Eigen::RowVectorXd::Zero(n + kColumns);  // [p, integrals of this segment]
+  row(0) = 1.0;
+  Eigen::VectorXd p;
+  Eigen::VectorXd scratch;
+  ChannelMask bypassed = 0;
+  double now = 0.0;
+  auto step = [&](double to) {
+    if (to <= now) return;
+    const auto& s = stepper.segment(bypassed, to - now);
+    p = row.head(n).transpose();
+    row.tail(kColumns) += p.transpose() * s.integrals;
+    row.head(n) = (s.step_transposed * p).transpose();
+    now = to;
+  };
+  auto act = [&](const std::vector<Action>& list, std::vector<Action>* record) {
+    p = row.head(n).transpose();
+    for (const auto& a : list) {
+      if (record) record->push_back(a);
+      if (a.kind == Action::kBypassStart) {
+        bypassed |= a.channels;
+        continue;
+      }
+      apply(stepper.jump(a), p, scratch);
+      if (a.kind == Action::kBypassEnd) bypassed &= ~a.channels;
+    }
+    row.head(n) = p.transpose();
+  };
+  for (std::size_t i = 0; i < count; ++i) {
+    const double b = grid[i];
+    for (;;) {
+      const double t = next_time();
+      if (t >= b - tol) break;
+      if (c >= 1 && index == 0 && now <= static_cast<double>(c) * period) {
+        // Whole cycles c .. c+r-1 that end at or before b.
+        long long r = static_cast<long long>(std::floor((b - tol) / period)) - c;
+        while (r > 0 && static_cast<double>(c + r) * period > b - tol) --r;
+        if (r > 0) {
+          step(static_cast<double>(c) * period);
+          cycles.apply(r, row);
+          c += r;
+          now = static_cast<double>(c) * period;
+          continue;
+        }
+      }
+      step(t);
+      act(next_actions(), nullptr);
+      ++index;
+      settle();
+    }
+    step(b);
+    if (i > 0) {
+      trace.segment_integrals[i - 1] = row.tail(kColumns);
+      trace.pfd_integral_hours += row(n);
+      trace.expected_failures += row(n + 1);
+      trace.expected_undetected_failures += row(n + 2);
+      row.tail(kColumns).setZero();
+    }
+    p = row.head(n).transpose();
+    trace.pfd_before[i] = stepper.pfd(bypassed, p);
+    while (std::fabs(next_time() - b) <= tol) {
+      act(next_actions(), &actions[i]);
+      ++index;
+      settle();
+    }
+    p = row.head(n).transpose();
+    trace.pfd_after[i] = stepper.pfd(bypassed, p);
+    trace.bypassed[i] = bypassed;
+    if (keep_states) trace.state_after[i] = p;
+  }
+  return trace;
+}
+
 PfdCurve curve_on_grid(const std::vector<double>& grid, const std::vector<bool>& acts,
                        const std::vector<double>& before, const std::vector<double>& after) {
   PfdCurve c;
@@ -189,6 +380,13 @@ std::string exact_group_unsupported(const ExactGroupInput& g) {
 ExactGroupResult group_exact(const ExactGroupInput& group) {
   if (auto why = exact_group_unsupported(group); !why.empty()) throw std::invalid_argument(why);
   const detail::GroupChain chain(group);
+  if (detail::timeline_instants(group, chain) > detail::kMaxSteppedInstants) {
+    // Too many tests to step one by one: whole cycles composed by repeated squaring.
+    auto sif = sif_exact({group});
+    ExactGroupResult r = std::move(sif.groups.front());
+    r.curve = std::move(sif.curve);
+    return r;
+  }
   const auto timeline = detail::group_timeline(group, chain);
   std::vector<double> times;
   for (const auto& ta : timeline) times.push_back(ta.time_hours);

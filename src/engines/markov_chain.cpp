@@ -22,8 +22,7 @@ bool identical_channels(const ExactGroupInput& in) {
                      [&](const FailureRates& r) { return same_rates(r, in.channels[0]); });
 }
 
-// Times closer than this share of the mission are one instant.
-constexpr double kSameInstant = 1e-9;
+constexpr double kSameInstant = kSameInstantShare;
 
 }  // namespace
 
@@ -275,6 +274,53 @@ std::vector<TimedAction> group_timeline(const ExactGroupInput& in, const GroupCh
   std::stable_sort(out.begin(), out.end(),
                    [](const TimedAction& a, const TimedAction& b) { return a.time_hours < b.time_hours; });
   return out;
+}
+
+CyclePattern cycle_pattern(const ExactGroupInput& in, const GroupChain& chain) {
+  CyclePattern out;
+  const double t1 = in.proof_test_interval.hours;
+  double period = t1;
+  if (chain.has_partial_stroke()) {
+    const double tp = in.partial_stroke->interval.hours;
+    auto whole = [](double x) { return x >= 1.0 - 1e-9 && std::fabs(x - std::round(x)) <= 1e-9 * x; };
+    if (whole(tp / t1)) period = tp;
+    else if (!whole(t1 / tp)) return out;
+  }
+  // The timeline of three periods: cycle 0, then cycle 1 as the pattern of every later one.
+  ExactGroupInput three = in;
+  three.mission_time = Duration{3.0 * period};
+  const double tol = kSameInstant * period;
+  for (const auto& ta : group_timeline(three, chain)) {
+    if (ta.time_hours < period - tol) {
+      out.head.push_back(ta);
+    } else if (ta.time_hours < 2.0 * period - tol) {
+      TimedAction shifted = ta;
+      shifted.time_hours = std::max(0.0, ta.time_hours - period);
+      out.cycle.push_back(shifted);
+    }
+  }
+  auto closed = [](const std::vector<TimedAction>& part) {
+    ChannelMask bypassed = 0;
+    for (const auto& ta : part) {
+      if (ta.action.kind == Action::kBypassStart) bypassed |= ta.action.channels;
+      if (ta.action.kind == Action::kBypassEnd) bypassed &= ~ta.action.channels;
+    }
+    return bypassed == 0;
+  };
+  if (!closed(out.head) || !closed(out.cycle)) return out;
+  out.period_hours = period;
+  out.valid = true;
+  return out;
+}
+
+double timeline_instants(const ExactGroupInput& in, const GroupChain& chain) {
+  const double mission = in.mission_time.hours;
+  const double t1 = in.proof_test_interval.hours;
+  const bool bypass = in.test_duration && in.test_duration->hours > 0.0;
+  const double per_test = chain.per_channel() ? chain.channels() * (bypass ? 2.0 : 1.0) : 1.0;
+  double count = mission / t1 * per_test;
+  if (chain.has_partial_stroke()) count += mission / in.partial_stroke->interval.hours;
+  return count;
 }
 
 std::vector<double> merge_grid(std::vector<double> times, double mission_hours) {

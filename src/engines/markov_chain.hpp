@@ -29,6 +29,9 @@ using ChannelMask = unsigned;
 /// A jump of the state at an instant: state i moves to state target[i].
 using Jump = std::vector<int>;
 
+/// Times closer than this share of the mission (of the cycle, in a compressed trace) are one instant.
+inline constexpr double kSameInstantShare = 1e-9;
+
 /// Whether the group needs the per-channel model: different, staggered or bypassed channels.
 bool tracks_each_channel(const ExactGroupInput& in);
 
@@ -125,11 +128,48 @@ struct GroupTrace {
   double pfd_integral_hours = 0.0;           // integral of PFD(t) dt
   double expected_failures = 0.0;            // integral of the failure frequency dt
   double expected_undetected_failures = 0.0;  // the part due to undetected failures
+  /// Compressed traces only: the integrals [PFD, failures, undetected failures] over each
+  /// segment of the grid (the cross terms take such a group at its average over a segment).
+  std::vector<Eigen::RowVector3d> segment_integrals;
+  bool averaged = false;
 };
 
 /// Propagates the chain along the grid with Van Loan's block exponential per distinct segment.
 GroupTrace propagate(const GroupChain& chain, const std::vector<double>& grid,
                      const std::vector<std::vector<Action>>& actions, bool keep_states);
+
+/// A group's timeline as one pattern repeated: cycle 0 (the instants in (0, P)) and the
+/// instants of every later cycle c at c P + offset (offsets in [0, P)). Bypasses never cross a
+/// cycle's end (a channel's test ends before the next channel's begins). `valid` is false when
+/// the timeline has no such period (a partial stroke interval that neither divides the proof
+/// test interval nor is a whole multiple of it).
+struct CyclePattern {
+  bool valid = false;
+  double period_hours = 0.0;
+  std::vector<TimedAction> head;   // absolute times in (0, P)
+  std::vector<TimedAction> cycle;  // offsets in [0, P)
+};
+
+CyclePattern cycle_pattern(const ExactGroupInput& in, const GroupChain& chain);
+
+/// How many test and bypass instants a group's timeline has over the mission (estimated from
+/// its pattern without listing them; exact up to the instants near the mission's end).
+double timeline_instants(const ExactGroupInput& in, const GroupChain& chain);
+
+/// Above this many instants a group's timeline is not stepped instant by instant: whole cycles
+/// are composed by repeated squaring (README "Limits").
+inline constexpr double kMaxSteppedInstants = 20000.0;
+
+/// Evenly spaced instants at which a compressed SIF is sampled (its cross terms and curves).
+inline constexpr int kCompressedSamples = 1000;
+
+/// The state of a group along a grid, whole cycles composed by repeated squaring: the work
+/// grows with the grid and log(cycles), not with the number of tests. The PFD before and after
+/// each instant are exact, as are the integrals over each segment (kept in
+/// `segment_integrals`, and `averaged` set); `actions` receives what acted at each instant.
+GroupTrace propagate_cycles(const GroupChain& chain, const CyclePattern& pattern, double mission_hours,
+                            const std::vector<double>& grid, bool keep_states,
+                            std::vector<std::vector<Action>>& actions);
 
 /// The points of a curve: one per instant, two (before, after) where something acts.
 PfdCurve curve_on_grid(const std::vector<double>& grid, const std::vector<bool>& acts,

@@ -142,6 +142,11 @@ CrossTerms cross_terms(const std::vector<GroupChain>& chains, const std::vector<
     std::array<Eigen::MatrixXd, 3> at{Eigen::MatrixXd(nodes, cols), Eigen::MatrixXd(nodes, cols),
                                       Eigen::MatrixXd(nodes, cols)};  // u, w, w_u per node and group
     for (std::size_t i = 0; i < groups; ++i) {
+      if (traces[i].averaged) {  // a group tested too often to resolve: its average over the segment
+        for (std::size_t w = 0; w < 3; ++w)
+          at[w].col(static_cast<Eigen::Index>(i)).setConstant(traces[i].segment_integrals[k](static_cast<Eigen::Index>(w)) / length);
+        continue;
+      }
       const ChannelMask m = traces[i].bypassed[k];
       auto& cache = columns[i];
       auto it = std::find_if(cache.begin(), cache.end(),
@@ -206,15 +211,36 @@ SifExactResult evaluate(const std::vector<ExactGroupInput>& groups, int points) 
   }
   std::vector<GroupChain> chains;
   std::vector<std::vector<detail::TimedAction>> timelines;
+  std::vector<detail::CyclePattern> patterns;  // valid only for the groups composed by cycles
   std::vector<double> times;
+  bool compressed = false;
   for (const auto& g : groups) {
     chains.emplace_back(g);
+    patterns.emplace_back();
+    if (detail::timeline_instants(g, chains.back()) > detail::kMaxSteppedInstants) {
+      patterns.back() = detail::cycle_pattern(g, chains.back());
+      if (!patterns.back().valid)
+        throw std::invalid_argument("exact engine: a partial stroke interval that neither divides the proof-test "
+                                    "interval nor is a whole multiple of it allows at most 20000 tests");
+      compressed = true;
+      timelines.emplace_back();
+      continue;
+    }
     timelines.push_back(detail::group_timeline(g, chains.back()));
     for (const auto& ta : timelines.back()) times.push_back(ta.time_hours);
   }
+  // Groups tested more than kMaxSteppedInstants times are composed by whole cycles on a grid of
+  // the other groups' instants and kCompressedSamples even samples (README "Limits").
+  if (compressed)
+    for (int j = 0; j < detail::kCompressedSamples; ++j) times.push_back(mission * j / (detail::kCompressedSamples - 1));
   auto run = [&](const std::vector<double>& grid, bool keep_states, auto& actions) {
     std::vector<GroupTrace> traces;
     for (std::size_t i = 0; i < groups.size(); ++i) {
+      if (patterns[i].valid) {
+        actions.emplace_back();
+        traces.push_back(detail::propagate_cycles(chains[i], patterns[i], mission, grid, keep_states, actions.back()));
+        continue;
+      }
       actions.push_back(detail::actions_on_grid(timelines[i], grid));
       traces.push_back(detail::propagate(chains[i], grid, actions.back(), keep_states));
     }
@@ -233,6 +259,12 @@ SifExactResult evaluate(const std::vector<ExactGroupInput>& groups, int points) 
     g.states = chains[i].size();
     g.per_channel = chains[i].per_channel();
     g.notes = detail::group_notes(groups[i], chains[i]);
+    if (patterns[i].valid)
+      g.notes.push_back("tested about " + std::to_string(std::llround(detail::timeline_instants(groups[i], chains[i]))) +
+                        " times over the mission: whole test cycles composed by repeated squaring; its curve "
+                        "sampled at " + std::to_string(detail::kCompressedSamples) + " instants" +
+                        (groups.size() > 1 ? ", and its terms with the other subsystems taken at its average between them"
+                                           : std::string()));
     r.pfd_avg += g.pfd_avg;
     r.failure_frequency_per_hour += g.failure_frequency_per_hour;
     r.undetected_failure_frequency_per_hour += g.undetected_failure_frequency_per_hour;

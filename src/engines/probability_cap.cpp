@@ -1,5 +1,6 @@
 // Capping probabilities at 1 where the rare-event sums of the simplified equations exceed it.
 #include "sifter/engines/probability_cap.hpp"
+#include "sifter/model/format.hpp"
 
 #include <algorithm>
 #include <cstdio>
@@ -7,11 +8,7 @@
 namespace sifter {
 namespace {
 
-std::string figure(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.3g", v);
-  return buf;
-}
+std::string figure(double v) { return sifter::figure(v); }
 
 // Returns true when it capped.
 bool cap(std::optional<double>& p) {

@@ -6,17 +6,14 @@
 
 #include "sifter/engines/constraints.hpp"
 #include "sifter/engines/sil.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter {
 namespace {
 
 constexpr double kSecondsPerHour = 3600.0;
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.3g", v);
-  return buf;
-}
+std::string num(double v) { return sifter::figure(v); }
 
 ResponseTimeStep step_of(const Project& project, const Subsystem& sub) {
   ResponseTimeStep step;

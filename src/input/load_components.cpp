@@ -9,6 +9,7 @@
 #include "input/load_pressure.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/engines/uncertainty.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter::detail {
 namespace {
@@ -17,11 +18,7 @@ namespace {
 constexpr double kSffAgreement = 0.01;
 constexpr double kMaxRatePerHour = 1e5;
 
-std::string percent_text(double fraction) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.1f%%", 100.0 * fraction);
-  return buf;
-}
+std::string percent_text(double fraction) { return sifter::percent(fraction); }
 
 // What one JSON object says about an element; absent fields stay empty so that a component
 // can override its library model field by field.

@@ -1,6 +1,7 @@
 // Loading safety instrumented functions and their subsystems, with the project defaults.
 #include <algorithm>
 #include <cctype>
+#include <cmath>
 #include <set>
 
 #include "input/load_parts.hpp"
@@ -9,7 +10,21 @@
 namespace sifter::detail {
 namespace {
 
-constexpr double kMaxTestsPerMission = 20000.0;
+// The exact engine composes whole test cycles by repeated squaring: its work grows with the
+// logarithm of the number of tests. Beyond 1e12 tests the count of cycles leaves the exact
+// integers of a double (README "Limits").
+constexpr double kMaxTestsPerMission = 1e12;
+// A partial stroke interval that neither divides the proof-test interval nor is a whole
+// multiple of it has no common cycle: the engine steps through every test, at most this many.
+constexpr double kMaxUnrelatedTests = 20000.0;
+
+// "20000", "10^12": a count of tests for a message.
+std::string format_count(double n) {
+  if (n < 1e6) return std::to_string(std::llround(n));
+  return "10^" + std::to_string(std::lround(std::log10(n)));
+}
+
+bool whole_multiple(double x) { return x >= 1.0 - 1e-9 && std::fabs(x - std::round(x)) <= 1e-9 * x; }
 
 Role role_of(const std::string& s) {
   if (s == "logic") return Role::kLogic;
@@ -61,25 +76,32 @@ void read_partial_stroke(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
   }
 }
 
-// The exact engine steps through every test of the mission; its work grows with their number.
-// Beyond kMaxTestsPerMission tests (a daily test over 50 years is 18 262) the input is refused
-// before any work starts (README "Limits").
+// Bounds on the exact engine's work, refused before any work starts (README "Limits"): at most
+// kMaxTestsPerMission tests over the mission, and kMaxUnrelatedTests where the partial stroke
+// and the proof test share no cycle.
 void refuse_unbounded_tests(LoadContext& ctx, ObjectReader& r, const Subsystem& sub, const Defaults& defaults) {
   const double mission = defaults.mission_time.hours;
-  auto check = [&](double interval, const std::string& pointer, const char* what) {
-    if (!(interval > 0.0) || !(mission > 0.0) || mission / interval <= kMaxTestsPerMission) return;
+  auto check = [&](double interval, double limit, const std::string& pointer, const char* what, const std::string& hint) {
+    if (!(interval > 0.0) || !(mission > 0.0) || mission / interval <= limit) return;
     ctx.error(0, pointer,
-              std::string("a ") + what + " of at least " + format_duration(Duration{mission / kMaxTestsPerMission}) +
-                  " (at most " + std::to_string(static_cast<long>(kMaxTestsPerMission)) + " tests over the mission of " +
-                  format_duration(defaults.mission_time) + ")",
-              format_duration(Duration{interval}),
-              "a proof test this frequent is an online diagnostic: count it in lambda_dd (dc) instead");
+              std::string("a ") + what + " of at least " + format_duration(Duration{mission / limit}) + " (at most " +
+                  format_count(limit) + " tests over the mission of " + format_duration(defaults.mission_time) + ")",
+              format_duration(Duration{interval}), hint);
   };
+  const std::string diagnostic = "a proof test this frequent is an online diagnostic: count it in lambda_dd (dc) instead";
   if (!sub.is_vendor())
-    check(sub.proof_test_interval.hours, r.has("proof_test_interval") ? r.at("proof_test_interval") : r.pointer(),
-          "proof-test interval");
-  if (sub.partial_stroke)
-    check(sub.partial_stroke->interval.hours, r.at("partial_stroke") + "/interval", "partial stroke interval");
+    check(sub.proof_test_interval.hours, kMaxTestsPerMission,
+          r.has("proof_test_interval") ? r.at("proof_test_interval") : r.pointer(), "proof-test interval", diagnostic);
+  if (!sub.partial_stroke) return;
+  const double tp = sub.partial_stroke->interval.hours;
+  const double t1 = sub.proof_test_interval.hours;
+  const bool shared_cycle = sub.is_vendor() || !(t1 > 0.0) || !(tp > 0.0) || whole_multiple(t1 / tp) || whole_multiple(tp / t1);
+  check(tp, shared_cycle ? kMaxTestsPerMission : kMaxUnrelatedTests, r.at("partial_stroke") + "/interval",
+        "partial stroke interval",
+        shared_cycle ? diagnostic
+                     : "choose a partial stroke interval that divides the proof-test interval of " +
+                           format_duration(Duration{t1}) + " (a half, a quarter, a twelfth of it): the engine then "
+                           "composes whole test cycles");
 }
 
 // Applies a duration from the subsystem, else the project default; reports when neither.

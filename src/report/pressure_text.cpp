@@ -4,6 +4,9 @@
 #include <cstdio>
 
 #include "sifter/results/project.hpp"
+#include "sifter/analysis/maturity.hpp"
+#include "sifter/model/pressure_units.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter::report {
 
@@ -42,9 +45,7 @@ namespace {
 
 std::string category_text(const std::optional<std::string>& category, const std::optional<double>& p, bool preliminary) {
   if (!category) return "not screened";
-  char buf[96];
-  std::snprintf(buf, sizeof buf, "%s at %.2f barg%s", category->c_str(), *p, preliminary ? " (preliminary)" : "");
-  return buf;
+  return *category + " at " + format_pressure(*p) + (preliminary ? " (preliminary)" : "");
 }
 
 }  // namespace

@@ -49,5 +49,17 @@ TEST(FuzzCrashes, TheInputsFoundSoFarAreNowRefused) {
     EXPECT_EQ(replay(name), fuzzing::Outcome::kRejected) << name;
 }
 
+// The fuzz invariants look at what is written too: a PFD above 1 or a negative frequency in
+// the results JSON, however deep, is a finding; the shipped example passes them.
+TEST(FuzzInvariants, AWrittenPfdAboveOneOrANegativeFrequencyIsAFinding) {
+  EXPECT_THROW(fuzzing::check_written(nlohmann::json::parse(R"({"sifs": [{"pfd_avg": 4.39}]})")), std::logic_error);
+  EXPECT_THROW(fuzzing::check_written(nlohmann::json::parse(R"({"scenarios": [{"required_pfd": 10}]})")), std::logic_error);
+  EXPECT_THROW(fuzzing::check_written(nlohmann::json::parse(R"({"s": [{"mitigated_frequency_per_yr": -1e-9}]})")),
+               std::logic_error);
+  EXPECT_NO_THROW(fuzzing::check_written(nlohmann::json::parse(R"({"sifs": [{"pfd_avg": 1, "rrf": 4.4e33}]})")));
+  const auto text = testing::slurp(fs::path(SIFTER_SOURCE_DIR) / "examples/unit40.json");
+  EXPECT_EQ(fuzzing::run_check_path(text, std::string(SIFTER_SOURCE_DIR) + "/examples"), fuzzing::Outcome::kComputed);
+}
+
 }  // namespace
 }  // namespace sifter

@@ -87,6 +87,22 @@ TEST(Curve, AProofTestRenewsTheChannelSoTheCurveDropsAtEachTest) {
   EXPECT_EQ(c.t_hours.back(), 5 * kOneYear);
 }
 
+// The time grid is bounded: up to kMaxCurveTestInstants test instants are each kept (twice:
+// before and after); a one-minute proof test over 20 years (10.5 million tests) gives the
+// uniform samples alone.
+TEST(Curve, TheTimeGridKeepsEveryTestOnlyUpToItsStatedMaximum) {
+  CurveSubsystem s;
+  s.group = group(1, 1, 2e-6, 0.0, 0.0, 0.0, 0.0);
+  const auto instants = [&](double interval_hours, double mission_hours) {
+    s.group->tests = {{1.0, Duration{interval_hours}}};
+    return simplified_curve({s}, Duration{mission_hours}, 100).t_hours.size();
+  };
+  EXPECT_EQ(instants(kOneYear, 20 * kOneYear), 100u + 2u * 19u);
+  const double many = 20 * kOneYear / kMaxCurveTestInstants;  // exactly the maximum, less the end
+  EXPECT_EQ(instants(many, 20 * kOneYear), 100u + 2u * (kMaxCurveTestInstants - 1));
+  EXPECT_EQ(instants(1.0 / 60.0, 20 * kOneYear), 100u);
+}
+
 TEST(Curve, TheSifIsTheSumOfItsSubsystemsAndASupplierFigureIsFlat) {
   CurveSubsystem sensor, vendor;
   sensor.group = group(1, 2, 1e-6, 1e-6, 0.1, 0.05, 8.0);

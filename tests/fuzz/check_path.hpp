@@ -8,6 +8,7 @@
 #include <cmath>
 
 #include "sifter/input/load.hpp"
+#include <nlohmann/json.hpp>
 #include "sifter/report/csv.hpp"
 #include "sifter/report/html.hpp"
 #include "sifter/report/json_results.hpp"
@@ -75,6 +76,31 @@ inline void check_results(const Project& project, const ProjectResult& result) {
   }
 }
 
+/// The same properties on what is written: in the results JSON every number under a key that
+/// names a PFD lies in [0, 1], and every number under a key that names a frequency or a rate
+/// ("*_per_yr", "*_per_hour", "*frequency*") is finite and not negative, however deep.
+inline void check_written(const nlohmann::json& j, const std::string& key = {}) {
+  if (j.is_object()) {
+    for (auto it = j.begin(); it != j.end(); ++it) check_written(it.value(), it.key());
+    return;
+  }
+  if (j.is_array()) {
+    for (const auto& v : j) check_written(v, key);
+    return;
+  }
+  if (!j.is_number()) return;
+  const double v = j.get<double>();
+  auto ends_with = [&](const char* tail) {
+    const std::string t(tail);
+    return key.size() >= t.size() && key.compare(key.size() - t.size(), t.size(), t) == 0;
+  };
+  if (key.find("pfd") != std::string::npos && !(v >= 0.0 && v <= 1.0))
+    throw std::logic_error("written " + key + " outside [0, 1]");
+  if ((ends_with("_per_yr") || ends_with("_per_hour") || key.find("frequency") != std::string::npos) &&
+      !(std::isfinite(v) && v >= 0.0))
+    throw std::logic_error("written " + key + " negative or non-finite");
+}
+
 /// The what-if engine on the first SIF: a sensitivity at factor 2 and a three-point sweep of
 /// lambda_du; every figure must stay finite and every PFDavg within [0, 1]. A what-if that
 /// has nothing to vary (UsageError) is a normal outcome.
@@ -123,7 +149,9 @@ inline Outcome run_check_path(std::string_view text, const std::string& base_dir
   const Project& project = loaded->project;
   check_results(project, result);
   // The writers run in another translation unit; their work is not optimised away.
-  report::results_json(result).dump(2);
+  const nlohmann::json written = report::results_json(result);
+  check_written(written);
+  written.dump(2);
   report::render_terminal(result);
   report::worksheet_csv(result);
   report::sif_csv(result);

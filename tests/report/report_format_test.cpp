@@ -9,6 +9,9 @@
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
+#include "sifter/pressure_units.hpp"
+#include "sifter/quantity.hpp"
+#include "sifter/results.hpp"
 
 namespace sifter {
 namespace {
@@ -69,13 +72,13 @@ ProjectResult one_scenario() {
 }
 
 TEST(WriterFormat, FiniteNumbersPassAndNonFiniteOnesAreRefused) {
-  EXPECT_EQ(report::checked(0.5, "x"), 0.5);
-  EXPECT_EQ(report::sci(4.1e-5), "4.10e-05");
+  EXPECT_EQ(sifter::checked(0.5, "x"), 0.5);
+  EXPECT_EQ(sifter::sci(4.1e-5), "4.10e-05");
   for (double bad : {kNaN, kInf, -kInf}) {
-    EXPECT_TRUE(refused_as_internal([&] { report::checked(bad, "x"); }));
-    EXPECT_TRUE(refused_as_internal([&] { report::sci(bad); }));
-    EXPECT_TRUE(refused_as_internal([&] { report::plain(bad); }));
-    EXPECT_TRUE(refused_as_internal([&] { report::percent(bad); }));
+    EXPECT_TRUE(refused_as_internal([&] { sifter::checked(bad, "x"); }));
+    EXPECT_TRUE(refused_as_internal([&] { sifter::sci(bad); }));
+    EXPECT_TRUE(refused_as_internal([&] { sifter::plain(bad); }));
+    EXPECT_TRUE(refused_as_internal([&] { sifter::percent(bad); }));
   }
 }
 
@@ -122,6 +125,38 @@ TEST(WriterFormat, TheWorksheetRefusesANonFiniteFrequency) {
   ProjectResult r = one_scenario();
   r.scenarios[0].worksheet[0].frequency_per_yr = kNaN;
   EXPECT_TRUE(refused_as_internal([&] { report::worksheet_csv(r); }));
+}
+
+}  // namespace
+}  // namespace sifter
+
+namespace sifter {
+namespace {
+
+// One formatter per kind of quantity (include/sifter/report/format.hpp): the helpers that
+// other rooms kept (the cross-check's ratio, the rate of a component, a pressure) give the
+// very text of the one formatter, so one figure never reads differently in two places.
+TEST(ReportFormat, EveryKindOfQuantityHasOneFormatter) {
+  EXPECT_EQ(sifter::probability(4.1e-5), "4.10e-05");
+  EXPECT_EQ(sifter::per_year(1e-4), "1.00e-04/yr");
+  EXPECT_EQ(sifter::per_hour(2.5e-7), "2.50e-07/h");
+  EXPECT_EQ(sifter::rrf(833.3), "833.3");
+  EXPECT_EQ(sifter::ratio(1.0035001), "1.004");
+  EXPECT_EQ(sifter::percent(0.034), "3.4%");
+  EXPECT_EQ(sifter::figure(0.513449), "0.5134");
+  EXPECT_EQ(format_pressure(12.5), "12.50 barg");
+  EXPECT_EQ(format_duration(Duration{6 * kHoursPerMonth}), "6 mo");
+  for (double r : {0.9995, 1.0035001, 1.00349999, 7.7e36, 2.0 / 3.0}) EXPECT_EQ(ratio_text(r), sifter::ratio(r));
+  for (double v : {2.5e-7, 1e-30, 3.3e5}) EXPECT_EQ(format_rate(Rate{v}), sifter::per_hour(v));
+}
+
+TEST(ReportFormat, TheKindFormattersRefuseNonFiniteNumbers) {
+  for (double bad : {std::numeric_limits<double>::quiet_NaN(), std::numeric_limits<double>::infinity()}) {
+    EXPECT_THROW(sifter::ratio(bad), Error);
+    EXPECT_THROW(sifter::figure(bad), Error);
+    EXPECT_THROW(sifter::per_hour(bad), Error);
+    EXPECT_THROW(sifter::per_year(bad), Error);
+  }
 }
 
 }  // namespace

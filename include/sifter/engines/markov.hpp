@@ -104,7 +104,9 @@ struct SifExactResult {
   std::vector<ExactGroupResult> groups;
 };
 
-/// The exact SIF result on the grid of every test instant of every group. The averages are the
+/// The exact SIF result on the grid of every test instant of every group (a group tested more
+/// than 20 000 times is composed by whole cycles instead, on a grid of the other groups'
+/// instants and 1 000 even samples; README "Limits"). The averages are the
 /// exact integrals: each subsystem's by Van Loan's form; the cross terms of the product, which
 /// are of the order of PFD squared, by Gauss-Legendre quadrature of exact values, graded
 /// towards each test instant. All groups must share one mission time.

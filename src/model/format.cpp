@@ -1,12 +1,13 @@
-// Number formatting for the writers.
-#include "sifter/report/format.hpp"
+// Numbers for people: one formatter per kind of quantity.
+#include "sifter/model/format.hpp"
 
 #include <cmath>
 #include <cstdio>
 
 #include "sifter/model/diagnostics.hpp"
+#include "sifter/model/quantity.hpp"
 
-namespace sifter::report {
+namespace sifter {
 
 double checked(double value, const char* what) {
   if (!std::isfinite(value))
@@ -36,6 +37,28 @@ std::string percent(double fraction) {
   return buf;
 }
 
+std::string probability(double p) { return sci(p); }
+
+std::string per_year(double per_yr) { return sci(per_yr) + "/yr"; }
+
+std::string per_hour(double per_hour) { return format_rate(Rate{checked(per_hour, "rate")}); }
+
+std::string rrf(double value) { return plain(value); }
+
+std::string ratio(double value) {
+  checked(value, "ratio");
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.3f", value);
+  return buf;
+}
+
+std::string figure(double value) {
+  checked(value, "figure");
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.4g", value);
+  return buf;
+}
+
 std::string sci_or_dash(const std::optional<double>& value) { return value ? sci(*value) : "-"; }
 
-}  // namespace sifter::report
+}  // namespace sifter
