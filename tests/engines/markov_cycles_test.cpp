@@ -6,9 +6,9 @@
 #include <chrono>
 #include <cmath>
 
-#include "../src/markov_chain.hpp"
-#include "sifter/markov.hpp"
-#include "sifter/quantity.hpp"
+#include "engines/markov_chain.hpp"
+#include "sifter/engines/markov.hpp"
+#include "sifter/model/quantity.hpp"
 
 namespace sifter {
 namespace {

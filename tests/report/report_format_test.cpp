@@ -9,9 +9,9 @@
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
-#include "sifter/pressure_units.hpp"
-#include "sifter/quantity.hpp"
-#include "sifter/results.hpp"
+#include "sifter/model/pressure_units.hpp"
+#include "sifter/model/quantity.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter {
 namespace {
