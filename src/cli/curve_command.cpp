@@ -9,7 +9,7 @@
 #include "sifter/engines/cross_check.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/model/printable.hpp"
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"

@@ -8,7 +8,6 @@
 namespace sifter {
 namespace {
 
-std::string figure(double v) { return sifter::figure(v); }
 
 // Returns true when it capped.
 bool cap(std::optional<double>& p) {

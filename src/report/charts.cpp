@@ -5,7 +5,7 @@
 #include <cmath>
 #include <cstdio>
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/svg.hpp"
 
 namespace sifter::report {

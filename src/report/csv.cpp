@@ -3,7 +3,7 @@
 
 #include <cstdio>
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/tables.hpp"
 #include "sifter/report/worksheet.hpp"
 

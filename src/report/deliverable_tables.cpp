@@ -1,7 +1,7 @@
 // The deliverable's tables as plain text cells, shared by the HTML and Markdown writers.
 #include "sifter/report/deliverable_tables.hpp"
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/model/vocabulary.hpp"
 
 namespace sifter::report {

@@ -6,7 +6,7 @@
 #include <map>
 #include <optional>
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/svg.hpp"
 
 namespace sifter::report {

@@ -2,7 +2,7 @@
 #include "sifter/report/diff_text.hpp"
 
 #include "sifter/report/pressure_text.hpp"
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/results/sif.hpp"

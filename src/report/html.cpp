@@ -3,7 +3,7 @@
 
 #include "sifter/report/charts.hpp"
 #include "sifter/report/diagrams.hpp"
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/html_deliverable.hpp"
 #include "sifter/report/html_style.hpp"
 #include "sifter/report/service.hpp"

@@ -1,7 +1,7 @@
 // The sifter-results/1 JSON writer: every number finite, absent values as null.
 #include "sifter/report/json_results.hpp"
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/json_stream.hpp"
 
 namespace sifter::report {

@@ -5,7 +5,7 @@
 #include <charconv>
 #include <cstdio>
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter::report {
 namespace {

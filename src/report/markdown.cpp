@@ -5,7 +5,7 @@
 
 #include "sifter/model/printable.hpp"
 #include "sifter/report/deliverable_tables.hpp"
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter::report {
 namespace {

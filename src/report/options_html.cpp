@@ -4,7 +4,7 @@
 
 #include "sifter/results/lopa.hpp"
 #include "sifter/model/vocabulary.hpp"
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/options_text.hpp"
 #include "sifter/report/svg.hpp"
 

@@ -5,7 +5,7 @@
 
 #include "sifter/results/lopa.hpp"
 #include "sifter/model/vocabulary.hpp"
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/results/sif.hpp"

@@ -4,7 +4,6 @@
 #include <cstdio>
 
 #include "sifter/results/project.hpp"
-#include "sifter/analysis/maturity.hpp"
 #include "sifter/model/pressure_units.hpp"
 #include "sifter/model/format.hpp"
 

@@ -1,7 +1,7 @@
 // The terminal's lines on a SIF's stated requirements.
 #include "sifter/report/requirements_text.hpp"
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/model/vocabulary.hpp"
 

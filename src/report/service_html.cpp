@@ -1,5 +1,5 @@
 // The report's "service" section: the plant in service against its design.
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/service.hpp"
 #include "sifter/report/svg.hpp"
 #include "sifter/results/sif.hpp"

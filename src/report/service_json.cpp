@@ -1,7 +1,7 @@
 // `sifter-service/1` JSON and the CSV of the models: every number finite, absent values as null.
 #include <cstdio>
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/service.hpp"
 #include "sifter/results/sif.hpp"
 

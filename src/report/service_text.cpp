@@ -1,5 +1,5 @@
 // The service assessment for the terminal: models, SIFs, counts, schedule, caution.
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/service.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/results/sif.hpp"

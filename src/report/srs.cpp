@@ -5,7 +5,7 @@
 #include <algorithm>
 
 #include "sifter/report/deliverable_tables.hpp"
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/model/vocabulary.hpp"
 
 namespace sifter::report {

@@ -5,7 +5,7 @@
 #include <cmath>
 #include <cstdio>
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter::report {
 

@@ -4,7 +4,7 @@
 #include <algorithm>
 #include <stdexcept>
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter::report {
 namespace {

@@ -7,7 +7,7 @@
 
 #include "sifter/report/pressure_text.hpp"
 #include "sifter/model/vocabulary.hpp"
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/tables.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/report/worksheet.hpp"

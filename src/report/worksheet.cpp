@@ -4,7 +4,7 @@
 
 #include <algorithm>
 
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/text_table.hpp"
 
 namespace sifter::report {

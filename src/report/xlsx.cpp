@@ -14,7 +14,7 @@
 #include <sstream>
 
 #include "sifter/model/diagnostics.hpp"
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/tables.hpp"
 
 namespace sifter::report {

@@ -1,5 +1,5 @@
 // Specification of the writers' last line of defence: no NaN or infinity ever reaches an output.
-#include "sifter/report/format.hpp"
+#include "sifter/model/format.hpp"
 
 #include <gtest/gtest.h>
 
