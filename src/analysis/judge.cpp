@@ -92,6 +92,15 @@ SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<Requir
   return out;
 }
 
+std::optional<bool> sif_verdict(const SifTarget& target, std::optional<double> figure, const VerdictBasis& basis) {
+  std::optional<bool> verdict = figure ? judge(target, *figure) : std::nullopt;
+  if (verdict && target.sil)
+    verdict = *verdict && basis.sil_architecture >= *target.sil && basis.sil_systematic >= *target.sil;
+  if (verdict && basis.route_2h_confidence) verdict = *verdict && *basis.route_2h_confidence >= kRoute2hMinConfidence;
+  if (!basis.stated_requirements_met) verdict = false;  // a stated requirement not met: short, target or not
+  return verdict;
+}
+
 std::optional<bool> judge(const SifTarget& target, double figure) {
   if (!target.sil) return std::nullopt;
   const bool low = target.mode == DemandMode::kLow;

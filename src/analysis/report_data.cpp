@@ -86,7 +86,7 @@ ReportData build_report_data(const Project& project, const ProjectResult& result
     if (r.demand_mode == DemandMode::kLow && r.pfd_avg && !options.compact) {
       d.pfd_curve = pfd_plot(project, project.sifs[i], options);
       if (options.sensitivity) d.sensitivity = sensitivity_rows(what_if, i);
-      if (d.required_pfd) d.interval_sweep = interval_sweep(project, project.sifs[i], *d.required_pfd);
+      if (d.required_pfd) d.interval_sweep = interval_sweep(what_if, i, *d.required_pfd);
     }
     data.sifs.push_back(std::move(d));
   }

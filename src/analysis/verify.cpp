@@ -18,7 +18,7 @@
 #include "sifter/engines/group_model.hpp"
 #include "sifter/analysis/judge.hpp"
 #include "sifter/analysis/judged_figure.hpp"
-#include "sifter/engines/sif_uncertainty.hpp"
+#include "sifter/analysis/sif_uncertainty.hpp"
 #include "sifter/engines/sil.hpp"
 #include "sifter/engines/spurious.hpp"
 #include "sifter/model/format.hpp"
@@ -171,8 +171,6 @@ void apply_constraints(const Project& project, const Sif& sif, SifResult& r, con
   p.achieved = *achieved;
   p.required = required.value_or(sil_upper_limit(*r.sil_required, r.demand_mode));
   r.limits = limits_for(p, c, *r.sil_required);
-  if (r.meets_target)
-    r.meets_target = *r.meets_target && r.sil_architecture >= *r.sil_required && r.sil_systematic >= *r.sil_required;
 }
 
 void warn_beyond_simplified_range(const Sif& sif, const SifResult& r, std::vector<Warning>& warnings) {
@@ -251,17 +249,37 @@ void record_target(const SifTarget& t, SifResult& r) {
   if (t.required_rrf && r.demand_mode == DemandMode::kLow) r.required_rrf = t.required_rrf;
 }
 
-// The judged figure's SIL, RRF and verdict, from the one judge.
-void apply_verdict(const SifTarget& target, SifResult& r) {
+// The judged figure's SIL and RRF (the verdict is decided once, by sif_verdict, at the end).
+void apply_probability(SifResult& r) {
   const bool low = r.demand_mode == DemandMode::kLow;
   const std::optional<double> figure = low ? r.pfd_avg : r.pfh_per_hour;
   if (!figure) return;
   r.sil_probability = low ? sil_from_pfd_avg(*figure) : sil_from_pfh(*figure);
   if (low) r.rrf = *figure > 0.0 ? std::optional<double>(1.0 / *figure) : std::nullopt;
-  r.meets_target = judge(target, *figure);
 }
 
 }  // namespace
+
+SifTarget recorded_target(const SifResult& r) {
+  SifTarget target;
+  target.mode = r.demand_mode;
+  target.sil = r.sil_required;
+  target.required_pfd = r.required_pfd;
+  target.required_pfh_per_hour = r.required_pfh_per_hour;
+  target.required_rrf = r.required_rrf;
+  target.text = r.target_text;
+  return target;
+}
+
+VerdictBasis verdict_basis(const SifResult& r, std::optional<double> route_2h_confidence) {
+  VerdictBasis basis;
+  basis.sil_architecture = r.sil_architecture;
+  basis.sil_systematic = r.sil_systematic;
+  basis.stated_requirements_met = std::all_of(r.requirement_checks.begin(), r.requirement_checks.end(),
+                                              [](const RequirementCheck& c) { return c.ok; });
+  if (r.constraints == ConstraintBasis::kRoute2H) basis.route_2h_confidence = route_2h_confidence;
+  return basis;
+}
 
 SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache) {
@@ -278,7 +296,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
     warnings.push_back({sif.pointer, "no target and no scenario names this SIF; it is computed but not judged"});
   if (options.exact && complete) apply_exact_cross_check(project, sif, r, warnings, cache);
   if (complete) choose_judged_figures(project, sif, r);
-  apply_verdict(target, r);
+  apply_probability(r);
   add_spurious_trips(project, sif, r);
   const std::optional<double> judged = r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
   apply_constraints(project, sif, r, target.limit(), judged);
@@ -287,7 +305,8 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
     r.credit_pfd = credit.value;
     r.credit_capped = credit.capped;
   }
-  apply_requirement_checks(project, sif, r, warnings);  // the stated requirements join the verdict here
+  apply_requirement_checks(project, sif, r, warnings);
+  r.meets_target = sif_verdict(target, judged, verdict_basis(r));  // the one verdict
   return r;
 }
 
@@ -396,8 +415,13 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
     if (!r.uncertainty) continue;
     r.assumptions.push_back("uncertainty: " + std::to_string(options.samples) + " samples, seed " +
                             std::to_string(options.seed) + "; " + r.uncertainty->method);
-    if (r.constraints == ConstraintBasis::kRoute2H && r.meets_target && r.uncertainty->probability_meets_target < 0.9) {
-      r.meets_target = false;
+    // Only a SIF that meets otherwise: then every sample's verdict is its figure's judgement,
+    // and P(meets target) is the confidence Route 2H asks of the target failure measure.
+    if (r.constraints == ConstraintBasis::kRoute2H && r.meets_target.value_or(false) &&
+        r.uncertainty->probability_meets_target < kRoute2hMinConfidence) {
+      // The one verdict again, now with the Monte Carlo's confidence (it is below 90 %: short).
+      r.meets_target = sif_verdict(recorded_target(r), r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour,
+                                   verdict_basis(r, r.uncertainty->probability_meets_target));
       r.limits.push_back({"probability", std::nullopt, std::nullopt, r.sil_probability,
                           "Route 2H asks for at least 90% confidence that the target failure measure is met "
                           "(IEC 61508-2:2010 7.4.4.3.1); the Monte Carlo gives " +

@@ -23,6 +23,8 @@ struct CompareOptions {
 Action add_compare_command(CLI::App& app) {
   auto opts = std::make_shared<CompareOptions>();
   auto* cmd = app.add_subcommand("compare", "Compare votes of one subsystem: PFDavg, SILs and spurious trips");
+  // The what-ifs answer a question; the verdict of check is not their exit status.
+  cmd->footer("Exit status: 0 the votes were compared, whatever their verdicts (each is in its row); 2 bad input or usage.");
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("--sif", opts->sif, "the SIF's id")->required();
   cmd->add_option("--subsystem", opts->subsystem, "the subsystem to re-vote")->required();

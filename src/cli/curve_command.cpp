@@ -66,6 +66,8 @@ const Sif& find_sif(const Project& project, const std::string& id) {
 Action add_curve_command(CLI::App& app) {
   auto opts = std::make_shared<CurveOptions>();
   auto* cmd = app.add_subcommand("curve", "PFD(t) of a SIF and its subsystems over the mission (exact engine)");
+  // The what-ifs answer a question; the verdict of check is not their exit status.
+  cmd->footer("Exit status: 0 the curve was computed, whatever the SIF's verdict; 2 bad input or usage.");
   cmd->add_option("project", opts->project, "the project file")->required();
   cmd->add_option("--sif", opts->sif, "the SIF's id")->required();
   cmd->add_option("--points", opts->points, "evenly spaced samples (every test instant is added)")

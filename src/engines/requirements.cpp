@@ -230,7 +230,8 @@ void apply_requirement_checks(const Project& project, const Sif& sif, SifResult&
   check_spurious(project, sif, q, r, limits);
   check_interval(sif, q, r, limits);
   if (limits.empty()) return;
-  r.meets_target = false;  // a stated requirement not met: the SIF falls short, target or not
+  // A failed check (ok false in requirement_checks) makes the SIF fall short, target or not:
+  // sif_verdict (judge.hpp) decides it with the figure and the constraints.
   r.limits.insert(r.limits.end(), limits.begin(), limits.end());
 }
 

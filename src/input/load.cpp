@@ -187,6 +187,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   if (ctx.problems.empty()) {
     const auto graph_problems = validate_project_graph(project, &out.graph);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
+    if (graph_problems.empty()) detail::check_diverse_groups(ctx, project);
   }
   detail::settle_reuse_problems(ctx, reuse);
   if (!ctx.problems.empty()) throw InputError(ctx.located(), ctx.follow_ons_suppressed);

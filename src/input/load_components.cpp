@@ -276,6 +276,7 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
       else ctx.error(0, r.at("in_service_since"), "a date written YYYY-MM-DD (ISO 8601)", "\"" + *since + "\"",
                      "a real calendar day between 1900 and 2999, e.g. 2024-02-29");
     }
+    if (const Json* made = r.member("manufacturer"); made && made->is_string()) c.manufacturer = made->get<std::string>();
     allow_descriptive(r);
     ElementFields own = read_element_fields(r);
     c.status = read_status(r);
@@ -291,7 +292,12 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
       else
         unknown_model(ctx, r, c.model, models);
     }
-    if (m != models.end()) fields = merge(fields_of(m->second, m->first), own);
+    if (m != models.end()) {
+      fields = merge(fields_of(m->second, m->first), own);
+      const auto made = m->second.fields.find("manufacturer");
+      if (c.manufacturer.empty() && made != m->second.fields.end() && made->is_string())
+        c.manufacturer = made->get<std::string>();
+    }
     c.rates = resolve_rates(fields);
     if (fields.field_data) {
       // Field experience replaces the stated lambda_du by its one-sided upper confidence bound.

@@ -37,6 +37,10 @@ void read_scenarios(LoadContext& ctx, const Json& root, Project& project);
 
 /// Checks across sections: demand mode of vendor figures and targets, the SIF's signal path.
 void check_project_plausibility(LoadContext& ctx, const Project& project);
+/// "diverse": true on a group whose channels are identical (same component data, or the same
+/// library model with no field that differs) is refused at its "diverse" key. Needs the
+/// channels' component indices (after the graph validation).
+void check_diverse_groups(LoadContext& ctx, const Project& project);
 
 }  // namespace sifter::detail
 

@@ -166,21 +166,17 @@ std::string interval_svg(const SifResult& sif, const IntervalSweep& sweep) {
   c.text(p.x(1.0) + 4, p.top + 14, "present intervals", "note");
   const double legend_y = top + plot_h + 62.0;
   svg::legend_line(c, left, legend_y, "req-line", "required PFD " + sci(sweep.required_pfd));
-  if (sweep.longest_factor && *sweep.longest_factor >= kSweepMinFactor && *sweep.longest_factor <= kSweepMaxFactor) {
-    const double lx = p.x(*sweep.longest_factor);
-    c.line(lx, p.top, lx, p.top + p.height, "limit-line");
-    const bool right_half = lx > p.left + p.width / 2;  // keep the words inside the plot
-    c.text(right_half ? lx - 4 : lx + 4, p.top + p.height - 8, "longest allowed " + factor_words(*sweep.longest_factor),
-           "note", right_half ? Anchor::kEnd : Anchor::kStart);
-    svg::legend_line(c, left + 320, legend_y, "limit-line", "longest allowed scaling " + factor_words(*sweep.longest_factor));
-  } else {
-    const std::string words = sweep.longest_factor ? "longest allowed " + factor_words(*sweep.longest_factor) +
-                                                         ", outside the plotted range"
-                              : sweep.meets_beyond_search ? "meets the requirement beyond " +
-                                                                factor_words(kSearchMaxFactor)
-                                                          : "no scaling in the searched range meets the requirement";
-    c.text(left + 320, legend_y, words, "legend");
+  // The longest interval is the what-if engine's (the answer of `sifter interval`): one
+  // interval for every tested subsystem, which this plot of scaled intervals cannot mark.
+  std::string words = "longest interval: not computed (no requirement)";
+  if (sweep.longest) {
+    const auto& l = *sweep.longest;
+    words = l.outcome == IntervalOutcome::kNone           ? "longest interval: none meets the requirement"
+            : l.outcome == IntervalOutcome::kWholeMission ? "longest interval: the whole mission, " + format_duration(l.longest)
+                                                          : "longest interval (all tested subsystems): " +
+                                                                format_duration(l.longest);
   }
+  c.text(left + 320, legend_y, words, "legend");
   return c.render("interval-sweep", "PFDavg of " + sif.id + " against its proof-test intervals");
 }
 

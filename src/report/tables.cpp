@@ -161,12 +161,16 @@ Table subsystem_table(const SifResult& s) {
 }
 
 Table interval_table(const IntervalSweep& sweep) {
-  Table t{"Proof-test intervals, present and longest allowed (all scaled together)",
+  Table t{"Proof-test intervals, present and longest allowed (every tested subsystem at one interval, as sifter "
+          "interval answers)",
           {"subsystem", "present interval", "longest allowed"}, {false, true, true}, {}};
+  const bool whole_mission = sweep.longest && sweep.longest->outcome == IntervalOutcome::kWholeMission;
+  const bool none = sweep.longest && sweep.longest->outcome == IntervalOutcome::kNone;
   for (const auto& s : sweep.subsystems) {
     std::string longest = kNone;
-    if (s.longest) longest = format_duration(*s.longest);
-    else if (s.present && sweep.meets_beyond_search) longest = "no bound found";
+    if (s.longest && whole_mission) longest = "the whole mission, " + format_duration(*s.longest);
+    else if (s.longest) longest = format_duration(*s.longest);
+    else if (s.present && none) longest = "none: falls short at any interval";
     t.rows.push_back(cells({s.name, s.present ? format_duration(*s.present) : "(supplier's figure)", longest}));
   }
   return t;

@@ -6,7 +6,7 @@
 
 #include "support/lopa_fixtures.hpp"
 #include "sifter/analysis/judge.hpp"
-#include "sifter/engines/sif_uncertainty.hpp"
+#include "sifter/analysis/sif_uncertainty.hpp"
 #include "sifter/engines/simplified.hpp"
 #include "sifter/analysis/verify.hpp"
 

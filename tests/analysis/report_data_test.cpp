@@ -6,6 +6,7 @@
 #include <cmath>
 
 #include "sifter/input/load.hpp"
+#include "sifter/analysis/whatif.hpp"
 
 namespace sifter {
 namespace {
@@ -53,6 +54,27 @@ TEST(ReportData, EachLowDemandSifGetsItsExactCurveSweepAndSensitivityRanking) {
   }
   EXPECT_EQ(c.data.date, "2025-01-31");
   EXPECT_EQ(c.data.tool_version, SIFTER_VERSION);
+}
+
+// The report's longest interval is the what-if engine's answer, the one `sifter interval`
+// prints (no second search; issue 11): equal to the last bit on every SIF of the example.
+TEST(ReportData, TheLongestIntervalOfEachSifIsTheAnswerOfTheIntervalCommand) {
+  const Computed c = example();
+  const WhatIf what_if(c.loaded.project);
+  int compared = 0;
+  for (std::size_t i = 0; i < c.data.sifs.size(); ++i) {
+    const auto& sweep = c.data.sifs[i].interval_sweep;
+    if (!sweep) continue;
+    ASSERT_TRUE(sweep->longest.has_value()) << c.result.sifs[i].id;
+    const IntervalResult direct = longest_proof_test_interval(what_if, i, std::nullopt, 0.0);
+    EXPECT_EQ(sweep->longest->outcome, direct.outcome) << c.result.sifs[i].id;
+    EXPECT_EQ(sweep->longest->longest.hours, direct.longest.hours) << c.result.sifs[i].id;
+    EXPECT_EQ(sweep->longest->whole_months, direct.whole_months) << c.result.sifs[i].id;
+    for (const auto& sub : sweep->subsystems)
+      if (sub.longest) EXPECT_EQ(sub.longest->hours, direct.longest.hours) << sub.name;
+    ++compared;
+  }
+  EXPECT_EQ(compared, 3);
 }
 
 // SIF-403: probability SIL 3, architecture SIL 2 (1oo1 final element), systematic SIL 2

@@ -156,6 +156,47 @@ TEST(WhatIfCli, SensitivityRanksTheInputsWithPointers) {
   EXPECT_EQ(run_sifter("sensitivity examples/unit40.json --sif SIF-401 --factor 0.5").exit_code, 2);
 }
 
+// Each what-if command's exit status is what its --help says (issue 11). The SIF of
+// whatif_no_interval.json falls short at its present interval and at any other (its lDD MTTR
+// alone exceeds the target), so a status that followed check's verdict would be 1 everywhere.
+struct ExitCase {
+  const char* command;
+  const char* args;
+  const char* help_says;
+  int exit_code;
+};
+
+TEST(WhatIfCli, EachWhatIfCommandExitsAsItsHelpSays) {
+  const ExitCase cases[] = {
+      {"interval", "--sif S1", "1 no interval does; 2 bad input or usage.", 1},
+      {"sweep", "--sif S1 --vary mttr --from '1 h' --to '8 h' --steps 2",
+       "0 the sweep was computed, whatever the verdicts at its values", 0},
+      {"sensitivity", "--sif S1", "0 the ranking was computed, whether the SIF meets its target or not", 0},
+      {"compare", "--sif S1 --subsystem valve --votes 1oo1,1oo2 --beta 10%",
+       "0 the votes were compared, whatever their verdicts", 0},
+      {"curve", "--sif S1 --points 20", "0 the curve was computed, whatever the SIF's verdict", 0},
+  };
+  for (const auto& c : cases) {
+    const auto help = run_sifter(std::string(c.command) + " --help");
+    EXPECT_EQ(help.exit_code, 0) << c.command;
+    // CLI11 wraps nothing in footers: the sentence is found whole.
+    EXPECT_NE(help.out.find(std::string("Exit status: ") + (c.exit_code == 1 ? "0 an interval" : c.help_says)),
+              std::string::npos)
+        << c.command << "\n" << help.out;
+    EXPECT_NE(help.out.find(c.help_says), std::string::npos) << c.command << "\n" << help.out;
+    EXPECT_EQ(help.out.find("1 at least one falls short"), std::string::npos) << c.command;  // check's, not theirs
+    const auto r = run_sifter(std::string(c.command) + " tests/data/whatif_no_interval.json " + c.args);
+    EXPECT_EQ(r.exit_code, c.exit_code) << c.command << "\n" << r.err;
+    const auto bad = run_sifter(std::string(c.command) + " tests/data/whatif_no_interval.json --sif NOPE " +
+                                (std::string(c.command) == "sweep" ? "--vary mttr --from '1 h' --to '8 h'" : "") +
+                                (std::string(c.command) == "compare" ? "--subsystem valve --votes 1oo1" : ""));
+    EXPECT_EQ(bad.exit_code, 2) << c.command << "\n" << bad.err;
+  }
+  // The interval command's 0: an interval up to the mission time meets the requirement.
+  const auto found = run_sifter("interval examples/unit40.json --sif SIF-401 --subsystem 'outlet isolation' --json -");
+  EXPECT_EQ(found.exit_code, 0) << found.err;
+}
+
 TEST(WhatIfCli, DiffOfARevisionThatWorsensAVerdictExitsOne) {
   const auto r = run_sifter("diff examples/unit40.json tests/data/unit40_rev_b.json");
   EXPECT_EQ(r.exit_code, 1) << r.err;

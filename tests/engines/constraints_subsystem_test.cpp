@@ -100,6 +100,56 @@ TEST(Route1hParallel, GroupLooksItsElementsUpAtItsHft) {
   EXPECT_EQ(r.sil_architecture, 2);
 }
 
+// Parallel channels of different elements (issue 11; IEC 61508-2:2010 7.4.4.2.4, from memory):
+// the group takes the best channel's SIL at HFT 0 plus its HFT. Cells from memory, Tables 2 and
+// 3 of IEC 61508-2:2010: Type A, SFF 55 % (< 60 %), HFT 0 is SIL 1; Type B, SFF 91 % (90-99 %),
+// HFT 0 is SIL 2. The best channel gives SIL 2, plus HFT 1: SIL 3. Looking each element up at
+// HFT 1 and taking the lowest (the old rule) gives Type A < 60 % at HFT 1 = SIL 2.
+TEST(Route1hParallelOfDifferentElements, OneOoTwoOfTypeA55AndTypeB91ReachesSil3) {
+  const std::vector<Component> comps{element("LS-1", kA, 0.55, 3), element("LT-2", kB, 0.91, 3)};
+  const auto r = subsystem_constraints(group("level", vote(1, 2), {{0}, {1}}), comps, ConstraintBasis::kRoute1H, kLow);
+  EXPECT_EQ(r.sil_architecture, 3);
+  EXPECT_TRUE(has_cap(r, CapCause::kRoute1hElement, "LT-2"));
+  EXPECT_TRUE(has_finding(r, "In subsystem 'level', the channels are of different elements; at HFT 0 channel 1 "
+                             "SIL 1 (LS-1), channel 2 SIL 2 (LT-2). The group takes the best channel, governed by "
+                             "LT-2 (Type B, SFF 91.00 %, SIL 2 at HFT 0), plus its HFT 1: at most SIL 3 (Route 1H, "
+                             "parallel combination, IEC 61508-2:2010 7.4.4.2.4)."));
+  // The order the channels are listed in does not matter.
+  const auto swapped = subsystem_constraints(group("level", vote(1, 2), {{1}, {0}}), comps, ConstraintBasis::kRoute1H, kLow);
+  EXPECT_EQ(swapped.sil_architecture, 3);
+}
+
+// In series the lowest still governs (IEC 61508-2:2010 7.4.4.2.3, from memory): the mixed 1oo2
+// above (SIL 3) followed by a 1oo1 Type A SFF 55 % (Table 2, HFT 0: SIL 1) gives the SIF SIL 1.
+TEST(Route1hParallelOfDifferentElements, InSeriesTheLowestSubsystemGovernsTheSif) {
+  Sif sif;
+  sif.id = "S";
+  sif.subsystems = {group("level", vote(1, 2), {{0}, {1}}), group("valve", vote(1, 1), {{2}})};
+  sif.subsystems[1].role = Role::kFinal;
+  const std::vector<Component> comps{element("LS-1", kA, 0.55, 3), element("LT-2", kB, 0.91, 3),
+                                     element("XV-1", kA, 0.55, 3)};
+  const auto c = sif_constraints(sif, comps, ConstraintBasis::kRoute1H, kLow);
+  ASSERT_EQ(c.subsystems.size(), 2u);
+  EXPECT_EQ(c.subsystems[0].sil_architecture, 3);
+  EXPECT_EQ(c.subsystems[1].sil_architecture, 1);
+  EXPECT_EQ(c.sil_architecture, 1);
+}
+
+// A 2oo3 counts on two working channels: the second best channel governs (our reading of
+// 7.4.4.2.4 for K > 1, the conservative one). Type B 91 % (SIL 2), Type B 91 % (SIL 2), Type A
+// 55 % (SIL 1) at HFT 0, from memory: the second best is SIL 2, plus HFT 1: SIL 3; with two Type A
+// 55 % channels the second best is SIL 1, plus 1: SIL 2.
+TEST(Route1hParallelOfDifferentElements, TwoOoThreeTakesTheSecondBestChannel) {
+  const std::vector<Component> comps{element("A-1", kB, 0.91, 3), element("A-2", kB, 0.91, 3),
+                                     element("A-3", kA, 0.55, 3), element("A-4", kA, 0.55, 3)};
+  EXPECT_EQ(subsystem_constraints(group("g", vote(2, 3), {{0}, {1}, {2}}), comps, ConstraintBasis::kRoute1H, kLow)
+                .sil_architecture,
+            3);
+  EXPECT_EQ(subsystem_constraints(group("g", vote(2, 3), {{0}, {2}, {3}}), comps, ConstraintBasis::kRoute1H, kLow)
+                .sil_architecture,
+            2);
+}
+
 // Table 3 [seen]: Type B, SFF < 60 %, HFT 0 is not allowed.
 TEST(Route1hNotAllowed, TypeBBelowSixtyPercentAtHftZeroCannotClaimASil) {
   const auto r = subsystem_constraints(group("level", vote(1, 1), {{0}}), {element("LT-1", kB, 0.5, 3)},

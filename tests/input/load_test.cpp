@@ -76,6 +76,28 @@ TEST(Load, LibraryModelsGiveTheirFieldsAndComponentsOverrideThem) {
   EXPECT_EQ(p.components[0].systematic_capability, 3);
 }
 
+// Issue 11: "diverse" needs channels that differ. Two components of one library model pass
+// when a field differs (here LT-2's own lambda_du) or when a manufacturer is named apart; the
+// identical pairs are refused in the catalogue (tests/data/bad/diverse_identical_channels,
+// diverse_same_library_model).
+TEST(Load, DiverseChannelsOfOneModelPassWhenAFieldOrTheManufacturerDiffers) {
+  std::string text = kMinimal;
+  const std::string vote = R"("vote": "1oo1", "channels": ["LT-1"] })";
+  text.replace(text.find(vote), vote.size(),
+               R"("vote": "1oo2", "channels": ["LT-1", "LT-2"], "beta": 0.05, "diverse": true,
+                  "diversity_note": "invented" })");
+  EXPECT_NO_THROW(load_inline(text.c_str()));
+  std::string same = text;
+  const std::string own = R"("model": "level-transmitter-radar", "lambda_du": "120 FIT" })";
+  same.replace(same.find(own), own.size(), R"("model": "level-transmitter-radar" })");
+  EXPECT_THROW(load_inline(same.c_str()), InputError);
+  std::string made = same;
+  const std::string plain = R"({ "id": "LT-2", "model": "level-transmitter-radar" })";
+  made.replace(made.find(plain), plain.size(),
+               R"({ "id": "LT-2", "model": "level-transmitter-radar", "manufacturer": "invented maker B" })");
+  EXPECT_NO_THROW(load_inline(made.c_str()));
+}
+
 TEST(Load, LambdaDWithDcSplitsIntoDetectedAndUndetected) {
   const auto p = load_inline(kMinimal).project;
   const auto& xv = p.components[2].rates;

@@ -42,6 +42,28 @@ SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<Requir
 /// target. No SIL required: std::nullopt.
 std::optional<bool> judge(const SifTarget& target, double figure);
 
+/// Everything a SIF's verdict rests on besides its figure: the SIL its architecture and its
+/// systematic capability allow, whether every stated requirement (response time, spurious trip
+/// limit, required proof-test interval; requirements.hpp) holds, and on Route 2H the Monte
+/// Carlo's confidence that the figure meets the target.
+struct VerdictBasis {
+  int sil_architecture = 4;
+  int sil_systematic = 4;
+  bool stated_requirements_met = true;
+  std::optional<double> route_2h_confidence;  ///< P(figure meets target), Route 2H with a Monte Carlo only
+};
+
+/// Route 2H asks at least this confidence that the target failure measure is met
+/// (IEC 61508-2:2010 7.4.4.3.1, from memory).
+inline constexpr double kRoute2hMinConfidence = 0.9;
+
+/// The one verdict of a SIF: the judge of its figure against its target, the architecture and
+/// SC reaching the required SIL, every stated requirement met and, on Route 2H, the confidence.
+/// A stated requirement not met makes the SIF fall short even without a target; without a
+/// target and with every stated requirement met, it is not judged (std::nullopt). verify, every
+/// what-if (through verify_sif), each Monte Carlo sample and the writers take this verdict.
+std::optional<bool> sif_verdict(const SifTarget& target, std::optional<double> figure, const VerdictBasis& basis);
+
 /// The lower edge of the band of a SIL: the best figure a SIF of that SIL may be credited with
 /// (IEC 61511-1:2016 Tables 4/5; SIL 0 is the band above SIL 1: 0.1 low demand, 1e-5/h high).
 double sil_band_lower_edge(int sil, DemandMode mode);

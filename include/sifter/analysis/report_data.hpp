@@ -9,7 +9,7 @@
 
 #include "sifter/engines/curve.hpp"
 #include "sifter/analysis/deliverable.hpp"
-#include "sifter/engines/interval_curve.hpp"
+#include "sifter/analysis/interval_curve.hpp"
 #include "sifter/analysis/options.hpp"
 #include "sifter/analysis/verify.hpp"
 #include "sifter/results/report.hpp"

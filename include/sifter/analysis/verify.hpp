@@ -30,6 +30,12 @@ struct VerifyOptions {
   std::function<void(long long, long long)> progress;
 };
 
+/// The requirement a verified SIF was judged against, as its result records it.
+SifTarget recorded_target(const SifResult& r);
+/// What the verdict of a verified SIF rests on besides its figure (architecture, SC, the stated
+/// requirement checks; `route_2h_confidence` from the Monte Carlo where the SIF is on Route 2H).
+VerdictBasis verdict_basis(const SifResult& r, std::optional<double> route_2h_confidence = std::nullopt);
+
 /// Verifies one SIF: PFDavg or PFH of every subsystem and of the SIF, RRF, the SIL from
 /// probability, the target and the verdict, with the assumptions applied.
 SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,

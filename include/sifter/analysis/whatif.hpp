@@ -25,7 +25,8 @@ class WhatIf {
   explicit WhatIf(Project project);
   [[nodiscard]] const Project& project() const { return project_; }
   /// Verifies SIF `sif` (an index into Project::sifs) of `modified`, a copy of project() with
-  /// changes, exactly as `check` would (the exact cross-check off: the simplified figures decide).
+  /// changes, exactly as `check` would (the exact engine on, so that groups of different channels
+  /// are judged on the figure check judges them on).
   [[nodiscard]] SifResult verify(const Project& modified, std::size_t sif) const;
   /// The unmodified SIF's result.
   [[nodiscard]] SifResult baseline(std::size_t sif) const { return verify(project_, sif); }

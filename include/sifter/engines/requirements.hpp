@@ -25,8 +25,9 @@ std::vector<ResponseTimeStep> response_budget(const Project& project, const Sif&
 std::optional<double> response_time_s(const std::vector<ResponseTimeStep>& budget);
 
 /// Computes the checks of the SIF's stated requirements into `r` (response_time_s,
-/// response_time_limit_s, response_budget, requirement_checks). A failed check makes the SIF
-/// fall short and adds a limit naming the slowest element or the largest trip contributor.
+/// response_time_limit_s, response_budget, requirement_checks). A failed check adds a limit
+/// naming the slowest element or the largest trip contributor; the verdict that follows from it
+/// is sif_verdict's (judge.hpp), which verify_sif applies after these checks.
 /// `r` must hold the SIF's verified figures (spurious trips included). Also warns of each
 /// component the SIF uses whose failure data name no source.
 void apply_requirement_checks(const Project& project, const Sif& sif, SifResult& r, std::vector<Warning>& warnings);

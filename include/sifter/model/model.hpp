@@ -86,6 +86,7 @@ struct Component {
   std::optional<PriorUse> prior_use;        ///< prior-use claim, IEC 61511-1:2016 11.5.3
   std::optional<DataSource> source;         ///< the data source in full (data_source holds its one line)
   std::optional<Duration> response_time;    ///< time from demand to its action (a valve's stroke)
+  std::string manufacturer;  ///< as written on the component or its library model, empty if none
 };
 
 /// A vote: the group works while K of its N channels work. 1oo2D is K=1, N=2 with diagnostics.

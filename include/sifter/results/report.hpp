@@ -11,6 +11,7 @@
 #include "sifter/results/deliverable.hpp"
 #include "sifter/results/options.hpp"
 #include "sifter/results/project.hpp"
+#include "sifter/results/whatif.hpp"
 
 namespace sifter {
 
@@ -30,20 +31,22 @@ struct IntervalPoint {
   double pfd_avg = 0.0;  ///< the SIF's PFDavg at that factor (verify_sif, IEC 61508-6:2010 Annex B)
 };
 
-/// A subsystem's proof-test interval now and at the longest allowed factor; both empty for a
-/// supplier's figure, which has no interval of its own here.
+/// A subsystem's proof-test interval now and the longest allowed; both empty for a supplier's
+/// figure, which has no interval of its own here.
 struct SubsystemInterval {
   std::string name;
   std::optional<Duration> present;
-  std::optional<Duration> longest;
+  std::optional<Duration> longest;  ///< the what-if engine's answer, for the subsystems it varied
 };
 
 /// PFDavg against the proof-test intervals of one SIF (low demand).
 struct IntervalSweep {
   std::vector<IntervalPoint> points;     ///< from kSweepMinFactor to kSweepMaxFactor, geometric
   double required_pfd = 0.0;             ///< the PFDavg the SIF must not exceed
-  std::optional<double> longest_factor;  ///< largest factor meeting required_pfd, if in the search range
-  bool meets_beyond_search = false;      ///< still meets at kSearchMaxFactor (no finite bound found)
+  /// The longest interval, from the what-if engine (longest_proof_test_interval, every tested
+  /// subsystem together, no margin): the same answer `sifter interval` gives. Empty when the
+  /// SIF has no requirement to solve against.
+  std::optional<IntervalResult> longest;
   std::vector<SubsystemInterval> subsystems;  ///< in the SIF's order
 };
 
@@ -93,10 +96,5 @@ struct ReportOptions {
 inline constexpr double kSweepMinFactor = 1.0 / 16.0;
 
 inline constexpr double kSweepMaxFactor = 16.0;
-
-/// The range in which the longest allowed factor is searched.
-inline constexpr double kSearchMinFactor = 1.0 / 1024.0;
-
-inline constexpr double kSearchMaxFactor = 1024.0;
 
 }  // namespace sifter

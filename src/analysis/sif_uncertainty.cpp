@@ -1,8 +1,9 @@
 // The Monte Carlo of one SIF on its uncertain failure data, on the resolved group models.
-#include "sifter/engines/sif_uncertainty.hpp"
+#include "sifter/analysis/sif_uncertainty.hpp"
 
 #include "sifter/engines/group_model.hpp"
 #include "sifter/analysis/judge.hpp"
+#include "sifter/analysis/verify.hpp"
 
 namespace sifter {
 namespace {
@@ -74,11 +75,10 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
   for (const auto& s : verified.subsystems) subsystem_sum += (low ? s.pfd_avg : s.pfh_per_hour).value_or(0.0);
   const std::optional<double> judged = low ? verified.pfd_avg : verified.pfh_per_hour;
   const double sif_scale = judged && subsystem_sum > 0.0 ? *judged / subsystem_sum : 1.0;
-  SifTarget target;
-  target.mode = verified.demand_mode;
-  target.sil = verified.sil_required;
-  target.required_pfd = verified.required_pfd;
-  target.required_pfh_per_hour = verified.required_pfh_per_hour;
+  // Each sample takes the SIF's one verdict (sif_verdict): its figure judged against the
+  // target, with the architecture, SC and stated requirements the point verdict rests on.
+  const SifTarget target = recorded_target(verified);
+  const VerdictBasis basis = verdict_basis(verified);
   MonteCarloOptions used = options;
   for (const auto& g : groups)
     for (const auto& ch : g.channels)
@@ -101,7 +101,8 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
     return sif_scale * total;
   };
   const UncertaintySummary s =
-      run_monte_carlo(plan, used, evaluate, [&target](double v) { return judge(target, v).value_or(false); });
+      run_monte_carlo(plan, used, evaluate,
+                      [&target, &basis](double v) { return sif_verdict(target, v, basis).value_or(false); });
   UncertaintyResult out;
   out.mean = s.mean;
   out.p05 = s.p05;
@@ -112,7 +113,7 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
   out.method = "Monte Carlo: each channel's components scaled by their own sources' lognormal factors (stated rates "
                "as means; components of one library model share one factor), each group evaluated on its resolved "
                "model with the simplified form and carried onto its judged figure by the ratio at the stated rates; "
-               "every sample judged by the verdict's rule (band edge and required value)";
+               "every sample judged by the SIF's one verdict (band edge, required value, architecture, SC and stated requirements)";
   return out;
 }
 
