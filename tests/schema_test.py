@@ -63,6 +63,8 @@ SEMANTIC = {
     "library_model_without_rates": "the libraries",
     "partial_stroke_every_seven_minutes": "the partial stroke interval against the proof-test interval and the mission",
     "rate_of_1e30_per_hour": "the magnitude of a rate written as text with its unit",
+    "diverse_identical_channels": "the channels' components compared field by field",
+    "diverse_same_library_model": "the channels' components compared field by field",
     "perfect_layer": "the schema takes a probability from 0 to 1",
     "pfd_target_on_high_demand": "the target against the demand mode",
     "pfh_target_on_low_demand": "the target against the demand mode",

@@ -17,7 +17,7 @@
 #include "sifter/input/load.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/analysis/verify.hpp"
-#include "sifter/results/whatif.hpp"
+#include "sifter/analysis/whatif.hpp"
 
 namespace sifter {
 namespace {
@@ -156,7 +156,7 @@ json generated_project(std::mt19937& rng, int trial) {
       sensors == 1 ? "1oo1" : sensors == 2 ? (coin(0.5) ? "1oo2" : "2oo2") : (coin(0.5) ? "2oo3" : "1oo3");
   json sensor = {{"name", "sensing"}, {"role", "sensor"}, {"vote", sensor_vote}, {"channels", json::array()}};
   for (int k = 0; k < sensors; ++k) sensor["channels"].push_back(ids[k]);
-  if (sensors > 1) sensor["beta"] = text(std::uniform_real_distribution<double>(0.02, 0.1)(rng));
+  if (sensors > 1) sensor["beta"] = std::uniform_real_distribution<double>(0.02, 0.1)(rng);
   json valve = {{"name", "valves"}, {"role", "final"}};
   if (coin(0.5)) {
     valve["vote"] = "1oo2";

@@ -70,8 +70,11 @@ TEST(ReportData, TheLongestIntervalOfEachSifIsTheAnswerOfTheIntervalCommand) {
     EXPECT_EQ(sweep->longest->outcome, direct.outcome) << c.result.sifs[i].id;
     EXPECT_EQ(sweep->longest->longest.hours, direct.longest.hours) << c.result.sifs[i].id;
     EXPECT_EQ(sweep->longest->whole_months, direct.whole_months) << c.result.sifs[i].id;
-    for (const auto& sub : sweep->subsystems)
-      if (sub.longest) EXPECT_EQ(sub.longest->hours, direct.longest.hours) << sub.name;
+    for (const auto& sub : sweep->subsystems) {
+      if (sub.longest) {
+        EXPECT_EQ(sub.longest->hours, direct.longest.hours) << sub.name;
+      }
+    }
     ++compared;
   }
   EXPECT_EQ(compared, 3);
