@@ -330,6 +330,108 @@ const T* result_of(const std::vector<T>& results, const std::string& id) {
   return nullptr;
 }
 
+// Component changes, by id; each is listed under every SIF that uses it (in either revision).
+struct ComponentChanges {
+  std::vector<InputChange> changes;
+  std::map<std::string, std::pair<std::size_t, std::size_t>> span;  // id -> [begin, end) in changes
+};
+
+ComponentChanges collect_component_changes(const Project& old_project, const Project& new_project) {
+  ComponentChanges out;
+  Changes cc(out.changes);
+  auto mark = [&](const std::string& id, const std::function<void()>& body) {
+    const std::size_t begin = out.changes.size();
+    body();
+    out.span[id] = {begin, out.changes.size()};
+  };
+  pair_up<Component>(
+      old_project.components, new_project.components, [](const Component& c) { return c.id; },
+      [&](const Component& a, const Component& b) { mark(b.id, [&] { compare_component(cc, a, b); }); },
+      [&](const Component& a) { mark(a.id, [&] { cc.removed(a.pointer, "component " + a.id, a.id); }); },
+      [&](const Component& b) { mark(b.id, [&] { cc.added(b.pointer, "component " + b.id, b.id); }); });
+  return out;
+}
+
+// One scenario's entry; a is null when it was added, b when it was removed.
+FunctionDiff scenario_diff(const Scenario* a, const Scenario* b, const ProjectResult& old_result,
+                           const ProjectResult& new_result) {
+  FunctionDiff d;
+  d.id = b ? b->id : a->id;
+  d.presence = a && b ? Presence::kBoth : b ? Presence::kAdded : Presence::kRemoved;
+  Changes c(d.inputs);
+  if (a && b) compare_scenario_inputs(c, *a, *b);
+  const ScenarioResult* ra = a ? result_of(old_result.scenarios, a->id) : nullptr;
+  const ScenarioResult* rb = b ? result_of(new_result.scenarios, b->id) : nullptr;
+  if (ra) d.old_verdict = ra->meets_target;
+  if (rb) d.new_verdict = rb->meets_target;
+  if (ra && rb) d.results = scenario_results(*ra, *rb);
+  d.verdict = verdict_change(d.old_verdict, d.new_verdict, a != nullptr);
+  if (!b) d.verdict = VerdictChange::kNone;
+  return d;
+}
+
+// Scenarios first: a SIF's entry names the changed scenarios that feed it. Returns the changed ones.
+std::set<std::string> diff_scenarios(const Project& old_project, const ProjectResult& old_result,
+                                     const Project& new_project, const ProjectResult& new_result,
+                                     std::vector<FunctionDiff>& out) {
+  std::set<std::string> changed_scenarios;
+  auto add = [&](const Scenario* a, const Scenario* b) {
+    FunctionDiff d = scenario_diff(a, b, old_result, new_result);
+    if (!d.inputs.empty() || d.presence != Presence::kBoth) changed_scenarios.insert(d.id);
+    out.push_back(std::move(d));
+  };
+  pair_up<Scenario>(
+      old_project.scenarios, new_project.scenarios, [](const Scenario& s) { return s.id; },
+      [&](const Scenario& a, const Scenario& b) { add(&a, &b); }, [&](const Scenario& a) { add(&a, nullptr); },
+      [&](const Scenario& b) { add(nullptr, &b); });
+  return changed_scenarios;
+}
+
+// Appends the changes of every component either revision of the SIF uses; notes those ids as used.
+void add_component_changes(FunctionDiff& d, const Sif& a, const Sif& b, const ComponentChanges& components,
+                           std::set<std::string>& used) {
+  std::set<std::string> ids = component_ids_of(a);
+  for (const auto& id : component_ids_of(b)) ids.insert(id);
+  for (const auto& id : ids) {
+    used.insert(id);
+    if (auto it = components.span.find(id); it != components.span.end())
+      for (std::size_t i = it->second.first; i < it->second.second; ++i) d.inputs.push_back(components.changes[i]);
+  }
+}
+
+// What the SIF diff needs besides the two revisions of the SIF.
+struct SifDiffContext {
+  const ProjectResult& old_result;
+  const ProjectResult& new_result;
+  const ComponentChanges& components;
+  const std::set<std::string>& changed_scenarios;
+  std::set<std::string>& used;  // component ids some SIF uses
+};
+
+// One SIF's entry; a is null when it was added, b when it was removed.
+FunctionDiff sif_diff(const Sif* a, const Sif* b, const SifDiffContext& ctx) {
+  FunctionDiff d;
+  d.id = b ? b->id : a->id;
+  d.presence = a && b ? Presence::kBoth : b ? Presence::kAdded : Presence::kRemoved;
+  Changes c(d.inputs);
+  if (a && b) {
+    compare_sif_inputs(c, *a, *b);
+    add_component_changes(d, *a, *b, ctx.components, ctx.used);
+  }
+  const SifResult* ra = a ? result_of(ctx.old_result.sifs, a->id) : nullptr;
+  const SifResult* rb = b ? result_of(ctx.new_result.sifs, b->id) : nullptr;
+  if (ra) d.old_verdict = ra->meets_target;
+  if (rb) d.new_verdict = rb->meets_target;
+  if (ra && rb) d.results = sif_results(*ra, *rb);
+  d.verdict = b ? verdict_change(d.old_verdict, d.new_verdict, a != nullptr) : VerdictChange::kNone;
+  std::set<std::string> feeding;
+  if (ra) feeding.insert(ra->scenarios.begin(), ra->scenarios.end());
+  if (rb) feeding.insert(rb->scenarios.begin(), rb->scenarios.end());
+  for (const auto& s : feeding)
+    if (ctx.changed_scenarios.count(s)) d.related.push_back(s);
+  return d;
+}
+
 }  // namespace
 
 std::string to_string(VerdictChange change) {
@@ -364,82 +466,22 @@ ProjectDiff diff_projects(const Project& old_project, const ProjectResult& old_r
   Changes project_changes(out.project_inputs);
   compare_project_inputs(project_changes, old_project, new_project);
 
-  // Component changes, by id; each is listed under every SIF that uses it (in either revision).
-  std::vector<InputChange> component_changes;
-  std::map<std::string, std::pair<std::size_t, std::size_t>> component_span;  // id -> [begin, end) in component_changes
-  Changes cc(component_changes);
-  auto mark = [&](const std::string& id, const std::function<void()>& body) {
-    const std::size_t begin = component_changes.size();
-    body();
-    component_span[id] = {begin, component_changes.size()};
-  };
-  pair_up<Component>(
-      old_project.components, new_project.components, [](const Component& c) { return c.id; },
-      [&](const Component& a, const Component& b) { mark(b.id, [&] { compare_component(cc, a, b); }); },
-      [&](const Component& a) { mark(a.id, [&] { cc.removed(a.pointer, "component " + a.id, a.id); }); },
-      [&](const Component& b) { mark(b.id, [&] { cc.added(b.pointer, "component " + b.id, b.id); }); });
+  const ComponentChanges components = collect_component_changes(old_project, new_project);
   std::set<std::string> used;
+  const std::set<std::string> changed_scenarios =
+      diff_scenarios(old_project, old_result, new_project, new_result, out.scenarios);
 
-  // Scenarios first: a SIF's entry names the changed scenarios that feed it.
-  std::set<std::string> changed_scenarios;
-  auto scenario_diff = [&](const Scenario* a, const Scenario* b) {
-    FunctionDiff d;
-    d.id = b ? b->id : a->id;
-    d.presence = a && b ? Presence::kBoth : b ? Presence::kAdded : Presence::kRemoved;
-    Changes c(d.inputs);
-    if (a && b) compare_scenario_inputs(c, *a, *b);
-    const ScenarioResult* ra = a ? result_of(old_result.scenarios, a->id) : nullptr;
-    const ScenarioResult* rb = b ? result_of(new_result.scenarios, b->id) : nullptr;
-    if (ra) d.old_verdict = ra->meets_target;
-    if (rb) d.new_verdict = rb->meets_target;
-    if (ra && rb) d.results = scenario_results(*ra, *rb);
-    d.verdict = verdict_change(d.old_verdict, d.new_verdict, a != nullptr);
-    if (!b) d.verdict = VerdictChange::kNone;
-    if (!d.inputs.empty() || d.presence != Presence::kBoth) changed_scenarios.insert(d.id);
-    out.scenarios.push_back(std::move(d));
-  };
-  pair_up<Scenario>(
-      old_project.scenarios, new_project.scenarios, [](const Scenario& s) { return s.id; },
-      [&](const Scenario& a, const Scenario& b) { scenario_diff(&a, &b); },
-      [&](const Scenario& a) { scenario_diff(&a, nullptr); }, [&](const Scenario& b) { scenario_diff(nullptr, &b); });
-
-  auto sif_diff = [&](const Sif* a, const Sif* b) {
-    FunctionDiff d;
-    d.id = b ? b->id : a->id;
-    d.presence = a && b ? Presence::kBoth : b ? Presence::kAdded : Presence::kRemoved;
-    Changes c(d.inputs);
-    if (a && b) {
-      compare_sif_inputs(c, *a, *b);
-      std::set<std::string> ids = component_ids_of(*a);
-      for (const auto& id : component_ids_of(*b)) ids.insert(id);
-      for (const auto& id : ids) {
-        used.insert(id);
-        if (auto it = component_span.find(id); it != component_span.end())
-          for (std::size_t i = it->second.first; i < it->second.second; ++i) d.inputs.push_back(component_changes[i]);
-      }
-    }
-    const SifResult* ra = a ? result_of(old_result.sifs, a->id) : nullptr;
-    const SifResult* rb = b ? result_of(new_result.sifs, b->id) : nullptr;
-    if (ra) d.old_verdict = ra->meets_target;
-    if (rb) d.new_verdict = rb->meets_target;
-    if (ra && rb) d.results = sif_results(*ra, *rb);
-    d.verdict = b ? verdict_change(d.old_verdict, d.new_verdict, a != nullptr) : VerdictChange::kNone;
-    std::set<std::string> feeding;
-    if (ra) feeding.insert(ra->scenarios.begin(), ra->scenarios.end());
-    if (rb) feeding.insert(rb->scenarios.begin(), rb->scenarios.end());
-    for (const auto& s : feeding)
-      if (changed_scenarios.count(s)) d.related.push_back(s);
-    out.sifs.push_back(std::move(d));
-  };
+  const SifDiffContext ctx{old_result, new_result, components, changed_scenarios, used};
+  auto add = [&](const Sif* a, const Sif* b) { out.sifs.push_back(sif_diff(a, b, ctx)); };
   pair_up<Sif>(
       old_project.sifs, new_project.sifs, [](const Sif& s) { return s.id; },
-      [&](const Sif& a, const Sif& b) { sif_diff(&a, &b); }, [&](const Sif& a) { sif_diff(&a, nullptr); },
-      [&](const Sif& b) { sif_diff(nullptr, &b); });
+      [&](const Sif& a, const Sif& b) { add(&a, &b); }, [&](const Sif& a) { add(&a, nullptr); },
+      [&](const Sif& b) { add(nullptr, &b); });
 
   // Components no SIF uses still changed an input of the project.
-  for (const auto& [id, span] : component_span)
+  for (const auto& [id, span] : components.span)
     if (!used.count(id))
-      for (std::size_t i = span.first; i < span.second; ++i) out.project_inputs.push_back(component_changes[i]);
+      for (std::size_t i = span.first; i < span.second; ++i) out.project_inputs.push_back(components.changes[i]);
   order(out.sifs);
   order(out.scenarios);
   out.equipment = diff_equipment(old_result, new_result);

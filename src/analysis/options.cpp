@@ -170,8 +170,9 @@ std::optional<double> relieving_flow_m3_per_hour(const PressureSource& pump, con
   return *q * ratio;
 }
 
-ScenarioOptions compare_options(const LoadedProject& loaded, const std::string& scenario, const VerifyOptions& vo) {
-  const Project& project = loaded.project;
+namespace {
+
+std::size_t scenario_index(const Project& project, const std::string& scenario) {
   std::size_t index = project.scenarios.size();
   for (std::size_t i = 0; i < project.scenarios.size(); ++i)
     if (project.scenarios[i].id == scenario) index = i;
@@ -182,54 +183,86 @@ ScenarioOptions compare_options(const LoadedProject& loaded, const std::string& 
     throw UsageError("no scenario \"" + scenario + "\" in " + project.file + "; scenarios with options: " +
                      (ids.empty() ? "none" : ids));
   }
+  return index;
+}
+
+// The scenario without its SIF and with no option added: its target and unprotected frequency.
+void judge_bare_scenario(const LoadedProject& loaded, std::size_t index, const VerifyOptions& vo, ScenarioOptions& out) {
+  const ProjectResult bare = verify_project(with_layers(loaded, index, std::nullopt), vo);
+  if (const ScenarioResult* r = find_result(bare, out.scenario)) {
+    out.target_frequency_per_yr = r->target_frequency_per_yr;
+    out.frequency_unprotected_per_yr = r->frequency_without_sif_per_yr;
+  }
+}
+
+// The equipment item and pump the scenario is about, when the pressure screening generated it.
+struct ScreenedBy {
+  const EquipmentScreening* item = nullptr;
+  const PressureSource* pump = nullptr;
+};
+
+void judge_option(const LoadedProject& loaded, std::size_t index, const ScenarioOption& opt, const ScreenedBy& screened,
+                  const VerifyOptions& vo, OptionResult& r) {
+  switch (opt.kind) {
+    case ScenarioOption::Kind::kRerate: judge_rerate(opt, screened.item, r); break;
+    case ScenarioOption::Kind::kRelief:
+      judge_relief(loaded, opt, screened.item, screened.pump, r);
+      if (r.feasible) judge_layer(loaded, index, opt, LayerKind::kReliefDevice, vo, r);
+      break;
+    case ScenarioOption::Kind::kLayer:
+      r.feasible = true;
+      judge_layer(loaded, index, opt, LayerKind::kOther, vo, r);
+      break;
+    case ScenarioOption::Kind::kSif: judge_sif(loaded, index, opt, vo, r); break;
+  }
+}
+
+void add_lifecycle_cost(const ScenarioOption& opt, const ScenarioOptions& out, OptionResult& r) {
+  if (opt.kind != ScenarioOption::Kind::kSif && opt.test_interval && opt.test_interval->hours > 0.0)
+    r.tests_per_yr = kHoursPerYear / opt.test_interval->hours;
+  const double factor = present_value_of_annuity(1.0, out.discount_rate, out.mission_years);
+  r.capex = opt.capex;
+  r.pv_annual_cost = opt.annual_cost * factor;
+  r.pv_test_cost = opt.cost_per_test * r.tests_per_yr * factor;
+  r.pv_trip_cost = opt.cost_per_spurious_trip * r.trips_per_yr * factor;
+  r.lifecycle_cost = r.capex + r.pv_annual_cost + r.pv_test_cost + r.pv_trip_cost;
+}
+
+// Feasible options that make the scenario tolerable first, then the other feasible ones, then the
+// rest; the cheapest over the life first within each group.
+void rank_options(std::vector<OptionResult>& options) {
+  auto group = [](const OptionResult& o) { return o.feasible ? (o.makes_tolerable ? 0 : 1) : 2; };
+  std::stable_sort(options.begin(), options.end(), [&](const OptionResult& a, const OptionResult& b) {
+    if (group(a) != group(b)) return group(a) < group(b);
+    return a.lifecycle_cost < b.lifecycle_cost;
+  });
+}
+
+}  // namespace
+
+ScenarioOptions compare_options(const LoadedProject& loaded, const std::string& scenario, const VerifyOptions& vo) {
+  const Project& project = loaded.project;
+  const std::size_t index = scenario_index(project, scenario);
   const Scenario& s = project.scenarios[index];
   ScenarioOptions out;
   out.scenario = s.id;
   out.title = s.title;
   out.discount_rate = project.options.discount_rate;
   out.mission_years = project.defaults.mission_time.years();
-  {
-    const ProjectResult bare = verify_project(with_layers(loaded, index, std::nullopt), vo);
-    if (const ScenarioResult* r = find_result(bare, s.id)) {
-      out.target_frequency_per_yr = r->target_frequency_per_yr;
-      out.frequency_unprotected_per_yr = r->frequency_without_sif_per_yr;
-    }
-  }
-  const PressureSource* pump = nullptr;
-  const EquipmentScreening* item = screened_item(loaded, s, &pump);
+  judge_bare_scenario(loaded, index, vo, out);
+  ScreenedBy screened;
+  screened.item = screened_item(loaded, s, &screened.pump);
   for (const auto& opt : project.options.alternatives) {
     if (opt.scenario != s.id) continue;
     OptionResult r;
     r.id = opt.id;
     r.title = opt.title;
     r.kind = opt.kind;
-    switch (opt.kind) {
-      case ScenarioOption::Kind::kRerate: judge_rerate(opt, item, r); break;
-      case ScenarioOption::Kind::kRelief:
-        judge_relief(loaded, opt, item, pump, r);
-        if (r.feasible) judge_layer(loaded, index, opt, LayerKind::kReliefDevice, vo, r);
-        break;
-      case ScenarioOption::Kind::kLayer:
-        r.feasible = true;
-        judge_layer(loaded, index, opt, LayerKind::kOther, vo, r);
-        break;
-      case ScenarioOption::Kind::kSif: judge_sif(loaded, index, opt, vo, r); break;
-    }
-    if (opt.kind != ScenarioOption::Kind::kSif && opt.test_interval && opt.test_interval->hours > 0.0)
-      r.tests_per_yr = kHoursPerYear / opt.test_interval->hours;
-    const double factor = present_value_of_annuity(1.0, out.discount_rate, out.mission_years);
-    r.capex = opt.capex;
-    r.pv_annual_cost = opt.annual_cost * factor;
-    r.pv_test_cost = opt.cost_per_test * r.tests_per_yr * factor;
-    r.pv_trip_cost = opt.cost_per_spurious_trip * r.trips_per_yr * factor;
-    r.lifecycle_cost = r.capex + r.pv_annual_cost + r.pv_test_cost + r.pv_trip_cost;
+    judge_option(loaded, index, opt, screened, vo, r);
+    add_lifecycle_cost(opt, out, r);
     out.options.push_back(std::move(r));
   }
-  auto group = [](const OptionResult& o) { return o.feasible ? (o.makes_tolerable ? 0 : 1) : 2; };
-  std::stable_sort(out.options.begin(), out.options.end(), [&](const OptionResult& a, const OptionResult& b) {
-    if (group(a) != group(b)) return group(a) < group(b);
-    return a.lifecycle_cost < b.lifecycle_cost;
-  });
+  rank_options(out.options);
   return out;
 }
 

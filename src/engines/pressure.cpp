@@ -164,72 +164,114 @@ std::vector<std::string> connection_cycle(const PressureSection& section) {
   return out;
 }
 
+namespace {
+
+// The highest pressure found so far at one equipment item, and how it gets there.
+struct WorstCase {
+  bool reached = false;
+  double pressure = 0.0;
+  std::size_t source = 0;
+  double head = 0.0;
+  std::vector<std::string> path;
+  std::vector<std::string> estimates;
+};
+
+// The ids from the search's start to v, following the parents the search recorded.
+std::vector<std::string> path_to(const Built& b, const std::vector<Vertex>& parent, Vertex v) {
+  std::vector<std::string> path;
+  for (Vertex u = v;; u = parent[u]) {
+    path.push_back(b.ids[u]);
+    if (u == parent[u]) break;
+  }
+  std::reverse(path.begin(), path.end());
+  return path;
+}
+
+// Raises each item's worst case with the pressure source s can put on it.
+void raise_by_source(const PressureSection& section, const Built& b, std::size_t s, std::vector<WorstCase>& worst) {
+  const std::size_t n = boost::num_vertices(b.graph);
+  std::vector<Vertex> parent;
+  const PressureSource& src = section.sources[s];
+  reach_from(b, s, parent);
+  const double at_source = source_max_pressure_barg(src);
+  const auto estimates = source_estimates(src);
+  for (std::size_t e = 0; e < section.equipment.size(); ++e) {
+    const Vertex v = b.sources + e;
+    if (parent[v] == n) continue;
+    const auto& item = section.equipment[e];
+    // Liquid service: the column between the source and the item adds (or, above the
+    // source, subtracts) rho g dz; a fixed source without a density is taken as gas (no head).
+    const double head = src.density_max ? static_head_bar(*src.density_max,
+                                                          Length{src.elevation.metres - item.elevation.metres})
+                                        : 0.0;
+    const double p = at_source + head;
+    WorstCase& cur = worst[e];
+    for (const auto& est : estimates)
+      if (std::find(cur.estimates.begin(), cur.estimates.end(), est) == cur.estimates.end()) cur.estimates.push_back(est);
+    if (cur.reached && p <= cur.pressure) continue;
+    cur.reached = true;
+    cur.pressure = p;
+    cur.source = s;
+    cur.head = head;
+    cur.path = path_to(b, parent, v);
+  }
+}
+
+EquipmentScreening screening_of(const PressureSection& section, const PressureEquipment& item, const WorstCase& worst,
+                                double accumulation) {
+  EquipmentScreening r;
+  r.id = item.id;
+  r.title = item.title;
+  r.max_pressure_barg = worst.pressure;
+  r.mawp_barg = item.mawp.bar_gauge;
+  r.test_pressure_barg = item.test_pressure.bar_gauge;
+  r.ratio = r.max_pressure_barg / r.mawp_barg;
+  r.category = category_for_ratio(r.ratio, accumulation, r.test_pressure_barg / r.mawp_barg);
+  r.source = section.sources[worst.source].id;
+  r.path = worst.path;
+  r.static_head_bar = worst.head;
+  r.estimates = worst.estimates;
+  if (item.status == DataStatus::kEstimate) r.estimates.push_back("rating of " + item.id + " (status estimate)");
+  return r;
+}
+
+// The item's relief devices and the SIFs named on it, as the scenario's layers.
+void add_item_layers(const PressureEquipment& item, Scenario& s) {
+  for (std::size_t k = 0; k < item.relief_devices.size(); ++k) {
+    const auto& rd = item.relief_devices[k];
+    Layer l;
+    l.id = rd.id;
+    l.title = rd.title;
+    l.kind = LayerKind::kReliefDevice;
+    l.pfd = rd.pfd;
+    l.pointer = item.pointer + "/relief_devices/" + std::to_string(k);
+    s.layers.push_back(std::move(l));
+  }
+  for (std::size_t k = 0; k < item.sifs.size(); ++k) {
+    Layer l;
+    l.id = item.sifs[k];
+    l.sif = item.sifs[k];
+    l.kind = LayerKind::kSif;
+    l.pointer = item.pointer + "/sifs/" + std::to_string(k);
+    s.layers.push_back(std::move(l));
+  }
+}
+
+}  // namespace
+
 PressureScreening screen_pressure(const PressureSection& section) {
   const Built b(section);
-  const std::size_t n = boost::num_vertices(b.graph);
-  struct Best {
-    bool reached = false;
-    double pressure = 0.0;
-    std::size_t source = 0;
-    double head = 0.0;
-    std::vector<std::string> path;
-    std::vector<std::string> estimates;
-  };
-  std::vector<Best> best(section.equipment.size());
-  std::vector<Vertex> parent;
-  for (std::size_t s = 0; s < section.sources.size(); ++s) {
-    const PressureSource& src = section.sources[s];
-    reach_from(b, s, parent);
-    const double at_source = source_max_pressure_barg(src);
-    const auto estimates = source_estimates(src);
-    for (std::size_t e = 0; e < section.equipment.size(); ++e) {
-      const Vertex v = b.sources + e;
-      if (parent[v] == n) continue;
-      const auto& item = section.equipment[e];
-      // Liquid service: the column between the source and the item adds (or, above the
-      // source, subtracts) rho g dz; a fixed source without a density is taken as gas (no head).
-      const double head = src.density_max ? static_head_bar(*src.density_max,
-                                                            Length{src.elevation.metres - item.elevation.metres})
-                                          : 0.0;
-      const double p = at_source + head;
-      Best& cur = best[e];
-      for (const auto& est : estimates)
-        if (std::find(cur.estimates.begin(), cur.estimates.end(), est) == cur.estimates.end()) cur.estimates.push_back(est);
-      if (cur.reached && p <= cur.pressure) continue;
-      cur.reached = true;
-      cur.pressure = p;
-      cur.source = s;
-      cur.head = head;
-      cur.path.clear();
-      for (Vertex u = v;; u = parent[u]) {
-        cur.path.push_back(b.ids[u]);
-        if (u == parent[u]) break;
-      }
-      std::reverse(cur.path.begin(), cur.path.end());
-    }
-  }
+  std::vector<WorstCase> worst(section.equipment.size());
+  for (std::size_t s = 0; s < section.sources.size(); ++s) raise_by_source(section, b, s, worst);
   PressureScreening out;
   const double accumulation = section.bands ? section.bands->accumulation : 0.10;
   for (std::size_t e = 0; e < section.equipment.size(); ++e) {
     const auto& item = section.equipment[e];
-    if (!best[e].reached) {
+    if (!worst[e].reached) {
       out.not_reached.push_back(item.id);
       continue;
     }
-    EquipmentScreening r;
-    r.id = item.id;
-    r.title = item.title;
-    r.max_pressure_barg = best[e].pressure;
-    r.mawp_barg = item.mawp.bar_gauge;
-    r.test_pressure_barg = item.test_pressure.bar_gauge;
-    r.ratio = r.max_pressure_barg / r.mawp_barg;
-    r.category = category_for_ratio(r.ratio, accumulation, r.test_pressure_barg / r.mawp_barg);
-    r.source = section.sources[best[e].source].id;
-    r.path = best[e].path;
-    r.static_head_bar = best[e].head;
-    r.estimates = best[e].estimates;
-    if (item.status == DataStatus::kEstimate) r.estimates.push_back("rating of " + item.id + " (status estimate)");
-    out.equipment.push_back(std::move(r));
+    out.equipment.push_back(screening_of(section, item, worst[e], accumulation));
   }
   return out;
 }
@@ -270,24 +312,7 @@ std::vector<Scenario> overpressure_scenarios(const PressureSection& section, Pre
     cause.status = section.blocked_outlet->status;
     cause.pointer = "/pressure/blocked_outlet_frequency";
     s.causes.push_back(std::move(cause));
-    for (std::size_t k = 0; k < item.relief_devices.size(); ++k) {
-      const auto& rd = item.relief_devices[k];
-      Layer l;
-      l.id = rd.id;
-      l.title = rd.title;
-      l.kind = LayerKind::kReliefDevice;
-      l.pfd = rd.pfd;
-      l.pointer = item.pointer + "/relief_devices/" + std::to_string(k);
-      s.layers.push_back(std::move(l));
-    }
-    for (std::size_t k = 0; k < item.sifs.size(); ++k) {
-      Layer l;
-      l.id = item.sifs[k];
-      l.sif = item.sifs[k];
-      l.kind = LayerKind::kSif;
-      l.pointer = item.pointer + "/sifs/" + std::to_string(k);
-      s.layers.push_back(std::move(l));
-    }
+    add_item_layers(item, s);
     s.estimates = r.estimates;
     if (section.blocked_outlet->status == DataStatus::kEstimate)
       s.estimates.push_back("blocked-outlet frequency (status estimate)");

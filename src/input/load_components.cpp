@@ -230,6 +230,92 @@ void unknown_model(LoadContext& ctx, ObjectReader& r, const std::string& model, 
             near.empty() ? "add the library that holds it to \"libraries\"" : "did you mean \"" + near + "\"?");
 }
 
+// A model's fields are read once, however many components use it (a register names the same
+// few models thousands of times).
+class ModelFieldsCache {
+ public:
+  const ElementFields& of(const ModelEntry& entry, const std::string& id) {
+    auto [cached, inserted] = fields_.try_emplace(id);
+    if (inserted) {
+      LoadContext scratch;  // the model was checked in its own file already; its problems are not repeated
+      ObjectReader mr(scratch, entry.fields, entry.pointer, entry.source, "a library model");
+      mr.allow({"id", "source", "title", "note", "manufacturer", "tag_description"});
+      cached->second = read_element_fields(mr);
+    }
+    return cached->second;
+  }
+
+ private:
+  std::map<std::string, ElementFields> fields_;
+};
+
+void read_in_service_since(LoadContext& ctx, ObjectReader& r, Component& c) {
+  if (auto since = r.string("in_service_since")) {  // for the in-service records
+    if (parse_iso_date(*since)) c.in_service_since = *since;
+    else ctx.error(0, r.at("in_service_since"), "a date written YYYY-MM-DD (ISO 8601)", "\"" + *since + "\"",
+                   "a real calendar day between 1900 and 2999, e.g. 2024-02-29");
+  }
+}
+
+// Gives the component what its fields (its own over its model's) say.
+void take_fields(Component& c, ElementFields& fields) {
+  c.rates = resolve_rates(fields);
+  if (fields.field_data) {
+    // Field experience replaces the stated lambda_du by its one-sided upper confidence bound.
+    c.rates.lambda_du = lambda_du_from_field_data(*fields.field_data);
+    if (!fields.data_confidence) fields.data_confidence = fields.field_data->confidence;
+  }
+  c.element_type = fields.element_type;
+  c.systematic_capability = fields.systematic_capability;
+  c.sff_declared = fields.sff;
+  c.data_confidence = fields.data_confidence;
+  c.uncertainty = fields.uncertainty;
+  c.field_data = fields.field_data;
+  c.source = fields.data_source;
+  c.data_source = fields.data_source ? describe(*fields.data_source) : "";
+  c.prior_use = fields.prior_use;
+  c.response_time = fields.response_time;
+}
+
+void read_component(LoadContext& ctx, const Json& value, const std::string& pointer, const ModelIndex& models,
+                    ModelFieldsCache& model_fields, std::set<std::string>& seen, Project& project) {
+  ObjectReader r(ctx, value, pointer, 0, "a component");
+  Component c;
+  c.pointer = pointer;
+  c.id = r.string("id", true).value_or("");
+  if (r.has("id") && c.id.empty() && r.member("id")->is_string())
+    ctx.error(0, r.at("id"), "a component id that is not empty", "\"\"", "use the device's tag, e.g. \"PT-101A\"");
+  c.model = r.string("model").value_or("");
+  read_in_service_since(ctx, r, c);
+  if (const Json* made = r.member("manufacturer"); made && made->is_string()) c.manufacturer = made->get<std::string>();
+  allow_descriptive(r);
+  ElementFields own = read_element_fields(r);
+  c.status = read_status(r);
+  r.finish();
+  if (!c.id.empty() && !seen.insert(c.id).second)
+    ctx.error(0, r.at("id"), "a component id used once", "\"" + c.id + "\" a second time",
+              "give every component its own tag");
+  ElementFields fields = own;
+  const auto m = c.model.empty() ? models.end() : models.find(c.model);
+  if (!c.model.empty() && m == models.end()) {
+    if (ctx.libraries_failed())
+      ++ctx.follow_ons_suppressed;  // the library that should hold it was reported already
+    else
+      unknown_model(ctx, r, c.model, models);
+  }
+  if (m != models.end()) {
+    fields = merge(model_fields.of(m->second, m->first), own);
+    const auto made = m->second.fields.find("manufacturer");
+    if (c.manufacturer.empty() && made != m->second.fields.end() && made->is_string())
+      c.manufacturer = made->get<std::string>();
+  }
+  take_fields(c, fields);
+  check_failure_behaviour(ctx, r, c, fields, c.model.empty() || m != models.end());
+  c.dangerous_rates_stated = fields.has_dangerous();
+  warn_implausible(ctx, pointer, c.rates);
+  project.components.push_back(std::move(c));
+}
+
 }  // namespace
 
 void check_model_entry(LoadContext& ctx, const Json& entry, int source, const std::string& pointer) {
@@ -249,76 +335,9 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     return;
   }
   std::set<std::string> seen;
-  // A model's fields are read once, however many components use it (a register names the same
-  // few models thousands of times).
-  std::map<std::string, ElementFields> model_fields;
-  auto fields_of = [&](const ModelEntry& entry, const std::string& id) -> const ElementFields& {
-    auto [cached, inserted] = model_fields.try_emplace(id);
-    if (inserted) {
-      LoadContext scratch;  // the model was checked in its own file already; its problems are not repeated
-      ObjectReader mr(scratch, entry.fields, entry.pointer, entry.source, "a library model");
-      mr.allow({"id", "source", "title", "note", "manufacturer", "tag_description"});
-      cached->second = read_element_fields(mr);
-    }
-    return cached->second;
-  };
-  for (std::size_t i = 0; i < it->size(); ++i) {
-    const std::string pointer = "/components/" + std::to_string(i);
-    ObjectReader r(ctx, (*it)[i], pointer, 0, "a component");
-    Component c;
-    c.pointer = pointer;
-    c.id = r.string("id", true).value_or("");
-    if (r.has("id") && c.id.empty() && r.member("id")->is_string())
-      ctx.error(0, r.at("id"), "a component id that is not empty", "\"\"", "use the device's tag, e.g. \"PT-101A\"");
-    c.model = r.string("model").value_or("");
-    if (auto since = r.string("in_service_since")) {  // for the in-service records
-      if (parse_iso_date(*since)) c.in_service_since = *since;
-      else ctx.error(0, r.at("in_service_since"), "a date written YYYY-MM-DD (ISO 8601)", "\"" + *since + "\"",
-                     "a real calendar day between 1900 and 2999, e.g. 2024-02-29");
-    }
-    if (const Json* made = r.member("manufacturer"); made && made->is_string()) c.manufacturer = made->get<std::string>();
-    allow_descriptive(r);
-    ElementFields own = read_element_fields(r);
-    c.status = read_status(r);
-    r.finish();
-    if (!c.id.empty() && !seen.insert(c.id).second)
-      ctx.error(0, r.at("id"), "a component id used once", "\"" + c.id + "\" a second time",
-                "give every component its own tag");
-    ElementFields fields = own;
-    const auto m = c.model.empty() ? models.end() : models.find(c.model);
-    if (!c.model.empty() && m == models.end()) {
-      if (ctx.libraries_failed())
-        ++ctx.follow_ons_suppressed;  // the library that should hold it was reported already
-      else
-        unknown_model(ctx, r, c.model, models);
-    }
-    if (m != models.end()) {
-      fields = merge(fields_of(m->second, m->first), own);
-      const auto made = m->second.fields.find("manufacturer");
-      if (c.manufacturer.empty() && made != m->second.fields.end() && made->is_string())
-        c.manufacturer = made->get<std::string>();
-    }
-    c.rates = resolve_rates(fields);
-    if (fields.field_data) {
-      // Field experience replaces the stated lambda_du by its one-sided upper confidence bound.
-      c.rates.lambda_du = lambda_du_from_field_data(*fields.field_data);
-      if (!fields.data_confidence) fields.data_confidence = fields.field_data->confidence;
-    }
-    c.element_type = fields.element_type;
-    c.systematic_capability = fields.systematic_capability;
-    c.sff_declared = fields.sff;
-    c.data_confidence = fields.data_confidence;
-    c.uncertainty = fields.uncertainty;
-    c.field_data = fields.field_data;
-    c.source = fields.data_source;
-    c.data_source = fields.data_source ? describe(*fields.data_source) : "";
-    c.prior_use = fields.prior_use;
-    c.response_time = fields.response_time;
-    check_failure_behaviour(ctx, r, c, fields, c.model.empty() || m != models.end());
-    c.dangerous_rates_stated = fields.has_dangerous();
-    warn_implausible(ctx, pointer, c.rates);
-    project.components.push_back(std::move(c));
-  }
+  ModelFieldsCache model_fields;
+  for (std::size_t i = 0; i < it->size(); ++i)
+    read_component(ctx, (*it)[i], "/components/" + std::to_string(i), models, model_fields, seen, project);
 }
 
 }  // namespace sifter::detail

@@ -229,6 +229,62 @@ void check_band(LoadContext& ctx, ObjectReader& bands, const std::string& key, B
               "\"" + out.category + "\" severity \"" + out.severity + "\"", "add it to \"risk_criteria\" or use one there");
 }
 
+void read_connections(LoadContext& ctx, ObjectReader& r, const std::set<std::string>& ids, PressureSection& section) {
+  const std::vector<std::string> known(ids.begin(), ids.end());
+  each(ctx, r, "connections", "connections {\"from\", \"to\"}", [&](const Json& v, const std::string& p) {
+    ObjectReader c(ctx, v, p, 0, "a connection");
+    PressureConnection conn{c.string("from", true).value_or(""), c.string("to", true).value_or(""), p};
+    c.allow({"note"});
+    c.finish();
+    for (const auto* end : {&conn.from, &conn.to}) {
+      if (end->empty() || ids.count(*end)) continue;
+      const auto near = nearest(*end, known);
+      ctx.error(0, c.at(end == &conn.from ? "from" : "to"), "the id of a source or an equipment item of \"pressure\"",
+                "\"" + *end + "\"", near.empty() ? "add it under \"sources\" or \"equipment\"" : "did you mean \"" + near + "\"?");
+    }
+    section.connections.push_back(conn);
+  });
+}
+
+// Looked for only when nothing else is wrong so far.
+void check_no_cycle(LoadContext& ctx, const PressureSection& section) {
+  if (ctx.problems.empty()) {
+    if (auto cycle = connection_cycle(section); !cycle.empty()) {
+      std::string text;
+      for (const auto& id : cycle) text += (text.empty() ? "" : " -> ") + id;
+      ctx.error(0, "/pressure/connections", "connections in the flow direction without a cycle", "the cycle " + text,
+                "remove the connection that closes the loop; a recycle is screened from the pump that drives it");
+    }
+  }
+}
+
+void read_bands(LoadContext& ctx, ObjectReader& r, const Project& project, PressureSection& section) {
+  if (const Json* b = r.member("consequence_bands")) {
+    ObjectReader bands(ctx, *b, "/pressure/consequence_bands", 0, "the overpressure bands");
+    ConsequenceBands cb;
+    if (auto acc = bands.fraction("accumulation")) cb.accumulation = *acc;
+    check_band(ctx, bands, "minor", cb.minor, project);
+    check_band(ctx, bands, "leak_possible", cb.leak, project);
+    check_band(ctx, bands, "rupture_possible", cb.rupture, project);
+    bands.allow({"note"});
+    bands.finish();
+    section.bands = cb;
+  }
+}
+
+void read_blocked_outlet(LoadContext& ctx, ObjectReader& r, PressureSection& section) {
+  if (const Json* f = r.member("blocked_outlet_frequency")) {
+    ObjectReader fr(ctx, *f, "/pressure/blocked_outlet_frequency", 0, "the blocked-outlet frequency");
+    BlockedOutletFrequency bo;
+    bo.frequency = fr.rate("frequency", true).value_or(Rate{});
+    bo.source = fr.string("source", true).value_or("");
+    bo.status = read_status(fr);
+    fr.allow({"note"});
+    fr.finish();
+    section.blocked_outlet = bo;
+  }
+}
+
 void read_section(LoadContext& ctx, const Json& value, Project& project) {
   QuantityReader q(ctx);
   ObjectReader r(ctx, value, "/pressure", 0, "the pressure section");
@@ -247,49 +303,10 @@ void read_section(LoadContext& ctx, const Json& value, Project& project) {
     section.equipment.push_back(read_equipment(q, v, p, project));
     unique(section.equipment.back().id, p);
   });
-  const std::vector<std::string> known(ids.begin(), ids.end());
-  each(ctx, r, "connections", "connections {\"from\", \"to\"}", [&](const Json& v, const std::string& p) {
-    ObjectReader c(ctx, v, p, 0, "a connection");
-    PressureConnection conn{c.string("from", true).value_or(""), c.string("to", true).value_or(""), p};
-    c.allow({"note"});
-    c.finish();
-    for (const auto* end : {&conn.from, &conn.to}) {
-      if (end->empty() || ids.count(*end)) continue;
-      const auto near = nearest(*end, known);
-      ctx.error(0, c.at(end == &conn.from ? "from" : "to"), "the id of a source or an equipment item of \"pressure\"",
-                "\"" + *end + "\"", near.empty() ? "add it under \"sources\" or \"equipment\"" : "did you mean \"" + near + "\"?");
-    }
-    section.connections.push_back(conn);
-  });
-  if (ctx.problems.empty()) {
-    if (auto cycle = connection_cycle(section); !cycle.empty()) {
-      std::string text;
-      for (const auto& id : cycle) text += (text.empty() ? "" : " -> ") + id;
-      ctx.error(0, "/pressure/connections", "connections in the flow direction without a cycle", "the cycle " + text,
-                "remove the connection that closes the loop; a recycle is screened from the pump that drives it");
-    }
-  }
-  if (const Json* b = r.member("consequence_bands")) {
-    ObjectReader bands(ctx, *b, "/pressure/consequence_bands", 0, "the overpressure bands");
-    ConsequenceBands cb;
-    if (auto acc = bands.fraction("accumulation")) cb.accumulation = *acc;
-    check_band(ctx, bands, "minor", cb.minor, project);
-    check_band(ctx, bands, "leak_possible", cb.leak, project);
-    check_band(ctx, bands, "rupture_possible", cb.rupture, project);
-    bands.allow({"note"});
-    bands.finish();
-    section.bands = cb;
-  }
-  if (const Json* f = r.member("blocked_outlet_frequency")) {
-    ObjectReader fr(ctx, *f, "/pressure/blocked_outlet_frequency", 0, "the blocked-outlet frequency");
-    BlockedOutletFrequency bo;
-    bo.frequency = fr.rate("frequency", true).value_or(Rate{});
-    bo.source = fr.string("source", true).value_or("");
-    bo.status = read_status(fr);
-    fr.allow({"note"});
-    fr.finish();
-    section.blocked_outlet = bo;
-  }
+  read_connections(ctx, r, ids, section);
+  check_no_cycle(ctx, section);
+  read_bands(ctx, r, project, section);
+  read_blocked_outlet(ctx, r, section);
   r.allow({"note"});
   r.finish();
   project.pressure = std::move(section);

@@ -9,6 +9,7 @@
 
 #include "sifter/input/csv_text.hpp"
 #include "input/json_reader.hpp"
+#include "input/table_import_cells.hpp"
 #include "input/table_layout.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/input/json_source.hpp"
@@ -20,33 +21,10 @@ namespace fs = std::filesystem;
 using OJson = nlohmann::ordered_json;
 using detail::CellKind;
 using detail::TableLayout;
+using detail::cell_value;
+using detail::trim_cell;
 
 namespace {
-
-std::string trim(const std::string& s) {
-  const auto b = s.find_first_not_of(" \t");
-  if (b == std::string::npos) return "";
-  return s.substr(b, s.find_last_not_of(" \t") - b + 1);
-}
-
-std::vector<std::string> split(const std::string& s, char sep) {
-  std::vector<std::string> out;
-  std::string part;
-  std::istringstream in(s);
-  while (std::getline(in, part, sep))
-    if (!trim(part).empty()) out.push_back(trim(part));
-  return out;
-}
-
-std::optional<OJson> as_number(const std::string& text) {
-  if (text.empty() || text.find_first_not_of("+-.0123456789eE") != std::string::npos) return std::nullopt;
-  try {
-    OJson v = OJson::parse(text[0] == '+' ? text.substr(1) : text);
-    if (v.is_number()) return v;
-  } catch (const std::exception&) {
-  }
-  return std::nullopt;
-}
 
 struct Place {
   std::string file;
@@ -143,10 +121,10 @@ class Importer {
     std::vector<std::string> names;
     for (const auto& c : layout.columns) names.push_back(c.header);
     for (std::size_t i = 0; i < header.size(); ++i) {
-      const std::string h = trim(header[i]);
+      const std::string h = trim_cell(header[i]);
       const int k = layout.index(h);
       const bool empty_column = h.empty() && std::all_of(t.rows.begin(), t.rows.end(), [&](const auto& r) {
-                                  return r.size() <= i || trim(r[i]).empty();
+                                  return r.size() <= i || trim_cell(r[i]).empty();
                                 });
       if (empty_column) continue;
       if (k < 0) {
@@ -178,10 +156,10 @@ class Importer {
       return;  // reported once at the header
     for (std::size_t r = 1; r < t.rows.size(); ++r) {
       const auto& row = t.rows[r];
-      if (std::all_of(row.begin(), row.end(), [](const std::string& c) { return trim(c).empty(); })) continue;
+      if (std::all_of(row.begin(), row.end(), [](const std::string& c) { return trim_cell(c).empty(); })) continue;
       const std::size_t width = t.rows[0].size();
       for (std::size_t c = width; c < row.size(); ++c)
-        if (!trim(row[c]).empty())
+        if (!trim_cell(row[c]).empty())
           problem({t.path, static_cast<int>(r) + 1, static_cast<int>(c) + 1, ""}, "a cell under a header",
                   "\"" + row[c] + "\" beyond the last column");
       fn(t, static_cast<int>(r));
@@ -193,61 +171,13 @@ class Importer {
     const int c = t.at[static_cast<std::size_t>(k)];
     const auto& cells = t.rows[static_cast<std::size_t>(row)];
     if (c < 0 || static_cast<std::size_t>(c) >= cells.size()) return "";
-    return restore_formula_text(trim(cells[static_cast<std::size_t>(c)]));
+    return restore_formula_text(trim_cell(cells[static_cast<std::size_t>(c)]));
   }
 
   Place place(const Table& t, int row, const std::string& header) const {
     const int k = t.layout->index(header);
     const int c = t.at[static_cast<std::size_t>(k)];
     return {t.path, row + 1, c < 0 ? 1 : c + 1, header};
-  }
-
-  static OJson value_of(CellKind kind, const std::string& text) {
-    switch (kind) {
-      case CellKind::kText:
-        return text;
-      case CellKind::kValue:
-        return as_number(text).value_or(OJson(text));
-      case CellKind::kBool: {
-        std::string low = text;
-        std::transform(low.begin(), low.end(), low.begin(), [](unsigned char ch) { return std::tolower(ch); });
-        if (low == "true" || low == "yes") return true;
-        if (low == "false" || low == "no") return false;
-        return text;
-      }
-      case CellKind::kList: {
-        OJson a = OJson::array();
-        for (const auto& s : split(text, ';')) a.push_back(s);
-        return a;
-      }
-      case CellKind::kChannels: {
-        OJson a = OJson::array();
-        for (const auto& ch : split(text, ';')) {
-          const auto parts = split(ch, '+');
-          if (parts.size() == 1)
-            a.push_back(parts[0]);
-          else
-            a.push_back(parts);
-        }
-        return a;
-      }
-      case CellKind::kConsequences: {
-        OJson a = OJson::array();
-        for (const auto& c : split(text, ';')) {
-          const auto colon = c.rfind(':');
-          const std::string category = trim(c.substr(0, colon == std::string::npos ? c.size() : colon));
-          const std::string severity = colon == std::string::npos ? "" : trim(c.substr(colon + 1));
-          OJson q{{"category", category}};
-          if (!severity.empty()) {
-            auto n = as_number(severity);
-            q["severity"] = n && n->is_number_integer() ? *n : OJson(severity);
-          }
-          a.push_back(q);
-        }
-        return a;
-      }
-    }
-    return text;
   }
 
   // Sets a member at a path ("partial_stroke/interval") and records where its cell is.
@@ -282,7 +212,7 @@ class Importer {
       if (c.path.empty()) continue;
       if (!only.empty() && std::find(only.begin(), only.end(), c.header) == only.end()) continue;
       const std::string text = cell(t, row, c.header);
-      put(o, pointer, c.path, text.empty() ? OJson() : value_of(c.kind, text), place(t, row, c.header));
+      put(o, pointer, c.path, text.empty() ? OJson() : cell_value(c.kind, text), place(t, row, c.header));
     }
     return o;
   }
@@ -316,7 +246,7 @@ class Importer {
         places_["/libraries/" + std::to_string(root["libraries"].size() - 1)] = place(t, row, "value");
         return;
       }
-      put(root, "", s->path, value_of(s->kind, text), place(t, row, "value"));
+      put(root, "", s->path, cell_value(s->kind, text), place(t, row, "value"));
     });
   }
 
@@ -363,7 +293,7 @@ class Importer {
       }
       places_.try_emplace("/risk_criteria/" + escape_pointer_token(category), place(t, row, "category"));
       places_[p] = place(t, row, "tolerable_frequency");
-      root["risk_criteria"][category][severity] = value_of(CellKind::kValue, freq);
+      root["risk_criteria"][category][severity] = cell_value(CellKind::kValue, freq);
     });
   }
 
@@ -435,7 +365,7 @@ class Importer {
         for (const auto& h : shared) {
           const auto& c = t.layout->columns[static_cast<std::size_t>(t.layout->index(h))];
           const std::string text = cell(t, row, h);
-          put(s, p, c.path, text.empty() ? OJson() : value_of(c.kind, text), place(t, row, h));
+          put(s, p, c.path, text.empty() ? OJson() : cell_value(c.kind, text), place(t, row, h));
           scenario_cells_[id][h] = text;
         }
         root["scenarios"].push_back(s);

@@ -3,8 +3,9 @@
 
 namespace sifter::report {
 
-const char* html_style() {
-  return R"css(
+namespace {
+
+constexpr const char* kHtmlStyle = R"css(
 :root { --ink: #141414; --muted: #4d4d4d; --rule: #8c8c8c; --hair: #d4d4d4; --soft: #f4f4f1;
         --good: #17457a; --bad: #9c3300; --neutral: #555555; }
 * { box-sizing: border-box; }
@@ -102,6 +103,9 @@ svg .mark-bad { fill: var(--bad); font-size: 14px; font-weight: 700; }
   nav.contents a { color: var(--ink); }
 }
 )css";
-}
+
+}  // namespace
+
+const char* html_style() { return kHtmlStyle; }
 
 }  // namespace sifter::report
