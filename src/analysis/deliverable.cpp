@@ -46,7 +46,8 @@ std::vector<RequirementItem> checklist(const Sif& sif, const SifResult& r) {
           ? format_seconds(*r.response_time_s) + " against " + format_seconds(*r.response_time_limit_s) +
                 " allowed of " + format_seconds(q.process_safety_time->hours * kSecondsPerHour)
       : q.process_safety_time
-          ? "process safety time " + format_seconds(q.process_safety_time->hours * kSecondsPerHour) + "; element response times incomplete"
+          ? "process safety time " + format_seconds(q.process_safety_time->hours * kSecondsPerHour) +
+                "; element response times incomplete"
           : "");
   add("proof-test interval required", text_or_empty(q.proof_test_interval));
   add("what the proof test must cover", q.proof_test_coverage);

@@ -19,9 +19,7 @@ bool same_number(double a, double b) {
 DiffValue num(double v) { return {v, {}}; }
 DiffValue txt(std::string s) { return {std::nullopt, std::move(s)}; }
 
-std::optional<DiffValue> opt_num(const std::optional<double>& v) {
-  return v ? std::optional(num(*v)) : std::nullopt;
-}
+std::optional<DiffValue> opt_num(const std::optional<double>& v) { return v ? std::optional(num(*v)) : std::nullopt; }
 
 bool same_value(const std::optional<DiffValue>& a, const std::optional<DiffValue>& b) {
   if (!a || !b) return !a && !b;
@@ -69,8 +67,10 @@ void pair_up(const std::vector<T>& olds, const std::vector<T>& news, Key key_of,
              const std::function<void(const T&, const T&)>& both, const std::function<void(const T&)>& only_old,
              const std::function<void(const T&)>& only_new) {
   for (const auto& n : news) {
-    if (const T* o = find_by(olds, key_of(n), key_of)) both(*o, n);
-    else only_new(n);
+    if (const T* o = find_by(olds, key_of(n), key_of))
+      both(*o, n);
+    else
+      only_new(n);
   }
   for (const auto& o : olds)
     if (!find_by(news, key_of(o), key_of)) only_old(o);
@@ -87,7 +87,9 @@ void compare_component(Changes& c, const Component& a, const Component& b) {
   c.number(p + "/lambda_sd", "lambda_sd" + of, "/h", a.rates.lambda_sd.per_hour, b.rates.lambda_sd.per_hour);
   auto type = [](const Component& x) { return x.element_type ? (*x.element_type == ElementType::kA ? "A" : "B") : ""; };
   c.text(p + "/element_type", "element type" + of, type(a), type(b));
-  auto sc = [](const Component& x) { return x.systematic_capability ? std::optional(num(*x.systematic_capability)) : std::nullopt; };
+  auto sc = [](const Component& x) {
+    return x.systematic_capability ? std::optional(num(*x.systematic_capability)) : std::nullopt;
+  };
   c.compare(p + "/systematic_capability", "systematic capability" + of, "", sc(a), sc(b));
   c.compare(p + "/sff", "declared SFF" + of, "", opt_num(a.sff_declared), opt_num(b.sff_declared));
   c.compare(p + "/data_confidence", "data confidence" + of, "", opt_num(a.data_confidence), opt_num(b.data_confidence));
@@ -109,10 +111,18 @@ std::string target_text(const std::optional<Target>& t) {
   if (!t) return "none";
   char buf[48];
   switch (t->kind) {
-    case Target::Kind::kSil: std::snprintf(buf, sizeof buf, "SIL %g", t->value); break;
-    case Target::Kind::kRrf: std::snprintf(buf, sizeof buf, "RRF %g", t->value); break;
-    case Target::Kind::kPfdAvg: std::snprintf(buf, sizeof buf, "PFDavg %g", t->value); break;
-    case Target::Kind::kPfh: std::snprintf(buf, sizeof buf, "PFH %g/h", t->value); break;
+    case Target::Kind::kSil:
+      std::snprintf(buf, sizeof buf, "SIL %g", t->value);
+      break;
+    case Target::Kind::kRrf:
+      std::snprintf(buf, sizeof buf, "RRF %g", t->value);
+      break;
+    case Target::Kind::kPfdAvg:
+      std::snprintf(buf, sizeof buf, "PFDavg %g", t->value);
+      break;
+    case Target::Kind::kPfh:
+      std::snprintf(buf, sizeof buf, "PFH %g/h", t->value);
+      break;
   }
   return buf;
 }
@@ -140,9 +150,13 @@ void compare_subsystem(Changes& c, const Subsystem& a, const Subsystem& b) {
   };
   c.compare(p + "/partial_stroke/interval", "partial stroke interval" + of, "h", pst_interval(a), pst_interval(b));
   c.compare(p + "/partial_stroke/coverage", "partial stroke coverage" + of, "", pst_coverage(a), pst_coverage(b));
-  c.text(p + "/trip_on_detected", "trip on detected failures" + of, yes_no(a.trip_on_detected), yes_no(b.trip_on_detected));
-  c.compare(p + "/pfd_avg", "PFDavg from the safety manual" + of, "", opt_num(a.vendor_pfd_avg), opt_num(b.vendor_pfd_avg));
-  auto pfh = [](const Subsystem& s) { return s.vendor_pfh ? std::optional(num(s.vendor_pfh->per_hour)) : std::nullopt; };
+  c.text(p + "/trip_on_detected", "trip on detected failures" + of, yes_no(a.trip_on_detected),
+         yes_no(b.trip_on_detected));
+  c.compare(p + "/pfd_avg", "PFDavg from the safety manual" + of, "", opt_num(a.vendor_pfd_avg),
+            opt_num(b.vendor_pfd_avg));
+  auto pfh = [](const Subsystem& s) {
+    return s.vendor_pfh ? std::optional(num(s.vendor_pfh->per_hour)) : std::nullopt;
+  };
   c.compare(p + "/pfh", "PFH from the safety manual" + of, "/h", pfh(a), pfh(b));
   auto int_value = [](const std::optional<int>& v) { return v ? std::optional(num(*v)) : std::nullopt; };
   c.compare(p + "/hft", "declared HFT" + of, "", int_value(a.hft_declared), int_value(b.hft_declared));
@@ -161,8 +175,12 @@ void compare_sif_inputs(Changes& c, const Sif& a, const Sif& b) {
   pair_up<Subsystem>(
       a.subsystems, b.subsystems, [](const Subsystem& s) { return s.name; },
       [&](const Subsystem& x, const Subsystem& y) { compare_subsystem(c, x, y); },
-      [&](const Subsystem& x) { c.removed(x.pointer, "subsystem '" + x.name + "'", x.is_vendor() ? "vendor" : x.vote.text()); },
-      [&](const Subsystem& y) { c.added(y.pointer, "subsystem '" + y.name + "'", y.is_vendor() ? "vendor" : y.vote.text()); });
+      [&](const Subsystem& x) {
+        c.removed(x.pointer, "subsystem '" + x.name + "'", x.is_vendor() ? "vendor" : x.vote.text());
+      },
+      [&](const Subsystem& y) {
+        c.added(y.pointer, "subsystem '" + y.name + "'", y.is_vendor() ? "vendor" : y.vote.text());
+      });
 }
 
 std::set<std::string> component_ids_of(const Sif& sif) {
@@ -185,8 +203,8 @@ void compare_cause(Changes& c, const Cause& a, const Cause& b) {
   for (std::size_t i = 0; i < n; ++i) {
     auto pa = i < a.enabling.size() ? std::optional(num(a.enabling[i].probability)) : std::nullopt;
     auto pb = i < b.enabling.size() ? std::optional(num(b.enabling[i].probability)) : std::nullopt;
-    c.compare(b.pointer + "/enabling/" + std::to_string(i) + "/probability", "enabling condition " +
-              std::to_string(i + 1) + of, "", pa, pb);
+    c.compare(b.pointer + "/enabling/" + std::to_string(i) + "/probability",
+              "enabling condition " + std::to_string(i + 1) + of, "", pa, pb);
   }
 }
 
@@ -218,7 +236,8 @@ void compare_scenario_inputs(Changes& c, const Scenario& a, const Scenario& b) {
   };
   c.compare(b.pointer + "/target_frequency", "target frequency", "/yr", target(a), target(b));
   pair_up<Cause>(
-      a.causes, b.causes, [](const Cause& x) { return x.id; }, [&](const Cause& x, const Cause& y) { compare_cause(c, x, y); },
+      a.causes, b.causes, [](const Cause& x) { return x.id; },
+      [&](const Cause& x, const Cause& y) { compare_cause(c, x, y); },
       [&](const Cause& x) { c.removed(x.pointer, "cause " + x.id, x.title); },
       [&](const Cause& y) { c.added(y.pointer, "cause " + y.id, y.title); });
   pair_up<Layer>(
@@ -228,7 +247,8 @@ void compare_scenario_inputs(Changes& c, const Scenario& a, const Scenario& b) {
   pair_up<Modifier>(
       a.modifiers, b.modifiers, [](const Modifier& m) { return m.title; },
       [&](const Modifier& x, const Modifier& y) {
-        c.number(y.pointer + "/probability", "probability of modifier '" + y.title + "'", "", x.probability, y.probability);
+        c.number(y.pointer + "/probability", "probability of modifier '" + y.title + "'", "", x.probability,
+                 y.probability);
       },
       [&](const Modifier& x) { c.removed(x.pointer, "modifier '" + x.title + "'", x.title); },
       [&](const Modifier& y) { c.added(y.pointer, "modifier '" + y.title + "'", y.title); });
@@ -237,8 +257,8 @@ void compare_scenario_inputs(Changes& c, const Scenario& a, const Scenario& b) {
 void compare_project_inputs(Changes& c, const Project& a, const Project& b) {
   c.number("/defaults/mission_time", "mission time", "h", a.defaults.mission_time.hours, b.defaults.mission_time.hours);
   auto duration = [](const std::optional<Duration>& d) { return d ? std::optional(num(d->hours)) : std::nullopt; };
-  c.compare("/defaults/proof_test_interval", "default proof-test interval", "h", duration(a.defaults.proof_test_interval),
-            duration(b.defaults.proof_test_interval));
+  c.compare("/defaults/proof_test_interval", "default proof-test interval", "h",
+            duration(a.defaults.proof_test_interval), duration(b.defaults.proof_test_interval));
   c.compare("/defaults/mttr", "default MTTR", "h", duration(a.defaults.mttr), duration(b.defaults.mttr));
   c.compare("/defaults/mrt", "default MRT", "h", duration(a.defaults.mrt), duration(b.defaults.mrt));
   auto basis = [](const Project& p) { return p.constraints ? to_string(*p.constraints) : "iec61511 (default)"; };
@@ -291,18 +311,21 @@ std::vector<ResultChange> sif_results(const SifResult& a, const SifResult& b) {
 std::vector<ResultChange> scenario_results(const ScenarioResult& a, const ScenarioResult& b) {
   std::vector<ResultChange> out;
   auto mode = [](const ScenarioResult& s) { return s.demand_mode ? txt(to_string(*s.demand_mode)) : txt("none"); };
-  result_change(out, "frequency_without_sif_per_yr", num(a.frequency_without_sif_per_yr), num(b.frequency_without_sif_per_yr), "/yr");
+  result_change(out, "frequency_without_sif_per_yr", num(a.frequency_without_sif_per_yr),
+                num(b.frequency_without_sif_per_yr), "/yr");
   result_change(out, "required_rrf", num(a.required_rrf), num(b.required_rrf));
   result_change(out, "required_sil", num(a.required_sil), num(b.required_sil));
   result_change(out, "demand_rate_per_yr", opt_num(a.demand_rate_per_yr), opt_num(b.demand_rate_per_yr), "/yr");
   result_change(out, "demand_mode", mode(a), mode(b));
-  result_change(out, "mitigated_frequency_per_yr", opt_num(a.mitigated_frequency_per_yr), opt_num(b.mitigated_frequency_per_yr), "/yr");
+  result_change(out, "mitigated_frequency_per_yr", opt_num(a.mitigated_frequency_per_yr),
+                opt_num(b.mitigated_frequency_per_yr), "/yr");
   result_change(out, "meets_target", verdict_value(a.meets_target), verdict_value(b.meets_target));
   return out;
 }
 
 VerdictChange verdict_change(const std::optional<bool>& before, const std::optional<bool>& after, bool existed_before) {
-  if (after == std::optional(false) && (!existed_before || before != std::optional(false))) return VerdictChange::kWorsened;
+  if (after == std::optional(false) && (!existed_before || before != std::optional(false)))
+    return VerdictChange::kWorsened;
   if (!existed_before) return VerdictChange::kNone;
   if (before == after) return VerdictChange::kNone;
   if (before == std::optional(false) && after == std::optional(true)) return VerdictChange::kImproved;
@@ -313,10 +336,14 @@ VerdictChange verdict_change(const std::optional<bool>& before, const std::optio
 void order(std::vector<FunctionDiff>& items) {
   auto rank = [](const FunctionDiff& d) {
     switch (d.verdict) {
-      case VerdictChange::kWorsened: return 0;
-      case VerdictChange::kImproved: return 1;
-      case VerdictChange::kOther: return 2;
-      case VerdictChange::kNone: break;
+      case VerdictChange::kWorsened:
+        return 0;
+      case VerdictChange::kImproved:
+        return 1;
+      case VerdictChange::kOther:
+        return 2;
+      case VerdictChange::kNone:
+        break;
     }
     return d.changed() ? 3 : 4;
   };
@@ -436,19 +463,26 @@ FunctionDiff sif_diff(const Sif* a, const Sif* b, const SifDiffContext& ctx) {
 
 std::string to_string(VerdictChange change) {
   switch (change) {
-    case VerdictChange::kNone: return "none";
-    case VerdictChange::kWorsened: return "worsened";
-    case VerdictChange::kImproved: return "improved";
-    case VerdictChange::kOther: return "changed";
+    case VerdictChange::kNone:
+      return "none";
+    case VerdictChange::kWorsened:
+      return "worsened";
+    case VerdictChange::kImproved:
+      return "improved";
+    case VerdictChange::kOther:
+      return "changed";
   }
   return {};
 }
 
 std::string to_string(Presence presence) {
   switch (presence) {
-    case Presence::kBoth: return "both";
-    case Presence::kAdded: return "added";
-    case Presence::kRemoved: return "removed";
+    case Presence::kBoth:
+      return "both";
+    case Presence::kAdded:
+      return "added";
+    case Presence::kRemoved:
+      return "removed";
   }
   return {};
 }

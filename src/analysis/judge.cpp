@@ -15,11 +15,15 @@ std::string num(double v) { return sifter::figure(v); }
 
 std::string describe_target(const Target& t, DemandMode mode) {
   switch (t.kind) {
-    case Target::Kind::kSil: return "SIL " + num(t.value) + (mode == DemandMode::kLow ? " (PFDavg < " : " (PFH < ") +
-                                    num(sil_upper_limit(static_cast<int>(t.value), mode)) + ")";
-    case Target::Kind::kRrf: return "RRF " + num(t.value) + " (PFDavg <= " + num(1.0 / t.value) + ")";
-    case Target::Kind::kPfdAvg: return "PFDavg <= " + num(t.value);
-    case Target::Kind::kPfh: return "PFH <= " + num(t.value) + "/h";
+    case Target::Kind::kSil:
+      return "SIL " + num(t.value) + (mode == DemandMode::kLow ? " (PFDavg < " : " (PFH < ") +
+             num(sil_upper_limit(static_cast<int>(t.value), mode)) + ")";
+    case Target::Kind::kRrf:
+      return "RRF " + num(t.value) + " (PFDavg <= " + num(1.0 / t.value) + ")";
+    case Target::Kind::kPfdAvg:
+      return "PFDavg <= " + num(t.value);
+    case Target::Kind::kPfh:
+      return "PFH <= " + num(t.value) + "/h";
   }
   return {};
 }
@@ -28,7 +32,9 @@ std::string describe_target(const Target& t, DemandMode mode) {
 void apply_stated(const Target& t, SifTarget& out) {
   out.text = describe_target(t, out.mode);
   switch (t.kind) {
-    case Target::Kind::kSil: out.sil = static_cast<int>(t.value); break;
+    case Target::Kind::kSil:
+      out.sil = static_cast<int>(t.value);
+      break;
     case Target::Kind::kRrf:
       out.required_pfd = 1.0 / t.value;
       out.required_rrf = t.value;
@@ -66,11 +72,11 @@ SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<Requir
   if (sif.target) apply_stated(*sif.target, out);
   if (lopa) {
     const int lopa_sil = low || !lopa->required_pfh_per_hour ? sil_required_from_rrf(lopa->required_rrf)
-                                                              : sil_required_from_pfh(*lopa->required_pfh_per_hour);
+                                                             : sil_required_from_pfh(*lopa->required_pfh_per_hour);
     if (out.sil && *out.sil != lopa_sil)
       warnings.push_back({sif.pointer + "/target", "the stated target (" + out.text + ") differs from the SIL " +
-                                                        std::to_string(lopa_sil) +
-                                                        " the LOPA requires; the stricter applies"});
+                                                       std::to_string(lopa_sil) +
+                                                       " the LOPA requires; the stricter applies"});
     // A required RRF at or below 1 asks for no reduction at all: the required PFD is capped at 1
     // (a probability), and the text says that no SIF is needed.
     const bool none_needed = !(lopa->required_rrf > 1.0);
@@ -79,7 +85,8 @@ SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<Requir
       out.required_pfd = lopa_pfd;
       out.required_rrf = lopa->required_rrf;
     }
-    if (lopa->required_pfh_per_hour && (!out.required_pfh_per_hour || *lopa->required_pfh_per_hour < *out.required_pfh_per_hour))
+    if (lopa->required_pfh_per_hour &&
+        (!out.required_pfh_per_hour || *lopa->required_pfh_per_hour < *out.required_pfh_per_hour))
       out.required_pfh_per_hour = lopa->required_pfh_per_hour;
     out.sil = std::max(out.sil.value_or(0), lopa_sil);
     out.text = (out.text.empty() ? "" : out.text + "; ") + "LOPA: " +
@@ -87,8 +94,10 @@ SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<Requir
                                    : "RRF " + num(lopa->required_rrf))
                     : "PFH <= " + num(out.required_pfh_per_hour.value_or(0.0)) + "/h");
   }
-  if (low) out.required_pfh_per_hour.reset();
-  else out.required_pfd.reset();
+  if (low)
+    out.required_pfh_per_hour.reset();
+  else
+    out.required_pfd.reset();
   return out;
 }
 

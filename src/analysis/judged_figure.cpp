@@ -31,9 +31,12 @@ Choice choose(JudgeOn rule, double simplified, const std::optional<double>& exac
   if (!exact) return {simplified, JudgedOn::kSimplified, JudgedWhy::kOnlyFigure};
   if (forced) return {*exact, JudgedOn::kExact, forced_why};
   switch (rule) {
-    case JudgeOn::kSimplified: return {simplified, JudgedOn::kSimplified, JudgedWhy::kProjectChoice};
-    case JudgeOn::kExact: return {*exact, JudgedOn::kExact, JudgedWhy::kProjectChoice};
-    case JudgeOn::kConservative: break;
+    case JudgeOn::kSimplified:
+      return {simplified, JudgedOn::kSimplified, JudgedWhy::kProjectChoice};
+    case JudgeOn::kExact:
+      return {*exact, JudgedOn::kExact, JudgedWhy::kProjectChoice};
+    case JudgeOn::kConservative:
+      break;
   }
   return *exact > simplified ? Choice{*exact, JudgedOn::kExact, JudgedWhy::kMoreConservative}
                              : Choice{simplified, JudgedOn::kSimplified, JudgedWhy::kMoreConservative};
@@ -61,7 +64,8 @@ void choose_judged_figures(const Project& project, const Sif& sif, SifResult& r)
     }
     (low ? s.pfd_avg : s.pfh_per_hour) = c.value;
     s.judged_on = c.on;
-    if (c.on == JudgedOn::kExact && differ) s.equation += "; judged on the exact multi-phase Markov model (channels differ)";
+    if (c.on == JudgedOn::kExact && differ)
+      s.equation += "; judged on the exact multi-phase Markov model (channels differ)";
   }
   const std::optional<double> simplified = low ? r.pfd_avg_simplified : r.pfh_simplified_per_hour;
   if (!simplified) return;
@@ -74,8 +78,8 @@ void choose_judged_figures(const Project& project, const Sif& sif, SifResult& r)
     if (s.judged_on == JudgedOn::kExact) c.on = JudgedOn::kExact;
   }
   const bool exact_ran = (low ? r.pfd_avg_exact : r.pfh_exact_per_hour).has_value();
-  c.why = !exact_ran ? JudgedWhy::kOnlyFigure
-          : any_forced ? sif_forced_why
+  c.why = !exact_ran                                   ? JudgedWhy::kOnlyFigure
+          : any_forced                                 ? sif_forced_why
           : project.judge_on == JudgeOn::kConservative ? JudgedWhy::kMoreConservative
                                                        : JudgedWhy::kProjectChoice;
   c.value = total;
@@ -91,10 +95,14 @@ std::string to_string(JudgedOn on) { return on == JudgedOn::kExact ? "exact" : "
 
 std::string to_string(JudgedWhy why) {
   switch (why) {
-    case JudgedWhy::kOnlyFigure: return "the only figure (no exact cross-check)";
-    case JudgedWhy::kMoreConservative: return "the more conservative of the simplified and exact figures";
-    case JudgedWhy::kProjectChoice: return "the project's \"judge_on\" asks for it";
-    case JudgedWhy::kChannelsDiffer: return "a group's channels differ, and the Annex B forms need identical channels";
+    case JudgedWhy::kOnlyFigure:
+      return "the only figure (no exact cross-check)";
+    case JudgedWhy::kMoreConservative:
+      return "the more conservative of the simplified and exact figures";
+    case JudgedWhy::kProjectChoice:
+      return "the project's \"judge_on\" asks for it";
+    case JudgedWhy::kChannelsDiffer:
+      return "a group's channels differ, and the Annex B forms need identical channels";
     case JudgedWhy::kBeyondSimplified:
       return "a group's simplified figure is outside its validity (lDU T1 above 0.1 or a PFD above 1)";
   }

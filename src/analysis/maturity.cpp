@@ -36,7 +36,8 @@ std::vector<std::string> sif_estimates(const Project& project, const Sif& sif, c
           add_once(out, "data of component " + project.components[c].id + " (status estimate)");
   for (const auto& id : result.scenarios)
     for (const auto& s : scenarios)
-      if (s.id == id && s.preliminary) add_once(out, "requirement from scenario " + id + ": " + joined(s.preliminary_because));
+      if (s.id == id && s.preliminary)
+        add_once(out, "requirement from scenario " + id + ": " + joined(s.preliminary_because));
   return out;
 }
 
@@ -61,7 +62,8 @@ std::vector<std::string> preliminary_verdicts(const ProjectResult& result) {
   std::vector<std::string> out;
   if (result.pressure)
     for (const auto& e : result.pressure->equipment)
-      if (e.preliminary()) out.push_back("equipment " + e.id + " (" + to_string(e.category) + "): " + joined(e.estimates));
+      if (e.preliminary())
+        out.push_back("equipment " + e.id + " (" + to_string(e.category) + "): " + joined(e.estimates));
   for (const auto& s : result.scenarios)
     if (s.preliminary) out.push_back("scenario " + s.id + ": " + joined(s.preliminary_because));
   for (const auto& s : result.sifs)

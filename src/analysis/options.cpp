@@ -179,15 +179,17 @@ std::size_t scenario_index(const Project& project, const std::string& scenario) 
   if (index == project.scenarios.size()) {
     std::string ids;
     for (const auto& o : project.options.alternatives)
-      if (ids.find("\"" + o.scenario + "\"") == std::string::npos) ids += (ids.empty() ? "" : ", ") + ("\"" + o.scenario + "\"");
-    throw UsageError("no scenario \"" + scenario + "\" in " + project.file + "; scenarios with options: " +
-                     (ids.empty() ? "none" : ids));
+      if (ids.find("\"" + o.scenario + "\"") == std::string::npos)
+        ids += (ids.empty() ? "" : ", ") + ("\"" + o.scenario + "\"");
+    throw UsageError("no scenario \"" + scenario + "\" in " + project.file +
+                     "; scenarios with options: " + (ids.empty() ? "none" : ids));
   }
   return index;
 }
 
 // The scenario without its SIF and with no option added: its target and unprotected frequency.
-void judge_bare_scenario(const LoadedProject& loaded, std::size_t index, const VerifyOptions& vo, ScenarioOptions& out) {
+void judge_bare_scenario(const LoadedProject& loaded, std::size_t index, const VerifyOptions& vo,
+                         ScenarioOptions& out) {
   const ProjectResult bare = verify_project(with_layers(loaded, index, std::nullopt), vo);
   if (const ScenarioResult* r = find_result(bare, out.scenario)) {
     out.target_frequency_per_yr = r->target_frequency_per_yr;
@@ -204,7 +206,9 @@ struct ScreenedBy {
 void judge_option(const LoadedProject& loaded, std::size_t index, const ScenarioOption& opt, const ScreenedBy& screened,
                   const VerifyOptions& vo, OptionResult& r) {
   switch (opt.kind) {
-    case ScenarioOption::Kind::kRerate: judge_rerate(opt, screened.item, r); break;
+    case ScenarioOption::Kind::kRerate:
+      judge_rerate(opt, screened.item, r);
+      break;
     case ScenarioOption::Kind::kRelief:
       judge_relief(loaded, opt, screened.item, screened.pump, r);
       if (r.feasible) judge_layer(loaded, index, opt, LayerKind::kReliefDevice, vo, r);
@@ -213,7 +217,9 @@ void judge_option(const LoadedProject& loaded, std::size_t index, const Scenario
       r.feasible = true;
       judge_layer(loaded, index, opt, LayerKind::kOther, vo, r);
       break;
-    case ScenarioOption::Kind::kSif: judge_sif(loaded, index, opt, vo, r); break;
+    case ScenarioOption::Kind::kSif:
+      judge_sif(loaded, index, opt, vo, r);
+      break;
   }
 }
 
@@ -269,8 +275,9 @@ ScenarioOptions compare_options(const LoadedProject& loaded, const std::string& 
 std::vector<ScenarioOptions> compare_all_options(const LoadedProject& loaded, const VerifyOptions& vo) {
   std::vector<ScenarioOptions> out;
   for (const auto& s : loaded.project.scenarios) {
-    const bool listed = std::any_of(loaded.project.options.alternatives.begin(), loaded.project.options.alternatives.end(),
-                                    [&](const ScenarioOption& o) { return o.scenario == s.id; });
+    const bool listed =
+        std::any_of(loaded.project.options.alternatives.begin(), loaded.project.options.alternatives.end(),
+                    [&](const ScenarioOption& o) { return o.scenario == s.id; });
     if (listed) out.push_back(compare_options(loaded, s.id, vo));
   }
   return out;

@@ -4,10 +4,10 @@
 #include <algorithm>
 #include <cassert>
 
-#include "sifter/engines/cross_check.hpp"
-#include "sifter/model/diagnostics.hpp"
-#include "sifter/engines/sil.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/engines/cross_check.hpp"
+#include "sifter/engines/sil.hpp"
+#include "sifter/model/diagnostics.hpp"
 
 namespace sifter {
 
@@ -58,7 +58,8 @@ std::vector<SensitivityRow> sensitivity_rows(const WhatIf& what_if, std::size_t 
   try {
     const SensitivityResult r = sensitivity(what_if, sif, 2.0);
     for (const auto& in : r.inputs)
-      if (in.swing > kLeastRelativeSwing * r.base && rows.size() < kMostRows) rows.push_back({in.name, in.at_low, in.at_high});
+      if (in.swing > kLeastRelativeSwing * r.base && rows.size() < kMostRows)
+        rows.push_back({in.name, in.at_low, in.at_high});
   } catch (const Error&) {
     // No requirement to rank against: the section says "not computed".
   }

@@ -233,7 +233,8 @@ std::vector<std::string> method_notes(double prior_hours) {
           format_duration(Duration{prior_hours}) + " of service, updated by the counts",
       "re-verification: each device's lambda_DU scaled by its model's posterior mean over design, then verified "
       "and judged as `sifter check` does",
-      "above (exceeds design) at 70% (90%): the one-sided 70% (90%) lower confidence bound of the observed rate lies above "
+      "above (exceeds design) at 70% (90%): the one-sided 70% (90%) lower confidence bound of the observed rate lies "
+      "above "
       "the design rate"};
 }
 

@@ -1,9 +1,9 @@
 // The Monte Carlo of one SIF on its uncertain failure data, on the resolved group models.
 #include "sifter/analysis/sif_uncertainty.hpp"
 
-#include "sifter/engines/group_model.hpp"
 #include "sifter/analysis/judge.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/engines/group_model.hpp"
 
 namespace sifter {
 namespace {
@@ -100,9 +100,8 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
     }
     return sif_scale * total;
   };
-  const UncertaintySummary s =
-      run_monte_carlo(plan, used, evaluate,
-                      [&target, &basis](double v) { return sif_verdict(target, v, basis).value_or(false); });
+  const UncertaintySummary s = run_monte_carlo(
+      plan, used, evaluate, [&target, &basis](double v) { return sif_verdict(target, v, basis).value_or(false); });
   UncertaintyResult out;
   out.mean = s.mean;
   out.p05 = s.p05;
@@ -110,10 +109,12 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
   out.p95 = s.p95;
   out.probability_meets_target = s.probability_meets_target;
   out.samples = s.samples;
-  out.method = "Monte Carlo: each channel's components scaled by their own sources' lognormal factors (stated rates "
-               "as means; components of one library model share one factor), each group evaluated on its resolved "
-               "model with the simplified form and carried onto its judged figure by the ratio at the stated rates; "
-               "every sample judged by the SIF's one verdict (band edge, required value, architecture, SC and stated requirements)";
+  out.method =
+      "Monte Carlo: each channel's components scaled by their own sources' lognormal factors (stated rates "
+      "as means; components of one library model share one factor), each group evaluated on its resolved "
+      "model with the simplified form and carried onto its judged figure by the ratio at the stated rates; "
+      "every sample judged by the SIF's one verdict (band edge, required value, architecture, SC and stated "
+      "requirements)";
   return out;
 }
 

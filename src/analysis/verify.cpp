@@ -2,23 +2,23 @@
 #include "sifter/analysis/verify.hpp"
 
 #include <algorithm>
+#include <atomic>
 #include <cmath>
 #include <cstdio>
-#include <atomic>
 #include <map>
 #include <mutex>
 #include <thread>
 
+#include "sifter/analysis/judge.hpp"
+#include "sifter/analysis/judged_figure.hpp"
+#include "sifter/analysis/maturity.hpp"
+#include "sifter/analysis/sif_uncertainty.hpp"
 #include "sifter/engines/constraints.hpp"
 #include "sifter/engines/cross_check.hpp"
+#include "sifter/engines/group_model.hpp"
 #include "sifter/engines/plausibility.hpp"
 #include "sifter/engines/probability_cap.hpp"
 #include "sifter/engines/requirements.hpp"
-#include "sifter/analysis/maturity.hpp"
-#include "sifter/engines/group_model.hpp"
-#include "sifter/analysis/judge.hpp"
-#include "sifter/analysis/judged_figure.hpp"
-#include "sifter/analysis/sif_uncertainty.hpp"
 #include "sifter/engines/sil.hpp"
 #include "sifter/engines/spurious.hpp"
 #include "sifter/model/format.hpp"
@@ -44,7 +44,8 @@ void describe_defaults(const Project& project, const DefaultsApplied& d, std::ve
     assumptions.push_back("proof-test interval " + format_duration(*project.defaults.proof_test_interval) +
                           " from the project defaults: " + joined(d.interval));
   if (!d.mttr.empty() && project.defaults.mttr)
-    assumptions.push_back("MTTR " + format_duration(*project.defaults.mttr) + " from the project defaults: " + joined(d.mttr));
+    assumptions.push_back("MTTR " + format_duration(*project.defaults.mttr) +
+                          " from the project defaults: " + joined(d.mttr));
   if (!d.mrt_equals_mttr.empty())
     assumptions.push_back("MRT taken equal to MTTR (not given): " + joined(d.mrt_equals_mttr));
   if (!d.beta_d_equals_beta.empty())
@@ -79,13 +80,14 @@ SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub,
   std::vector<std::size_t> seen;
   for (const auto& ch : sub.channels)
     for (auto c : ch.components) {
-    if (std::find(seen.begin(), seen.end(), c) != seen.end()) continue;
-    seen.push_back(c);
-    if (const auto& fd = project.components[c].field_data)
-      assumptions.push_back(sub.name + ": lambda_du of " + project.components[c].id + " from field data, " +
-                            std::to_string(fd->failures) + " failures in " + num(fd->device_hours.hours) +
-                            " device-hours at " + num(100 * fd->confidence) +
-                            "% confidence: chi-squared(c; 2n+2)/(2T) = " + format_rate(project.components[c].rates.lambda_du));
+      if (std::find(seen.begin(), seen.end(), c) != seen.end()) continue;
+      seen.push_back(c);
+      if (const auto& fd = project.components[c].field_data)
+        assumptions.push_back(
+            sub.name + ": lambda_du of " + project.components[c].id + " from field data, " +
+            std::to_string(fd->failures) + " failures in " + num(fd->device_hours.hours) + " device-hours at " +
+            num(100 * fd->confidence) +
+            "% confidence: chi-squared(c; 2n+2)/(2T) = " + format_rate(project.components[c].rates.lambda_du));
     }
   const GroupData g = group_data_for(project, sub);
   r.channel_rates = g.channel;
@@ -125,7 +127,8 @@ SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub,
                           " per proof test; the simplified figure adds it (1oo1/NooN: N TD/T1; KooN: N TD/T1 x the "
                           "Ko(N-1) group, common practice)");
   if (sub.alarm_only_on_detected && mode == DemandMode::kHigh)
-    assumptions.push_back(sub.name + ": a detected dangerous failure only raises an alarm, so it counts as dangerous "
+    assumptions.push_back(sub.name +
+                          ": a detected dangerous failure only raises an alarm, so it counts as dangerous "
                           "until restored (lDD and beta_D lDD in the PFH; the exact engine counts every failure)");
   if (sub.partial_stroke)
     assumptions.push_back(sub.name + ": partial stroke test every " + format_duration(sub.partial_stroke->interval) +
@@ -153,16 +156,16 @@ void apply_constraints(const Project& project, const Sif& sif, SifResult& r, con
       sub.systematic_basis.push_back(
           {e.component,
            e.prior_use && e.prior_use->sil > e.systematic_capability.value_or(0) ? "prior use"
-           : e.systematic_capability                                              ? "systematic capability"
-                                                                                  : "none",
+           : e.systematic_capability                                             ? "systematic capability"
+                                                                                 : "none",
            e.prior_use && e.prior_use->sil > e.systematic_capability.value_or(0) ? std::optional(e.prior_use->sil)
-                                                                                  : e.systematic_capability,
+                                                                                 : e.systematic_capability,
            e.prior_use ? e.prior_use->evidence : ""});
   }
   r.assumptions.push_back("architectural constraints on the basis " + to_string(r.constraints) + " (" +
-                          (r.constraints == ConstraintBasis::kIec61511 ? "IEC 61511-1:2016 11.4, Table 6"
+                          (r.constraints == ConstraintBasis::kIec61511  ? "IEC 61511-1:2016 11.4, Table 6"
                            : r.constraints == ConstraintBasis::kRoute1H ? "IEC 61508-2:2010 7.4.4.2, Tables 2 and 3"
-                                                                         : "IEC 61508-2:2010 7.4.4.3") +
+                                                                        : "IEC 61508-2:2010 7.4.4.3") +
                           ")");
   if (!r.sil_required || !achieved) return;
   ProbabilityCheck p;
@@ -178,7 +181,8 @@ void warn_beyond_simplified_range(const Sif& sif, const SifResult& r, std::vecto
     if (sif.subsystems[i].is_vendor()) continue;
     const double x = r.subsystems[i].channel_rates.lambda_du.per_hour * r.subsystems[i].proof_test_interval.hours;
     if (x > kSimplifiedLimitLambdaT)
-      warnings.push_back({sif.subsystems[i].pointer, "lDU·T1 = " + num(x) + " for a channel of " + r.subsystems[i].name +
+      warnings.push_back({sif.subsystems[i].pointer, "lDU·T1 = " + num(x) + " for a channel of " +
+                                                         r.subsystems[i].name +
                                                          ": the simplified equations lose accuracy above lDU·T1 = 0.1; "
                                                          "see the exact cross-check"});
   }
@@ -236,8 +240,10 @@ bool sum_simplified(const Sif& sif, SifResult& r, std::vector<Warning>& warnings
                        std::string("SIF ") + (low ? "PFDavg" : "PFH") +
                            " = sum over its subsystems in series (IEC 61508-6:2010 Annex B simplified equations)");
   if (!complete) return false;
-  if (low) r.pfd_avg_simplified = total;
-  else r.pfh_simplified_per_hour = total;
+  if (low)
+    r.pfd_avg_simplified = total;
+  else
+    r.pfh_simplified_per_hour = total;
   return true;
 }
 
@@ -334,8 +340,9 @@ std::map<std::string, RequirementFromLopa> requirements_from(const std::vector<S
     std::snprintf(buf, sizeof buf, "%.3g", req.demand_rate_per_yr);
     r.demand_basis = std::string("demand rate ") + buf + "/yr from scenario" + (req.scenarios.size() > 1 ? "s " : " ");
     for (std::size_t i = 0; i < req.scenarios.size(); ++i) r.demand_basis += (i ? ", " : "") + req.scenarios[i];
-    r.demand_basis += req.demand_mode == DemandMode::kLow ? "; at most once a year is low demand (IEC 61511-1:2016 3.2.39)"
-                                                         : "; above once a year is high demand (IEC 61511-1:2016 3.2.39)";
+    r.demand_basis += req.demand_mode == DemandMode::kLow
+                          ? "; at most once a year is low demand (IEC 61511-1:2016 3.2.39)"
+                          : "; above once a year is high demand (IEC 61511-1:2016 3.2.39)";
     for (const auto& f : req.findings) warnings.push_back({req.sif, to_string(f.kind) + ": " + f.message});
     out.emplace(req.sif, std::move(r));
   }

@@ -2,10 +2,9 @@
 #include "sifter/analysis/whatif.hpp"
 
 #include <algorithm>
+#include <boost/math/tools/toms748_solve.hpp>
 #include <cmath>
 #include <cstdio>
-
-#include <boost/math/tools/toms748_solve.hpp>
 
 #include "analysis/whatif_parts.hpp"
 #include "sifter/engines/probability_cap.hpp"
@@ -76,8 +75,8 @@ SifResult WhatIf::verify(const Project& modified, std::size_t sif) const {
   // answer, is the one check gives (groups of different channels are judged on it).
   VerifyOptions options;
   options.threads = 1;
-  SifResult r = verify_sif(modified, s, it == requirements_.end() ? std::nullopt : std::optional(it->second), options,
-                           ignored);
+  SifResult r =
+      verify_sif(modified, s, it == requirements_.end() ? std::nullopt : std::optional(it->second), options, ignored);
   cap_probabilities(s, r, ignored);  // as check does: no probability above 1 leaves an engine
   return r;
 }
@@ -136,7 +135,8 @@ void solve_interval(IntervalResult& out, const Measure& measure_at, double allow
                         detail::number_text(out.measure_at_zero) +
                         ": the terms the proof-test interval does not touch (detected failures and MTTR, repair "
                         "times, failures the proof test misses, common cause in high demand, the other subsystems) "
-                        "already exceed " + detail::number_text(out.allowed));
+                        "already exceed " +
+                        detail::number_text(out.allowed));
     return;
   }
   if (at_top <= allowed) {
@@ -147,9 +147,9 @@ void solve_interval(IntervalResult& out, const Measure& measure_at, double allow
   } else {
     boost::uintmax_t iterations = 200;
     auto excess = [&](double hours) { return measure_at(hours) - allowed; };
-    const auto bracket = boost::math::tools::toms748_solve(excess, 0.0, top, out.measure_at_zero - allowed,
-                                                           at_top - allowed,
-                                                           boost::math::tools::eps_tolerance<double>(40), iterations);
+    const auto bracket =
+        boost::math::tools::toms748_solve(excess, 0.0, top, out.measure_at_zero - allowed, at_top - allowed,
+                                          boost::math::tools::eps_tolerance<double>(40), iterations);
     // The lower end of the bracket is on the side that meets the requirement.
     out.outcome = IntervalOutcome::kFound;
     out.longest = Duration{bracket.first};
@@ -168,11 +168,12 @@ void add_context_notes(IntervalResult& out, const Sif& s, const SifResult& now) 
   if (out.varied.size() > 1) out.notes.push_back("every subsystem listed is given the same interval, tested together");
   for (const auto& sub : s.subsystems)
     if (sub.is_vendor())
-      out.notes.push_back(detail::quoted_name(sub.name) + " is a figure from the safety manual; its own test interval applies");
+      out.notes.push_back(detail::quoted_name(sub.name) +
+                          " is a figure from the safety manual; its own test interval applies");
   const int required = now.sil_required.value_or(0);
   if (now.sil_architecture < required || now.sil_systematic < required)
-    out.notes.push_back("the architecture or systematic capability still falls short of SIL " + std::to_string(required) +
-                        "; no proof-test interval changes that");
+    out.notes.push_back("the architecture or systematic capability still falls short of SIL " +
+                        std::to_string(required) + "; no proof-test interval changes that");
 }
 
 }  // namespace

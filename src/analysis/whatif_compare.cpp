@@ -40,8 +40,8 @@ CompareResult compare_votes(const WhatIf& what_if, std::size_t sif, std::size_t 
   if (beta && !(*beta >= 0.0 && *beta <= 1.0)) throw UsageError("beta must be a fraction from 0 to 1");
   for (const auto& v : votes)
     if (vote_is_redundant(v) && !beta && sub.beta <= 0.0)
-      throw UsageError("subsystem " + detail::quoted_name(sub.name) + " has no beta, and the redundant vote " + v.text() +
-                       " needs one: give a common-cause fraction with --beta (for example --beta 5%)");
+      throw UsageError("subsystem " + detail::quoted_name(sub.name) + " has no beta, and the redundant vote " +
+                       v.text() + " needs one: give a common-cause fraction with --beta (for example --beta 5%)");
 
   CompareResult out;
   out.sif = s.id;

@@ -49,15 +49,14 @@ void add_vendor_probe(std::vector<Probe>& probes, const Subsystem& sub, std::siz
                       [sif, i](Project& p, double v) { p.sifs[sif].subsystems[i].vendor_pfh = Rate{v}; }});
 }
 
-void add_subsystem_probes(std::vector<Probe>& probes, Provenance& provenance, const Subsystem& sub,
-                          std::size_t sif, std::size_t i) {
+void add_subsystem_probes(std::vector<Probe>& probes, Provenance& provenance, const Subsystem& sub, std::size_t sif,
+                          std::size_t i) {
   const std::string q = detail::quoted_name(sub.name);
   auto at = [sif, i](Project& p) -> Subsystem& { return p.sifs[sif].subsystems[i]; };
   if (vote_is_redundant(sub.vote)) {
     const bool follows = sub.beta_d_defaulted;
     if (follows) provenance.beta_d_follows.push_back(q);
-    probes.push_back({"beta of " + q, sub.pointer + "/beta", "", sub.beta, true,
-                      [at, follows](Project& p, double v) {
+    probes.push_back({"beta of " + q, sub.pointer + "/beta", "", sub.beta, true, [at, follows](Project& p, double v) {
                         at(p).beta = v;
                         if (follows) at(p).beta_d = v;
                       }});
@@ -71,15 +70,16 @@ void add_subsystem_probes(std::vector<Probe>& probes, Provenance& provenance, co
                     [at](Project& p, double v) { at(p).proof_test_interval = Duration{v}; }});
   const bool mrt_follows = sub.mrt_defaulted;
   if (mrt_follows) provenance.mrt_follows.push_back(q);
-  probes.push_back({"MTTR of " + q, sub.pointer + "/mttr", "h", sub.mttr.hours, false, [at, mrt_follows](Project& p, double v) {
-                      at(p).mttr = Duration{v};
-                      if (mrt_follows) at(p).mrt = Duration{v};
-                    }});
+  probes.push_back(
+      {"MTTR of " + q, sub.pointer + "/mttr", "h", sub.mttr.hours, false, [at, mrt_follows](Project& p, double v) {
+         at(p).mttr = Duration{v};
+         if (mrt_follows) at(p).mrt = Duration{v};
+       }});
   if (!mrt_follows)
     probes.push_back({"MRT of " + q, sub.pointer + "/mrt", "h", sub.mrt.hours, false,
                       [at](Project& p, double v) { at(p).mrt = Duration{v}; }});
-  probes.push_back({"coverage of " + q, sub.pointer + "/proof_test_coverage", "", sub.proof_test_coverage,
-                    true, [at](Project& p, double v) { at(p).proof_test_coverage = v; }});
+  probes.push_back({"coverage of " + q, sub.pointer + "/proof_test_coverage", "", sub.proof_test_coverage, true,
+                    [at](Project& p, double v) { at(p).proof_test_coverage = v; }});
   if (sub.partial_stroke) {
     probes.push_back({"PST interval of " + q, sub.pointer + "/partial_stroke/interval", "h",
                       sub.partial_stroke->interval.hours, false,
@@ -110,8 +110,7 @@ std::vector<Probe> probes_for(const Project& project, std::size_t sif, Provenanc
     imperfect = imperfect || sub.proof_test_coverage < 1.0;
   }
   if (imperfect)
-    probes.push_back({"mission time", "/defaults/mission_time",
-                      "h", project.defaults.mission_time.hours, false,
+    probes.push_back({"mission time", "/defaults/mission_time", "h", project.defaults.mission_time.hours, false,
                       [](Project& p, double v) { p.defaults.mission_time = Duration{v}; }});
   return probes;
 }
@@ -124,13 +123,14 @@ SensitivityResult sensitivity(const WhatIf& what_if, std::size_t sif, double fac
   // Above 10 the varied inputs leave the physical range (and an interval divided by 1e200 would
   // ask the exact engine for 1e200 tests); README "Limits".
   if (!(factor > 1.0) || !(factor <= kMaxSensitivityFactor))
-    throw UsageError("the factor must be a number above 1 and at most 10 (each input is divided and multiplied by "
-                     "it), found " + detail::number_text(factor));
+    throw UsageError(
+        "the factor must be a number above 1 and at most 10 (each input is divided and multiplied by "
+        "it), found " +
+        detail::number_text(factor));
   const Project& base = what_if.project();
   const SifResult now = what_if.baseline(sif);
   const auto measure_now = sif_measure(now);
-  if (!measure_now)
-    throw UsageError(now.id + " cannot be verified (a supplier figure is missing for its demand mode)");
+  if (!measure_now) throw UsageError(now.id + " cannot be verified (a supplier figure is missing for its demand mode)");
   SensitivityResult out;
   out.sif = now.id;
   out.mode = now.demand_mode;
@@ -174,13 +174,16 @@ SensitivityResult sensitivity(const WhatIf& what_if, std::size_t sif, double fac
       for (auto c : sub.channels[ch].components)
         later_channels += (later_channels.empty() ? "" : ", ") + base.components[c].id;
   if (!later_channels.empty())
-    out.notes.push_back("the simplified equations take a group's rates from its first channel (the channels are "
-                        "identical), so these move nothing here: " + later_channels);
+    out.notes.push_back(
+        "the simplified equations take a group's rates from its first channel (the channels are "
+        "identical), so these move nothing here: " +
+        later_channels);
   std::string defaults;
   if (!provenance.interval_default.empty()) defaults += "the interval of " + listed(provenance.interval_default);
   if (!provenance.mttr_default.empty())
     defaults += (defaults.empty() ? "" : "; ") + std::string("the MTTR of ") + listed(provenance.mttr_default);
-  if (!defaults.empty()) out.notes.push_back("from the project defaults, varied here for one subsystem only: " + defaults);
+  if (!defaults.empty())
+    out.notes.push_back("from the project defaults, varied here for one subsystem only: " + defaults);
   if (!provenance.mrt_follows.empty())
     out.notes.push_back("MRT follows MTTR where it was not given: " + listed(provenance.mrt_follows));
   if (!provenance.beta_d_follows.empty())

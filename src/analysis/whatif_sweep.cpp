@@ -87,7 +87,9 @@ void apply_parameter(Project& project, std::size_t sif, const std::vector<std::s
   for (auto i : subsystems) {
     Subsystem& sub = project.sifs[sif].subsystems[i];
     switch (parameter) {
-      case SweepParameter::kProofTestInterval: sub.proof_test_interval = Duration{value}; break;
+      case SweepParameter::kProofTestInterval:
+        sub.proof_test_interval = Duration{value};
+        break;
       case SweepParameter::kBeta:
         if (sub.beta_d_defaulted) sub.beta_d = value;
         sub.beta = value;
@@ -96,7 +98,9 @@ void apply_parameter(Project& project, std::size_t sif, const std::vector<std::s
         if (sub.mrt_defaulted) sub.mrt = Duration{value};
         sub.mttr = Duration{value};
         break;
-      case SweepParameter::kProofTestCoverage: sub.proof_test_coverage = value; break;
+      case SweepParameter::kProofTestCoverage:
+        sub.proof_test_coverage = value;
+        break;
       case SweepParameter::kLambdaDuFactor:
         detail::copy_components_of(project, sub);
         for (const auto& channel : sub.channels)
@@ -112,9 +116,9 @@ SweepResult sweep(const WhatIf& what_if, const SweepRequest& request) {
   check_value(request.parameter, request.from, "from");
   check_value(request.parameter, request.to, "to");
   if (request.steps < 2 || request.steps > kMaxSteps)
-    throw UsageError("--steps must be from 2 to " + std::to_string(kMaxSteps) + ", found " + std::to_string(request.steps));
-  if (request.log && (request.from <= 0.0 || request.to <= 0.0))
-    throw UsageError("--log needs both ends above zero");
+    throw UsageError("--steps must be from 2 to " + std::to_string(kMaxSteps) + ", found " +
+                     std::to_string(request.steps));
+  if (request.log && (request.from <= 0.0 || request.to <= 0.0)) throw UsageError("--log needs both ends above zero");
   const std::vector<std::size_t> vary = detail::subsystems_to_vary(s, request.subsystem, to_string(request.parameter));
 
   SweepResult out;

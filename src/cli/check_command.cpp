@@ -6,16 +6,16 @@
 #include <optional>
 
 #include "commands.hpp"
+#include "sifter/analysis/maturity.hpp"
+#include "sifter/analysis/verify.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/model/printable.hpp"
-#include "sifter/analysis/maturity.hpp"
 #include "sifter/report/csv.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
 #include "sifter/report/xlsx.hpp"
-#include "sifter/analysis/verify.hpp"
 #include "terminal_width.hpp"
 
 namespace sifter::cli {
@@ -54,11 +54,11 @@ std::function<void(long long, long long)> progress_bar() {
 
 // Verifies, renders every output, then commits them all: nothing is written if any fails.
 int run_check(const CheckOptions& options) {
-  report::refuse_overwriting_inputs({options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path},
-                                    {options.project});
+  report::refuse_overwriting_inputs(
+      {options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path}, {options.project});
   const LoadedProject loaded = load_project_file(options.project);
-  report::refuse_overwriting_inputs({options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path},
-                                    loaded.inputs);
+  report::refuse_overwriting_inputs(
+      {options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path}, loaded.inputs);
   for (const auto& id : options.sifs) find_sif(loaded.project, id);  // an unknown id is a usage error
   VerifyOptions vo;
   vo.exact = !options.no_exact;
@@ -96,8 +96,8 @@ int run_check(const CheckOptions& options) {
   terminal.sifs = options.sifs;
   terminal.summary = options.summary;
   const std::string summary = summary_to_stdout ? escape_controls(report::render_terminal(result, terminal)) : "";
-  report::commit_all({json_out ? &*json_out : nullptr, csv_out ? &*csv_out : nullptr,
-                      rows_out ? &*rows_out : nullptr, xlsx_out ? &*xlsx_out : nullptr});
+  report::commit_all({json_out ? &*json_out : nullptr, csv_out ? &*csv_out : nullptr, rows_out ? &*rows_out : nullptr,
+                      xlsx_out ? &*xlsx_out : nullptr});
   if (summary_to_stdout) {
     std::cout << summary;
   } else {
@@ -107,7 +107,8 @@ int run_check(const CheckOptions& options) {
   }
   if (options.final) {
     const auto preliminary = preliminary_verdicts(result);
-    for (const auto& line : preliminary) std::cerr << "sifter: preliminary, not final: " << escape_controls(line) << "\n";
+    for (const auto& line : preliminary)
+      std::cerr << "sifter: preliminary, not final: " << escape_controls(line) << "\n";
     if (!preliminary.empty()) return static_cast<int>(ExitCode::kShortfall);
   }
   return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
@@ -125,9 +126,9 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("--sif", opts->sifs, "show only this SIF (full block) and its scenarios; repeatable")
       ->allow_extra_args(false)  // one id per --sif, so that a project named after it is not taken for one
       ->multi_option_policy(CLI::MultiOptionPolicy::TakeAll);
-  cmd->add_flag("--summary", opts->summary,
-                "one line per SIF and scenario (the default above " + std::to_string(report::kSummaryAboveSifs) +
-                    " SIFs)");
+  cmd->add_flag(
+      "--summary", opts->summary,
+      "one line per SIF and scenario (the default above " + std::to_string(report::kSummaryAboveSifs) + " SIFs)");
   cmd->add_flag("--pretty", opts->pretty, "indent the --json output for reading (compact by default)");
   cmd->add_flag("--quiet,-q", opts->quiet, "print no summary (errors and warnings still go to stderr)");
   cmd->add_flag("--final", opts->final,

@@ -1,7 +1,6 @@
 #pragma once
 // The subcommands of the sifter program; each file adds one and returns its action.
 #include <CLI/CLI.hpp>
-
 #include <functional>
 #include <string>
 

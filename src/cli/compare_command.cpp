@@ -24,7 +24,8 @@ Action add_compare_command(CLI::App& app) {
   auto opts = std::make_shared<CompareOptions>();
   auto* cmd = app.add_subcommand("compare", "Compare votes of one subsystem: PFDavg, SILs and spurious trips");
   // The what-ifs answer a question; the verdict of check is not their exit status.
-  cmd->footer("Exit status: 0 the votes were compared, whatever their verdicts (each is in its row); 2 bad input or usage.");
+  cmd->footer(
+      "Exit status: 0 the votes were compared, whatever their verdicts (each is in its row); 2 bad input or usage.");
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("--sif", opts->sif, "the SIF's id")->required();
   cmd->add_option("--subsystem", opts->subsystem, "the subsystem to re-vote")->required();
@@ -34,7 +35,8 @@ Action add_compare_command(CLI::App& app) {
   return [opts]() {
     report::refuse_overwriting_inputs({opts->json_path}, {opts->project});
     const std::vector<Vote> votes = votes_arg(opts->votes);
-    const std::optional<double> beta = opts->beta.empty() ? std::nullopt : std::optional(fraction_arg("--beta", opts->beta));
+    const std::optional<double> beta =
+        opts->beta.empty() ? std::nullopt : std::optional(fraction_arg("--beta", opts->beta));
     const LoadedProject loaded = load_project_file(opts->project);
     report::refuse_overwriting_inputs({opts->json_path}, loaded.inputs);
     const std::size_t sif = sif_index(loaded.project, opts->sif);

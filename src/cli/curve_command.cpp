@@ -2,14 +2,13 @@
 #include <cstdio>
 #include <iostream>
 #include <memory>
-
 #include <nlohmann/json.hpp>
 
 #include "commands.hpp"
 #include "sifter/engines/cross_check.hpp"
 #include "sifter/input/load.hpp"
-#include "sifter/model/printable.hpp"
 #include "sifter/model/format.hpp"
+#include "sifter/model/printable.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
@@ -45,8 +44,11 @@ std::string curve_csv(const SifCurve& c) {
 }
 
 nlohmann::json curve_json(const std::string& sif, const SifCurve& c) {
-  nlohmann::json j{{"sif", sif}, {"pfd_avg_exact", sifter::checked(c.pfd_avg_exact, "pfd")},
-                   {"time_h", c.time_hours}, {"pfd_sif", c.pfd_sif}, {"subsystems", nlohmann::json::array()}};
+  nlohmann::json j{{"sif", sif},
+                   {"pfd_avg_exact", sifter::checked(c.pfd_avg_exact, "pfd")},
+                   {"time_h", c.time_hours},
+                   {"pfd_sif", c.pfd_sif},
+                   {"subsystems", nlohmann::json::array()}};
   for (std::size_t i = 0; i < c.subsystem_names.size(); ++i)
     j["subsystems"].push_back({{"name", c.subsystem_names[i]}, {"pfd", c.pfd_subsystems[i]}});
   return j;
@@ -86,9 +88,10 @@ Action add_curve_command(CLI::App& app) {
     if (opts->csv_path != "-" && opts->json_path != "-") {
       double peak = 0.0;
       for (double p : c.pfd_sif) peak = std::max(peak, p);
-      std::cout << "PFD(t) of " << escape_controls(sif.id) << " over " << format_duration(loaded.project.defaults.mission_time) << ": "
-                << c.time_hours.size() << " points, average " << sifter::sci(c.pfd_avg_exact) << ", peak "
-                << sifter::sci(peak) << " (exact multi-phase Markov engine)\n\n"
+      std::cout << "PFD(t) of " << escape_controls(sif.id) << " over "
+                << format_duration(loaded.project.defaults.mission_time) << ": " << c.time_hours.size()
+                << " points, average " << sifter::sci(c.pfd_avg_exact) << ", peak " << sifter::sci(peak)
+                << " (exact multi-phase Markov engine)\n\n"
                 << report::wrapped_caution();
     }
     return 0;

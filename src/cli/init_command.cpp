@@ -4,8 +4,8 @@
 #include <memory>
 
 #include "commands.hpp"
-#include "sifter/model/diagnostics.hpp"
 #include "sifter/input/project_skeleton.hpp"
+#include "sifter/model/diagnostics.hpp"
 #include "sifter/report/output_file.hpp"
 
 namespace sifter::cli {

@@ -23,8 +23,9 @@ Action add_interval_command(CLI::App& app) {
   auto opts = std::make_shared<IntervalOptions>();
   auto* cmd = app.add_subcommand("interval", "Longest proof-test interval with which a SIF still meets its target");
   // The what-ifs answer a question; the verdict of check is not their exit status.
-  cmd->footer("Exit status: 0 an interval up to the mission time meets the requirement (also when the present one does not); "
-              "1 no interval does; 2 bad input or usage.");
+  cmd->footer(
+      "Exit status: 0 an interval up to the mission time meets the requirement (also when the present one does not); "
+      "1 no interval does; 2 bad input or usage.");
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("--sif", opts->sif, "the SIF's id")->required();
   cmd->add_option("--subsystem", opts->subsystem, "vary this subsystem's interval only (default: all, together)");

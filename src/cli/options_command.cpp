@@ -4,8 +4,8 @@
 #include <optional>
 
 #include "commands.hpp"
-#include "sifter/input/load.hpp"
 #include "sifter/analysis/options.hpp"
+#include "sifter/input/load.hpp"
 #include "sifter/report/options_text.hpp"
 #include "sifter/report/output_file.hpp"
 
@@ -41,7 +41,8 @@ Action add_options_command(CLI::App& app) {
     const std::string text = opts->json_path == "-" ? "" : report::render_options_text(result);
     if (json_out) json_out->commit();
     std::cout << text;
-    const bool any = !result.options.empty() && result.options.front().feasible && result.options.front().makes_tolerable;
+    const bool any =
+        !result.options.empty() && result.options.front().feasible && result.options.front().makes_tolerable;
     return static_cast<int>(any ? ExitCode::kAllMet : ExitCode::kShortfall);
   };
 }

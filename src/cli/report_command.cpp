@@ -7,14 +7,14 @@
 #include <optional>
 
 #include "commands.hpp"
-#include "sifter/model/diagnostics.hpp"
+#include "sifter/analysis/report_data.hpp"
+#include "sifter/analysis/service.hpp"
+#include "sifter/analysis/verify.hpp"
 #include "sifter/input/load.hpp"
+#include "sifter/model/diagnostics.hpp"
 #include "sifter/report/html.hpp"
 #include "sifter/report/markdown.hpp"
 #include "sifter/report/output_file.hpp"
-#include "sifter/analysis/service.hpp"
-#include "sifter/analysis/report_data.hpp"
-#include "sifter/analysis/verify.hpp"
 
 namespace sifter::cli {
 namespace {
@@ -61,7 +61,8 @@ std::string run_date() {
 
 Action add_report_command(CLI::App& app) {
   auto opts = std::make_shared<ReportCommandOptions>();
-  auto* cmd = app.add_subcommand("report", "Write a self-contained report (HTML or Markdown) of a project's verification");
+  auto* cmd =
+      app.add_subcommand("report", "Write a self-contained report (HTML or Markdown) of a project's verification");
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("-o,--output", opts->output, "the report file: NAME.html (default format) or NAME.md")->required();
   cmd->add_flag("--no-exact", opts->no_exact, "skip the exact time-dependent cross-check");
@@ -99,8 +100,8 @@ Action add_report_command(CLI::App& app) {
       data.service = std::make_shared<const ServiceResult>(assess_service(loaded, *records, so));
     }
     data.options = compare_all_options(loaded, vo);
-    const std::string text = format == ReportFormat::kMarkdown ? report::render_markdown(result, data)
-                                                               : report::render_html(result, data);
+    const std::string text =
+        format == ReportFormat::kMarkdown ? report::render_markdown(result, data) : report::render_html(result, data);
     report::write_output(opts->output, text);
     return static_cast<int>(result.all_met() ? ExitCode::kAllMet : ExitCode::kShortfall);
   };

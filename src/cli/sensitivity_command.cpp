@@ -22,7 +22,8 @@ Action add_sensitivity_command(CLI::App& app) {
   auto opts = std::make_shared<SensitivityOptions>();
   auto* cmd = app.add_subcommand("sensitivity", "Rank a SIF's inputs by how much they move its PFDavg (tornado)");
   // The what-ifs answer a question; the verdict of check is not their exit status.
-  cmd->footer("Exit status: 0 the ranking was computed, whether the SIF meets its target or not; 2 bad input or usage.");
+  cmd->footer(
+      "Exit status: 0 the ranking was computed, whether the SIF meets its target or not; 2 bad input or usage.");
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("--sif", opts->sif, "the SIF's id")->required();
   cmd->add_option("--factor", opts->factor, "divide and multiply each input by this (default 2)");

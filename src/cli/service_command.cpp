@@ -6,11 +6,11 @@
 #include <optional>
 
 #include "commands.hpp"
+#include "sifter/analysis/service.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/model/records.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/service.hpp"
-#include "sifter/analysis/service.hpp"
 
 namespace sifter::cli {
 namespace {

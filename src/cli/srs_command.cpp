@@ -4,11 +4,11 @@
 
 #include "commands.hpp"
 #include "sifter/analysis/deliverable.hpp"
-#include "sifter/model/diagnostics.hpp"
+#include "sifter/analysis/verify.hpp"
 #include "sifter/input/load.hpp"
+#include "sifter/model/diagnostics.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/srs.hpp"
-#include "sifter/analysis/verify.hpp"
 
 namespace sifter::cli {
 namespace {

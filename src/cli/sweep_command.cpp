@@ -30,8 +30,9 @@ Action add_sweep_command(CLI::App& app) {
   auto opts = std::make_shared<SweepOptions>();
   auto* cmd = app.add_subcommand("sweep", "Vary one parameter of a SIF over a range and verify at each value");
   // The what-ifs answer a question; the verdict of check is not their exit status.
-  cmd->footer("Exit status: 0 the sweep was computed, whatever the verdicts at its values (each is in its row); "
-              "2 bad input or usage.");
+  cmd->footer(
+      "Exit status: 0 the sweep was computed, whatever the verdicts at its values (each is in its row); "
+      "2 bad input or usage.");
   cmd->add_option("project", opts->project, "the project file (sifter-project/1 JSON)")->required();
   cmd->add_option("--sif", opts->sif, "the SIF's id")->required();
   cmd->add_option("--vary", opts->parameter, "the parameter: " + sweep_parameter_names())->required();
@@ -47,7 +48,8 @@ Action add_sweep_command(CLI::App& app) {
     report::refuse_overwriting_inputs({opts->json_path, opts->csv_path}, {opts->project});
     const auto parameter = parse_sweep_parameter(opts->parameter);
     if (!parameter)
-      throw UsageError("--vary: unknown parameter \"" + opts->parameter + "\"; the parameters are: " + sweep_parameter_names());
+      throw UsageError("--vary: unknown parameter \"" + opts->parameter +
+                       "\"; the parameters are: " + sweep_parameter_names());
     SweepRequest request;
     request.parameter = *parameter;
     request.from = sweep_value_arg(*parameter, "--from", opts->from);

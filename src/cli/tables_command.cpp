@@ -5,8 +5,8 @@
 #include <optional>
 
 #include "commands.hpp"
-#include "sifter/model/diagnostics.hpp"
 #include "sifter/input/project_tables.hpp"
+#include "sifter/model/diagnostics.hpp"
 #include "sifter/report/output_file.hpp"
 
 namespace sifter::cli {

@@ -14,7 +14,6 @@
 namespace sifter::cli {
 namespace {
 
-
 std::optional<double> read_number(std::string_view text) {
   while (!text.empty() && std::isspace(static_cast<unsigned char>(text.front()))) text.remove_prefix(1);
   while (!text.empty() && std::isspace(static_cast<unsigned char>(text.back()))) text.remove_suffix(1);
@@ -41,8 +40,8 @@ std::size_t sif_index(const Project& project, const std::string& id) {
     if (project.sifs[i].id == id) return i;
     known += (known.empty() ? "" : ", ") + project.sifs[i].id;
   }
-  throw UsageError("--sif: no SIF \"" + id + "\" in " + project.file + "; its SIFs are: " +
-                   (known.empty() ? std::string("none") : known));
+  throw UsageError("--sif: no SIF \"" + id + "\" in " + project.file +
+                   "; its SIFs are: " + (known.empty() ? std::string("none") : known));
 }
 
 std::optional<std::size_t> subsystem_index(const Sif& sif, const std::string& name) {
@@ -67,7 +66,8 @@ double fraction_arg(const std::string& option, const std::string& text) {
     v = p.value;
   }
   if (!v) throw UsageError(option + ": expected a fraction such as 0.05 or \"5%\", found \"" + text + "\"");
-  if (*v < 0.0 || *v > 1.0) throw UsageError(option + ": a fraction lies from 0 to 1 (0% to 100%), found \"" + text + "\"");
+  if (*v < 0.0 || *v > 1.0)
+    throw UsageError(option + ": a fraction lies from 0 to 1 (0% to 100%), found \"" + text + "\"");
   return *v;
 }
 
@@ -81,10 +81,13 @@ double duration_arg(const std::string& option, const std::string& text) {
 double sweep_value_arg(SweepParameter parameter, const std::string& option, const std::string& text) {
   switch (parameter) {
     case SweepParameter::kProofTestInterval:
-    case SweepParameter::kMttr: return duration_arg(option, text);
+    case SweepParameter::kMttr:
+      return duration_arg(option, text);
     case SweepParameter::kBeta:
-    case SweepParameter::kProofTestCoverage: return fraction_arg(option, text);
-    case SweepParameter::kLambdaDuFactor: return number_arg(option, text);
+    case SweepParameter::kProofTestCoverage:
+      return fraction_arg(option, text);
+    case SweepParameter::kLambdaDuFactor:
+      return number_arg(option, text);
   }
   return 0.0;
 }

@@ -6,8 +6,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/model/model.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/model/model.hpp"
 
 namespace sifter::cli {
 

@@ -23,9 +23,8 @@ std::string format_percent(double fraction) {
   for (int decimals = 2; decimals <= 8; ++decimals) {
     std::snprintf(buf.data(), buf.size(), "%.*f %%", decimals, fraction * 100.0);
     const double shown = std::strtod(buf.data(), nullptr) / 100.0;
-    const bool same_side = std::all_of(kEdges.begin(), kEdges.end(), [&](double e) {
-      return at_least(shown, e) == at_least(fraction, e);
-    });
+    const bool same_side = std::all_of(kEdges.begin(), kEdges.end(),
+                                       [&](double e) { return at_least(shown, e) == at_least(fraction, e); });
     if (same_side) break;
   }
   return buf.data();
@@ -81,10 +80,14 @@ SffBand sff_band(double sff) {
 
 double sff_band_lower_edge(SffBand band) {
   switch (band) {
-    case SffBand::kBelow60: return 0.0;
-    case SffBand::kFrom60To90: return 0.6;
-    case SffBand::kFrom90To99: return 0.9;
-    case SffBand::kAtLeast99: return 0.99;
+    case SffBand::kBelow60:
+      return 0.0;
+    case SffBand::kFrom60To90:
+      return 0.6;
+    case SffBand::kFrom90To99:
+      return 0.9;
+    case SffBand::kAtLeast99:
+      return 0.99;
   }
   return 0.0;
 }
@@ -96,10 +99,14 @@ int min_hft_table6(int sil, DemandMode mode) {
   // IEC 61511-1:2016 Table 6.
   switch (sil) {
     case 0:
-    case 1: return 0;
-    case 2: return mode == DemandMode::kLow ? 0 : 1;
-    case 3: return 1;
-    default: return 2;
+    case 1:
+      return 0;
+    case 2:
+      return mode == DemandMode::kLow ? 0 : 1;
+    case 3:
+      return 1;
+    default:
+      return 2;
   }
 }
 
@@ -217,8 +224,9 @@ void Assessment::vendor() {
            " stands for its IEC 61508-2:2010 Tables 2 and 3 result.");
     else
       cap(CapKind::kArchitecture, CapCause::kVendorRoute1h, 0, std::nullopt,
-          subject + " without element type, SFF or a declared SIL capability, so Route 1H cannot be applied "
-                    "and it cannot claim a SIL from its architecture.");
+          subject +
+              " without element type, SFF or a declared SIL capability, so Route 1H cannot be applied "
+              "and it cannot claim a SIL from its architecture.");
   } else if (out_.hft) {
     fault_tolerance_cap("Subsystem " + name_ + " declares HFT " + std::to_string(*out_.hft));
     if (out_.basis == ConstraintBasis::kRoute2H)
@@ -280,25 +288,27 @@ void Assessment::route_1h() {
     if (!e.type || !e.sff) complete = false;
     if (!e.type) {
       element_caps.push_back(Cap{CapKind::kArchitecture, CapCause::kElementTypeMissing, 0, e.component,
-          in + e.component + " has no element type (A or B), so Route 1H cannot be applied and the " +
-              "subsystem cannot claim a SIL from its architecture."});
+                                 in + e.component +
+                                     " has no element type (A or B), so Route 1H cannot be applied and the " +
+                                     "subsystem cannot claim a SIL from its architecture."});
       continue;
     }
     if (!e.sff) {
       element_caps.push_back(Cap{CapKind::kArchitecture, CapCause::kSffUnknown, 0, e.component,
-          in + e.component + " has neither failure rates nor a declared SFF, so Route 1H cannot be applied " +
-              "and the subsystem cannot claim a SIL from its architecture."});
+                                 in + e.component +
+                                     " has neither failure rates nor a declared SFF, so Route 1H cannot be applied " +
+                                     "and the subsystem cannot claim a SIL from its architecture."});
       continue;
     }
     const int sil = max_sil_route_1h(*e.type, *e.sff, hft);
     e.sil_route_1h = sil;
     const std::string element = e.component + " (" + type_text(*e.type) + ", " +
                                 (e.sff_declared ? "declared SFF " : "SFF ") + format_percent(*e.sff) + ")";
-    const std::string source = std::string("(Route 1H, IEC 61508-2:2010 ") +
-                               (*e.type == ElementType::kA ? "Table 2" : "Table 3") + ").";
-    const std::string what = sil == 0 ? " is not allowed at HFT " + std::to_string(hft) + " "
-                                      : " at HFT " + std::to_string(hft) + " allows at most SIL " +
-                                            std::to_string(sil) + " ";
+    const std::string source =
+        std::string("(Route 1H, IEC 61508-2:2010 ") + (*e.type == ElementType::kA ? "Table 2" : "Table 3") + ").";
+    const std::string what =
+        sil == 0 ? " is not allowed at HFT " + std::to_string(hft) + " "
+                 : " at HFT " + std::to_string(hft) + " allows at most SIL " + std::to_string(sil) + " ";
     element_caps.push_back(
         Cap{CapKind::kArchitecture, CapCause::kRoute1hElement, sil, e.component, in + element + what + source});
   }
@@ -338,11 +348,12 @@ std::optional<Cap> Assessment::parallel_combination(const std::string& in, int h
     if (!c.weakest) return std::nullopt;
     channels.push_back(c);
   }
-  const bool equal = std::all_of(channels.begin(), channels.end(),
-                                 [&](const ChannelSil& c) { return c.sil == channels.front().sil; });
+  const bool equal =
+      std::all_of(channels.begin(), channels.end(), [&](const ChannelSil& c) { return c.sil == channels.front().sil; });
   if (equal) return std::nullopt;
   auto ranked = channels;
-  std::stable_sort(ranked.begin(), ranked.end(), [](const ChannelSil& a, const ChannelSil& b) { return a.sil > b.sil; });
+  std::stable_sort(ranked.begin(), ranked.end(),
+                   [](const ChannelSil& a, const ChannelSil& b) { return a.sil > b.sil; });
   const auto k = static_cast<std::size_t>(std::clamp(s_.vote.k, 1, static_cast<int>(ranked.size())));
   const ChannelSil& governing = ranked[k - 1];
   const int sil = std::min(4, governing.sil + hft);
@@ -351,15 +362,15 @@ std::optional<Cap> Assessment::parallel_combination(const std::string& in, int h
     each += (i == 0 ? "" : ", ") + std::string("channel ") + std::to_string(i + 1) + " SIL " +
             std::to_string(channels[i].sil) + " (" + channels[i].weakest->component + ")";
   const ElementConstraints& e = *governing.weakest;
-  const std::string which = k == 1 ? "the best channel" : "the channel ranked " + std::to_string(k) + " of " +
-                                                             std::to_string(ranked.size()) + " (K of the vote)";
+  const std::string which =
+      k == 1 ? "the best channel"
+             : "the channel ranked " + std::to_string(k) + " of " + std::to_string(ranked.size()) + " (K of the vote)";
   return Cap{CapKind::kArchitecture, CapCause::kRoute1hElement, sil, e.component,
              in + "the channels are of different elements; at HFT 0 " + each + ". The group takes " + which +
                  ", governed by " + e.component + " (" + type_text(*e.type) + ", " +
                  (e.sff_declared ? "declared SFF " : "SFF ") + format_percent(*e.sff) + ", SIL " +
-                 std::to_string(governing.sil) + " at HFT 0), plus its HFT " + std::to_string(hft) +
-                 ": at most SIL " + std::to_string(sil) +
-                 " (Route 1H, parallel combination, IEC 61508-2:2010 7.4.4.2.4)."};
+                 std::to_string(governing.sil) + " at HFT 0), plus its HFT " + std::to_string(hft) + ": at most SIL " +
+                 std::to_string(sil) + " (Route 1H, parallel combination, IEC 61508-2:2010 7.4.4.2.4)."};
 }
 
 void Assessment::route_2h_elements() {
@@ -405,8 +416,9 @@ void Assessment::systematic() {
       note("Subsystem " + name_ + " is marked diverse, but with HFT 0 (" + s_.vote.text() +
            ") one systematic fault in any channel fails it, so no SC credit is taken for diversity.");
     else if (s_.diversity_note.empty())
-      note("Subsystem " + name_ + " is marked diverse without a diversity note, so no SC credit is taken for "
-                                  "diversity.");
+      note("Subsystem " + name_ +
+           " is marked diverse without a diversity note, so no SC credit is taken for "
+           "diversity.");
     else
       credit = true;
   }
@@ -431,10 +443,12 @@ void Assessment::systematic() {
     const int sil = credit ? std::min(4, sc + 1) : sc;
     if (by_prior_use) {
       const std::string claimed = in + e.component + " is claimed for SIL " + std::to_string(sc) +
-                                  " on prior use (IEC 61511-1:2016 11.5.3), evidence: \"" + e.prior_use->evidence + "\"";
+                                  " on prior use (IEC 61511-1:2016 11.5.3), evidence: \"" + e.prior_use->evidence +
+                                  "\"";
       note(claimed + ".");
       cap(CapKind::kSystematic, CapCause::kPriorUse, sil, e.component,
-          claimed + "; it allows at most SIL " + std::to_string(sil) + (credit ? " with the diverse group's N+1." : "."));
+          claimed + "; it allows at most SIL " + std::to_string(sil) +
+              (credit ? " with the diverse group's N+1." : "."));
       continue;
     }
     const std::string has = in + e.component + " has SC " + std::to_string(sc);

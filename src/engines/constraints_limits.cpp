@@ -6,8 +6,8 @@
 
 #include "sifter/engines/constraints.hpp"
 #include "sifter/engines/sil.hpp"
-#include "sifter/model/vocabulary.hpp"
 #include "sifter/model/format.hpp"
+#include "sifter/model/vocabulary.hpp"
 
 namespace sifter {
 namespace {
@@ -76,14 +76,18 @@ std::string lift(const Cap& cap, const SubsystemConstraints& s, int required) {
   const std::string id = cap.element.value_or(s.subsystem);
   const std::string route_2h_or = ", or assess the SIF on Route 1H or under IEC 61511";
   switch (cap.cause) {
-    case CapCause::kFaultTolerance: return lift_fault_tolerance(s, required);
-    case CapCause::kRoute1hElement: return e ? lift_route_1h(s, *e, required) : "";
-    case CapCause::kElementTypeMissing: return "declare the element type of " + id + " (A or B) from its safety manual";
-    case CapCause::kSffUnknown: return "give the failure rates of " + id + " or the SFF from its safety manual";
+    case CapCause::kFaultTolerance:
+      return lift_fault_tolerance(s, required);
+    case CapCause::kRoute1hElement:
+      return e ? lift_route_1h(s, *e, required) : "";
+    case CapCause::kElementTypeMissing:
+      return "declare the element type of " + id + " (A or B) from its safety manual";
+    case CapCause::kSffUnknown:
+      return "give the failure rates of " + id + " or the SFF from its safety manual";
     case CapCause::kDiagnosticCoverage:
       return (e && !e->type ? "declare the element type of " + id + " (Route 2H sets no DC rule for Type A), " : "") +
-             "use an element with DC of at least " + format_edge(kRoute2hMinDiagnosticCoverage) + " in place of " +
-             id + route_2h_or;
+             "use an element with DC of at least " + format_edge(kRoute2hMinDiagnosticCoverage) + " in place of " + id +
+             route_2h_or;
     case CapCause::kDataConfidence:
       return "give failure data for " + id + " at " + format_edge(kRoute2hMinDataConfidence) + " confidence or more" +
              route_2h_or;
@@ -93,20 +97,23 @@ std::string lift(const Cap& cap, const SubsystemConstraints& s, int required) {
     case CapCause::kVendorRoute1h:
       return "declare the SIL capability from the vendor's certificate, or assess the SIF under IEC 61511 or on "
              "Route 2H";
-    case CapCause::kElementSc: return e ? lift_element_sc(s, *e, required) : "";
-    case CapCause::kScMissing:
-    {
+    case CapCause::kElementSc:
+      return e ? lift_element_sc(s, *e, required) : "";
+    case CapCause::kScMissing: {
       const int needed = s.diversity_credit ? required - 1 : required;
       return "declare the SC of " + id + " from its certificate or safety manual (" + sc_text(needed) +
              " or higher is needed), or its prior use with the evidence, \"prior_use\": {\"sil\": " +
              std::to_string(needed) + ", \"evidence\": \"...\"} (IEC 61511-1:2016 11.5.3)";
     }
-    case CapCause::kVendorSc: return lift_vendor_sc(cap, required);
+    case CapCause::kVendorSc:
+      return lift_vendor_sc(cap, required);
     case CapCause::kScNotDeclared:
       return "declare the SC of the vendor subsystem from its certificate (" + sc_text(required) +
              " or higher is needed)";
-    case CapCause::kNoElements: return "give the subsystem its channels and components";
-    case CapCause::kCertificate: return "use equipment whose certificate allows " + sil_words(required) + " or higher";
+    case CapCause::kNoElements:
+      return "give the subsystem its channels and components";
+    case CapCause::kCertificate:
+      return "use equipment whose certificate allows " + sil_words(required) + " or higher";
     case CapCause::kPriorUse:
       return "show prior use of " + id + " for " + sil_words(required) + " or higher, or use an element of " +
              sc_text(required) + " or higher in place of it";
@@ -125,7 +132,8 @@ std::optional<Limit> probability_limit(const ProbabilityCheck& p, int required_s
   // A required value on the band's edge is exclusive (IEC 61508-1:2010 Tables 2/3, half open).
   const bool exclusive = std::fabs(required - band_edge) <= kEdgeRelTol * band_edge;
   const bool below_band = p.sil < required_sil;
-  const bool above_required = exclusive ? !(p.achieved < required * (1.0 - kEdgeRelTol)) : !at_most(p.achieved, required);
+  const bool above_required =
+      exclusive ? !(p.achieved < required * (1.0 - kEdgeRelTol)) : !at_most(p.achieved, required);
   if (!below_band && !above_required) return std::nullopt;
   const std::string name = p.mode == DemandMode::kLow ? "PFDavg" : "PFH";
   std::string message = "The " + name + " of " + format_measure(p.achieved, p.mode);
@@ -133,7 +141,8 @@ std::optional<Limit> probability_limit(const ProbabilityCheck& p, int required_s
     message += (p.sil > 0 ? " allows only " + sil_words(p.sil) : std::string(" reaches no SIL")) + "; " +
                sil_words(required_sil) + " is required.";
   else
-    message += " lies in the " + sil_words(p.sil) + " band but above the required " + format_measure(required, p.mode) + ".";
+    message +=
+        " lies in the " + sil_words(p.sil) + " band but above the required " + format_measure(required, p.mode) + ".";
   message += " To lift it: bring the " + name + (exclusive ? " below " : " to ") + format_measure(required, p.mode) +
              (exclusive ? "." : " or less.");
   return Limit{"probability", std::nullopt, std::nullopt, p.sil, message};
@@ -150,8 +159,8 @@ std::vector<Limit> limits_for(const ProbabilityCheck& probability, const SifCons
     for (const auto& s : constraints.subsystems) {
       for (const auto& cap : s.caps) {
         if (cap.kind != kind || cap.sil >= sil_required) continue;
-        std::string message = cap.reason + " " + sil_words(sil_required) + " is required. To lift it: " +
-                              lift(cap, s, sil_required) + ".";
+        std::string message = cap.reason + " " + sil_words(sil_required) +
+                              " is required. To lift it: " + lift(cap, s, sil_required) + ".";
         out.push_back(Limit{kind == CapKind::kArchitecture ? "architecture" : "systematic", s.subsystem, cap.element,
                             cap.sil, std::move(message)});
       }

@@ -1,13 +1,13 @@
 // The exact cross-check of every SIF, and its PFD(t) curve.
 #include "sifter/engines/cross_check.hpp"
 
-#include <cmath>
 #include <algorithm>
+#include <cmath>
 #include <cstdio>
 #include <cstdlib>
 
-#include "sifter/model/diagnostics.hpp"
 #include "sifter/engines/lopa.hpp"
+#include "sifter/model/diagnostics.hpp"
 #include "sifter/model/format.hpp"
 
 namespace sifter {
@@ -41,10 +41,11 @@ void append_key(std::string& key, const ExactGroupInput& g) {
     put(c.lambda_su.per_hour);
     put(c.lambda_sd.per_hour);
   }
-  for (double v : {g.beta, g.beta_d, g.proof_test_interval.hours, g.mttr.hours, g.mrt.hours, g.proof_test_coverage,
-                   g.mission_time.hours, g.partial_stroke ? g.partial_stroke->interval.hours : -1.0,
-                   g.partial_stroke ? g.partial_stroke->coverage : -1.0, g.test_duration ? g.test_duration->hours : -1.0,
-                   g.staggered ? 1.0 : 0.0, g.track_each_channel ? 1.0 : 0.0})
+  for (double v :
+       {g.beta, g.beta_d, g.proof_test_interval.hours, g.mttr.hours, g.mrt.hours, g.proof_test_coverage,
+        g.mission_time.hours, g.partial_stroke ? g.partial_stroke->interval.hours : -1.0,
+        g.partial_stroke ? g.partial_stroke->coverage : -1.0, g.test_duration ? g.test_duration->hours : -1.0,
+        g.staggered ? 1.0 : 0.0, g.track_each_channel ? 1.0 : 0.0})
     put(v);
   key += '|';
 }
@@ -113,8 +114,10 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
     if (!inputs[i]) continue;
     auto& sub = r.subsystems[i];
     const ExactGroupResult& g = exact.groups[k++];
-    if (low) sub.pfd_avg_exact = g.pfd_avg;
-    else sub.pfh_exact_per_hour = comparable_pfh(g, sif.subsystems[i].alarm_only_on_detected);
+    if (low)
+      sub.pfd_avg_exact = g.pfd_avg;
+    else
+      sub.pfh_exact_per_hour = comparable_pfh(g, sif.subsystems[i].alarm_only_on_detected);
     for (const auto& note : g.notes) r.assumptions.push_back(sub.name + " (exact engine): " + note);
   }
   // The SIF's exact value: the product form of the modelled groups, with the vendor figures
@@ -135,18 +138,21 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
   const double ratio = as_printed(*simplified) / as_printed(sif_exact_value);
   r.simplified_over_exact = ratio;
   const bool whole = mission_whole_intervals(project, sif);
-  r.assumptions.push_back(std::string("exact cross-check: multi-phase Markov model over the mission of ") +
-                          format_duration(project.defaults.mission_time) +
-                          (whole ? "" : " (not a whole number of proof-test intervals: the last interval is cut short)") +
-                          "; simplified/exact = " + ratio_text(ratio));
+  r.assumptions.push_back(
+      std::string("exact cross-check: multi-phase Markov model over the mission of ") +
+      format_duration(project.defaults.mission_time) +
+      (whole ? "" : " (not a whole number of proof-test intervals: the last interval is cut short)") +
+      "; simplified/exact = " + ratio_text(ratio));
   if (ratio < 1.0 - kNonConservativeTolerance)
-    warnings.push_back({sif.pointer, "the simplified " + std::string(low ? "PFDavg" : "PFH") + " is " +
-                                         pct(1.0 - ratio) +
-                                         " below the exact value (non-conservative); the verdict rests on the exact figure unless the project's "
-                                         "\"judge_on\" says otherwise"});
+    warnings.push_back(
+        {sif.pointer,
+         "the simplified " + std::string(low ? "PFDavg" : "PFH") + " is " + pct(1.0 - ratio) +
+             " below the exact value (non-conservative); the verdict rests on the exact figure unless the project's "
+             "\"judge_on\" says otherwise"});
   else if (std::abs(ratio - 1.0) > kDisagreementTolerance)
     warnings.push_back({sif.pointer, "the simplified and exact " + std::string(low ? "PFDavg" : "PFH") + " differ by " +
-                                         pct(std::abs(ratio - 1.0)) + " (simplified/exact = " + ratio_text(ratio) + ")"});
+                                         pct(std::abs(ratio - 1.0)) + " (simplified/exact = " + ratio_text(ratio) +
+                                         ")"});
 }
 
 SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
@@ -159,7 +165,8 @@ SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
       continue;
     }
     const std::string why = exact_group_unsupported(*inputs[i]);
-    if (!why.empty()) throw UsageError("the exact engine cannot model subsystem \"" + sif.subsystems[i].name + "\": " + why);
+    if (!why.empty())
+      throw UsageError("the exact engine cannot model subsystem \"" + sif.subsystems[i].name + "\": " + why);
     modelled.push_back(*inputs[i]);
   }
   SifCurve c;
@@ -172,8 +179,10 @@ SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
   std::size_t k = 0, v = 0;
   for (std::size_t i = 0; i < inputs.size(); ++i) {
     c.subsystem_names.push_back(sif.subsystems[i].name);
-    if (!inputs[i]) c.pfd_subsystems.emplace_back(c.time_hours.size(), vendor[v++]);
-    else c.pfd_subsystems.push_back(exact.groups[k++].curve.pfd);
+    if (!inputs[i])
+      c.pfd_subsystems.emplace_back(c.time_hours.size(), vendor[v++]);
+    else
+      c.pfd_subsystems.push_back(exact.groups[k++].curve.pfd);
   }
   c.pfd_avg_exact = 1.0 - (1.0 - vendor_total) * (1.0 - exact.pfd_avg);
   return c;

@@ -92,8 +92,7 @@ double group_pfd_at(const GroupData& g, double t_hours, bool just_before_test) {
   return clamp01(independent + common_cause);
 }
 
-PfdPlot simplified_curve(const std::vector<CurveSubsystem>& subsystems, Duration mission,
-                          std::size_t uniform_samples) {
+PfdPlot simplified_curve(const std::vector<CurveSubsystem>& subsystems, Duration mission, std::size_t uniform_samples) {
   PfdPlot curve;
   curve.engine =
       "simplified sawtooth: per-channel instantaneous PFD from the IEC 61508-6:2010 Annex B group data, "

@@ -2,7 +2,6 @@
 // Internals of the exact engine: results of costly matrix functions remembered across the SIFs
 // of a run, keyed by the bytes of their inputs (never by SIF or by position in the project).
 #include <Eigen/Dense>
-
 #include <cstddef>
 #include <cstring>
 #include <memory>
@@ -21,7 +20,9 @@ class MemoKey {
  public:
   MemoKey& add(double v) { return raw(&v, sizeof v); }
   MemoKey& add(unsigned v) { return raw(&v, sizeof v); }
-  MemoKey& add(const std::vector<double>& v) { return add(static_cast<unsigned>(v.size())).raw(v.data(), v.size() * sizeof(double)); }
+  MemoKey& add(const std::vector<double>& v) {
+    return add(static_cast<unsigned>(v.size())).raw(v.data(), v.size() * sizeof(double));
+  }
   template <typename Derived>
   MemoKey& add(const Eigen::DenseBase<Derived>& m) {
     const Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic> dense = m;

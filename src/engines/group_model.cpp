@@ -29,7 +29,8 @@ FailureRates channel_rates(const Project& project, const Channel& channel) {
 bool GroupData::channels_identical() const {
   auto same = [](double a, double b) { return std::abs(a - b) <= 1e-12 * std::max(std::abs(a), std::abs(b)); };
   for (const auto& r : channels)
-    if (!same(r.lambda_du.per_hour, channel.lambda_du.per_hour) || !same(r.lambda_dd.per_hour, channel.lambda_dd.per_hour) ||
+    if (!same(r.lambda_du.per_hour, channel.lambda_du.per_hour) ||
+        !same(r.lambda_dd.per_hour, channel.lambda_dd.per_hour) ||
         !same(r.lambda_sd.per_hour, channel.lambda_sd.per_hour))
       return false;
   return true;

@@ -15,18 +15,25 @@ namespace sifter {
 
 std::string to_string(FindingKind kind) {
   switch (kind) {
-    case FindingKind::kNotIndependent: return "not_independent";
-    case FindingKind::kBpcsCreditCapped: return "bpcs_credit_capped";
-    case FindingKind::kImplausiblyLowPfd: return "implausibly_low_pfd";
-    case FindingKind::kTooManyBpcsLayers: return "too_many_bpcs_layers";
-    case FindingKind::kResponseTime: return "response_time";
-    case FindingKind::kNoSifNeeded: return "no_sif_needed";
-    case FindingKind::kSil4Review: return "sil4_review";
-    case FindingKind::kModeMismatch: return "mode_mismatch";
+    case FindingKind::kNotIndependent:
+      return "not_independent";
+    case FindingKind::kBpcsCreditCapped:
+      return "bpcs_credit_capped";
+    case FindingKind::kImplausiblyLowPfd:
+      return "implausibly_low_pfd";
+    case FindingKind::kTooManyBpcsLayers:
+      return "too_many_bpcs_layers";
+    case FindingKind::kResponseTime:
+      return "response_time";
+    case FindingKind::kNoSifNeeded:
+      return "no_sif_needed";
+    case FindingKind::kSil4Review:
+      return "sil4_review";
+    case FindingKind::kModeMismatch:
+      return "mode_mismatch";
   }
   return "unknown";
 }
-
 
 bool modifier_applies(const Modifier& modifier, const std::string& category) {
   const auto& cats = modifier.applies_to;
@@ -108,7 +115,8 @@ std::vector<CauseResult> cause_results(const Scenario& scenario, const LayerAsse
 double after_sif_product(const LayerAssessment& a) {
   double p = 1.0;
   for (const auto& lc : a.layers)
-    if (!lc.before_sif && lc.credited && std::all_of(lc.for_cause.begin(), lc.for_cause.end(), [](bool b) { return b; }))
+    if (!lc.before_sif && lc.credited &&
+        std::all_of(lc.for_cause.begin(), lc.for_cause.end(), [](bool b) { return b; }))
       p *= lc.pfd_credited;
   return p;
 }
@@ -120,20 +128,20 @@ void decide_demand_mode(ScenarioResult& r, double demand_per_yr) {
   r.demand_mode = from_rate == DemandMode::kHigh ? DemandMode::kHigh : r.demand_mode_stated.value_or(from_rate);
   if (!r.demand_mode_stated || *r.demand_mode_stated == from_rate) return;
   const bool high = from_rate == DemandMode::kHigh;
-  r.findings.push_back(
-      {FindingKind::kModeMismatch,
-       *r.sif + " is stated to be in " + mode_phrase(*r.demand_mode_stated) + " demand mode, but scenario " + r.id +
-           " demands it " + format_number(demand_per_yr) + " times a year, " +
-           (high ? "more than once a year (high" : "no more than once a year (low") +
-           " demand, IEC 61511-1:2016 3.2.39); " +
-           (high ? "it is judged in high demand (the stricter)." : "the stated mode is kept.")});
+  r.findings.push_back({FindingKind::kModeMismatch,
+                        *r.sif + " is stated to be in " + mode_phrase(*r.demand_mode_stated) +
+                            " demand mode, but scenario " + r.id + " demands it " + format_number(demand_per_yr) +
+                            " times a year, " +
+                            (high ? "more than once a year (high" : "no more than once a year (low") +
+                            " demand, IEC 61511-1:2016 3.2.39); " +
+                            (high ? "it is judged in high demand (the stricter)." : "the stated mode is kept.")});
 }
 
 // Everything the consequences share: per cause, the split by SIF credit, the SIF's figures.
 struct Flow {
-  double total = 0.0;            // frequency without the SIF, before the modifiers
-  double sif_credited = 0.0;     // share from causes the SIF is credited against
-  double after_sif = 1.0;        // layers after the SIF counted in the PFH form
+  double total = 0.0;         // frequency without the SIF, before the modifiers
+  double sif_credited = 0.0;  // share from causes the SIF is credited against
+  double after_sif = 1.0;     // layers after the SIF counted in the PFH form
   bool has_sif = false;
   bool high = false;
   std::optional<double> pfd_avg;
@@ -186,8 +194,10 @@ void summarise(ScenarioResult& r) {
   bool all_met = true;
   for (const auto& c : cs) {
     r.required_sil = std::max(r.required_sil, c.required_sil);
-    if (c.meets_target) all_met = all_met && *c.meets_target;
-    else all_known = false;
+    if (c.meets_target)
+      all_met = all_met && *c.meets_target;
+    else
+      all_known = false;
     if (r.demand_mode == DemandMode::kHigh && c.required_pfh_per_hour &&
         (!r.required_pfh_per_hour || *c.required_pfh_per_hour < *r.required_pfh_per_hour))
       r.required_pfh_per_hour = c.required_pfh_per_hour;
@@ -198,8 +208,9 @@ void summarise(ScenarioResult& r) {
 // IEC 61511-1:2016 clause 9 (from memory): no SIF below a risk reduction of 10; above 10 000
 // (SIL 4) the design is re-examined first.
 void sil_findings(ScenarioResult& r) {
-  const std::string review = ": re-examine the process design and the other layers before relying on a SIF "
-                             "(IEC 61511-1:2016 clause 9.2).";
+  const std::string review =
+      ": re-examine the process design and the other layers before relying on a SIF "
+      "(IEC 61511-1:2016 clause 9.2).";
   const std::string none = ": no SIF is needed at this risk level (IEC 61511-1:2016 clause 9).";
   const std::string who = "Scenario " + r.id;
   if (r.demand_mode == DemandMode::kHigh && r.required_pfh_per_hour) {
@@ -207,7 +218,8 @@ void sil_findings(ScenarioResult& r) {
     if (r.required_sil == 0)
       r.findings.push_back({FindingKind::kNoSifNeeded, who + " needs a PFH of " + pfh + ", not below 1e-5/h" + none});
     if (r.required_sil == 4)
-      r.findings.push_back({FindingKind::kSil4Review, who + " needs a PFH of " + pfh + ", below 1e-8/h (SIL 4)" + review});
+      r.findings.push_back(
+          {FindingKind::kSil4Review, who + " needs a PFH of " + pfh + ", below 1e-8/h (SIL 4)" + review});
     return;
   }
   const std::string rrf = format_number(r.required_rrf);
@@ -232,17 +244,20 @@ void method_assumptions(ScenarioResult& r, const Scenario& scenario, const Layer
     r.assumptions.push_back("An operator response is credited only with at least 10 min available and at least " +
                             format_number(multiple) + " times its response time (common practice).");
   if (std::any_of(a.layers.begin(), a.layers.end(), [](const LayerCredit& lc) { return lc.bpcs_based; }))
-    r.assumptions.push_back("BPCS-based layers are the BPCS functions and the operator responses that share a device "
-                            "with one of them or with an initiating cause; at most two are credited per scenario.");
+    r.assumptions.push_back(
+        "BPCS-based layers are the BPCS functions and the operator responses that share a device "
+        "with one of them or with an initiating cause; at most two are credited per scenario.");
   const bool partial = std::any_of(a.layers.begin(), a.layers.end(), [](const LayerCredit& lc) {
     return lc.credited && std::find(lc.for_cause.begin(), lc.for_cause.end(), false) != lc.for_cause.end();
   });
   if (partial)
-    r.assumptions.push_back("A layer that shares a device with an initiating cause gets no credit against that cause "
-                            "only, and keeps its credit against the others.");
+    r.assumptions.push_back(
+        "A layer that shares a device with an initiating cause gets no credit against that cause "
+        "only, and keeps its credit against the others.");
   if (r.demand_mode == DemandMode::kHigh)
-    r.assumptions.push_back("In high demand the required PFH is the target / (8760 h/yr x the modifiers x the PFD of "
-                            "the layers credited after the SIF): enabling conditions are ignored, which is conservative.");
+    r.assumptions.push_back(
+        "In high demand the required PFH is the target / (8760 h/yr x the modifiers x the PFD of "
+        "the layers credited after the SIF): enabling conditions are ignored, which is conservative.");
 }
 
 void sif_figure_assumptions(ScenarioResult& r, Flow& f, const SifFigures* figures) {
@@ -258,18 +273,19 @@ void sif_figure_assumptions(ScenarioResult& r, Flow& f, const SifFigures* figure
     (f.high ? f.pfh_per_hour : f.pfd_avg) = figures->credit;
     r.sif_credit_capped = figures->credit_capped;
     if (figures->credit_capped)
-      r.assumptions.push_back(*r.sif + " is credited with " + (f.high ? "a PFH of " : "a PFD of ") +
-                              format_number(*figures->credit) + (f.high ? "/h" : "") +
-                              ", the best of the SIL band it achieves, not its computed " + (f.high ? "PFH " : "PFDavg ") +
-                              format_number(*(f.high ? r.sif_pfh_per_hour : r.sif_pfd_avg)) +
-                              ": a SIF is credited only for the SIL it achieves (IEC 61511-1:2016 clause 9).");
+      r.assumptions.push_back(
+          *r.sif + " is credited with " + (f.high ? "a PFH of " : "a PFD of ") + format_number(*figures->credit) +
+          (f.high ? "/h" : "") + ", the best of the SIL band it achieves, not its computed " +
+          (f.high ? "PFH " : "PFDavg ") + format_number(*(f.high ? r.sif_pfh_per_hour : r.sif_pfd_avg)) +
+          ": a SIF is credited only for the SIL it achieves (IEC 61511-1:2016 clause 9).");
   } else if (f.pfd_avg || f.pfh_per_hour) {
     r.sif_credit_capped = false;
   }
   r.sif_credit_pfd = f.high ? f.pfh_per_hour : f.pfd_avg;
   if (f.high && f.pfh_per_hour)
-    r.assumptions.push_back("In high demand the mitigated frequency is the PFH x 8760 h/yr x the PFD of the layers "
-                            "credited after the SIF x the modifiers, and no more than the frequency without the SIF.");
+    r.assumptions.push_back(
+        "In high demand the mitigated frequency is the PFH x 8760 h/yr x the PFD of the layers "
+        "credited after the SIF x the modifiers, and no more than the frequency without the SIF.");
   if (!f.pfd_avg && !f.pfh_per_hour)
     r.assumptions.push_back(*r.sif + " has no computed " + (f.high ? "PFH" : "PFDavg") +
                             "; the mitigated frequency is not given.");
@@ -340,7 +356,8 @@ void add_scenario(SifRequirement& req, const ScenarioResult& r) {
   req.scenarios.push_back(r.id);
   req.demand_rate_per_yr += r.demand_rate_per_yr.value_or(0.0);
   for (const auto& c : r.consequences)
-    if (c.required_pfh_per_hour && (!req.required_pfh_per_hour || *c.required_pfh_per_hour < *req.required_pfh_per_hour))
+    if (c.required_pfh_per_hour &&
+        (!req.required_pfh_per_hour || *c.required_pfh_per_hour < *req.required_pfh_per_hour))
       req.required_pfh_per_hour = c.required_pfh_per_hour;
 }
 

@@ -6,9 +6,9 @@
 #include <string>
 #include <vector>
 
-#include "sifter/graph/dependency_graph.hpp"
 #include "sifter/engines/lopa.hpp"
 #include "sifter/engines/sil.hpp"
+#include "sifter/graph/dependency_graph.hpp"
 
 namespace sifter {
 namespace {
@@ -25,9 +25,7 @@ std::string kind_phrase(LayerKind kind) {
   return kind == LayerKind::kBpcsFunction ? "BPCS function" : "operator response";
 }
 
-bool capped_kind(LayerKind kind) {
-  return kind == LayerKind::kBpcsFunction || kind == LayerKind::kOperatorResponse;
-}
+bool capped_kind(LayerKind kind) { return kind == LayerKind::kBpcsFunction || kind == LayerKind::kOperatorResponse; }
 
 // "device DCS-4", "devices DCS-4 and LT-400", "devices A, B and C".
 std::string device_list(const std::vector<std::string>& tags) {
@@ -42,8 +40,8 @@ std::string device_list(const std::vector<std::string>& tags) {
 std::string minutes(double hours) { return format_number(hours * 60.0) + " min"; }
 
 std::string ordinal(std::size_t n) {
-  static const char* const kWords[] = {"first", "second", "third", "fourth", "fifth",
-                                       "sixth", "seventh", "eighth", "ninth", "tenth"};
+  static const char* const kWords[] = {"first", "second",  "third",  "fourth", "fifth",
+                                       "sixth", "seventh", "eighth", "ninth",  "tenth"};
   return n >= 1 && n <= 10 ? kWords[n - 1] : std::to_string(n) + "th";
 }
 
@@ -100,8 +98,8 @@ class LayerRules {
       const auto tags = shared(*out_.sif_layer, vertices_.causes[c]);
       if (tags.empty()) continue;
       const std::string& cause = scenario_.causes[c].id;
-      const std::string head = sif.sif + ", the SIF under assessment, shares " + device_list(tags) +
-                               " with initiating cause " + cause;
+      const std::string head =
+          sif.sif + ", the SIF under assessment, shares " + device_list(tags) + " with initiating cause " + cause;
       if (sif.independence_note.empty()) {
         out_.sif_for_cause[c] = false;
         out_.sif_cause_notes[c] = "no credit against " + cause + ": shares " + join(tags, ", ");
@@ -170,8 +168,8 @@ class LayerRules {
     const Layer& layer = scenario_.layers[i];
     if (!layer.sif.empty() || capped_kind(layer.kind) || !(lc.pfd_claimed < kLowestPlausibleLayerPfd)) return;
     finding(FindingKind::kImplausiblyLowPfd,
-            "Layer " + layer_label(layer, i) + " claims PFD " + format_number(lc.pfd_claimed) +
-                ", below the " + format_number(kLowestPlausibleLayerPfd) +
+            "Layer " + layer_label(layer, i) + " claims PFD " + format_number(lc.pfd_claimed) + ", below the " +
+                format_number(kLowestPlausibleLayerPfd) +
                 " that any single protection layer is credited with in practice; justify it or use a higher PFD.");
   }
 
@@ -184,8 +182,9 @@ class LayerRules {
     const double multiple = project_.operator_time_multiple;
     if (!layer.time_available) {
       notes.push_back("no credit: no time available stated");
-      finding(FindingKind::kResponseTime, head + " states no time available; an operator response is credited only "
-                                                 "with at least 10 min available and at least " +
+      finding(FindingKind::kResponseTime, head +
+                                              " states no time available; an operator response is credited only "
+                                              "with at least 10 min available and at least " +
                                               format_number(multiple) + " times its response time" + tail);
       return false;
     }
@@ -218,7 +217,8 @@ class LayerRules {
     const Layer& layer = scenario_.layers[i];
     const std::string name = layer_label(layer, i);
     const std::string& sif = scenario_.layers[*out_.sif_layer].sif;
-    const std::string head = "Layer " + name + " shares " + device_list(tags) + " with " + sif + ", the SIF under assessment";
+    const std::string head =
+        "Layer " + name + " shares " + device_list(tags) + " with " + sif + ", the SIF under assessment";
     return independence(layer, name, head, "shares " + join(tags, ", ") + " with " + sif, notes);
   }
 
@@ -231,7 +231,9 @@ class LayerRules {
       if (tags.empty()) continue;
       const std::string other = layer_label(scenario_.layers[j], j);
       const std::string head = "Layer " + name + " shares " + device_list(tags) + " with layer " + other;
-      ok = independence(layer, name, head, "shares " + join(tags, ", ") + " with " + other, notes, ", credited before it") && ok;
+      ok = independence(layer, name, head, "shares " + join(tags, ", ") + " with " + other, notes,
+                        ", credited before it") &&
+           ok;
     }
     return ok;
   }
@@ -246,8 +248,7 @@ class LayerRules {
       return true;
     }
     notes.push_back("no credit: " + short_note);
-    finding(FindingKind::kNotIndependent,
-            head + aside + ", so " + name + " is not independent and gets no credit.");
+    finding(FindingKind::kNotIndependent, head + aside + ", so " + name + " is not independent and gets no credit.");
     return false;
   }
 
@@ -317,8 +318,8 @@ class LayerRules {
     notes.push_back("no credit: more than two BPCS-based layers");
     finding(FindingKind::kTooManyBpcsLayers,
             "Layer " + name + " is the " + ordinal(bpcs_seen_) + " BPCS-based layer in scenario " + scenario_.id +
-                "; no more than two are credited in one scenario (" + bpcs_credited_[0] + " and " +
-                bpcs_credited_[1] + "), so " + name + " gets no credit.");
+                "; no more than two are credited in one scenario (" + bpcs_credited_[0] + " and " + bpcs_credited_[1] +
+                "), so " + name + " gets no credit.");
     return false;
   }
 

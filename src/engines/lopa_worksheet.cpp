@@ -8,15 +8,24 @@ namespace sifter {
 
 std::string to_string(WorksheetStep step) {
   switch (step) {
-    case WorksheetStep::kCause: return "cause";
-    case WorksheetStep::kEnabling: return "enabling";
-    case WorksheetStep::kLayer: return "layer";
-    case WorksheetStep::kSif: return "sif";
-    case WorksheetStep::kNotCredited: return "not_credited";
-    case WorksheetStep::kTotal: return "total";
-    case WorksheetStep::kModifier: return "modifier";
-    case WorksheetStep::kTarget: return "target";
-    case WorksheetStep::kWithSif: return "with_sif";
+    case WorksheetStep::kCause:
+      return "cause";
+    case WorksheetStep::kEnabling:
+      return "enabling";
+    case WorksheetStep::kLayer:
+      return "layer";
+    case WorksheetStep::kSif:
+      return "sif";
+    case WorksheetStep::kNotCredited:
+      return "not_credited";
+    case WorksheetStep::kTotal:
+      return "total";
+    case WorksheetStep::kModifier:
+      return "modifier";
+    case WorksheetStep::kTarget:
+      return "target";
+    case WorksheetStep::kWithSif:
+      return "with_sif";
   }
   return "unknown";
 }
@@ -50,8 +59,8 @@ void cause_rows(std::vector<WorksheetRow>& rows, const Scenario& scenario, const
       const bool credited = a.sif_for_cause.empty() || a.sif_for_cause[c];
       const std::string note = joined("the SIF under assessment, not counted in the frequency without it",
                                       a.sif_cause_notes.empty() ? "" : a.sif_cause_notes[c]);
-      rows.push_back({WorksheetStep::kSif, "", cause.id, layer.sif, layer.title, std::nullopt, credited, note, f,
-                      std::nullopt});
+      rows.push_back(
+          {WorksheetStep::kSif, "", cause.id, layer.sif, layer.title, std::nullopt, credited, note, f, std::nullopt});
       continue;
     }
     const LayerCredit* lc = credit_of(a, i);
@@ -63,8 +72,7 @@ void cause_rows(std::vector<WorksheetRow>& rows, const Scenario& scenario, const
                     credited ? lc->pfd_credited : lc->pfd_claimed, credited,
                     joined(joined(lc->note, lc->cause_notes[c]),
                            layer.catalogue_id.empty() ? "" : "from the layer catalogue (" + layer.catalogue_id + ")"),
-                    f,
-                    std::nullopt});
+                    f, std::nullopt});
   }
 }
 
@@ -93,15 +101,13 @@ void consequence_rows(std::vector<WorksheetRow>& rows, const Scenario& scenario,
       r.sif_credit_pfd ? r.sif_credit_pfd : (r.sif_pfd_avg ? r.sif_pfd_avg : r.sif_pfh_per_hour);
   const bool capped = r.sif_credit_capped.value_or(false);
   const double ratio = *c.mitigated_frequency_per_yr / c.target_frequency_per_yr;
-  const std::string verdict = c.meets_target.value_or(false)
-                                  ? "meets the target"
-                                  : "misses the target by a factor of " + format_number(ratio);
+  const std::string verdict =
+      c.meets_target.value_or(false) ? "meets the target" : "misses the target by a factor of " + format_number(ratio);
   rows.push_back({WorksheetStep::kWithSif, c.category, "", *r.sif,
                   capped ? (r.sif_pfd_avg ? "with the SIF's credit, capped at the best PFD of the SIL it achieves"
                                           : "with the SIF's credit, capped at the best PFH of the SIL it achieves")
                          : (r.sif_pfd_avg ? "with the SIF's PFDavg" : "with the SIF's PFH per hour"),
-                  figure, true, verdict,
-                  c.mitigated_frequency_per_yr, std::nullopt});
+                  figure, true, verdict, c.mitigated_frequency_per_yr, std::nullopt});
 }
 
 }  // namespace

@@ -1,13 +1,12 @@
 // Exact engine, one group: propagation by matrix exponentials, Van Loan's integrals, the API.
 #include "sifter/engines/markov.hpp"
 
-#include <unsupported/Eigen/MatrixFunctions>
-
 #include <algorithm>
 #include <cmath>
 #include <deque>
 #include <limits>
 #include <stdexcept>
+#include <unsupported/Eigen/MatrixFunctions>
 
 #include "engines/exact_memo.hpp"
 #include "engines/markov_chain.hpp"
@@ -230,7 +229,9 @@ GroupTrace propagate_cycles(const GroupChain& chain, const CyclePattern& pattern
     const double t = static_cast<double>(c) * period + cycle[index].time_hours;
     return t < last ? t : std::numeric_limits<double>::infinity();
   };
-  auto next_actions = [&]() -> const std::vector<Action>& { return c == 0 ? head[index].actions : cycle[index].actions; };
+  auto next_actions = [&]() -> const std::vector<Action>& {
+    return c == 0 ? head[index].actions : cycle[index].actions;
+  };
   settle();
 
   GroupTrace trace;
@@ -330,7 +331,8 @@ PfdCurve curve_on_grid(const std::vector<double>& grid, const std::vector<bool>&
 
 std::vector<std::string> group_notes(const ExactGroupInput& in, const GroupChain& chain) {
   std::vector<std::string> notes;
-  if (in.vote.diagnostic) notes.emplace_back("1oo2D modelled as 1oo2: the switch-over of the diagnostics is not modelled");
+  if (in.vote.diagnostic)
+    notes.emplace_back("1oo2D modelled as 1oo2: the switch-over of the diagnostics is not modelled");
   if (in.vote.k == in.vote.n && (in.beta > 0.0 || in.beta_d > 0.0))
     notes.emplace_back("no common cause for a " + in.vote.text() + " vote, as in IEC 61508-6 Annex B");
   if (chain.per_channel() && in.channels.size() > 1 && in.beta > 0.0)
@@ -406,8 +408,7 @@ ExactGroupResult group_exact(const ExactGroupInput& group) {
   return r;
 }
 
-ExactGroupInput exact_group_input(const Subsystem& s, const std::vector<Component>& components,
-                                  Duration mission_time) {
+ExactGroupInput exact_group_input(const Subsystem& s, const std::vector<Component>& components, Duration mission_time) {
   if (s.is_vendor() || s.channels.empty())
     throw std::invalid_argument("exact engine: subsystem '" + s.name + "' has no channels to model");
   ExactGroupInput in;

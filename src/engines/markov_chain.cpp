@@ -48,9 +48,7 @@ GroupChain::GroupChain(const ExactGroupInput& in) : k_(in.vote.k), n_(in.vote.n)
   repair_per_hour_ = in.mrt.hours > 0.0 ? 1.0 / in.mrt.hours : 0.0;
   // A channel in repair after a test and one being restored after a detected failure behave
   // alike when MRT = MTTR: they share one state, which halves the chain of a 2oo3 (exact).
-  revealed_to_ = repair_per_hour_ <= 0.0                   ? kWorking
-                 : repair_per_hour_ == restore_per_hour_ ? kDetected
-                                                         : kRepair;
+  revealed_to_ = repair_per_hour_ <= 0.0 ? kWorking : repair_per_hour_ == restore_per_hour_ ? kDetected : kRepair;
 
   // Common cause: a shock at beta times the smallest channel rate; none when K = N.
   const bool redundant = k_ < n_;
@@ -204,7 +202,8 @@ Eigen::VectorXd GroupChain::failed(ChannelMask bypassed) const {
   for (int i = 0; i < size(); ++i) {
     const auto& c = states_[static_cast<std::size_t>(i)];
     int available = 0;
-    for (int j = 0; j < width(); ++j) available += c[static_cast<std::size_t>(j)] == kWorking && !(bypassed & (1u << j));
+    for (int j = 0; j < width(); ++j)
+      available += c[static_cast<std::size_t>(j)] == kWorking && !(bypassed & (1u << j));
     f(i) = available < k_ ? 1.0 : 0.0;
   }
   return f;
@@ -225,7 +224,8 @@ Eigen::VectorXd GroupChain::entering_undetected(ChannelMask bypassed) const {
 
 Jump GroupChain::proof_test(ChannelMask tested) const {
   Jump jump(states_.size());
-  for (int i = 0; i < size(); ++i) jump[static_cast<std::size_t>(i)] = index_of(reveal(states_[static_cast<std::size_t>(i)], tested, false));
+  for (int i = 0; i < size(); ++i)
+    jump[static_cast<std::size_t>(i)] = index_of(reveal(states_[static_cast<std::size_t>(i)], tested, false));
   return jump;
 }
 
@@ -283,8 +283,10 @@ CyclePattern cycle_pattern(const ExactGroupInput& in, const GroupChain& chain) {
   if (chain.has_partial_stroke()) {
     const double tp = in.partial_stroke->interval.hours;
     auto whole = [](double x) { return x >= 1.0 - 1e-9 && std::fabs(x - std::round(x)) <= 1e-9 * x; };
-    if (whole(tp / t1)) period = tp;
-    else if (!whole(t1 / tp)) return out;
+    if (whole(tp / t1))
+      period = tp;
+    else if (!whole(t1 / tp))
+      return out;
   }
   // The timeline of three periods: cycle 0, then cycle 1 as the pattern of every later one.
   ExactGroupInput three = in;

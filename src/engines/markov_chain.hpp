@@ -2,7 +2,6 @@
 // Internals of the exact engine shared by markov.cpp and markov_sif.cpp: the chain of one
 // group, its timeline of tests, and the propagation of its state along a time grid.
 #include <Eigen/Dense>
-
 #include <array>
 #include <cstdint>
 #include <unordered_map>
@@ -89,8 +88,8 @@ class GroupChain {
     double rate;
   };
   std::vector<Config> states_;
-  std::vector<Transition> undetected_;  // the transitions that are undetected failures
-  std::uint8_t revealed_to_ = kWorking;  // where a failure found by a test goes
+  std::vector<Transition> undetected_;            // the transitions that are undetected failures
+  std::uint8_t revealed_to_ = kWorking;           // where a failure found by a test goes
   std::unordered_map<std::uint32_t, int> index_;  // key -> state, for more than 4 channels
   std::vector<int> flat_index_;                   // key -> state, up to 4 channels
   Eigen::MatrixXd q_;
@@ -121,12 +120,12 @@ std::vector<std::vector<Action>> actions_on_grid(const std::vector<TimedAction>&
 /// A group's state along a grid: PFD before and after each instant, the state after it, and
 /// the exact integrals over the mission.
 struct GroupTrace {
-  std::vector<double> pfd_before;  // PFD just before each instant (at 0: the initial PFD)
-  std::vector<double> pfd_after;   // PFD just after each instant's actions
-  std::vector<Eigen::VectorXd> state_after;  // kept only when asked for
-  std::vector<ChannelMask> bypassed;         // bypass in force on the segment after instant i
-  double pfd_integral_hours = 0.0;           // integral of PFD(t) dt
-  double expected_failures = 0.0;            // integral of the failure frequency dt
+  std::vector<double> pfd_before;             // PFD just before each instant (at 0: the initial PFD)
+  std::vector<double> pfd_after;              // PFD just after each instant's actions
+  std::vector<Eigen::VectorXd> state_after;   // kept only when asked for
+  std::vector<ChannelMask> bypassed;          // bypass in force on the segment after instant i
+  double pfd_integral_hours = 0.0;            // integral of PFD(t) dt
+  double expected_failures = 0.0;             // integral of the failure frequency dt
   double expected_undetected_failures = 0.0;  // the part due to undetected failures
   /// Compressed traces only: the integrals [PFD, failures, undetected failures] over each
   /// segment of the grid (the cross terms take such a group at its average over a segment).

@@ -1,12 +1,11 @@
 // Exact engine, SIF level: subsystems in series on a common grid of every test instant.
-#include <unsupported/Eigen/MatrixFunctions>
-#include <boost/math/quadrature/gauss.hpp>
-
 #include <algorithm>
 #include <array>
+#include <boost/math/quadrature/gauss.hpp>
 #include <cmath>
 #include <deque>
 #include <stdexcept>
+#include <unsupported/Eigen/MatrixFunctions>
 
 #include "engines/exact_memo.hpp"
 #include "engines/markov_chain.hpp"
@@ -30,8 +29,8 @@ constexpr unsigned kGaussPoints = 8;
 // sub-interval's nodes are twice those of the one inside it, so that exponentials square.
 struct GradedRule {
   double length_hours = 0.0;
-  int levels = 0;  // K
-  std::vector<double> unit_nodes;    // Gauss-Legendre nodes on [0, 1]
+  int levels = 0;                  // K
+  std::vector<double> unit_nodes;  // Gauss-Legendre nodes on [0, 1]
   std::vector<double> offsets_hours;
   std::vector<double> weights_hours;
 };
@@ -144,7 +143,9 @@ CrossTerms cross_terms(const std::vector<GroupChain>& chains, const std::vector<
     for (std::size_t i = 0; i < groups; ++i) {
       if (traces[i].averaged) {  // a group tested too often to resolve: its average over the segment
         for (std::size_t w = 0; w < 3; ++w)
-          at[w].col(static_cast<Eigen::Index>(i)).setConstant(traces[i].segment_integrals[k](static_cast<Eigen::Index>(w)) / length);
+          at[w]
+              .col(static_cast<Eigen::Index>(i))
+              .setConstant(traces[i].segment_integrals[k](static_cast<Eigen::Index>(w)) / length);
         continue;
       }
       const ChannelMask m = traces[i].bypassed[k];
@@ -160,7 +161,8 @@ CrossTerms cross_terms(const std::vector<GroupChain>& chains, const std::vector<
     for (Eigen::Index j = 0; j < nodes; ++j) {
       // prod_{l != i}(1 - u_l) from prefix and suffix products, without dividing.
       prefix[0] = suffix[groups] = 1.0;
-      for (std::size_t i = 0; i < groups; ++i) prefix[i + 1] = prefix[i] * (1.0 - at[0](j, static_cast<Eigen::Index>(i)));
+      for (std::size_t i = 0; i < groups; ++i)
+        prefix[i + 1] = prefix[i] * (1.0 - at[0](j, static_cast<Eigen::Index>(i)));
       for (std::size_t i = groups; i-- > 0;) suffix[i] = suffix[i + 1] * (1.0 - at[0](j, static_cast<Eigen::Index>(i)));
       const double weight = rule.weights_hours[static_cast<std::size_t>(j)];
       out.pfd += weight * (at[0].row(j).sum() - (1.0 - prefix[groups]));
@@ -220,8 +222,9 @@ SifExactResult evaluate(const std::vector<ExactGroupInput>& groups, int points) 
     if (detail::timeline_instants(g, chains.back()) > detail::kMaxSteppedInstants) {
       patterns.back() = detail::cycle_pattern(g, chains.back());
       if (!patterns.back().valid)
-        throw std::invalid_argument("exact engine: a partial stroke interval that neither divides the proof-test "
-                                    "interval nor is a whole multiple of it allows at most 20000 tests");
+        throw std::invalid_argument(
+            "exact engine: a partial stroke interval that neither divides the proof-test "
+            "interval nor is a whole multiple of it allows at most 20000 tests");
       compressed = true;
       timelines.emplace_back();
       continue;
@@ -232,7 +235,8 @@ SifExactResult evaluate(const std::vector<ExactGroupInput>& groups, int points) 
   // Groups tested more than kMaxSteppedInstants times are composed by whole cycles on a grid of
   // the other groups' instants and kCompressedSamples even samples (README "Limits").
   if (compressed)
-    for (int j = 0; j < detail::kCompressedSamples; ++j) times.push_back(mission * j / (detail::kCompressedSamples - 1));
+    for (int j = 0; j < detail::kCompressedSamples; ++j)
+      times.push_back(mission * j / (detail::kCompressedSamples - 1));
   auto run = [&](const std::vector<double>& grid, bool keep_states, auto& actions) {
     std::vector<GroupTrace> traces;
     for (std::size_t i = 0; i < groups.size(); ++i) {
@@ -260,11 +264,13 @@ SifExactResult evaluate(const std::vector<ExactGroupInput>& groups, int points) 
     g.per_channel = chains[i].per_channel();
     g.notes = detail::group_notes(groups[i], chains[i]);
     if (patterns[i].valid)
-      g.notes.push_back("tested about " + std::to_string(std::llround(detail::timeline_instants(groups[i], chains[i]))) +
-                        " times over the mission: whole test cycles composed by repeated squaring; its curve "
-                        "sampled at " + std::to_string(detail::kCompressedSamples) + " instants" +
-                        (groups.size() > 1 ? ", and its terms with the other subsystems taken at its average between them"
-                                           : std::string()));
+      g.notes.push_back(
+          "tested about " + std::to_string(std::llround(detail::timeline_instants(groups[i], chains[i]))) +
+          " times over the mission: whole test cycles composed by repeated squaring; its curve "
+          "sampled at " +
+          std::to_string(detail::kCompressedSamples) + " instants" +
+          (groups.size() > 1 ? ", and its terms with the other subsystems taken at its average between them"
+                             : std::string()));
     r.pfd_avg += g.pfd_avg;
     r.failure_frequency_per_hour += g.failure_frequency_per_hour;
     r.undetected_failure_frequency_per_hour += g.undetected_failure_frequency_per_hour;

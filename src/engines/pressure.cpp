@@ -1,10 +1,9 @@
 // Overpressure screening on a graph of sources, connections and equipment.
 #include "sifter/engines/pressure.hpp"
 
+#include <algorithm>
 #include <boost/graph/adjacency_list.hpp>
 #include <boost/graph/depth_first_search.hpp>
-
-#include <algorithm>
 #include <cmath>
 #include <map>
 
@@ -57,7 +56,6 @@ struct CycleFinder : boost::default_dfs_visitor {
   }
 };
 
-
 void reach_from(const Built& b, Vertex start, std::vector<Vertex>& parent) {
   const std::size_t n = boost::num_vertices(b.graph);
   parent.assign(n, n);
@@ -75,9 +73,7 @@ void reach_from(const Built& b, Vertex start, std::vector<Vertex>& parent) {
   }
 }
 
-std::string percent(double fraction) {
-  return format_number(100.0 * fraction) + " %";
-}
+std::string percent(double fraction) { return format_number(100.0 * fraction) + " %"; }
 
 std::vector<std::string> source_estimates(const PressureSource& s) {
   std::vector<std::string> out;
@@ -92,10 +88,14 @@ std::vector<std::string> source_estimates(const PressureSource& s) {
 
 std::string to_string(OverpressureCategory category) {
   switch (category) {
-    case OverpressureCategory::kNone: return "none";
-    case OverpressureCategory::kMinor: return "minor";
-    case OverpressureCategory::kLeakPossible: return "leak_possible";
-    case OverpressureCategory::kRupturePossible: return "rupture_possible";
+    case OverpressureCategory::kNone:
+      return "none";
+    case OverpressureCategory::kMinor:
+      return "minor";
+    case OverpressureCategory::kLeakPossible:
+      return "leak_possible";
+    case OverpressureCategory::kRupturePossible:
+      return "rupture_possible";
   }
   return "none";
 }
@@ -156,8 +156,8 @@ std::vector<std::string> connection_cycle(const PressureSection& section) {
   CycleFinder finder;
   finder.parent = &parent;
   finder.cycle = &cycle;
-  boost::depth_first_search(b.graph, finder, boost::make_iterator_property_map(colour.begin(),
-                                                                                 boost::get(boost::vertex_index, b.graph)));
+  boost::depth_first_search(
+      b.graph, finder, boost::make_iterator_property_map(colour.begin(), boost::get(boost::vertex_index, b.graph)));
   std::vector<std::string> out;
   for (Vertex v : cycle) out.push_back(b.ids[v]);
   if (!out.empty()) out.push_back(out.front());
@@ -201,13 +201,13 @@ void raise_by_source(const PressureSection& section, const Built& b, std::size_t
     const auto& item = section.equipment[e];
     // Liquid service: the column between the source and the item adds (or, above the
     // source, subtracts) rho g dz; a fixed source without a density is taken as gas (no head).
-    const double head = src.density_max ? static_head_bar(*src.density_max,
-                                                          Length{src.elevation.metres - item.elevation.metres})
-                                        : 0.0;
+    const double head =
+        src.density_max ? static_head_bar(*src.density_max, Length{src.elevation.metres - item.elevation.metres}) : 0.0;
     const double p = at_source + head;
     WorstCase& cur = worst[e];
     for (const auto& est : estimates)
-      if (std::find(cur.estimates.begin(), cur.estimates.end(), est) == cur.estimates.end()) cur.estimates.push_back(est);
+      if (std::find(cur.estimates.begin(), cur.estimates.end(), est) == cur.estimates.end())
+        cur.estimates.push_back(est);
     if (cur.reached && p <= cur.pressure) continue;
     cur.reached = true;
     cur.pressure = p;
@@ -282,8 +282,9 @@ std::string overpressure_scenario_id(const std::string& item, const std::string&
 
 std::vector<Scenario> overpressure_scenarios(const PressureSection& section, PressureScreening& screening) {
   std::vector<Scenario> out;
-  const bool any_over = std::any_of(screening.equipment.begin(), screening.equipment.end(),
-                                    [](const EquipmentScreening& e) { return e.category != OverpressureCategory::kNone; });
+  const bool any_over =
+      std::any_of(screening.equipment.begin(), screening.equipment.end(),
+                  [](const EquipmentScreening& e) { return e.category != OverpressureCategory::kNone; });
   if (!any_over) return out;
   if (!section.bands) screening.missing.push_back("pressure.consequence_bands");
   if (!section.blocked_outlet) screening.missing.push_back("pressure.blocked_outlet_frequency");

@@ -1,13 +1,13 @@
 // Capping probabilities at 1 where the rare-event sums of the simplified equations exceed it.
 #include "sifter/engines/probability_cap.hpp"
-#include "sifter/model/format.hpp"
 
 #include <algorithm>
 #include <cstdio>
 
+#include "sifter/model/format.hpp"
+
 namespace sifter {
 namespace {
-
 
 // Returns true when it capped.
 bool cap(std::optional<double>& p) {
@@ -28,8 +28,9 @@ void cap_probabilities(const Sif& sif, SifResult& r, std::vector<Warning>& warni
         "the simplified PFDavg sums to " + figure(*simplified) +
         ", outside the validity of the IEC 61508-6 Annex B equations; shown as at most 1 (a probability "
         "is at most 1)" +
-        (r.pfd_avg_exact ? "; the verdict rests on the exact engine, which gives " + figure(std::min(1.0, *r.pfd_avg_exact))
-                         : "");
+        (r.pfd_avg_exact
+             ? "; the verdict rests on the exact engine, which gives " + figure(std::min(1.0, *r.pfd_avg_exact))
+             : "");
     r.assumptions.push_back(m);
     warnings.push_back({sif.pointer, m});
   }

@@ -235,5 +235,4 @@ void apply_requirement_checks(const Project& project, const Sif& sif, SifResult&
   r.limits.insert(r.limits.end(), limits.begin(), limits.end());
 }
 
-
 }  // namespace sifter

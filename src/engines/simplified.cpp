@@ -51,7 +51,8 @@ GroupPfd one_oo_two_d(const GroupData& g) {
   const double t_ce = (undetected_time_term(g, 1) + (ldd + lsd) * g.mttr.hours) / total;
   double t_ge = g.mrt.hours;
   for (const auto& s : g.tests) t_ge += s.share * s.interval.hours / 3.0;
-  const double independent = 2.0 * (1.0 - g.beta) * ldu * ((1.0 - g.beta) * ldu + (1.0 - g.beta_d) * ldd + lsd) * t_ce * t_ge;
+  const double independent =
+      2.0 * (1.0 - g.beta) * ldu * ((1.0 - g.beta) * ldu + (1.0 - g.beta_d) * ldd + lsd) * t_ce * t_ge;
   out.common_cause = ccf_term(g);
   const double detected_share = (ldd + lsd) * g.mttr.hours / (total * t_ce);
   out.independent_detected = independent * detected_share;

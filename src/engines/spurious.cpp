@@ -28,8 +28,10 @@ double group_spurious_trip_rate_per_hour(const SpuriousGroupData& g) {
 std::string spurious_trip_equation(const Vote& vote) {
   const bool named = (vote.k == 1 && vote.n <= 2) || (vote.k == 2 && vote.n <= 3);
   std::string out = std::string(kSpuriousTripSource) + ", " + vote.text();
-  if (vote.diagnostic) out += " taken as 1oo2";
-  else if (!named) out += " (general KooN form: K C(N,K) lS^K MTTR^(K-1) + beta lS)";
+  if (vote.diagnostic)
+    out += " taken as 1oo2";
+  else if (!named)
+    out += " (general KooN form: K C(N,K) lS^K MTTR^(K-1) + beta lS)";
   return out;
 }
 

@@ -255,7 +255,8 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
   const bool use_drawn = !plan.drawn.factors.empty() && plan.drawn.seed == options.seed &&
                          plan.drawn.samples == options.samples &&
                          plan.drawn.factors.size() == static_cast<std::size_t>(options.samples) * sampler.size();
-  const std::span<const double> drawn = use_drawn ? std::span<const double>(plan.drawn.factors) : std::span<const double>();
+  const std::span<const double> drawn =
+      use_drawn ? std::span<const double>(plan.drawn.factors) : std::span<const double>();
   // Only the pairs of sources the evaluator reads are drawn; the others keep factor 1.
   std::vector<std::size_t> pairs;
   for (auto source : options.sources) pairs.push_back(source / 2);
@@ -284,8 +285,10 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
             values[static_cast<std::size_t>(i)] = evaluate(drawn.subspan(row, factors.size()));
             continue;
           }
-          if (pairs.empty()) sampler.sample(options.seed, static_cast<std::uint64_t>(i), factors);
-          else sampler.sample_pairs(options.seed, static_cast<std::uint64_t>(i), pairs, factors);
+          if (pairs.empty())
+            sampler.sample(options.seed, static_cast<std::uint64_t>(i), factors);
+          else
+            sampler.sample_pairs(options.seed, static_cast<std::uint64_t>(i), pairs, factors);
           values[static_cast<std::size_t>(i)] = evaluate(factors);
         }
         completed += end - begin;

@@ -40,8 +40,7 @@ DependencyGraph::Vertex DependencyGraph::add_sif(const Project& project, const S
   for (const auto& sub : sif.subsystems)
     for (const auto& channel : sub.channels)
       for (std::size_t index : channel.components)
-        if (index < project.components.size())
-          boost::add_edge(v, add_component(project.components[index].id), graph_);
+        if (index < project.components.size()) boost::add_edge(v, add_component(project.components[index].id), graph_);
   return v;
 }
 
@@ -64,8 +63,8 @@ ScenarioVertices DependencyGraph::add_scenario(const Project& project, const Sce
       if (known != sifs_.end()) {
         boost::add_edge(l, known->second, graph_);
       } else {
-        auto sif = std::find_if(project.sifs.begin(), project.sifs.end(),
-                                [&](const Sif& s) { return s.id == layer.sif; });
+        auto sif =
+            std::find_if(project.sifs.begin(), project.sifs.end(), [&](const Sif& s) { return s.id == layer.sif; });
         if (sif != project.sifs.end()) boost::add_edge(l, add_sif(project, *sif), graph_);
       }
     }
@@ -126,8 +125,6 @@ std::vector<SharedDevice> DependencyGraph::shared_devices() const {
   return shared;
 }
 
-std::vector<SharedDevice> shared_devices(const Project& project) {
-  return DependencyGraph(project).shared_devices();
-}
+std::vector<SharedDevice> shared_devices(const Project& project) { return DependencyGraph(project).shared_devices(); }
 
 }  // namespace sifter

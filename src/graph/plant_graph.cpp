@@ -62,15 +62,16 @@ void PlantGraph::check_groups(const Project& project) {
       if (graph_[boost::target(e, graph_)].kind == VertexKind::kChannel) channels.push_back(boost::target(e, graph_));
     const auto n_channels = static_cast<int>(channels.size());
     if (n_channels == 0) {
-      problems_.push_back({sub.pointer, "a subsystem with channels, or a vendor \"pfd_avg\" or \"pfh\"",
-                           "no channels", "list the component ids under \"channels\""});
+      problems_.push_back({sub.pointer, "a subsystem with channels, or a vendor \"pfd_avg\" or \"pfh\"", "no channels",
+                           "list the component ids under \"channels\""});
       continue;
     }
     if (sub.vote.k > sub.vote.n)
       problems_.push_back({sub.pointer + "/vote", "a vote with K no more than N", sub.vote.text(),
                            "K is the number of channels that must work"});
     if (sub.vote.n != n_channels)
-      problems_.push_back({sub.pointer + "/channels", std::to_string(sub.vote.n) + " channels for vote " + sub.vote.text(),
+      problems_.push_back({sub.pointer + "/channels",
+                           std::to_string(sub.vote.n) + " channels for vote " + sub.vote.text(),
                            std::to_string(n_channels) + " channels", "make the vote's N equal to the channel count"});
     // A component used twice in the group is reported where it is written the second time.
     std::map<std::string, std::string> first_use;
@@ -90,7 +91,8 @@ std::vector<SharedComponent> PlantGraph::shared_components() const {
   std::vector<SharedComponent> out;
   for (auto cv : component_vertex_) {
     std::set<std::size_t> sifs;
-    for (auto e : boost::make_iterator_range(boost::in_edges(cv, graph_))) sifs.insert(graph_[boost::source(e, graph_)].sif);
+    for (auto e : boost::make_iterator_range(boost::in_edges(cv, graph_)))
+      sifs.insert(graph_[boost::source(e, graph_)].sif);
     if (sifs.size() < 2) continue;
     SharedComponent shared{graph_[cv].label, {}};
     for (auto s : sifs) shared.sifs.push_back(graph_[sif_vertex_[s]].label);

@@ -1,9 +1,9 @@
 // RFC 4180 reading and writing, and the neutralising of formula-like text for spreadsheets.
 #include "sifter/input/csv_text.hpp"
 
-#include "sifter/model/printable.hpp"
-
 #include <cstdlib>
+
+#include "sifter/model/printable.hpp"
 
 namespace sifter {
 namespace {
@@ -11,7 +11,6 @@ namespace {
 bool starts_like_formula(std::string_view t) {
   return !t.empty() && (t[0] == '=' || t[0] == '+' || t[0] == '-' || t[0] == '@' || t[0] == '\t' || t[0] == '\r');
 }
-
 
 }  // namespace
 

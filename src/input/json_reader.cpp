@@ -84,8 +84,10 @@ std::vector<Diagnostic> LoadContext::located() const {
 
 std::string describe(const Json& value) {
   switch (value.type()) {
-    case Json::value_t::null: return "null";
-    case Json::value_t::boolean: return value.get<bool>() ? "true" : "false";
+    case Json::value_t::null:
+      return "null";
+    case Json::value_t::boolean:
+      return value.get<bool>() ? "true" : "false";
     case Json::value_t::string: {
       std::string s = value.get<std::string>();
       if (s.size() > 60) s = s.substr(0, 57) + "...";
@@ -93,10 +95,14 @@ std::string describe(const Json& value) {
     }
     case Json::value_t::number_integer:
     case Json::value_t::number_unsigned:
-    case Json::value_t::number_float: return "the number " + value.dump();
-    case Json::value_t::object: return "an object";
-    case Json::value_t::array: return "an array";
-    default: return "a value of another kind";
+    case Json::value_t::number_float:
+      return "the number " + value.dump();
+    case Json::value_t::object:
+      return "an object";
+    case Json::value_t::array:
+      return "an array";
+    default:
+      return "a value of another kind";
   }
 }
 
@@ -128,7 +134,11 @@ std::string nearest(const std::string& word, const std::vector<std::string>& kno
 }
 
 ObjectReader::ObjectReader(LoadContext& ctx, const Json& value, std::string pointer, int source, std::string what)
-    : ctx_(ctx), value_(value), pointer_(std::move(pointer)), source_(source), what_(std::move(what)),
+    : ctx_(ctx),
+      value_(value),
+      pointer_(std::move(pointer)),
+      source_(source),
+      what_(std::move(what)),
       is_object_(value.is_object()) {
   if (!is_object_) ctx_.error(source_, pointer_, what_ + " (a JSON object)", describe(value));
 }
@@ -187,7 +197,8 @@ std::optional<double> ObjectReader::number(const std::string& key, bool required
 }
 
 std::optional<int> ObjectReader::integer(const std::string& key, int lo, int hi, bool required) {
-  if (const Json* v = present(key); v && v->is_number_integer() && v->get<long long>() >= lo && v->get<long long>() <= hi)
+  if (const Json* v = present(key);
+      v && v->is_number_integer() && v->get<long long>() >= lo && v->get<long long>() <= hi)
     return static_cast<int>(v->get<long long>());
   const std::string expected = "a whole number from " + std::to_string(lo) + " to " + std::to_string(hi);
   const Json* v = required ? require(key, expected) : member(key);

@@ -1,8 +1,7 @@
 #pragma once
 /// Strict reading of JSON objects into model fields, collecting every problem (loader internals).
-#include <nlohmann/json.hpp>
-
 #include <initializer_list>
+#include <nlohmann/json.hpp>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -32,7 +31,7 @@ struct LoadContext {
   std::vector<SourceText> sources;
   std::vector<PendingDiagnostic> problems;
   std::vector<Warning> warnings;
-  std::size_t problems_not_kept = 0;  ///< beyond kMaxReportedProblems, only counted
+  std::size_t problems_not_kept = 0;      ///< beyond kMaxReportedProblems, only counted
   std::size_t follow_ons_suppressed = 0;  ///< problems that follow only from one already reported
 
   /// A problem already reported in `source` at `pointer` or below it (a root cause).
@@ -40,8 +39,7 @@ struct LoadContext {
   /// A library named under "libraries" could not be read, parsed or checked.
   [[nodiscard]] bool libraries_failed() const;
 
-  void error(int source, const std::string& pointer, std::string expected, std::string found,
-             std::string hint = {});
+  void error(int source, const std::string& pointer, std::string expected, std::string found, std::string hint = {});
   void warn(const std::string& pointer, std::string message);
   /// Turns the pending problems into diagnostics with line and column.
   [[nodiscard]] std::vector<Diagnostic> located() const;
@@ -93,8 +91,7 @@ class ObjectReader {
   void finish();
 
  private:
-  void type_error(const std::string& key, const std::string& expected, const Json& found,
-                  const std::string& hint = {});
+  void type_error(const std::string& key, const std::string& expected, const Json& found, const std::string& hint = {});
 
   LoadContext& ctx_;
   const Json& value_;

@@ -13,9 +13,12 @@ std::string escape_pointer_token(std::string_view token) {
   std::string out;
   out.reserve(token.size());
   for (char c : token) {
-    if (c == '~') out += "~0";
-    else if (c == '/') out += "~1";
-    else out += c;
+    if (c == '~')
+      out += "~0";
+    else if (c == '/')
+      out += "~1";
+    else
+      out += c;
   }
   return out;
 }
@@ -121,11 +124,21 @@ class Cursor {
       if (++i_ >= text_.size()) return false;
       const char e = text_[i_++];
       switch (e) {
-        case 'n': buffer += '\n'; break;
-        case 't': buffer += '\t'; break;
-        case 'r': buffer += '\r'; break;
-        case 'b': buffer += '\b'; break;
-        case 'f': buffer += '\f'; break;
+        case 'n':
+          buffer += '\n';
+          break;
+        case 't':
+          buffer += '\t';
+          break;
+        case 'r':
+          buffer += '\r';
+          break;
+        case 'b':
+          buffer += '\b';
+          break;
+        case 'f':
+          buffer += '\f';
+          break;
         case 'u': {
           std::uint32_t cp = 0;
           if (!read_hex4(cp)) return false;
@@ -141,7 +154,9 @@ class Cursor {
           append_utf8(buffer, cp);
           break;
         }
-        default: buffer += e; break;
+        default:
+          buffer += e;
+          break;
       }
     }
     return false;
@@ -161,10 +176,14 @@ class Cursor {
     for (int k = 0; k < 4; ++k) {
       const char h = text_[i_++];
       out <<= 4;
-      if (h >= '0' && h <= '9') out |= static_cast<std::uint32_t>(h - '0');
-      else if (h >= 'a' && h <= 'f') out |= static_cast<std::uint32_t>(h - 'a' + 10);
-      else if (h >= 'A' && h <= 'F') out |= static_cast<std::uint32_t>(h - 'A' + 10);
-      else return false;
+      if (h >= '0' && h <= '9')
+        out |= static_cast<std::uint32_t>(h - '0');
+      else if (h >= 'a' && h <= 'f')
+        out |= static_cast<std::uint32_t>(h - 'a' + 10);
+      else if (h >= 'A' && h <= 'F')
+        out |= static_cast<std::uint32_t>(h - 'A' + 10);
+      else
+        return false;
     }
     return true;
   }
@@ -262,8 +281,11 @@ class StructureScanner {
     if (static_cast<int>(stack_.size()) >= kMaxNestingDepth) {
       // Name the place by its first levels only; the full pointer would be unreadable.
       const std::string shown = pointer_of(stack_, 6) + (stack_.size() > 6 ? "/..." : "");
-      problems_.push_back({shown, {}, "nesting no deeper than " + std::to_string(kMaxNestingDepth) + " levels",
-                           "deeper nesting", "a project file needs only a few levels; check the brackets"});
+      problems_.push_back({shown,
+                           {},
+                           "nesting no deeper than " + std::to_string(kMaxNestingDepth) + " levels",
+                           "deeper nesting",
+                           "a project file needs only a few levels; check the brackets"});
       problem_offsets_.push_back(cur_.offset());
       return Step::kStop;
     }
@@ -317,7 +339,9 @@ class StructureScanner {
     obj.key.assign(key);
     const bool decoded = key.data() == buffer_.data();
     if (!obj.keys.insert(key, arena_, decoded)) {
-      problems_.push_back({pointer_of(stack_, stack_.size()), {}, "each key once in an object",
+      problems_.push_back({pointer_of(stack_, stack_.size()),
+                           {},
+                           "each key once in an object",
                            "\"" + obj.key + "\" a second time",
                            "remove one of the two; a JSON reader would silently keep only the last"});
       problem_offsets_.push_back(key_offset);
@@ -349,8 +373,8 @@ class StructureScanner {
 
 }  // namespace
 
-std::vector<StructureProblem> scan_json_structure(
-    std::string_view text, const std::function<void(const std::string&, TextPosition)>& visit) {
+std::vector<StructureProblem> scan_json_structure(std::string_view text,
+                                                  const std::function<void(const std::string&, TextPosition)>& visit) {
   return StructureScanner(text, visit).run();
 }
 

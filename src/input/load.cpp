@@ -7,11 +7,11 @@
 #include <sstream>
 
 #include "input/load_parts.hpp"
-#include "input/load_reuse.hpp"
-#include "sifter/input/json_comments.hpp"
 #include "input/load_pressure.hpp"
-#include "sifter/input/json_source.hpp"
+#include "input/load_reuse.hpp"
 #include "sifter/graph/plant_graph.hpp"
+#include "sifter/input/json_comments.hpp"
+#include "sifter/input/json_source.hpp"
 #include "sifter/input/sha256.hpp"
 
 namespace sifter {
@@ -44,7 +44,8 @@ std::string read_file_bounded(const std::string& path, LoadContext* ctx, int sou
     fail_with(path, expected, found, hint);
   };
   if (ec || !fs::exists(status)) return problem("a readable file", "no file at \"" + path + "\"", "check the path");
-  if (fs::is_directory(status)) return problem("a file", "a directory at \"" + path + "\"", "name the JSON file itself");
+  if (fs::is_directory(status))
+    return problem("a file", "a directory at \"" + path + "\"", "name the JSON file itself");
   if (!fs::is_regular_file(status)) return problem("a regular file", "a special file at \"" + path + "\"", "");
   const auto size = fs::file_size(path, ec);
   if (!ec && size > kMaxInputBytes)
@@ -77,8 +78,8 @@ std::string printable(const std::string& text) {
 std::optional<Json> parse_source(LoadContext& ctx, int source, const std::string& pointer_in_parent) {
   std::string& text = ctx.sources[static_cast<std::size_t>(source)].text;
   const std::string& path = ctx.sources[static_cast<std::size_t>(source)].path;
-  auto report = [&](TextPosition pos, const std::string& pointer, const std::string& expected,
-                    const std::string& found, const std::string& hint) {
+  auto report = [&](TextPosition pos, const std::string& pointer, const std::string& expected, const std::string& found,
+                    const std::string& hint) {
     Diagnostic d{path, pos.line, pos.column, pointer, expected, found, hint};
     ctx.problems.push_back({source, d});
   };

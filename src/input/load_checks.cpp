@@ -42,8 +42,8 @@ std::string identity(const Component& c) {
     << (c.field_data ? std::to_string(c.field_data->failures) + " " + std::to_string(c.field_data->device_hours.hours) +
                            " " + std::to_string(c.field_data->confidence)
                      : "-")
-    << '\x1f' << (c.prior_use ? c.prior_use->sil : -1) << ' '
-    << (c.response_time ? c.response_time->hours : -1.0) << '\x1f' << c.data_source;
+    << '\x1f' << (c.prior_use ? c.prior_use->sil : -1) << ' ' << (c.response_time ? c.response_time->hours : -1.0)
+    << '\x1f' << c.data_source;
   return o.str();
 }
 
@@ -61,8 +61,8 @@ void check_diverse_groups(LoadContext& ctx, const Project& project) {
         std::sort(ids.begin(), ids.end());
         channels.push_back(std::move(ids));
       }
-      const bool identical = std::all_of(channels.begin(), channels.end(),
-                                         [&](const auto& c) { return c == channels.front(); });
+      const bool identical =
+          std::all_of(channels.begin(), channels.end(), [&](const auto& c) { return c == channels.front(); });
       if (!identical) continue;
       std::string names;
       for (std::size_t i = 0; i < sub.channels.size(); ++i) {
@@ -71,8 +71,9 @@ void check_diverse_groups(LoadContext& ctx, const Project& project) {
         names += (i == 0 ? "" : i + 1 == sub.channels.size() ? " and " : ", ") + channel;
       }
       const Component& first = project.components.at(sub.channels.front().components.front());
-      const std::string same =
-          first.model.empty() ? "the same failure data" : "the same library model \"" + first.model + "\" and no field that differs";
+      const std::string same = first.model.empty()
+                                   ? "the same failure data"
+                                   : "the same library model \"" + first.model + "\" and no field that differs";
       ctx.error(0, sub.pointer + "/diverse",
                 "channels that differ in what they are (IEC 61508-2:2010 7.4.3: diversity for SC N+1)",
                 "identical channels " + names + ": " + same,

@@ -4,11 +4,11 @@
 #include <map>
 #include <set>
 
-#include "sifter/model/civil_date.hpp"
 #include "input/load_parts.hpp"
 #include "input/load_pressure.hpp"
-#include "sifter/input/json_source.hpp"
 #include "sifter/engines/uncertainty.hpp"
+#include "sifter/input/json_source.hpp"
+#include "sifter/model/civil_date.hpp"
 #include "sifter/model/format.hpp"
 
 namespace sifter::detail {
@@ -251,9 +251,11 @@ class ModelFieldsCache {
 
 void read_in_service_since(LoadContext& ctx, ObjectReader& r, Component& c) {
   if (auto since = r.string("in_service_since")) {  // for the in-service records
-    if (parse_iso_date(*since)) c.in_service_since = *since;
-    else ctx.error(0, r.at("in_service_since"), "a date written YYYY-MM-DD (ISO 8601)", "\"" + *since + "\"",
-                   "a real calendar day between 1900 and 2999, e.g. 2024-02-29");
+    if (parse_iso_date(*since))
+      c.in_service_since = *since;
+    else
+      ctx.error(0, r.at("in_service_since"), "a date written YYYY-MM-DD (ISO 8601)", "\"" + *since + "\"",
+                "a real calendar day between 1900 and 2999, e.g. 2024-02-29");
   }
 }
 

@@ -10,8 +10,8 @@ namespace sifter::detail {
 
 /// A library model's fields, validated in its own file, waiting to be merged into components.
 struct ModelEntry {
-  Json fields;        ///< the entry without id/title/source/note
-  int source = 0;     ///< the library file it came from
+  Json fields;     ///< the entry without id/title/source/note
+  int source = 0;  ///< the library file it came from
   std::string pointer;
 };
 using ModelIndex = std::map<std::string, ModelEntry>;

@@ -89,21 +89,24 @@ void read_curve(QuantityReader& q, ObjectReader& r, PressureSource& s) {
   if (!r.has("curve") || s.curve.size() != r.member("curve")->size()) return;
   const std::string at = r.at("curve");
   if (s.curve.size() < 2) {
-    ctx.error(0, at, "a curve of at least two points, the first at zero flow", std::to_string(s.curve.size()) + " point",
+    ctx.error(0, at, "a curve of at least two points, the first at zero flow",
+              std::to_string(s.curve.size()) + " point",
               "give the vendor's points from shutoff (0 m3/h) to the end of the curve");
     s.curve.clear();
     return;
   }
   if (s.curve.front().flow.m3_per_hour != 0.0)
     ctx.error(0, at + "/0/flow", "the first point at zero flow (the shutoff head)",
-              format_number(s.curve.front().flow.m3_per_hour) + " m3/h", "add the shutoff point {\"flow\": \"0 m3/h\", ...}");
+              format_number(s.curve.front().flow.m3_per_hour) + " m3/h",
+              "add the shutoff point {\"flow\": \"0 m3/h\", ...}");
   for (std::size_t i = 1; i < s.curve.size(); ++i) {
     const auto& a = s.curve[i - 1];
     const auto& b = s.curve[i];
     const std::string pi = at + "/" + std::to_string(i);
     if (b.flow.m3_per_hour <= a.flow.m3_per_hour)
-      ctx.error(0, pi + "/flow", "flows that rise from point to point", format_number(b.flow.m3_per_hour) +
-                " m3/h after " + format_number(a.flow.m3_per_hour) + " m3/h", "list the points in order of flow");
+      ctx.error(0, pi + "/flow", "flows that rise from point to point",
+                format_number(b.flow.m3_per_hour) + " m3/h after " + format_number(a.flow.m3_per_hour) + " m3/h",
+                "list the points in order of flow");
     else if (b.head.metres > a.head.metres)
       ctx.error(0, pi + "/head", "a head that falls as the flow rises, so that the shutoff head is the highest",
                 format_number(b.head.metres) + " m at " + format_number(b.flow.m3_per_hour) + " m3/h above " +
@@ -131,7 +134,8 @@ PressureSource read_source(QuantityReader& q, const Json& v, const std::string& 
     if (auto ratio = r.number("speed_max_ratio")) {
       if (*ratio < 1.0)
         ctx.error(0, r.at("speed_max_ratio"), "the highest speed over the rated speed, 1 or more",
-                  "the number " + format_number(*ratio), "a variable-speed drive's top speed, e.g. 1.05; 1 for fixed speed");
+                  "the number " + format_number(*ratio),
+                  "a variable-speed drive's top speed, e.g. 1.05; 1 for fixed speed");
       else
         s.speed_max_ratio = *ratio;
     }
@@ -141,7 +145,8 @@ PressureSource read_source(QuantityReader& q, const Json& v, const std::string& 
     const bool curve = r.has("curve"), estimate = r.has("rated_differential");
     if (curve == estimate)
       ctx.error(0, p, "either a vendor \"curve\" or an estimate \"rated_differential\" with \"shutoff_margin\"",
-                curve ? "both" : "neither", "until the vendor's curve is known, estimate: rated differential + 10-25 %");
+                curve ? "both" : "neither",
+                "until the vendor's curve is known, estimate: rated differential + 10-25 %");
     if (estimate && !r.has("shutoff_margin"))
       ctx.error(0, p, "\"shutoff_margin\" with \"rated_differential\"", "no margin",
                 "a preliminary shutoff head is commonly the rated differential + 10-25 %, e.g. \"20%\"");
@@ -173,7 +178,8 @@ PressureEquipment read_equipment(QuantityReader& q, const Json& v, const std::st
   if (auto test = q.pressure(r, "test_pressure", false)) {
     e.test_pressure = *test;
     if (mawp && test->bar_gauge < mawp->bar_gauge)
-      ctx.error(0, r.at("test_pressure"), "a test pressure at or above the MAWP (" + format_pressure(mawp->bar_gauge) + ")",
+      ctx.error(0, r.at("test_pressure"),
+                "a test pressure at or above the MAWP (" + format_pressure(mawp->bar_gauge) + ")",
                 format_pressure(test->bar_gauge), "check the units; the hydrotest is above the rating");
   }
   if (auto factor = r.number("test_factor")) {
@@ -216,9 +222,12 @@ void check_band(LoadContext& ctx, ObjectReader& bands, const std::string& key, B
   ObjectReader r(ctx, *v, bands.at(key), 0, "an overpressure band");
   out.category = r.string("category", true).value_or("");
   if (const Json* sev = r.require("severity", "a severity level of the risk criteria")) {
-    if (sev->is_number_integer()) out.severity = std::to_string(sev->get<long long>());
-    else if (sev->is_string()) out.severity = sev->get<std::string>();
-    else ctx.error(0, r.at("severity"), "a severity level (a number or a string)", describe(*sev));
+    if (sev->is_number_integer())
+      out.severity = std::to_string(sev->get<long long>());
+    else if (sev->is_string())
+      out.severity = sev->get<std::string>();
+    else
+      ctx.error(0, r.at("severity"), "a severity level (a number or a string)", describe(*sev));
   }
   r.allow({"note"});
   r.finish();
@@ -226,7 +235,8 @@ void check_band(LoadContext& ctx, ObjectReader& bands, const std::string& key, B
   auto cat = project.risk_criteria.find(out.category);
   if (cat == project.risk_criteria.end() || !cat->second.count(out.severity))
     ctx.error(0, r.pointer(), "a category and severity of \"risk_criteria\"",
-              "\"" + out.category + "\" severity \"" + out.severity + "\"", "add it to \"risk_criteria\" or use one there");
+              "\"" + out.category + "\" severity \"" + out.severity + "\"",
+              "add it to \"risk_criteria\" or use one there");
 }
 
 void read_connections(LoadContext& ctx, ObjectReader& r, const std::set<std::string>& ids, PressureSection& section) {
@@ -240,7 +250,8 @@ void read_connections(LoadContext& ctx, ObjectReader& r, const std::set<std::str
       if (end->empty() || ids.count(*end)) continue;
       const auto near = nearest(*end, known);
       ctx.error(0, c.at(end == &conn.from ? "from" : "to"), "the id of a source or an equipment item of \"pressure\"",
-                "\"" + *end + "\"", near.empty() ? "add it under \"sources\" or \"equipment\"" : "did you mean \"" + near + "\"?");
+                "\"" + *end + "\"",
+                near.empty() ? "add it under \"sources\" or \"equipment\"" : "did you mean \"" + near + "\"?");
     }
     section.connections.push_back(conn);
   });
@@ -326,7 +337,7 @@ void read_options(LoadContext& ctx, const Json& value, Project& project) {
     opt.id = o.string("id", true).value_or("");
     opt.title = o.string("title").value_or("");
     const auto kind = o.choice("kind", {"rerate", "relief", "sif", "layer"}, true).value_or("layer");
-    opt.kind = kind == "rerate" ? ScenarioOption::Kind::kRerate
+    opt.kind = kind == "rerate"   ? ScenarioOption::Kind::kRerate
                : kind == "relief" ? ScenarioOption::Kind::kRelief
                : kind == "sif"    ? ScenarioOption::Kind::kSif
                                   : ScenarioOption::Kind::kLayer;
@@ -345,14 +356,17 @@ void read_options(LoadContext& ctx, const Json& value, Project& project) {
       bool known = false;
       for (const auto& sif : project.sifs) known = known || sif.id == opt.sif;
       if (!opt.sif.empty() && !known)
-        ctx.error(0, o.at("sif"), "the id of a SIF in \"sifs\"", "\"" + opt.sif + "\"", "define the SIF under \"sifs\"");
+        ctx.error(0, o.at("sif"), "the id of a SIF in \"sifs\"", "\"" + opt.sif + "\"",
+                  "define the SIF under \"sifs\"");
     }
     for (auto [key, field] : {std::pair{"capex", &opt.capex}, std::pair{"annual_cost", &opt.annual_cost},
                               std::pair{"cost_per_test", &opt.cost_per_test},
                               std::pair{"cost_per_spurious_trip", &opt.cost_per_spurious_trip}}) {
       if (auto cost = o.number(key)) {
-        if (*cost < 0.0) ctx.error(0, o.at(key), "a cost of zero or more", "the number " + format_number(*cost));
-        else *field = *cost;
+        if (*cost < 0.0)
+          ctx.error(0, o.at(key), "a cost of zero or more", "the number " + format_number(*cost));
+        else
+          *field = *cost;
       }
     }
     o.allow({"note"});
@@ -406,13 +420,15 @@ std::optional<PressureScreening> screen_and_generate(LoadContext& ctx, Project& 
       // A generated id that this revision's screening does not generate (the item is within its
       // rating, or not yet): the options wait for it.
       ctx.warn(opt.pointer, "no overpressure scenario " + opt.scenario +
-                                " in this revision: the screening did not generate it; option " + opt.id + " is not compared");
+                                " in this revision: the screening did not generate it; option " + opt.id +
+                                " is not compared");
     } else if (!opt.scenario.empty() && !known) {
       std::vector<std::string> ids;
       for (const auto& s : project.scenarios) ids.push_back(s.id);
       const auto near = nearest(opt.scenario, ids);
-      ctx.error(0, opt.pointer + "/scenario", "the id of a scenario, written or generated", "\"" + opt.scenario + "\"",
-                near.empty() ? "generated scenarios are named OP-<item>-by-<source>" : "did you mean \"" + near + "\"?");
+      ctx.error(
+          0, opt.pointer + "/scenario", "the id of a scenario, written or generated", "\"" + opt.scenario + "\"",
+          near.empty() ? "generated scenarios are named OP-<item>-by-<source>" : "did you mean \"" + near + "\"?");
     }
   }
   return screening;

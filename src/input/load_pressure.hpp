@@ -1,8 +1,8 @@
 #pragma once
 /// The loader's part for the "pressure" and "options" sections and data maturity (internals).
 #include "input/json_reader.hpp"
-#include "sifter/model/model.hpp"
 #include "sifter/engines/pressure.hpp"
+#include "sifter/model/model.hpp"
 
 namespace sifter::detail {
 

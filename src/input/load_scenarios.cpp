@@ -63,7 +63,8 @@ void read_criteria(LoadContext& ctx, const Json& root, Project& project) {
       project.risk_criteria[cat.key()][sev.key()] =
           positive_frequency(r, sev.key(),
                              "a tolerable frequency of 0/yr cannot be reached by any layer; "
-                             "state the frequency the owner tolerates", true)
+                             "state the frequency the owner tolerates",
+                             true)
               .value_or(Rate{});
     r.finish();
   }
@@ -81,9 +82,9 @@ std::vector<EnablingCondition> read_enabling(LoadContext& ctx, ObjectReader& r) 
     ObjectReader e(ctx, (*v)[i], r.at("enabling") + "/" + std::to_string(i), 0, "an enabling condition");
     EnablingCondition c;
     c.title = e.string("title", true).value_or("");
-    c.probability = positive_probability(e, "probability",
-                                         "a probability of 0 removes the cause; delete the cause instead")
-                        .value_or(1.0);
+    c.probability =
+        positive_probability(e, "probability", "a probability of 0 removes the cause; delete the cause instead")
+            .value_or(1.0);
     e.allow({"note"});
     e.finish();
     out.push_back(c);
@@ -123,14 +124,13 @@ Layer read_layer(LoadContext& ctx, const Json& value, const std::string& pointer
   l.pointer = pointer;
   l.id = non_empty_id(r, "id", "layer");
   l.title = r.string("title").value_or("");
-  l.kind = layer_kind_of(r.choice("kind", {"bpcs_function", "operator_response", "relief_device", "mechanical", "sif",
-                                           "other"}, true)
-                             .value_or("other"));
+  l.kind = layer_kind_of(
+      r.choice("kind", {"bpcs_function", "operator_response", "relief_device", "mechanical", "sif", "other"}, true)
+          .value_or("other"));
   if (l.kind == LayerKind::kSif)
     ctx.error(0, r.at("kind"), "a SIF layer written as {\"sif\": \"<SIF id>\"}", "kind \"sif\" without \"sif\"",
               "name the SIF so that its computed PFDavg is used");
-  l.pfd = positive_probability(r, "pfd",
-                               "no layer is perfect: take its PFD from its own assessment, or leave it out")
+  l.pfd = positive_probability(r, "pfd", "no layer is perfect: take its PFD from its own assessment, or leave it out")
               .value_or(1.0);
   l.devices = r.strings("devices");
   l.response_time = r.duration("response_time");
@@ -170,9 +170,12 @@ void read_consequences(LoadContext& ctx, ObjectReader& r, const Project& project
     Consequence q;
     q.category = c.string("category", true).value_or("");
     if (const Json* sev = c.require("severity", "a severity level of the risk criteria")) {
-      if (sev->is_number_integer()) q.severity = std::to_string(sev->get<long long>());
-      else if (sev->is_string()) q.severity = sev->get<std::string>();
-      else ctx.error(0, c.at("severity"), "a severity level (a number or a string)", describe(*sev));
+      if (sev->is_number_integer())
+        q.severity = std::to_string(sev->get<long long>());
+      else if (sev->is_string())
+        q.severity = sev->get<std::string>();
+      else
+        ctx.error(0, c.at("severity"), "a severity level (a number or a string)", describe(*sev));
     }
     c.allow({"note", "description"});
     c.finish();
@@ -192,9 +195,9 @@ void read_causes(LoadContext& ctx, ObjectReader& r, Scenario& s) {
       ctx.error(0, c.at("id"), "a cause id used once in the scenario", "\"" + cause.id + "\" a second time",
                 "give every initiating cause its own id");
     cause.title = c.string("title").value_or("");
-    cause.frequency = positive_frequency(c, "frequency", "a frequency of 0/yr removes the cause; delete the cause instead",
-                                         true)
-                          .value_or(Rate{});
+    cause.frequency =
+        positive_frequency(c, "frequency", "a frequency of 0/yr removes the cause; delete the cause instead", true)
+            .value_or(Rate{});
     cause.devices = c.strings("devices");
     cause.enabling = read_enabling(ctx, c);
     cause.status = read_status(c);
@@ -250,8 +253,8 @@ void read_layers(LoadContext& ctx, ObjectReader& r, const Project& project,
     s.layers.push_back(std::move(l));
   });
   if (sifs.size() > 1)
-    ctx.error(0, r.at("layers"), "at most one SIF under assessment in a scenario", std::to_string(sifs.size()) + " SIFs",
-              "split the scenario, or credit the other SIF in another scenario");
+    ctx.error(0, r.at("layers"), "at most one SIF under assessment in a scenario",
+              std::to_string(sifs.size()) + " SIFs", "split the scenario, or credit the other SIF in another scenario");
 }
 
 void read_not_credited(LoadContext& ctx, ObjectReader& r, Scenario& s) {
@@ -272,9 +275,11 @@ Scenario read_scenario(LoadContext& ctx, const Json& value, const std::string& p
   s.pointer = pointer;
   s.id = non_empty_id(r, "id", "scenario");
   s.title = r.string("title").value_or("");
-  s.target_frequency = positive_frequency(
-      r, "target_frequency", "a tolerable frequency of 0/yr cannot be reached by any layer; state the tolerable "
-                             "frequency of the risk criteria", false);
+  s.target_frequency =
+      positive_frequency(r, "target_frequency",
+                         "a tolerable frequency of 0/yr cannot be reached by any layer; state the tolerable "
+                         "frequency of the risk criteria",
+                         false);
   read_consequences(ctx, r, project, s);
   if (s.consequences.empty() && !s.target_frequency && !r.has("target_frequency"))
     ctx.error(0, pointer, "\"consequences\" or \"target_frequency\"", "neither",

@@ -81,32 +81,36 @@ void read_partial_stroke(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
 // and the proof test share no cycle.
 void refuse_unbounded_tests(LoadContext& ctx, ObjectReader& r, const Subsystem& sub, const Defaults& defaults) {
   const double mission = defaults.mission_time.hours;
-  auto check = [&](double interval, double limit, const std::string& pointer, const char* what, const std::string& hint) {
+  auto check = [&](double interval, double limit, const std::string& pointer, const char* what,
+                   const std::string& hint) {
     if (!(interval > 0.0) || !(mission > 0.0) || mission / interval <= limit) return;
     ctx.error(0, pointer,
               std::string("a ") + what + " of at least " + format_duration(Duration{mission / limit}) + " (at most " +
                   format_count(limit) + " tests over the mission of " + format_duration(defaults.mission_time) + ")",
               format_duration(Duration{interval}), hint);
   };
-  const std::string diagnostic = "a proof test this frequent is an online diagnostic: count it in lambda_dd (dc) instead";
+  const std::string diagnostic =
+      "a proof test this frequent is an online diagnostic: count it in lambda_dd (dc) instead";
   if (!sub.is_vendor())
     check(sub.proof_test_interval.hours, kMaxTestsPerMission,
           r.has("proof_test_interval") ? r.at("proof_test_interval") : r.pointer(), "proof-test interval", diagnostic);
   if (!sub.partial_stroke) return;
   const double tp = sub.partial_stroke->interval.hours;
   const double t1 = sub.proof_test_interval.hours;
-  const bool shared_cycle = sub.is_vendor() || !(t1 > 0.0) || !(tp > 0.0) || whole_multiple(t1 / tp) || whole_multiple(tp / t1);
+  const bool shared_cycle =
+      sub.is_vendor() || !(t1 > 0.0) || !(tp > 0.0) || whole_multiple(t1 / tp) || whole_multiple(tp / t1);
   check(tp, shared_cycle ? kMaxTestsPerMission : kMaxUnrelatedTests, r.at("partial_stroke") + "/interval",
         "partial stroke interval",
         shared_cycle ? diagnostic
                      : "choose a partial stroke interval that divides the proof-test interval of " +
-                           format_duration(Duration{t1}) + " (a half, a quarter, a twelfth of it): the engine then "
+                           format_duration(Duration{t1}) +
+                           " (a half, a quarter, a twelfth of it): the engine then "
                            "composes whole test cycles");
 }
 
 // Applies a duration from the subsystem, else the project default; reports when neither.
-Duration with_default(LoadContext& ctx, ObjectReader& r, const std::string& key, const std::optional<Duration>& fallback,
-                      bool& defaulted, bool needed) {
+Duration with_default(LoadContext& ctx, ObjectReader& r, const std::string& key,
+                      const std::optional<Duration>& fallback, bool& defaulted, bool needed) {
   auto own = r.duration(key);
   defaulted = !own.has_value();
   if (own) return *own;
@@ -115,8 +119,8 @@ Duration with_default(LoadContext& ctx, ObjectReader& r, const std::string& key,
     ++ctx.follow_ons_suppressed;  // the default was written and refused: that one message says it
   else if (needed)
     ctx.error(0, r.pointer(), "\"" + key + "\" on the subsystem or in \"defaults\"", "neither",
-              "add for example \"defaults\": {\"" + key + "\": " +
-                  (key == "proof_test_interval" ? "\"1 yr\"" : "\"8 h\"") + "}");
+              "add for example \"defaults\": {\"" + key +
+                  "\": " + (key == "proof_test_interval" ? "\"1 yr\"" : "\"8 h\"") + "}");
   return Duration{};
 }
 
@@ -184,8 +188,8 @@ void read_common_cause(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
   if (auto scaling = r.choice("ccf_scaling", {"none", "iec61508-6-d5"})) {
     sub.ccf_scaling = *scaling == "none" ? CcfScaling::kNone : CcfScaling::kIec61508TableD5;
     if (sub.ccf_scaling == CcfScaling::kIec61508TableD5 && !table_d5_covers(sub.vote.k, sub.vote.n))
-      ctx.error(0, r.at("ccf_scaling"), "a vote that IEC 61508-6 Table D.5 covers (N up to 5)",
-                sub.vote.text(), "use \"none\" and enter beta for this group directly");
+      ctx.error(0, r.at("ccf_scaling"), "a vote that IEC 61508-6 Table D.5 covers (N up to 5)", sub.vote.text(),
+                "use \"none\" and enter beta for this group directly");
   }
 }
 
@@ -214,10 +218,10 @@ void read_times(LoadContext& ctx, ObjectReader& r, Subsystem& sub, const Default
   // for good, which no test plan means (IEC 61508-6:2010 B.3.2.5 counts the test time inside T1).
   if (needs_times && sub.test_duration && sub.proof_test_interval.hours > 0.0 &&
       sub.test_duration->hours > sub.proof_test_interval.hours)
-    ctx.error(0, r.at("test_duration"),
-              "a test duration no longer than the proof-test interval (" + format_duration(sub.proof_test_interval) +
-                  ")",
-              format_duration(*sub.test_duration), "the test duration is how long one test keeps a channel bypassed");
+    ctx.error(
+        0, r.at("test_duration"),
+        "a test duration no longer than the proof-test interval (" + format_duration(sub.proof_test_interval) + ")",
+        format_duration(*sub.test_duration), "the test duration is how long one test keeps a channel bypassed");
 }
 
 Subsystem read_subsystem(LoadContext& ctx, const Json& value, const std::string& pointer, const Defaults& defaults) {

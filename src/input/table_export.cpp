@@ -3,9 +3,9 @@
 #include <fstream>
 #include <sstream>
 
-#include "sifter/input/csv_text.hpp"
 #include "input/load_reuse.hpp"
 #include "input/table_layout.hpp"
+#include "sifter/input/csv_text.hpp"
 #include "sifter/input/json_comments.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/input/project_tables.hpp"

@@ -7,21 +7,21 @@
 #include <set>
 #include <sstream>
 
-#include "sifter/input/csv_text.hpp"
 #include "input/json_reader.hpp"
 #include "input/table_import_cells.hpp"
 #include "input/table_layout.hpp"
-#include "sifter/model/diagnostics.hpp"
+#include "sifter/input/csv_text.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/input/project_tables.hpp"
+#include "sifter/model/diagnostics.hpp"
 
 namespace sifter {
 namespace fs = std::filesystem;
 using OJson = nlohmann::ordered_json;
+using detail::cell_value;
 using detail::CellKind;
 using detail::TableLayout;
-using detail::cell_value;
 using detail::trim_cell;
 
 namespace {

@@ -30,12 +30,14 @@ std::optional<Vote> parse_vote(std::string_view text) {
   return v;
 }
 
-
 std::string to_string(Role role) {
   switch (role) {
-    case Role::kSensor: return "sensor";
-    case Role::kLogic: return "logic";
-    case Role::kFinal: return "final";
+    case Role::kSensor:
+      return "sensor";
+    case Role::kLogic:
+      return "logic";
+    case Role::kFinal:
+      return "final";
   }
   return "sensor";
 }
@@ -44,21 +46,30 @@ std::string to_string(DemandMode mode) { return mode == DemandMode::kLow ? "low"
 
 std::string to_string(ConstraintBasis basis) {
   switch (basis) {
-    case ConstraintBasis::kIec61511: return "iec61511";
-    case ConstraintBasis::kRoute1H: return "route_1h";
-    case ConstraintBasis::kRoute2H: return "route_2h";
+    case ConstraintBasis::kIec61511:
+      return "iec61511";
+    case ConstraintBasis::kRoute1H:
+      return "route_1h";
+    case ConstraintBasis::kRoute2H:
+      return "route_2h";
   }
   return "iec61511";
 }
 
 std::string to_string(LayerKind kind) {
   switch (kind) {
-    case LayerKind::kBpcsFunction: return "bpcs_function";
-    case LayerKind::kOperatorResponse: return "operator_response";
-    case LayerKind::kReliefDevice: return "relief_device";
-    case LayerKind::kMechanical: return "mechanical";
-    case LayerKind::kSif: return "sif";
-    case LayerKind::kOther: return "other";
+    case LayerKind::kBpcsFunction:
+      return "bpcs_function";
+    case LayerKind::kOperatorResponse:
+      return "operator_response";
+    case LayerKind::kReliefDevice:
+      return "relief_device";
+    case LayerKind::kMechanical:
+      return "mechanical";
+    case LayerKind::kSif:
+      return "sif";
+    case LayerKind::kOther:
+      return "other";
   }
   return "other";
 }

@@ -88,8 +88,11 @@ Parsed<Density> parse_density(std::string_view text) {
   const std::string hint = "write a density with its unit, for example \"1050 kg/m3\"";
   auto nu = split(text);
   if (!nu.ok) return {std::nullopt, "no finite number at the start", hint};
-  if (nu.unit != "kg/m3") return {std::nullopt, nu.unit.empty() ? "the unit is missing" : "unknown density unit \"" + std::string(nu.unit) + "\"", hint};
-  if (nu.number <= 0.0) return {std::nullopt, "a density of zero or less", "a fluid has a positive density: " + hint.substr(6)};
+  if (nu.unit != "kg/m3")
+    return {std::nullopt,
+            nu.unit.empty() ? "the unit is missing" : "unknown density unit \"" + std::string(nu.unit) + "\"", hint};
+  if (nu.number <= 0.0)
+    return {std::nullopt, "a density of zero or less", "a fluid has a positive density: " + hint.substr(6)};
   return {Density{nu.number}, {}, {}};
 }
 
@@ -97,7 +100,9 @@ Parsed<VolumeFlow> parse_flow(std::string_view text) {
   const std::string hint = "write a flow with its unit, for example \"40 m3/h\"";
   auto nu = split(text);
   if (!nu.ok) return {std::nullopt, "no finite number at the start", hint};
-  if (nu.unit != "m3/h") return {std::nullopt, nu.unit.empty() ? "the unit is missing" : "unknown flow unit \"" + std::string(nu.unit) + "\"", hint};
+  if (nu.unit != "m3/h")
+    return {std::nullopt,
+            nu.unit.empty() ? "the unit is missing" : "unknown flow unit \"" + std::string(nu.unit) + "\"", hint};
   if (nu.number < 0.0) return {std::nullopt, "a negative flow", "a flow is zero or more: " + hint.substr(6)};
   return {VolumeFlow{nu.number}, {}, {}};
 }

@@ -47,12 +47,23 @@ struct UnitFactor {
 
 // Durations in hours; also the denominators of rates.
 constexpr std::array<UnitFactor, 17> kTimeUnits{{
-    {"h", 1.0}, {"hr", 1.0}, {"hrs", 1.0}, {"hour", 1.0}, {"hours", 1.0},
-    {"min", 1.0 / 60.0}, {"s", 1.0 / 3600.0},
-    {"d", 24.0}, {"day", 24.0}, {"days", 24.0},
-    {"wk", 168.0}, {"week", 168.0},
-    {"mo", kHoursPerMonth}, {"month", kHoursPerMonth}, {"months", kHoursPerMonth},
-    {"yr", kHoursPerYear}, {"years", kHoursPerYear},
+    {"h", 1.0},
+    {"hr", 1.0},
+    {"hrs", 1.0},
+    {"hour", 1.0},
+    {"hours", 1.0},
+    {"min", 1.0 / 60.0},
+    {"s", 1.0 / 3600.0},
+    {"d", 24.0},
+    {"day", 24.0},
+    {"days", 24.0},
+    {"wk", 168.0},
+    {"week", 168.0},
+    {"mo", kHoursPerMonth},
+    {"month", kHoursPerMonth},
+    {"months", kHoursPerMonth},
+    {"yr", kHoursPerYear},
+    {"years", kHoursPerYear},
 }};
 
 std::optional<double> hours_of_unit(std::string_view unit) {
@@ -71,8 +82,7 @@ Parsed<Rate> parse_rate(std::string_view text) {
   auto nu = split_number(text);
   if (nu.out_of_range) return {std::nullopt, "a number beyond the range of finite values", hint};
   if (!nu.ok) return {std::nullopt, "no number at the start", hint};
-  if (!finite_non_negative(nu.number))
-    return {std::nullopt, "a rate must be a finite number of zero or more", hint};
+  if (!finite_non_negative(nu.number)) return {std::nullopt, "a rate must be a finite number of zero or more", hint};
   if (nu.unit == "FIT" || nu.unit == "fit") return {Rate{nu.number * kPerHourPerFit}, {}, {}};
   if (nu.unit.empty()) return {std::nullopt, "the unit is missing", hint};
   std::string_view per = nu.unit;

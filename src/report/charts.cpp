@@ -64,10 +64,15 @@ std::string contribution_svg(const SifResult& sif) {
   const double plot_w = kWidth - left - 150.0;
   const double height = top + row * static_cast<double>(names.size()) + 52.0;
   Canvas c(kWidth, height);
-  Plot p{left, top, plot_w, row * static_cast<double>(names.size()), Scale(0.0, 1.0, left, left + plot_w, false),
+  Plot p{left,
+         top,
+         plot_w,
+         row * static_cast<double>(names.size()),
+         Scale(0.0, 1.0, left, left + plot_w, false),
          Scale(0.0, 1.0, 0.0, 1.0, false)};
-  Axis x = linear_axis(0.0, 100.0, 5, std::string("share of the SIF's ") +
-                                          (sif.demand_mode == DemandMode::kLow ? "PFDavg" : "PFH") + " [%]");
+  Axis x = linear_axis(
+      0.0, 100.0, 5,
+      std::string("share of the SIF's ") + (sif.demand_mode == DemandMode::kLow ? "PFDavg" : "PFH") + " [%]");
   for (auto& t : x.ticks) t /= 100.0;
   svg::draw_axes(c, p, x, Axis{});
   const bool low = sif.demand_mode == DemandMode::kLow;
@@ -116,7 +121,11 @@ std::string pfd_curve_svg(const SifResult& sif, const PfdPlot& curve, const std:
   const double plot_h = 250.0, top = 14.0, left = 80.0;
   const double legend_top = top + plot_h + 62.0;
   Canvas c(kWidth, legend_top + 18.0 * static_cast<double>((entries + 1) / 2) + 6.0);
-  Plot p{left, top, kWidth - left - 24.0, plot_h, Scale(0.0, mission_yr, left, kWidth - 24.0, false),
+  Plot p{left,
+         top,
+         kWidth - left - 24.0,
+         plot_h,
+         Scale(0.0, mission_yr, left, kWidth - 24.0, false),
          Scale(lo, hi, top + plot_h, top, true)};
   svg::draw_axes(c, p, linear_axis(0.0, mission_yr, 10, "time since start of the mission [years]"),
                  log_axis(lo, hi, "PFD(t) [probability, log scale]"));
@@ -148,7 +157,11 @@ std::string interval_svg(const SifResult& sif, const IntervalSweep& sweep) {
   const auto [lo, hi] = svg::log_range(values, 6, {sweep.required_pfd});
   const double left = 80.0, top = 14.0, plot_h = 240.0;
   Canvas c(kWidth, top + plot_h + 86.0);
-  Plot p{left, top, kWidth - left - 24.0, plot_h, Scale(kSweepMinFactor, kSweepMaxFactor, left, kWidth - 24.0, true),
+  Plot p{left,
+         top,
+         kWidth - left - 24.0,
+         plot_h,
+         Scale(kSweepMinFactor, kSweepMaxFactor, left, kWidth - 24.0, true),
          Scale(lo, hi, top + plot_h, top, true)};
   Axis x;
   for (double f = kSweepMinFactor; f <= kSweepMaxFactor * 1.0001; f *= 2.0) {
@@ -171,10 +184,10 @@ std::string interval_svg(const SifResult& sif, const IntervalSweep& sweep) {
   std::string words = "longest interval: not computed (no requirement)";
   if (sweep.longest) {
     const auto& l = *sweep.longest;
-    words = l.outcome == IntervalOutcome::kNone           ? "longest interval: none meets the requirement"
-            : l.outcome == IntervalOutcome::kWholeMission ? "longest interval: the whole mission, " + format_duration(l.longest)
-                                                          : "longest interval (all tested subsystems): " +
-                                                                format_duration(l.longest);
+    words = l.outcome == IntervalOutcome::kNone ? "longest interval: none meets the requirement"
+            : l.outcome == IntervalOutcome::kWholeMission
+                ? "longest interval: the whole mission, " + format_duration(l.longest)
+                : "longest interval (all tested subsystems): " + format_duration(l.longest);
   }
   c.text(left + 320, legend_y, words, "legend");
   return c.render("interval-sweep", "PFDavg of " + sif.id + " against its proof-test intervals");
@@ -188,11 +201,16 @@ std::string sensitivity_svg(const SifResult& sif, const std::vector<SensitivityR
     values.push_back(r.low_pfd);
     values.push_back(r.high_pfd);
   }
-  const auto [lo, hi] = svg::log_range(values, 6, sif.pfd_avg ? std::vector<double>{*sif.pfd_avg} : std::vector<double>{});
+  const auto [lo, hi] =
+      svg::log_range(values, 6, sif.pfd_avg ? std::vector<double>{*sif.pfd_avg} : std::vector<double>{});
   const double left = label_width(names), top = 12.0, row = 26.0;
   const double plot_h = row * static_cast<double>(rows.size());
   Canvas c(kWidth, top + plot_h + 56.0);
-  Plot p{left, top, kWidth - left - 24.0, plot_h, Scale(lo, hi, left, kWidth - 24.0, true),
+  Plot p{left,
+         top,
+         kWidth - left - 24.0,
+         plot_h,
+         Scale(lo, hi, left, kWidth - 24.0, true),
          Scale(0.0, 1.0, 0.0, 1.0, false)};
   svg::draw_axes(c, p, log_axis(lo, hi, "PFDavg with the input at its low and its high value [log scale]"), Axis{});
   for (std::size_t i = 0; i < rows.size(); ++i) {

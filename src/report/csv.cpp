@@ -32,8 +32,8 @@ std::string sif_csv(const ProjectResult& result) {
       "sil_architecture,sil_systematic,sil_achieved,meets_target,verdict,limited_by\r\n";
   for (const auto& s : result.sifs) {
     out += csv_field(s.id) + "," + csv_field(s.title) + "," + to_string(s.demand_mode) + "," + number(s.pfd_avg) + "," +
-           number(s.pfh_per_hour) + "," + number(s.rrf) + "," + number(s.required_rrf) + "," +
-           number(s.required_pfd) + "," + integer(s.sil_required) + "," + std::to_string(s.sil_probability) + "," +
+           number(s.pfh_per_hour) + "," + number(s.rrf) + "," + number(s.required_rrf) + "," + number(s.required_pfd) +
+           "," + integer(s.sil_required) + "," + std::to_string(s.sil_probability) + "," +
            std::to_string(s.sil_architecture) + "," + std::to_string(s.sil_systematic) + "," +
            std::to_string(s.sil_achieved) + "," + (s.meets_target ? (*s.meets_target ? "true" : "false") : "") + "," +
            verdict(s.meets_target) + "," + csv_field(limits_words(s)) + "\r\n";

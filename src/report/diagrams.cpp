@@ -45,9 +45,12 @@ GroupBox group_box(const SubsystemResult& s) {
 
 std::string role_words(Role role) {
   switch (role) {
-    case Role::kSensor: return "sensors";
-    case Role::kLogic: return "logic solver";
-    case Role::kFinal: return "final elements";
+    case Role::kSensor:
+      return "sensors";
+    case Role::kLogic:
+      return "logic solver";
+    case Role::kFinal:
+      return "final elements";
   }
   return "";
 }
@@ -130,8 +133,8 @@ struct Stair {
 struct ColumnGroup {
   std::string name;
   std::size_t first = 0, last = 0;
-  std::optional<double> target_per_yr;   // consequences: the tolerable frequency
-  std::optional<bool> meets_target;      // consequences: with the SIF
+  std::optional<double> target_per_yr;  // consequences: the tolerable frequency
+  std::optional<bool> meets_target;     // consequences: with the SIF
 };
 
 struct Staircase {
@@ -142,15 +145,24 @@ struct Staircase {
 
 std::string column_label(const WorksheetRow& row) {
   switch (row.step) {
-    case WorksheetStep::kCause: return "initiating frequency";
-    case WorksheetStep::kEnabling: return svg::shortened(row.title, 22);
-    case WorksheetStep::kLayer: return row.item + (row.credited ? "" : " (no credit)");
-    case WorksheetStep::kSif: return row.item + " (assessed)";
-    case WorksheetStep::kTotal: return "sum";
-    case WorksheetStep::kModifier: return svg::shortened(row.title, 22);
-    case WorksheetStep::kTarget: return "without the SIF";
-    case WorksheetStep::kWithSif: return "with the SIF";
-    case WorksheetStep::kNotCredited: return "";
+    case WorksheetStep::kCause:
+      return "initiating frequency";
+    case WorksheetStep::kEnabling:
+      return svg::shortened(row.title, 22);
+    case WorksheetStep::kLayer:
+      return row.item + (row.credited ? "" : " (no credit)");
+    case WorksheetStep::kSif:
+      return row.item + " (assessed)";
+    case WorksheetStep::kTotal:
+      return "sum";
+    case WorksheetStep::kModifier:
+      return svg::shortened(row.title, 22);
+    case WorksheetStep::kTarget:
+      return "without the SIF";
+    case WorksheetStep::kWithSif:
+      return "with the SIF";
+    case WorksheetStep::kNotCredited:
+      return "";
   }
   return "";
 }
@@ -181,7 +193,8 @@ Staircase build_staircase(const ScenarioResult& s) {
       open_group(st, row.consequence, "tail tail-" + std::to_string(consequence % 2), col);
       if (st.groups.size() != before) {
         if (total) st.stairs.back().points.push_back(*total);  // every consequence starts from the sum
-        if (consequence < s.consequences.size()) st.groups.back().meets_target = s.consequences[consequence].meets_target;
+        if (consequence < s.consequences.size())
+          st.groups.back().meets_target = s.consequences[consequence].meets_target;
         ++consequence;
       }
       if (row.step == WorksheetStep::kTarget && row.value) st.groups.back().target_per_yr = *row.value;
@@ -222,8 +235,9 @@ void draw_groups(Canvas& c, const svg::Plot& p, const Staircase& st, double colu
     const double x1 = p.left + column_w * static_cast<double>(g.first);
     const double x2 = p.left + column_w * static_cast<double>(g.last + 1);
     if (g.first > 0) c.line(x1, p.top, x1, p.top + p.height, "separator");
-    c.text((x1 + x2) / 2, p.top - 8, svg::shortened(g.name, std::max<std::size_t>(10, static_cast<std::size_t>((x2 - x1) / svg::kCharPx))), "label",
-           Anchor::kMiddle);
+    c.text((x1 + x2) / 2, p.top - 8,
+           svg::shortened(g.name, std::max<std::size_t>(10, static_cast<std::size_t>((x2 - x1) / svg::kCharPx))),
+           "label", Anchor::kMiddle);
     if (g.target_per_yr) {
       c.line(x1, p.y(*g.target_per_yr), x2, p.y(*g.target_per_yr), "req-line");
       // From the group's left edge, or ending at its right edge when the words would leave it.
@@ -236,8 +250,8 @@ void draw_groups(Canvas& c, const svg::Plot& p, const Staircase& st, double colu
       // Under the step, where no tolerable line runs; above it when that would leave the plot.
       const double below = p.y(last.second) + 17;
       c.text(p.left + column_w * (static_cast<double>(last.first) + 0.5),
-             below < p.top + p.height - 2 ? below : p.y(last.second) - 8,
-             *g.meets_target ? "✔" : "✘", *g.meets_target ? "mark-good" : "mark-bad", Anchor::kMiddle);
+             below < p.top + p.height - 2 ? below : p.y(last.second) - 8, *g.meets_target ? "✔" : "✘",
+             *g.meets_target ? "mark-good" : "mark-bad", Anchor::kMiddle);
     }
   }
 }
@@ -261,7 +275,10 @@ std::string staircase_svg(const ScenarioResult& s) {
   const double plot_w = column_w * columns;
   const double legend_top = kStairTop + kStairPlotH + kLabelRoom;
   Canvas c(std::max(720.0, kStairLeft + plot_w + 24.0), legend_top + 14.0);
-  const svg::Plot p{kStairLeft, kStairTop, plot_w, kStairPlotH,
+  const svg::Plot p{kStairLeft,
+                    kStairTop,
+                    plot_w,
+                    kStairPlotH,
                     svg::Scale(0.0, 1.0, kStairLeft, kStairLeft + plot_w, false),
                     svg::Scale(lo, hi, kStairTop + kStairPlotH, kStairTop, true)};
   svg::Axis y;

@@ -1,8 +1,8 @@
 // Terminal text and JSON of `sifter diff`.
 #include "sifter/report/diff_text.hpp"
 
-#include "sifter/report/pressure_text.hpp"
 #include "sifter/model/format.hpp"
+#include "sifter/report/pressure_text.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/results/sif.hpp"
@@ -31,8 +31,8 @@ std::string render_function(const FunctionDiff& d, const std::string& kind) {
   std::string out = kind + " " + d.id;
   if (d.presence != Presence::kBoth) out += "  " + to_string(d.presence);
   if (d.verdict != VerdictChange::kNone)
-    out += "  verdict " + std::string(d.verdict == VerdictChange::kWorsened ? "WORSENED" : to_string(d.verdict)) + ": " +
-           verdict_text(d.old_verdict, kind != "SIF") + " -> " + verdict_text(d.new_verdict, kind != "SIF");
+    out += "  verdict " + std::string(d.verdict == VerdictChange::kWorsened ? "WORSENED" : to_string(d.verdict)) +
+           ": " + verdict_text(d.old_verdict, kind != "SIF") + " -> " + verdict_text(d.new_verdict, kind != "SIF");
   out += "\n";
   if (!d.related.empty()) {
     std::string s;
@@ -42,7 +42,8 @@ std::string render_function(const FunctionDiff& d, const std::string& kind) {
   if (!d.inputs.empty()) {
     out += "  inputs\n";
     TextTable t({"pointer", "input", "old", "new"});
-    for (const auto& c : d.inputs) t.add_row({c.pointer, c.what, value_text(c.old_value, c.unit), value_text(c.new_value, c.unit)});
+    for (const auto& c : d.inputs)
+      t.add_row({c.pointer, c.what, value_text(c.old_value, c.unit), value_text(c.new_value, c.unit)});
     out += t.render("    ");
   }
   if (!d.results.empty()) {
@@ -65,7 +66,10 @@ json value_json(const std::optional<DiffValue>& v) {
 json inputs_json(const std::vector<InputChange>& inputs) {
   json a = json::array();
   for (const auto& c : inputs)
-    a.push_back({{"pointer", c.pointer}, {"what", c.what}, {"unit", c.unit}, {"old", value_json(c.old_value)},
+    a.push_back({{"pointer", c.pointer},
+                 {"what", c.what},
+                 {"unit", c.unit},
+                 {"old", value_json(c.old_value)},
                  {"new", value_json(c.new_value)}});
   return a;
 }
@@ -117,8 +121,9 @@ std::string render_diff(const ProjectDiff& diff) {
   out += render_equipment_diff(diff.equipment);
   if (!unchanged.empty()) out += wrap("Unchanged: " + unchanged, 92, "") + "\n";
   auto count = [](int n, const char* one, const char* many) { return std::to_string(n) + " " + (n == 1 ? one : many); };
-  out += "Summary: " + count(changed_sifs, "SIF", "SIFs") + " and " + count(changed_scenarios, "scenario", "scenarios") +
-         " changed; " + count(worsened, "verdict", "verdicts") + " worsened\n";
+  out += "Summary: " + count(changed_sifs, "SIF", "SIFs") + " and " +
+         count(changed_scenarios, "scenario", "scenarios") + " changed; " + count(worsened, "verdict", "verdicts") +
+         " worsened\n";
   return out + "\n" + wrapped_caution();
 }
 

@@ -1,13 +1,13 @@
 // The HTML report: cover with the caution, summary, one section per SIF and per scenario, closing notes.
 #include "sifter/report/html.hpp"
 
+#include "sifter/model/format.hpp"
 #include "sifter/report/charts.hpp"
 #include "sifter/report/diagrams.hpp"
-#include "sifter/model/format.hpp"
 #include "sifter/report/html_deliverable.hpp"
 #include "sifter/report/html_style.hpp"
-#include "sifter/report/service.hpp"
 #include "sifter/report/options_text.hpp"
+#include "sifter/report/service.hpp"
 #include "sifter/report/svg.hpp"
 #include "sifter/report/tables.hpp"
 
@@ -18,10 +18,14 @@ std::string esc(const std::string& text) { return escape_html(text); }
 
 const char* tone_class(Tone tone) {
   switch (tone) {
-    case Tone::kGood: return "good";
-    case Tone::kBad: return "bad";
-    case Tone::kNeutral: return "neutral";
-    case Tone::kPlain: return "";
+    case Tone::kGood:
+      return "good";
+    case Tone::kBad:
+      return "bad";
+    case Tone::kNeutral:
+      return "neutral";
+    case Tone::kPlain:
+      return "";
   }
   return "";
 }
@@ -136,16 +140,19 @@ std::string further_figures(const SifResult& s, const SifReportData& d) {
                        "first.");
     out += table_html(sensitivity_table(d.sensitivity));
   }
-  if (s.uncertainty) out += table_html(uncertainty_table(*s.uncertainty));
-  else out += absent("Uncertainty: not run; the figures above use the stated failure data as point values.");
+  if (s.uncertainty)
+    out += table_html(uncertainty_table(*s.uncertainty));
+  else
+    out += absent("Uncertainty: not run; the figures above use the stated failure data as point values.");
   return out;
 }
 
 std::string sif_section(const SifResult& s, const SifReportData& d, std::size_t i) {
   std::string out = "<section class=\"sif\" id=\"" + sif_anchor(i) + "\">\n";
   out += "<h2>" + esc(s.id) + (s.title.empty() ? "" : ": " + esc(s.title)) + "</h2>\n";
-  out += verdict_html(sif_verdict(s.meets_target), " · achieved " + sil_words(s.sil_achieved) +
-                                                       (s.sil_required ? ", required " + sil_words(*s.sil_required) : ""));
+  out +=
+      verdict_html(sif_verdict(s.meets_target), " · achieved " + sil_words(s.sil_achieved) +
+                                                    (s.sil_required ? ", required " + sil_words(*s.sil_required) : ""));
   out += "<p class=\"facts\">Demand mode: " + esc(to_string(s.demand_mode)) + " (" + esc(s.demand_mode_basis) +
          "). Target: " + esc(s.target_text.empty() ? "none" : s.target_text) + ".</p>\n";
   out += "<h3>Architecture</h3>\n";
@@ -229,8 +236,8 @@ std::string render_html(const ProjectResult& r, const ReportData& d) {
   if (d.service) out += service_html(*d.service);
   out += options_sections_html(d.options);
   out += closing(r, d);
-  out += "<footer>Written by sifter " + esc(d.tool_version) + " on " + esc(d.date) + " from " + esc(r.file) +
-         ". " + esc(kCaution) + "</footer>\n</body>\n</html>\n";
+  out += "<footer>Written by sifter " + esc(d.tool_version) + " on " + esc(d.date) + " from " + esc(r.file) + ". " +
+         esc(kCaution) + "</footer>\n</body>\n</html>\n";
   return out;
 }
 

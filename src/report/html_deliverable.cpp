@@ -125,8 +125,9 @@ std::string print_footer_css(const DeliverableData& data, const std::string& kin
     text += " · document " + data.document->number + " revision " + data.document->revision;
   else
     text += " · no document number stated";
-  const std::string box = "font-family: sans-serif; font-size: 7.5pt; color: #4d4d4d; vertical-align: top; "
-                          "padding-top: 2.5mm;";
+  const std::string box =
+      "font-family: sans-serif; font-size: 7.5pt; color: #4d4d4d; vertical-align: top; "
+      "padding-top: 2.5mm;";
   return "\n@page { @bottom-left { content: \"" + css_string(text) + "\"; " + box +
          " }\n  @bottom-right { content: \"page \" counter(page) \" of \" counter(pages); " + box + " } }\n";
 }

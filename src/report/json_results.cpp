@@ -23,7 +23,9 @@ class TreeSink {
     return *this;
   }
   template <typename T>
-  TreeSink& value(const T& v) { return put(json(v)); }
+  TreeSink& value(const T& v) {
+    return put(json(v));
+  }
   TreeSink& value(std::string_view v) { return put(json(std::string(v))); }
   TreeSink& value(const std::optional<int>& v) { return put(v ? json(*v) : json(nullptr)); }
   TreeSink& value(const std::optional<bool>& v) { return put(v ? json(*v) : json(nullptr)); }
@@ -67,8 +69,10 @@ template <typename W>
 void emit_subsystem(W& w, const SubsystemResult& s) {
   w.begin_object();
   w.key("name").value(s.name);
-  if (s.template_name.empty()) w.key("template").null();
-  else w.key("template").value(s.template_name);
+  if (s.template_name.empty())
+    w.key("template").null();
+  else
+    w.key("template").value(s.template_name);
   w.key("role").value(to_string(s.role));
   w.key("vote").value(s.vote);
   w.key("channels").begin_array();
@@ -139,8 +143,10 @@ void emit_scenario(W& w, const ScenarioResult& s) {
   w.begin_object();
   w.key("id").value(s.id);
   w.key("title").value(s.title);
-  if (s.sif) w.key("sif").value(*s.sif);
-  else w.key("sif").null();
+  if (s.sif)
+    w.key("sif").value(*s.sif);
+  else
+    w.key("sif").null();
   w.key("target_frequency_per_yr").number(s.target_frequency_per_yr, "target frequency");
   w.key("frequency_without_sif_per_yr").number(s.frequency_without_sif_per_yr, "frequency");
   w.key("required_pfd").number(s.required_pfd, "required_pfd");
@@ -190,10 +196,14 @@ void emit_limits(W& w, const SifResult& s) {
   for (const auto& l : s.limits) {
     w.begin_object();
     w.key("kind").value(l.kind);
-    if (l.subsystem) w.key("subsystem").value(*l.subsystem);
-    else w.key("subsystem").null();
-    if (l.element) w.key("element").value(*l.element);
-    else w.key("element").null();
+    if (l.subsystem)
+      w.key("subsystem").value(*l.subsystem);
+    else
+      w.key("subsystem").null();
+    if (l.element)
+      w.key("element").value(*l.element);
+    else
+      w.key("element").null();
     w.key("sil").value(l.sil);
     w.key("message").value(l.message);
     w.end_object();
@@ -270,8 +280,10 @@ void emit_sif(W& w, const SifResult& s) {
   w.key("pfh_simplified").number(s.pfh_simplified_per_hour, "pfh_simplified");
   w.key("pfd_avg_judged").number(s.pfd_avg, "pfd_avg_judged");
   w.key("pfh_judged").number(s.pfh_per_hour, "pfh_judged");
-  if (s.pfd_avg || s.pfh_per_hour) w.key("judged_on").value(to_string(s.judged_on));
-  else w.key("judged_on").null();
+  if (s.pfd_avg || s.pfh_per_hour)
+    w.key("judged_on").value(to_string(s.judged_on));
+  else
+    w.key("judged_on").null();
   w.key("judged_why").value(to_string(s.judged_why));
   w.key("demand_mode_raised").value(s.demand_mode_raised);
   w.key("credit_pfd").number(s.credit_pfd, "credit_pfd");
@@ -334,7 +346,8 @@ void emit_results(W& w, const ProjectResult& r) {
     w.begin_object().key("component").value(s.component).key("sifs").value(s.sifs).end_object();
   w.end_array();
   w.key("warnings").begin_array();
-  for (const auto& x : r.warnings) w.begin_object().key("where").value(x.where).key("message").value(x.message).end_object();
+  for (const auto& x : r.warnings)
+    w.begin_object().key("where").value(x.where).key("message").value(x.message).end_object();
   w.end_array();
   w.key("caution").value(kCaution);
   if (r.pressure) emit_pressure(w, *r.pressure);

@@ -93,14 +93,22 @@ void JsonStream::escaped(std::string_view text) {
   buffer_ += '"';
   for (const char c : text) {
     const auto u = static_cast<unsigned char>(c);
-    if (c == '"') buffer_ += "\\\"";
-    else if (c == '\\') buffer_ += "\\\\";
-    else if (u >= 0x20) buffer_ += c;
-    else if (c == '\n') buffer_ += "\\n";
-    else if (c == '\t') buffer_ += "\\t";
-    else if (c == '\r') buffer_ += "\\r";
-    else if (c == '\b') buffer_ += "\\b";
-    else if (c == '\f') buffer_ += "\\f";
+    if (c == '"')
+      buffer_ += "\\\"";
+    else if (c == '\\')
+      buffer_ += "\\\\";
+    else if (u >= 0x20)
+      buffer_ += c;
+    else if (c == '\n')
+      buffer_ += "\\n";
+    else if (c == '\t')
+      buffer_ += "\\t";
+    else if (c == '\r')
+      buffer_ += "\\r";
+    else if (c == '\b')
+      buffer_ += "\\b";
+    else if (c == '\f')
+      buffer_ += "\\f";
     else {
       char buf[8];
       std::snprintf(buf, sizeof buf, "\\u%04x", u);

@@ -3,9 +3,9 @@
 
 #include <string_view>
 
+#include "sifter/model/format.hpp"
 #include "sifter/model/printable.hpp"
 #include "sifter/report/deliverable_tables.hpp"
-#include "sifter/model/format.hpp"
 
 namespace sifter::report {
 namespace {
@@ -38,8 +38,8 @@ std::string sif_section(const SifResult& s, const SifReportData& d) {
   std::string out = "## " + md(s.id) + (s.title.empty() ? "" : ": " + md(s.title)) + "\n\n";
   out += "**" + md(sif_verdict(s.meets_target).text) + "** · achieved " + sil_words(s.sil_achieved) +
          (s.sil_required ? ", required " + sil_words(*s.sil_required) : "") + "\n\n";
-  out += "Demand mode: " + md(to_string(s.demand_mode)) + " (" + md(s.demand_mode_basis) + "). Target: " +
-         md(s.target_text.empty() ? "none" : s.target_text) + ".\n\n";
+  out += "Demand mode: " + md(to_string(s.demand_mode)) + " (" + md(s.demand_mode_basis) +
+         "). Target: " + md(s.target_text.empty() ? "none" : s.target_text) + ".\n\n";
   out += markdown_table(sil_table(s, d));
   if (!s.limits.empty()) {
     out += "What keeps it below its target:\n\n";
@@ -51,10 +51,14 @@ std::string sif_section(const SifResult& s, const SifReportData& d) {
   if (!s.requirement_checks.empty()) out += markdown_table(requirement_checks_table(s));
   if (d.pfd_curve) out += "PFD(t) curve drawn in the HTML report by the " + md(d.pfd_curve->engine) + ".\n\n";
   if (d.interval_sweep) out += markdown_table(interval_table(*d.interval_sweep));
-  if (d.sensitivity.empty()) out += "Sensitivity ranking: " + absent("not computed in this run.");
-  else out += markdown_table(sensitivity_table(d.sensitivity));
-  if (s.uncertainty) out += markdown_table(uncertainty_table(*s.uncertainty));
-  else out += "Uncertainty: " + absent("not run.");
+  if (d.sensitivity.empty())
+    out += "Sensitivity ranking: " + absent("not computed in this run.");
+  else
+    out += markdown_table(sensitivity_table(d.sensitivity));
+  if (s.uncertainty)
+    out += markdown_table(uncertainty_table(*s.uncertainty));
+  else
+    out += "Uncertainty: " + absent("not run.");
   return out;
 }
 

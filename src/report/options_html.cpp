@@ -2,11 +2,11 @@
 #include <algorithm>
 #include <cstdio>
 
-#include "sifter/results/lopa.hpp"
-#include "sifter/model/vocabulary.hpp"
 #include "sifter/model/format.hpp"
+#include "sifter/model/vocabulary.hpp"
 #include "sifter/report/options_text.hpp"
 #include "sifter/report/svg.hpp"
+#include "sifter/results/lopa.hpp"
 
 namespace sifter::report {
 namespace {
@@ -34,7 +34,8 @@ std::string comparison_svg(const ScenarioOptions& o) {
   const double scale = (width - label - 90) / most;
   std::string s = "<svg viewBox=\"0 0 " + num(width) + " " + num(height) +
                   "\" role=\"img\" aria-label=\"lifecycle cost of each option\">\n";
-  s += "<text x=\"" + num(label) + "\" y=\"14\" font-size=\"11\">lifecycle cost (capital | annual | tests | trips)</text>\n";
+  s += "<text x=\"" + num(label) +
+       "\" y=\"14\" font-size=\"11\">lifecycle cost (capital | annual | tests | trips)</text>\n";
   const char* fills[] = {"#345", "#789", "#abc", "#dde"};
   for (std::size_t i = 0; i < o.options.size(); ++i) {
     const auto& r = o.options[i];
@@ -52,11 +53,13 @@ std::string comparison_svg(const ScenarioOptions& o) {
       x += w;
     }
     if (!r.feasible)
-      s += "<path d=\"M" + num(x + 4) + " " + num(y + 6) + " l12 12 m0 -12 l-12 12\" stroke=\"#000\" stroke-width=\"2\"/>\n";
+      s += "<path d=\"M" + num(x + 4) + " " + num(y + 6) +
+           " l12 12 m0 -12 l-12 12\" stroke=\"#000\" stroke-width=\"2\"/>\n";
     s += "<text x=\"" + num(x + (r.feasible ? 6 : 22)) + "\" y=\"" + num(y + 16) + "\" font-size=\"11\">" +
          money(r.lifecycle_cost) + "</text>\n";
   }
-  s += "<text x=\"" + num(label) + "\" y=\"" + num(height - 8) + "\" font-size=\"10\">filled: feasible and tolerable; " +
+  s += "<text x=\"" + num(label) + "\" y=\"" + num(height - 8) +
+       "\" font-size=\"10\">filled: feasible and tolerable; " +
        "outline: not tolerable alone; cross: infeasible</text>\n</svg>\n";
   return s;
 }
@@ -65,17 +68,19 @@ std::string section(const ScenarioOptions& o) {
   std::string out = "<section class=\"options\" id=\"options-" + escape_html(o.scenario) + "\">\n";
   out += "<h2>Options for " + escape_html(o.scenario) + "</h2>\n<p>" + escape_html(o.title) + "</p>\n";
   out += "<p>Target " + escape_html(format_number(o.target_frequency_per_yr)) + "/yr; without any SIF " +
-         escape_html(format_number(o.frequency_unprotected_per_yr)) + "/yr. Lifecycle cost: capital plus the present value over " +
-         escape_html(format_number(o.mission_years)) + " yr at " + escape_html(format_number(100.0 * o.discount_rate)) +
+         escape_html(format_number(o.frequency_unprotected_per_yr)) +
+         "/yr. Lifecycle cost: capital plus the present value over " + escape_html(format_number(o.mission_years)) +
+         " yr at " + escape_html(format_number(100.0 * o.discount_rate)) +
          " %/yr of annual costs, proof tests and spurious trips.</p>\n";
-  out += "<table>\n<thead><tr><th>rank</th><th>option</th><th>kind</th><th>feasible</th><th>tolerable</th>"
-         "<th>lifecycle cost</th><th>reason</th></tr></thead>\n<tbody>\n";
+  out +=
+      "<table>\n<thead><tr><th>rank</th><th>option</th><th>kind</th><th>feasible</th><th>tolerable</th>"
+      "<th>lifecycle cost</th><th>reason</th></tr></thead>\n<tbody>\n";
   for (std::size_t i = 0; i < o.options.size(); ++i) {
     const auto& r = o.options[i];
     out += "<tr><td>" + std::to_string(i + 1) + "</td><td>" + escape_html(r.id) + "</td><td>" + to_string(r.kind) +
            "</td><td>" + (r.feasible ? "yes" : "no") + "</td><td>" + (r.makes_tolerable ? "yes" : "no") + "</td><td>" +
-           money(r.lifecycle_cost) + "</td><td>" + escape_html(r.reason) +
-           (r.preliminary ? " (preliminary)" : "") + "</td></tr>\n";
+           money(r.lifecycle_cost) + "</td><td>" + escape_html(r.reason) + (r.preliminary ? " (preliminary)" : "") +
+           "</td></tr>\n";
   }
   out += "</tbody>\n</table>\n<figure>" + comparison_svg(o) + "<figcaption>Lifecycle cost of each option, ranked." +
          "</figcaption></figure>\n</section>\n";

@@ -3,11 +3,11 @@
 
 #include <cstdio>
 
-#include "sifter/results/lopa.hpp"
-#include "sifter/model/vocabulary.hpp"
 #include "sifter/model/format.hpp"
+#include "sifter/model/vocabulary.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/text_table.hpp"
+#include "sifter/results/lopa.hpp"
 #include "sifter/results/sif.hpp"
 
 namespace sifter::report {
@@ -89,9 +89,9 @@ nlohmann::json options_json(const ScenarioOptions& o) {
                             {"pv_trip_cost", checked(r.pv_trip_cost, "cost")},
                             {"tests_per_yr", checked(r.tests_per_yr, "tests")},
                             {"spurious_trips_per_yr", checked(r.trips_per_yr, "trips")},
-                            {"mitigated_frequency_per_yr", r.mitigated_frequency_per_yr
-                                                               ? nlohmann::json(checked(*r.mitigated_frequency_per_yr, "f"))
-                                                               : nlohmann::json(nullptr)},
+                            {"mitigated_frequency_per_yr",
+                             r.mitigated_frequency_per_yr ? nlohmann::json(checked(*r.mitigated_frequency_per_yr, "f"))
+                                                          : nlohmann::json(nullptr)},
                             {"reason", r.reason},
                             {"preliminary", r.preliminary},
                             {"preliminary_because", r.preliminary_because}});

@@ -4,13 +4,12 @@
 #include <unistd.h>
 
 #include <csignal>
-#include <cstring>
-#include <memory>
-
 #include <cstdio>
+#include <cstring>
 #include <filesystem>
 #include <fstream>
 #include <iostream>
+#include <memory>
 #include <random>
 
 #include "sifter/model/diagnostics.hpp"
@@ -85,7 +84,8 @@ AtomicOutput::AtomicOutput(std::string path) : path_(std::move(path)) {
   track_temp(temp_);
   file_.open(temp_, std::ios::binary | std::ios::trunc);
   if (!file_)
-    throw OutputError("cannot write " + path_ + ": the folder " + folder.string() + " is not writable or does not exist");
+    throw OutputError("cannot write " + path_ + ": the folder " + folder.string() +
+                      " is not writable or does not exist");
 }
 
 AtomicOutput::~AtomicOutput() {
@@ -175,7 +175,8 @@ void refuse_overwriting_inputs(const std::vector<std::string>& outputs, const st
     if (o.empty() || o == "-") continue;
     for (std::size_t m = k + 1; m < outputs.size(); ++m)
       if (!outputs[m].empty() && outputs[m] != "-" && same(o, outputs[m]))
-        throw UsageError("refusing to write " + o + " twice: two outputs of this run name the same file; choose "
+        throw UsageError("refusing to write " + o +
+                         " twice: two outputs of this run name the same file; choose "
                          "another name for one of them");
     std::error_code ec;
     for (const auto& i : inputs) {

@@ -3,9 +3,9 @@
 
 #include <cstdio>
 
-#include "sifter/results/project.hpp"
-#include "sifter/model/pressure_units.hpp"
 #include "sifter/model/format.hpp"
+#include "sifter/model/pressure_units.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter::report {
 
@@ -42,7 +42,8 @@ std::string render_pressure_text(const ProjectResult& r) {
 namespace sifter::report {
 namespace {
 
-std::string category_text(const std::optional<std::string>& category, const std::optional<double>& p, bool preliminary) {
+std::string category_text(const std::optional<std::string>& category, const std::optional<double>& p,
+                          bool preliminary) {
   if (!category) return "not screened";
   return *category + " at " + format_pressure(*p) + (preliminary ? " (preliminary)" : "");
 }

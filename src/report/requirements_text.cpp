@@ -2,8 +2,8 @@
 #include "sifter/report/requirements_text.hpp"
 
 #include "sifter/model/format.hpp"
-#include "sifter/report/text_table.hpp"
 #include "sifter/model/vocabulary.hpp"
+#include "sifter/report/text_table.hpp"
 
 namespace sifter::report {
 

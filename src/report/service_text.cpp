@@ -32,8 +32,8 @@ std::string models_text(const ServiceResult& r) {
                     percent(e.probability_above_design), exceeds_text(e)});
   }
   return "Observed lambda_DU per hour by component model (devices in service pooled)\n" + observed.render() +
-         "\nAgainst the design rate, per hour (prior: " + plain(r.prior_hours) +
-         " h of service at the design rate)\n" + design.render();
+         "\nAgainst the design rate, per hour (prior: " + plain(r.prior_hours) + " h of service at the design rate)\n" +
+         design.render();
 }
 
 std::string sifs_text(const ServiceResult& r) {

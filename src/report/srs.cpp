@@ -4,9 +4,9 @@
 
 #include <algorithm>
 
-#include "sifter/report/deliverable_tables.hpp"
 #include "sifter/model/format.hpp"
 #include "sifter/model/vocabulary.hpp"
+#include "sifter/report/deliverable_tables.hpp"
 
 namespace sifter::report {
 namespace {
@@ -80,8 +80,8 @@ void timing(Blocks& b, const SifResult& s, const SifRequirements& q) {
   if (!q.process_safety_time) {
     b.para("OPEN: the process safety time is not stated, so the response time cannot be judged.");
   } else {
-    b.para("Process safety time " + format_seconds(q.process_safety_time->hours * 3600.0) + "; the SIF must act within " +
-           plain(100.0 * q.response_time_fraction) + "% of it" +
+    b.para("Process safety time " + format_seconds(q.process_safety_time->hours * 3600.0) +
+           "; the SIF must act within " + plain(100.0 * q.response_time_fraction) + "% of it" +
            (q.response_time_fraction_stated ? "" : " (common practice when the project states no share)") +
            (s.response_time_limit_s ? ", " + format_seconds(*s.response_time_limit_s) : "") + ".");
   }

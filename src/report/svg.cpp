@@ -14,12 +14,23 @@ std::string escape_html(std::string_view text) {
   out.reserve(text.size());
   for (char c : text) {
     switch (c) {
-      case '&': out += "&amp;"; break;
-      case '<': out += "&lt;"; break;
-      case '>': out += "&gt;"; break;
-      case '"': out += "&quot;"; break;
-      case '\'': out += "&#39;"; break;
-      default: out += c;
+      case '&':
+        out += "&amp;";
+        break;
+      case '<':
+        out += "&lt;";
+        break;
+      case '>':
+        out += "&gt;";
+        break;
+      case '"':
+        out += "&quot;";
+        break;
+      case '\'':
+        out += "&#39;";
+        break;
+      default:
+        out += c;
     }
   }
   return out;
@@ -30,9 +41,12 @@ namespace {
 
 const char* anchor_name(Anchor a) {
   switch (a) {
-    case Anchor::kStart: return "start";
-    case Anchor::kMiddle: return "middle";
-    case Anchor::kEnd: return "end";
+    case Anchor::kStart:
+      return "start";
+    case Anchor::kMiddle:
+      return "middle";
+    case Anchor::kEnd:
+      return "end";
   }
   return "start";
 }

@@ -35,9 +35,12 @@ std::string channels_text(const SubsystemResult& s) {
 
 std::string basis_text(ConstraintBasis basis) {
   switch (basis) {
-    case ConstraintBasis::kIec61511: return "minimum HFT, IEC 61511-1:2016 11.4, Table 6";
-    case ConstraintBasis::kRoute1H: return "Route 1H, IEC 61508-2:2010 Tables 2 and 3";
-    case ConstraintBasis::kRoute2H: return "Route 2H, IEC 61508-2:2010 7.4.4.3";
+    case ConstraintBasis::kIec61511:
+      return "minimum HFT, IEC 61511-1:2016 11.4, Table 6";
+    case ConstraintBasis::kRoute1H:
+      return "Route 1H, IEC 61508-2:2010 Tables 2 and 3";
+    case ConstraintBasis::kRoute2H:
+      return "Route 2H, IEC 61508-2:2010 7.4.4.3";
   }
   return "";
 }
@@ -61,7 +64,6 @@ Cell scenario_verdict(const std::optional<bool>& meets) {
   if (!meets) return {"– not judged", Tone::kNeutral};
   return *meets ? Cell{"✔ tolerable", Tone::kGood} : Cell{"✘ not tolerable", Tone::kBad};
 }
-
 
 std::string limits_words(const SifResult& sif) {
   std::vector<std::string> parts;
@@ -87,9 +89,9 @@ Table sif_summary_table(const ProjectResult& result, const ReportData& data) {
           {}};
   for (std::size_t i = 0; i < result.sifs.size(); ++i) {
     const SifResult& s = result.sifs[i];
-    std::vector<Cell> row = cells({s.id, s.title, to_string(s.demand_mode), opt_int(s.sil_required),
-                                   std::to_string(s.sil_achieved), measure_text(s.pfd_avg, s.pfh_per_hour, s.demand_mode), opt_plain(s.rrf),
-                                   opt_plain(s.required_rrf)});
+    std::vector<Cell> row =
+        cells({s.id, s.title, to_string(s.demand_mode), opt_int(s.sil_required), std::to_string(s.sil_achieved),
+               measure_text(s.pfd_avg, s.pfh_per_hour, s.demand_mode), opt_plain(s.rrf), opt_plain(s.required_rrf)});
     row.push_back(sif_verdict(s.meets_target));
     row.push_back(plain_cell(i < data.sifs.size() ? limited_by(s, data.sifs[i]) : ""));
     t.rows.push_back(std::move(row));
@@ -115,8 +117,10 @@ Table scenario_summary_table(const ProjectResult& result) {
 }
 
 Table risk_criteria_table(const RiskCriteria& criteria) {
-  Table t{"Risk criteria: tolerable frequency of each consequence", {"category", "severity", "tolerable [/yr]"},
-          {false, false, true}, {}};
+  Table t{"Risk criteria: tolerable frequency of each consequence",
+          {"category", "severity", "tolerable [/yr]"},
+          {false, false, true},
+          {}};
   for (const auto& [category, levels] : criteria)
     for (const auto& [severity, rate] : levels) t.rows.push_back(cells({category, severity, sci(rate.per_year())}));
   return t;
@@ -127,13 +131,17 @@ Table sil_table(const SifResult& s, const SifReportData& data) {
   const auto sets = [&](const char* kind) {
     return std::find(data.limiting.begin(), data.limiting.end(), kind) != data.limiting.end() ? "yes" : "";
   };
-  std::string probability = low ? "PFDavg " + sci_or_dash(s.pfd_avg) : "PFH " + measure_text(s.pfd_avg, s.pfh_per_hour, s.demand_mode);
+  std::string probability =
+      low ? "PFDavg " + sci_or_dash(s.pfd_avg) : "PFH " + measure_text(s.pfd_avg, s.pfh_per_hour, s.demand_mode);
   if (low && data.required_pfd) probability += "; required: at most " + sci(*data.required_pfd);
   if (!low && s.required_pfh_per_hour) probability += "; required at most " + sci(*s.required_pfh_per_hour) + "/h";
-  Table t{"The three results and the verdict", {"result", "SIL", "from", "sets the achieved SIL"},
-          {false, false, false, false}, {}};
+  Table t{"The three results and the verdict",
+          {"result", "SIL", "from", "sets the achieved SIL"},
+          {false, false, false, false},
+          {}};
   t.rows.push_back(cells({"probability", sil_words(s.sil_probability), probability, sets("probability")}));
-  t.rows.push_back(cells({"architecture", sil_words(s.sil_architecture), basis_text(s.constraints), sets("architecture")}));
+  t.rows.push_back(
+      cells({"architecture", sil_words(s.sil_architecture), basis_text(s.constraints), sets("architecture")}));
   t.rows.push_back(cells({"systematic", sil_words(s.sil_systematic),
                           "lowest systematic capability in the chain, IEC 61508-2:2010 7.4.3", sets("systematic")}));
   t.rows.push_back(cells({"achieved", sil_words(s.sil_achieved), "the lowest of the three", ""}));
@@ -152,25 +160,32 @@ Table subsystem_table(const SifResult& s) {
           {}};
   for (const auto& sub : s.subsystems) {
     const bool vendor = sub.channels.empty();
-    t.rows.push_back(cells({sub.name, to_string(sub.role), sub.vote, channels_text(sub), measure_text(sub.pfd_avg, sub.pfh_per_hour, s.demand_mode),
-                            percent(sub.share), opt_int(sub.hft), sub.sff ? percent(*sub.sff) : kNone,
-                            std::to_string(sub.sil_architecture), opt_int(sub.systematic_capability),
-                            vendor ? kNone : format_duration(sub.proof_test_interval)}));
+    t.rows.push_back(
+        cells({sub.name, to_string(sub.role), sub.vote, channels_text(sub),
+               measure_text(sub.pfd_avg, sub.pfh_per_hour, s.demand_mode), percent(sub.share), opt_int(sub.hft),
+               sub.sff ? percent(*sub.sff) : kNone, std::to_string(sub.sil_architecture),
+               opt_int(sub.systematic_capability), vendor ? kNone : format_duration(sub.proof_test_interval)}));
   }
   return t;
 }
 
 Table interval_table(const IntervalSweep& sweep) {
-  Table t{"Proof-test intervals, present and longest allowed (every tested subsystem at one interval, as sifter "
-          "interval answers)",
-          {"subsystem", "present interval", "longest allowed"}, {false, true, true}, {}};
+  Table t{
+      "Proof-test intervals, present and longest allowed (every tested subsystem at one interval, as sifter "
+      "interval answers)",
+      {"subsystem", "present interval", "longest allowed"},
+      {false, true, true},
+      {}};
   const bool whole_mission = sweep.longest && sweep.longest->outcome == IntervalOutcome::kWholeMission;
   const bool none = sweep.longest && sweep.longest->outcome == IntervalOutcome::kNone;
   for (const auto& s : sweep.subsystems) {
     std::string longest = kNone;
-    if (s.longest && whole_mission) longest = "the whole mission, " + format_duration(*s.longest);
-    else if (s.longest) longest = format_duration(*s.longest);
-    else if (s.present && none) longest = "none: falls short at any interval";
+    if (s.longest && whole_mission)
+      longest = "the whole mission, " + format_duration(*s.longest);
+    else if (s.longest)
+      longest = format_duration(*s.longest);
+    else if (s.present && none)
+      longest = "none: falls short at any interval";
     t.rows.push_back(cells({s.name, s.present ? format_duration(*s.present) : "(supplier's figure)", longest}));
   }
   return t;
@@ -199,15 +214,24 @@ namespace {
 std::string step_words(const WorksheetRow& row) {
   const std::string of = row.consequence.empty() ? "" : " (" + row.consequence + ")";
   switch (row.step) {
-    case WorksheetStep::kCause: return "cause " + row.item;
-    case WorksheetStep::kEnabling: return "enabling condition";
-    case WorksheetStep::kLayer: return "layer " + row.item;
-    case WorksheetStep::kSif: return "SIF " + row.item;
-    case WorksheetStep::kNotCredited: return "not credited";
-    case WorksheetStep::kTotal: return "all causes";
-    case WorksheetStep::kModifier: return "modifier" + of;
-    case WorksheetStep::kTarget: return "without the SIF" + of;
-    case WorksheetStep::kWithSif: return "with the SIF" + of;
+    case WorksheetStep::kCause:
+      return "cause " + row.item;
+    case WorksheetStep::kEnabling:
+      return "enabling condition";
+    case WorksheetStep::kLayer:
+      return "layer " + row.item;
+    case WorksheetStep::kSif:
+      return "SIF " + row.item;
+    case WorksheetStep::kNotCredited:
+      return "not credited";
+    case WorksheetStep::kTotal:
+      return "all causes";
+    case WorksheetStep::kModifier:
+      return "modifier" + of;
+    case WorksheetStep::kTarget:
+      return "without the SIF" + of;
+    case WorksheetStep::kWithSif:
+      return "with the SIF" + of;
   }
   return "";
 }
@@ -222,17 +246,22 @@ Cell worksheet_credit(const WorksheetRow& row) {
   switch (row.step) {
     case WorksheetStep::kLayer:
       return row.credited ? Cell{"✔ credited", Tone::kGood} : Cell{"✘ no credit", Tone::kBad};
-    case WorksheetStep::kSif: return row.credited ? Cell{"assessed", Tone::kPlain} : Cell{"✘ no credit", Tone::kBad};
-    case WorksheetStep::kNotCredited: return {"✘ not credited", Tone::kNeutral};
-    default: return {"", Tone::kPlain};
+    case WorksheetStep::kSif:
+      return row.credited ? Cell{"assessed", Tone::kPlain} : Cell{"✘ no credit", Tone::kBad};
+    case WorksheetStep::kNotCredited:
+      return {"✘ not credited", Tone::kNeutral};
+    default:
+      return {"", Tone::kPlain};
   }
 }
 
 }  // namespace
 
 Table worksheet_table(const ScenarioResult& s) {
-  Table t{"Worksheet", {"step", "title", "value", "credit", "frequency [/yr]", "note"},
-          {false, false, true, false, true, false}, {}};
+  Table t{"Worksheet",
+          {"step", "title", "value", "credit", "frequency [/yr]", "note"},
+          {false, false, true, false, true, false},
+          {}};
   for (const auto& row : s.worksheet) {
     // A credited SIF row would repeat that the SIF is not in the frequency without it; the
     // step's name says so. An uncredited one keeps its reason.
@@ -259,8 +288,9 @@ std::string annex_b_form(const SubsystemResult& sub) {
   if (diagnostic)
     return pfh ? "PFH = 2(1−β)λDU[(1−β)λDU + (1−βD)λDD + λSD]·tCE′ + βD·λDD + β·λDU"
                : "PFD = 2(1−β)λDU[(1−β)λDU + (1−βD)λDD + λSD]·tCE′·tGE′ + CCF";
-  if (m == 1) return pfh ? "PFH = " + (n > 1 ? nn + "·" : std::string()) + "λDU"
-                         : "PFD = " + (n > 1 ? nn + "·" : std::string()) + "λD·tCE";
+  if (m == 1)
+    return pfh ? "PFH = " + (n > 1 ? nn + "·" : std::string()) + "λDU"
+               : "PFD = " + (n > 1 ? nn + "·" : std::string()) + "λD·tCE";
   const int power = pfh ? m - 1 : m;  // PFH: one failure fewer is waited for
   std::string times;
   for (int j = 1; j <= power; ++j) times += j == 1 ? "·tCE" : j == 2 ? "·tGE" : "·tG" + std::to_string(j - 1) + "E";
@@ -293,8 +323,10 @@ Table equations_table(const ProjectResult& result, const ReportData& data) {
                             "X = (1−βD)λDD + (1−β)λDU; CCF = βD·λDD·MTTR + β·λDU(T1/2 + MRT)",
                             "the forms above"}));
   if (!result.sifs.empty()) {
-    t.rows.push_back(cells({"IEC 61508-6:2010 B.2.2", "SIF PFDavg (PFH) = sum over its subsystems in series "
-                            "(rare-event approximation)", "every SIF"}));
+    t.rows.push_back(cells({"IEC 61508-6:2010 B.2.2",
+                            "SIF PFDavg (PFH) = sum over its subsystems in series "
+                            "(rare-event approximation)",
+                            "every SIF"}));
     t.rows.push_back(cells({"IEC 61508-1:2010 Tables 2 and 3; IEC 61511-1:2016 Tables 4 and 5",
                             "SIL bands of PFDavg, PFH and RRF", "every SIF"}));
   }
@@ -319,7 +351,8 @@ Table equations_table(const ProjectResult& result, const ReportData& data) {
 
 Table shared_table(const ProjectResult& result) {
   Table t{"Shared equipment: check its independence", {"tag", "shared as", "relied on by"}, {false, false, false}, {}};
-  for (const auto& c : result.shared_components) t.rows.push_back(cells({c.component, "SIF component", joined(c.sifs, ", ")}));
+  for (const auto& c : result.shared_components)
+    t.rows.push_back(cells({c.component, "SIF component", joined(c.sifs, ", ")}));
   for (const auto& d : result.shared_devices) t.rows.push_back(cells({d.tag, "device", joined(d.users, ", ")}));
   return t;
 }

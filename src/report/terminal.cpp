@@ -5,13 +5,13 @@
 #include <algorithm>
 #include <set>
 
-#include "sifter/report/pressure_text.hpp"
-#include "sifter/model/vocabulary.hpp"
 #include "sifter/model/format.hpp"
+#include "sifter/model/vocabulary.hpp"
+#include "sifter/report/pressure_text.hpp"
+#include "sifter/report/requirements_text.hpp"
 #include "sifter/report/tables.hpp"
 #include "sifter/report/text_table.hpp"
 #include "sifter/report/worksheet.hpp"
-#include "sifter/report/requirements_text.hpp"
 #include "sifter/results/report.hpp"
 
 namespace sifter::report {
@@ -24,7 +24,6 @@ std::string verdict_words(const std::optional<bool>& meets) {
   if (!meets) return "NOT JUDGED (no target)";
   return *meets ? "MEETS TARGET" : "FALLS SHORT";
 }
-
 
 std::string joined(const std::vector<std::string>& items) {
   std::string out;

@@ -20,9 +20,12 @@ const char* measure_key(DemandMode mode) { return mode == DemandMode::kLow ? "pf
 
 std::string outcome_text(IntervalOutcome o) {
   switch (o) {
-    case IntervalOutcome::kFound: return "found";
-    case IntervalOutcome::kNone: return "none";
-    case IntervalOutcome::kWholeMission: return "whole_mission";
+    case IntervalOutcome::kFound:
+      return "found";
+    case IntervalOutcome::kNone:
+      return "none";
+    case IntervalOutcome::kWholeMission:
+      return "whole_mission";
   }
   return {};
 }
@@ -32,12 +35,9 @@ json requirement_json(const Requirement& q) {
 }
 
 json point_json(double value, const SifResult& s) {
-  return {{"value", checked(value, "value")},
-          {"pfd_avg", opt(s.pfd_avg, "pfd_avg")},
-          {"pfh", opt(s.pfh_per_hour, "pfh")},
-          {"rrf", opt(s.rrf, "rrf")},
-          {"sil_probability", s.sil_probability},
-          {"sil_achieved", s.sil_achieved},
+  return {{"value", checked(value, "value")},     {"pfd_avg", opt(s.pfd_avg, "pfd_avg")},
+          {"pfh", opt(s.pfh_per_hour, "pfh")},    {"rrf", opt(s.rrf, "rrf")},
+          {"sil_probability", s.sil_probability}, {"sil_achieved", s.sil_achieved},
           {"meets_target", opt(s.meets_target)}};
 }
 
@@ -87,7 +87,9 @@ json sweep_json(const SweepResult& r) {
   j["subsystem"] = opt(r.subsystem);
   j["subsystems_varied"] = r.varied;
   j["parameter"] = to_string(r.parameter);
-  j["value_unit"] = is_duration(r.parameter) ? "h" : r.parameter == SweepParameter::kLambdaDuFactor ? "factor" : "fraction";
+  j["value_unit"] = is_duration(r.parameter)                         ? "h"
+                    : r.parameter == SweepParameter::kLambdaDuFactor ? "factor"
+                                                                     : "fraction";
   j["demand_mode"] = to_string(r.mode);
   j["points"] = json::array();
   for (const auto& p : r.points) j["points"].push_back(point_json(p.value, p.result));

@@ -4,8 +4,8 @@
 #include <algorithm>
 #include <cstdio>
 
-#include "sifter/model/vocabulary.hpp"
 #include "sifter/model/format.hpp"
+#include "sifter/model/vocabulary.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/text_table.hpp"
 
@@ -15,7 +15,6 @@ namespace {
 const char* measure_name(DemandMode mode) { return mode == DemandMode::kLow ? "PFDavg" : "PFH"; }
 
 std::string measure_text(double v, DemandMode mode) { return sci(v) + (mode == DemandMode::kLow ? "" : "/h"); }
-
 
 std::string verdict(const std::optional<bool>& meets) {
   if (!meets) return "not judged";
@@ -58,8 +57,10 @@ std::string labelled(const std::string& label, const std::string& text) {
   while (start < body.size()) {
     const std::size_t end = body.find('\n', start);
     const std::string line = body.substr(start, end - start);
-    out += "  " + (first ? label + std::string(kLabelWidth - std::min(kLabelWidth - 1, label.size()), ' ')
-                         : std::string(kLabelWidth, ' ')) + line + "\n";
+    out += "  " +
+           (first ? label + std::string(kLabelWidth - std::min(kLabelWidth - 1, label.size()), ' ')
+                  : std::string(kLabelWidth, ' ')) +
+           line + "\n";
     first = false;
     start = end + 1;
   }
@@ -84,7 +85,7 @@ std::string render_interval(const IntervalResult& r) {
   const std::string m = measure_name(mode);
   std::string out = "Longest proof-test interval of " + r.sif + "\n";
   out += labelled("varied", r.subsystem ? "subsystem '" + *r.subsystem + "'"
-                                       : "all subsystems with channels, tested together: " + names(r.varied));
+                                        : "all subsystems with channels, tested together: " + names(r.varied));
   std::string req = r.requirement.basis;
   if (r.margin > 0.0) req += "; margin " + percent(r.margin) + ": " + m + " at most " + measure_text(r.allowed, mode);
   out += labelled("requirement", req);
@@ -96,7 +97,9 @@ std::string render_interval(const IntervalResult& r) {
   // Just inside a band edge the figure rounds to the edge itself; say which side it is on.
   const std::string inside = r.requirement.band_edge && r.margin == 0.0 ? " (just inside the band)" : "";
   switch (r.outcome) {
-    case IntervalOutcome::kNone: out += "  longest      NONE: no proof-test interval meets the requirement\n"; break;
+    case IntervalOutcome::kNone:
+      out += "  longest      NONE: no proof-test interval meets the requirement\n";
+      break;
     case IntervalOutcome::kWholeMission:
       out += "  longest      the whole mission time, " + hours_and_months(r.longest) + "\n";
       out += "               " + m + " " + measure_text(r.measure_at_longest, mode) + "\n";
@@ -108,11 +111,14 @@ std::string render_interval(const IntervalResult& r) {
   }
   if (r.outcome != IntervalOutcome::kNone) {
     out += "  whole months " + std::to_string(r.whole_months) + " mo";
-    if (r.measure_at_whole_months) out += ": " + m + " " + measure_text(*r.measure_at_whole_months, mode);
-    else out += " (less than one month)";
+    if (r.measure_at_whole_months)
+      out += ": " + m + " " + measure_text(*r.measure_at_whole_months, mode);
+    else
+      out += " (less than one month)";
     out += "\n";
   }
-  out += "  interval 0   " + m + " " + measure_text(r.measure_at_zero, mode) + " (the terms the interval does not touch)\n";
+  out += "  interval 0   " + m + " " + measure_text(r.measure_at_zero, mode) +
+         " (the terms the interval does not touch)\n";
   return out + notes_block(r.notes) + ending();
 }
 
@@ -127,7 +133,8 @@ std::string render_sweep(const SweepResult& r) {
   }
   std::vector<std::string> header{to_string(r.parameter)};
   if (duration) header.push_back("[h]");
-  for (const char* h : {low ? "PFDavg" : "PFH [1/h]", "RRF", "SIL prob", "SIL achieved", "verdict"}) header.emplace_back(h);
+  for (const char* h : {low ? "PFDavg" : "PFH [1/h]", "RRF", "SIL prob", "SIL achieved", "verdict"})
+    header.emplace_back(h);
   TextTable t(header, std::vector<bool>(header.size(), true));
   for (const auto& p : r.points) {
     const SifResult& s = p.result;
@@ -165,13 +172,16 @@ std::string render_compare(const CompareResult& r) {
     t.add_row({row.vote + (row.current ? " (now)" : ""), sci_or_dash(low ? sub.pfd_avg : sub.pfh_per_hour),
                sci_or_dash(low ? s.pfd_avg : s.pfh_per_hour), low && s.rrf ? plain(*s.rrf) : "-",
                sil_number(s.sil_probability), sub.hft ? std::to_string(*sub.hft) : "-",
-               sil_number(sub.sil_architecture) + " / " + sil_number(s.sil_architecture), sci(s.spurious_trip_rate_per_yr),
-               s.mttf_spurious_yr ? plain(*s.mttf_spurious_yr) : "-", verdict(s.meets_target)});
+               sil_number(sub.sil_architecture) + " / " + sil_number(s.sil_architecture),
+               sci(s.spurious_trip_rate_per_yr), s.mttf_spurious_yr ? plain(*s.mttf_spurious_yr) : "-",
+               verdict(s.meets_target)});
   }
   out += t.render("  ");
   std::vector<std::string> notes = r.notes;
-  notes.push_back("PFDavg, SIL arch: of the subsystem and of the SIF; trips/yr and MTTF: spurious trips of the whole "
-                  "SIF, " + std::string(kSpuriousTripSource));
+  notes.push_back(
+      "PFDavg, SIL arch: of the subsystem and of the SIF; trips/yr and MTTF: spurious trips of the whole "
+      "SIF, " +
+      std::string(kSpuriousTripSource));
   return out + notes_block(notes) + ending();
 }
 
@@ -184,12 +194,12 @@ std::string render_sensitivity(const SensitivityResult& r) {
   double widest = 0.0;
   for (const auto& in : r.inputs) widest = std::max(widest, in.swing);
   constexpr int kBarWidth = 16;
-  TextTable t({"input", "low", "high", "at low", "at high", "swing", ""},
-              {false, true, true, true, true, true, false});
+  TextTable t({"input", "low", "high", "at low", "at high", "swing", ""}, {false, true, true, true, true, true, false});
   for (const auto& in : r.inputs) {
     const int bar = widest > 0.0 ? static_cast<int>(kBarWidth * in.swing / widest + 0.5) : 0;
-    t.add_row({in.name, what_if_value(in.low_value, in.unit), what_if_value(in.high_value, in.unit) + (in.clamped ? "*" : ""),
-               sci(in.at_low), sci(in.at_high), sci(in.swing), std::string(static_cast<std::size_t>(bar), '#')});
+    t.add_row({in.name, what_if_value(in.low_value, in.unit),
+               what_if_value(in.high_value, in.unit) + (in.clamped ? "*" : ""), sci(in.at_low), sci(in.at_high),
+               sci(in.swing), std::string(static_cast<std::size_t>(bar), '#')});
   }
   out += t.render("  ");
   std::vector<std::string> notes = r.notes;

@@ -1,10 +1,10 @@
 // LOPA worksheets: the terminal table and the CSV rows.
-#include "sifter/model/printable.hpp"
 #include "sifter/report/worksheet.hpp"
 
 #include <algorithm>
 
 #include "sifter/model/format.hpp"
+#include "sifter/model/printable.hpp"
 #include "sifter/report/text_table.hpp"
 
 namespace sifter::report {
@@ -12,15 +12,24 @@ namespace {
 
 std::string step_label(const WorksheetRow& row) {
   switch (row.step) {
-    case WorksheetStep::kCause: return "cause " + row.item;
-    case WorksheetStep::kEnabling: return "  enabling";
-    case WorksheetStep::kLayer: return "  layer " + row.item;
-    case WorksheetStep::kSif: return "  SIF " + row.item;
-    case WorksheetStep::kNotCredited: return "  not credited";
-    case WorksheetStep::kTotal: return "all causes";
-    case WorksheetStep::kModifier: return "  modifier";
-    case WorksheetStep::kTarget: return "target";
-    case WorksheetStep::kWithSif: return "with SIF " + row.item;
+    case WorksheetStep::kCause:
+      return "cause " + row.item;
+    case WorksheetStep::kEnabling:
+      return "  enabling";
+    case WorksheetStep::kLayer:
+      return "  layer " + row.item;
+    case WorksheetStep::kSif:
+      return "  SIF " + row.item;
+    case WorksheetStep::kNotCredited:
+      return "  not credited";
+    case WorksheetStep::kTotal:
+      return "all causes";
+    case WorksheetStep::kModifier:
+      return "  modifier";
+    case WorksheetStep::kTarget:
+      return "target";
+    case WorksheetStep::kWithSif:
+      return "with SIF " + row.item;
   }
   return {};
 }
@@ -29,8 +38,10 @@ std::string value_text(const WorksheetRow& row) {
   if (!row.value) return "";
   switch (row.step) {
     case WorksheetStep::kCause:
-    case WorksheetStep::kTarget: return sci(*row.value) + "/yr";
-    default: return plain(*row.value);
+    case WorksheetStep::kTarget:
+      return sci(*row.value) + "/yr";
+    default:
+      return plain(*row.value);
   }
 }
 
@@ -44,7 +55,8 @@ std::string credit_text(const WorksheetRow& row) {
 
 std::string render_worksheet(const ScenarioResult& s, std::size_t width) {
   std::string out = fit_line("Scenario " + s.id + (s.title.empty() ? "" : "  " + s.title), width, "");
-  TextTable t({"step", "title", "value", "credit", "frequency [/yr]", "note"}, {false, false, true, false, true, false});
+  TextTable t({"step", "title", "value", "credit", "frequency [/yr]", "note"},
+              {false, false, true, false, true, false});
   // In a narrow terminal the title breaks between words and the note goes under its row.
   t.set_fit({Fit::kKeep, Fit::kWrap, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kBelow});
   std::string last_consequence;
@@ -67,10 +79,11 @@ std::string render_worksheet(const ScenarioResult& s, std::size_t width) {
                 to_string(s.demand_mode.value_or(DemandMode::kLow)) + " demand)";
   out += fit_line(required, width, "  ");
   if (s.mitigated_frequency_per_yr)
-    out += fit_line("with the SIF: " + sci(*s.mitigated_frequency_per_yr) + "/yr against a target of " +
-                        sci(s.target_frequency_per_yr) + "/yr -> " +
-                        (s.meets_target ? (*s.meets_target ? "TOLERABLE" : "NOT TOLERABLE") : std::string("not judged")),
-                    width, "  ");
+    out +=
+        fit_line("with the SIF: " + sci(*s.mitigated_frequency_per_yr) + "/yr against a target of " +
+                     sci(s.target_frequency_per_yr) + "/yr -> " +
+                     (s.meets_target ? (*s.meets_target ? "TOLERABLE" : "NOT TOLERABLE") : std::string("not judged")),
+                 width, "  ");
   const std::size_t text_width = std::min<std::size_t>(width, 96);
   if (!s.findings.empty()) {
     out += "  findings\n";
@@ -103,8 +116,8 @@ std::string worksheet_csv(const ProjectResult& result) {
   for (const auto& s : result.scenarios)
     for (const auto& row : s.worksheet)
       out += csv_field(s.id) + "," + csv_field(row.consequence) + "," + to_string(row.step) + "," +
-             csv_field(row.cause) + "," + csv_field(row.item) + "," + csv_field(row.title) + "," + num(row.value) + "," +
-             (row.credited ? "true" : "false") + "," + num(row.frequency_per_yr) + "," + num(row.gap) + "," +
+             csv_field(row.cause) + "," + csv_field(row.item) + "," + csv_field(row.title) + "," + num(row.value) +
+             "," + (row.credited ? "true" : "false") + "," + num(row.frequency_per_yr) + "," + num(row.gap) + "," +
              csv_field(row.note) + "\r\n";
   return out;
 }

@@ -258,12 +258,7 @@ void components_sheet(Sheet& s, const std::vector<Component>& components) {
 // The requirement checks of each SIF (response time, spurious trip limit, proof-test interval), as
 // `check --json` gives them in `requirement_checks`: value and limit in the unit the check's name ends with.
 void requirement_checks(Sheet& s, const ProjectResult& r) {
-  s.headers(0, {{"SIF", 12},
-                {"check", 24},
-                {"ok", 6},
-                {"value", 14},
-                {"limit", 14},
-                {"message", 60}});
+  s.headers(0, {{"SIF", 12}, {"check", 24}, {"ok", 6}, {"value", 14}, {"limit", 14}, {"message", 60}});
   for (const auto& sif : r.sifs)
     for (const auto& c : sif.requirement_checks) {
       s.text(sif.id);

@@ -94,21 +94,25 @@ std::string project_with(const std::string& rate, const std::string& interval) {
   return R"({
   "format": "sifter-project/1",
   "defaults": { "proof_test_interval": "1 yr", "mttr": "8 h" },
-  "components": [ { "id": "XV-1", "lambda_du": ")" + rate + R"(" }, { "id": "XV-9", "lambda_du": "1e-6/h" } ],
+  "components": [ { "id": "XV-1", "lambda_du": ")" +
+         rate + R"(" }, { "id": "XV-9", "lambda_du": "1e-6/h" } ],
   "sifs": [ { "id": "S1", "target": {"sil": 1}, "subsystems": [
-    { "name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"], "proof_test_interval": ")" + interval +
+    { "name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"], "proof_test_interval": ")" +
+         interval +
          R"(" } ] } ]
 })";
 }
 
 TEST(Diff, RatesAndDurationsAreComparedResolvedNotAsWritten) {
   // 1000 FIT = 1e-6/h and 12 mo = 1 yr = 8760 h (1 mo = 730 h): the same model.
-  const auto d = diff(inline_revision(project_with("1e-6/h", "1 yr")), inline_revision(project_with("1000 FIT", "12 mo")));
+  const auto d =
+      diff(inline_revision(project_with("1e-6/h", "1 yr")), inline_revision(project_with("1000 FIT", "12 mo")));
   EXPECT_FALSE(d.sifs[0].changed());
 }
 
 TEST(Diff, AChangedComponentRateIsListedUnderItsSifInOneUnit) {
-  const auto d = diff(inline_revision(project_with("1e-6/h", "1 yr")), inline_revision(project_with("2000 FIT", "1 yr")));
+  const auto d =
+      diff(inline_revision(project_with("1e-6/h", "1 yr")), inline_revision(project_with("2000 FIT", "1 yr")));
   const FunctionDiff& s = d.sifs[0];
   ASSERT_EQ(s.inputs.size(), 1u);
   EXPECT_EQ(s.inputs[0].pointer, "/components/0/lambda_du");

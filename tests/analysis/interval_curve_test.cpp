@@ -6,9 +6,9 @@
 
 #include <cmath>
 
-#include "sifter/input/load.hpp"
 #include "sifter/analysis/verify.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/input/load.hpp"
 
 namespace sifter {
 namespace {
@@ -31,7 +31,9 @@ constexpr const char* kProject = R"({
     { "name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"], "mrt": "8 h" } ] } ]
 })";
 
-LoadedProject loaded() { return load_project_text(kProject, "inline.json", std::string(SIFTER_SOURCE_DIR) + "/examples"); }
+LoadedProject loaded() {
+  return load_project_text(kProject, "inline.json", std::string(SIFTER_SOURCE_DIR) + "/examples");
+}
 
 // IEC 61508-6:2010 B.3.2.2.1 (from memory): 1oo1 PFDavg = lDU (f T1 / 2 + MRT) + lDD MTTR,
 // plus the supplier's 1e-4 in series; written out by hand.
@@ -42,7 +44,8 @@ TEST(IntervalCurve, ScalingTheIntervalsReRunsTheVerification) {
   const Sif& sif = l.project.sifs[0];
   EXPECT_NEAR(pfd_avg_with_intervals_scaled(l.project, sif, 1.0), *verify_project(l).sifs[0].pfd_avg,
               by_hand(1.0) * kRelTol);
-  for (double f : {0.25, 2.0, 8.0}) EXPECT_NEAR(pfd_avg_with_intervals_scaled(l.project, sif, f), by_hand(f), by_hand(f) * kRelTol);
+  for (double f : {0.25, 2.0, 8.0})
+    EXPECT_NEAR(pfd_avg_with_intervals_scaled(l.project, sif, f), by_hand(f), by_hand(f) * kRelTol);
 }
 
 TEST(IntervalCurve, TheSweepRunsGeometricallyAndGrowsWithTheInterval) {
@@ -88,7 +91,8 @@ TEST(IntervalCurve, ASifOfSupplierFiguresHasNoIntervalToSolveFor) {
     "format": "sifter-project/1",
     "sifs": [ { "id": "S1", "target": { "sil": 2 }, "subsystems": [
       { "name": "package", "role": "logic", "pfd_avg": 1e-3, "hft": 1, "systematic_capability": 3 } ] } ]
-  })", "inline.json", ".");
+  })",
+                                            "inline.json", ".");
   const IntervalSweep s = interval_sweep(WhatIf(l.project), 0, 0.01);
   EXPECT_FALSE(s.longest.has_value());
   ASSERT_EQ(s.subsystems.size(), 1u);

@@ -15,12 +15,12 @@
 #include <nlohmann/json.hpp>
 #include <random>
 
-#include "support/cli_support.hpp"
+#include "sifter/analysis/verify.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/model/printable.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/output_file.hpp"
-#include "sifter/analysis/verify.hpp"
+#include "support/cli_support.hpp"
 
 namespace sifter {
 namespace {
@@ -439,7 +439,9 @@ void answered_quickly(const std::string& interval, const std::string& name) {
   EXPECT_NEAR(pfd, exact, 0.01 * exact);
 }
 
-TEST(BoundedWork, AOneMinuteProofTestOverTwentyYearsIsAnsweredInUnderASecond) { answered_quickly("1 min", "one_minute"); }
+TEST(BoundedWork, AOneMinuteProofTestOverTwentyYearsIsAnsweredInUnderASecond) {
+  answered_quickly("1 min", "one_minute");
+}
 
 TEST(BoundedWork, AOneSecondProofTestIsNeitherRefusedNorACrash) { answered_quickly("1 s", "one_second"); }
 
@@ -447,7 +449,8 @@ TEST(BoundedWork, APartialStrokeThatSharesNoCycleWithTheProofTestIsRefusedBeyond
   json p = project();
   p["sifs"][0]["subsystems"][2]["partial_stroke"] = {{"interval", "7 min"}, {"coverage", "60%"}};
   EXPECT_NE(load_error(p).find("(at most 20000 tests over the mission of 20 yr)"), std::string::npos) << load_error(p);
-  EXPECT_NE(load_error(p).find("choose a partial stroke interval that divides the proof-test interval"), std::string::npos);
+  EXPECT_NE(load_error(p).find("choose a partial stroke interval that divides the proof-test interval"),
+            std::string::npos);
 }
 
 // --- Property: generated projects ------------------------------------------------------------

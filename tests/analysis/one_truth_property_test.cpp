@@ -14,10 +14,10 @@
 #include <vector>
 
 #include "sifter/analysis/judge.hpp"
-#include "sifter/input/load.hpp"
-#include "sifter/report/json_results.hpp"
 #include "sifter/analysis/verify.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/input/load.hpp"
+#include "sifter/report/json_results.hpp"
 
 namespace sifter {
 namespace {
@@ -75,7 +75,10 @@ void check_properties(const LoadedProject& loaded, const ProjectResult& result, 
       EXPECT_EQ(meets.get<bool>(), *by_judge && constraints_hold && !route_2h_short) << name << " " << r.id;
       ++judged;
     }
-    EXPECT_EQ(r.meets_target, sif_verdict(target, figure, verdict_basis(r, r.uncertainty ? std::optional(r.uncertainty->probability_meets_target) : std::nullopt)))
+    EXPECT_EQ(r.meets_target,
+              sif_verdict(target, figure,
+                          verdict_basis(r, r.uncertainty ? std::optional(r.uncertainty->probability_meets_target)
+                                                         : std::nullopt)))
         << name << " " << r.id;
     // The Monte Carlo: the median within the 5-95 % band, and the band holds the point value.
     if (r.uncertainty && figure) {
@@ -145,15 +148,21 @@ json generated_project(std::mt19937& rng, int trial) {
     "components": [], "sifs": [], "scenarios": []})");
   const char* ids[] = {"TT-1", "TT-2", "TT-3", "PLC-1", "XV-1", "XV-2"};
   for (const char* id : ids) {
-    json c = {{"id", id}, {"lambda_du", text(pick(-8.5, -5.5)) + "/h"}, {"lambda_dd", text(pick(-8.5, -5.5)) + "/h"},
-              {"lambda_sd", text(pick(-8, -5.5)) + "/h"}, {"element_type", coin(0.5) ? "A" : "B"},
-              {"systematic_capability", coin(0.8) ? 3 : 2}, {"response_time", text(pick(-0.5, 1)) + " s"}};
-    if (trial % 4 == 0 && coin(0.7)) c["uncertainty"] = {{"error_factor", 1.5 + 3.5 * std::uniform_real_distribution<double>()(rng)}};
+    json c = {{"id", id},
+              {"lambda_du", text(pick(-8.5, -5.5)) + "/h"},
+              {"lambda_dd", text(pick(-8.5, -5.5)) + "/h"},
+              {"lambda_sd", text(pick(-8, -5.5)) + "/h"},
+              {"element_type", coin(0.5) ? "A" : "B"},
+              {"systematic_capability", coin(0.8) ? 3 : 2},
+              {"response_time", text(pick(-0.5, 1)) + " s"}};
+    if (trial % 4 == 0 && coin(0.7))
+      c["uncertainty"] = {{"error_factor", 1.5 + 3.5 * std::uniform_real_distribution<double>()(rng)}};
     p["components"].push_back(c);
   }
   const int sensors = 1 + static_cast<int>(rng() % 3);
-  const std::string sensor_vote =
-      sensors == 1 ? "1oo1" : sensors == 2 ? (coin(0.5) ? "1oo2" : "2oo2") : (coin(0.5) ? "2oo3" : "1oo3");
+  const std::string sensor_vote = sensors == 1   ? "1oo1"
+                                  : sensors == 2 ? (coin(0.5) ? "1oo2" : "2oo2")
+                                                 : (coin(0.5) ? "2oo3" : "1oo3");
   json sensor = {{"name", "sensing"}, {"role", "sensor"}, {"vote", sensor_vote}, {"channels", json::array()}};
   for (int k = 0; k < sensors; ++k) sensor["channels"].push_back(ids[k]);
   if (sensors > 1) sensor["beta"] = std::uniform_real_distribution<double>(0.02, 0.1)(rng);
@@ -169,9 +178,11 @@ json generated_project(std::mt19937& rng, int trial) {
   valve["proof_test_interval"] = text(pick(-0.5, 0.7)) + " yr";
   if (coin(0.4)) valve["test_duration"] = text(pick(0, 1.3)) + " h";
   if (valve["vote"] == "1oo2" && coin(0.4)) valve["staggered"] = true;
-  json sif = {{"id", "SIF-1"}, {"title", "invented trip"},
+  json sif = {{"id", "SIF-1"},
+              {"title", "invented trip"},
               {"target", {{"sil", 1 + static_cast<int>(rng() % 3)}}},
-              {"subsystems", {sensor, {{"name", "logic"}, {"role", "logic"}, {"vote", "1oo1"}, {"channels", {"PLC-1"}}}, valve}}};
+              {"subsystems",
+               {sensor, {{"name", "logic"}, {"role", "logic"}, {"vote", "1oo1"}, {"channels", {"PLC-1"}}}, valve}}};
   const bool high = coin(0.3);
   if (high) {
     sif["demand_mode"] = "high";

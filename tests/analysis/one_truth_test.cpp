@@ -4,11 +4,11 @@
 
 #include <cmath>
 
-#include "support/lopa_fixtures.hpp"
 #include "sifter/analysis/judge.hpp"
 #include "sifter/analysis/sif_uncertainty.hpp"
-#include "sifter/engines/simplified.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/engines/simplified.hpp"
+#include "support/lopa_fixtures.hpp"
 
 namespace sifter {
 namespace {
@@ -20,7 +20,8 @@ using testing::sif_layer;
 
 constexpr double kRelTol = 1e-9;
 constexpr double kMonteCarloRelTol = 0.03;
-constexpr double kSmallRateRelTol = 0.01;  // exact against Annex B where lDU T1 is small  // the issue's bound for error factor 1.01
+constexpr double kSmallRateRelTol =
+    0.01;  // exact against Annex B where lDU T1 is small  // the issue's bound for error factor 1.01
 
 ProjectResult verify_text(const std::string& text) {
   return verify_project(load_project_text(text, "inline.json", std::string(SIFTER_SOURCE_DIR) + "/examples"));
@@ -51,13 +52,15 @@ TEST(OneTruth, AScenarioWhoseSifIsCappedAtSil2IsNotTolerable) {
 
 std::string valve_project(const std::string& valve_extra, const std::string& top = "") {
   return R"({
-  "format": "sifter-project/1", )" + top + R"(
+  "format": "sifter-project/1", )" +
+         top + R"(
   "defaults": { "proof_test_interval": "6 mo", "mttr": "8 h" },
   "components": [
     { "id": "XV-1", "lambda_du": "500 FIT", "lambda_su": "500 FIT", "element_type": "A", "systematic_capability": 3 }
   ],
   "sifs": [ { "id": "S1", "target": {"sil": 1}, "subsystems": [
-    { "name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"] )" + valve_extra + R"( } ] } ]
+    { "name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"] )" +
+         valve_extra + R"( } ] } ]
 })";
 }
 
@@ -137,9 +140,12 @@ TEST(OneTruth, PfhOfRedundantGroupsFollowsThe2010Forms) {
   const double expect_1oo2 = 2 * x * (1 - beta) * ldu * t_ce + beta * ldu;
   const double expect_2oo3 = 6 * x * (1 - beta) * ldu * t_ce + beta * ldu;
   const double expect_1oo3 = 6 * x * x * (1 - beta) * ldu * t_ce * t_ge + beta * ldu;
-  EXPECT_NEAR(group_pfh(pfh_group(1, 2, false, ldu, ldd, beta, beta_d)).pfh_per_hour, expect_1oo2, expect_1oo2 * kRelTol);
-  EXPECT_NEAR(group_pfh(pfh_group(2, 3, false, ldu, ldd, beta, beta_d)).pfh_per_hour, expect_2oo3, expect_2oo3 * kRelTol);
-  EXPECT_NEAR(group_pfh(pfh_group(1, 3, false, ldu, ldd, beta, beta_d)).pfh_per_hour, expect_1oo3, expect_1oo3 * kRelTol);
+  EXPECT_NEAR(group_pfh(pfh_group(1, 2, false, ldu, ldd, beta, beta_d)).pfh_per_hour, expect_1oo2,
+              expect_1oo2 * kRelTol);
+  EXPECT_NEAR(group_pfh(pfh_group(2, 3, false, ldu, ldd, beta, beta_d)).pfh_per_hour, expect_2oo3,
+              expect_2oo3 * kRelTol);
+  EXPECT_NEAR(group_pfh(pfh_group(1, 3, false, ldu, ldd, beta, beta_d)).pfh_per_hour, expect_1oo3,
+              expect_1oo3 * kRelTol);
   // The review's case: a redundant group is no worse than one channel (lDU = 1e-9/h).
   EXPECT_LT(group_pfh(pfh_group(1, 2, false, ldu, ldd, beta, beta_d)).pfh_per_hour, ldu);
   const double t_ce_d = (ldu * (t1 / 2 + mrt) + ldd * mttr) / ld;  // lSD = 0

@@ -5,8 +5,8 @@
 
 #include <cmath>
 
-#include "sifter/input/load.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/input/load.hpp"
 
 namespace sifter {
 namespace {
@@ -93,7 +93,8 @@ TEST(ReportData, AHighDemandSifHasNoPfdCurve) {
     "components": [ { "id": "XV-1", "lambda_du": "1e-7/h", "element_type": "A", "systematic_capability": 3 } ],
     "sifs": [ { "id": "S1", "demand_mode": "high", "target": { "sil": 1 }, "subsystems": [
       { "name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"], "proof_test_interval": "1 yr", "mttr": "8 h" } ] } ]
-  })", "inline.json", "."));
+  })",
+                                               "inline.json", "."));
   ASSERT_EQ(c.data.sifs.size(), 1u);
   EXPECT_FALSE(c.data.sifs[0].pfd_curve.has_value());
   EXPECT_FALSE(c.data.sifs[0].interval_sweep.has_value());

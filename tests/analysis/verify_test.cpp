@@ -4,7 +4,6 @@
 #include <gtest/gtest.h>
 
 #include <algorithm>
-
 #include <cmath>
 
 namespace sifter {
@@ -28,10 +27,13 @@ std::string project(const std::string& sif_extra, const std::string& final_vote,
     { "id": "XV-1", "lambda_du": "500 FIT", "lambda_su": "500 FIT", "element_type": "A", "systematic_capability": 3 },
     { "id": "XV-2", "lambda_du": "500 FIT", "lambda_su": "500 FIT", "element_type": "A", "systematic_capability": 3 }
   ],
-  "sifs": [ { "id": "S1", )" + sif_extra + R"(, "subsystems": [
+  "sifs": [ { "id": "S1", )" +
+         sif_extra + R"(, "subsystems": [
     { "name": "sensor", "role": "sensor", "vote": "1oo1", "channels": ["PT-1"] },
-    { "name": "logic", "role": "logic", )" + logic + R"( },
-    { "name": "valves", "role": "final", "vote": ")" + final_vote + R"(", "channels": )" + final_channels + R"(, "beta": "10%" } ] } ]
+    { "name": "logic", "role": "logic", )" +
+         logic + R"( },
+    { "name": "valves", "role": "final", "vote": ")" +
+         final_vote + R"(", "channels": )" + final_channels + R"(, "beta": "10%" } ] } ]
 })";
 }
 
@@ -110,8 +112,8 @@ TEST(Verify, Route1HUsesTheSafeFailureFractionTables) {
 }
 
 TEST(Verify, HighDemandSifsAreVerifiedOnPfh) {
-  const auto r = verify_text(project(R"("demand_mode": "high", "target": {"pfh": "1e-6/h"})", "1oo2",
-                                     R"(["XV-1", "XV-2"])"));
+  const auto r =
+      verify_text(project(R"("demand_mode": "high", "target": {"pfh": "1e-6/h"})", "1oo2", R"(["XV-1", "XV-2"])"));
   const auto& s = r.sifs[0];
   EXPECT_FALSE(s.pfd_avg);
   ASSERT_TRUE(s.pfh_per_hour);
@@ -135,7 +137,8 @@ TEST(Verify, ASifWithoutTargetIsComputedButNotJudged) {
 // exact 1 - (1 - exp(-x)) / x by about 3.4 % at x = lDU T1 = 0.1 (DEVELOPERS.md, Methods M8, computed).
 std::string one_channel(const std::string& lambda_du, const std::string& interval) {
   return R"({"format": "sifter-project/1", "defaults": {"proof_test_interval": ")" + interval + R"(", "mttr": "8 h"},
-    "components": [{"id": "XV-1", "lambda_du": ")" + lambda_du + R"(", "element_type": "A", "systematic_capability": 3}],
+    "components": [{"id": "XV-1", "lambda_du": ")" +
+         lambda_du + R"(", "element_type": "A", "systematic_capability": 3}],
     "sifs": [{"id": "S1", "target": {"sil": 1}, "subsystems": [
       {"name": "valve", "role": "final", "vote": "1oo1", "channels": ["XV-1"]}]}]})";
 }
@@ -150,12 +153,12 @@ TEST(Verify, AChannelBeyondLambdaTimesIntervalOfOneTenthIsWarnedAbout) {
   // 2e-5/h x 8760 h = 0.1752
   const auto r = verify_text(one_channel("2e-5/h", "1 yr"));
   ASSERT_TRUE(warns_of_accuracy(r));
-  const auto& w = *std::find_if(r.warnings.begin(), r.warnings.end(), [](const Warning& x) {
-    return x.message.find("lose accuracy") != std::string::npos;
-  });
+  const auto& w = *std::find_if(r.warnings.begin(), r.warnings.end(),
+                                [](const Warning& x) { return x.message.find("lose accuracy") != std::string::npos; });
   EXPECT_EQ(w.where, "/sifs/0/subsystems/0");
-  EXPECT_EQ(w.message, "lDU·T1 = 0.1752 for a channel of valve: the simplified equations lose accuracy above "
-                       "lDU·T1 = 0.1; see the exact cross-check");
+  EXPECT_EQ(w.message,
+            "lDU·T1 = 0.1752 for a channel of valve: the simplified equations lose accuracy above "
+            "lDU·T1 = 0.1; see the exact cross-check");
   // The reason, recomputed: at x = 0.1752 the simplified x / 2 overstates the exact average by more than 5 %.
   const double x = 2e-5 * 8760.0;
   EXPECT_GT((x / 2) / (1.0 - (1.0 - std::exp(-x)) / x), 1.05);
@@ -218,9 +221,9 @@ TEST(VerifyExact, DifferentChannelsAreJudgedOnTheExactFigureThatAHandComputation
 TEST(VerifyExact, WithoutTheExactEngineDifferentChannelsUseTheirOwnRates) {
   VerifyOptions no_exact;
   no_exact.exact = false;
-  const auto mixed = verify_project(load_project_text(project(R"("target": {"sil": 1})", "1oo2", R"(["PT-1", "XV-1"])"),
-                                                      "inline.json", "."),
-                                    no_exact);
+  const auto mixed = verify_project(
+      load_project_text(project(R"("target": {"sil": 1})", "1oo2", R"(["PT-1", "XV-1"])"), "inline.json", "."),
+      no_exact);
   const double expected = 0.1 * 2.75e-7 * (8760.0 / 2 + 8.0) + 0.81 * 5e-7 * 5e-8 * 8760.0 * 8760.0 / 3;
   EXPECT_NEAR(*mixed.sifs[0].subsystems[2].pfd_avg, expected, expected * kMixedHandRelTol);
   EXPECT_FALSE(mixed.sifs[0].pfd_avg_exact);

@@ -7,9 +7,9 @@
 #include <fstream>
 #include <sstream>
 
-#include "sifter/input/load.hpp"
 #include "sifter/engines/sil.hpp"
 #include "sifter/engines/spurious.hpp"
+#include "sifter/input/load.hpp"
 #include "support/tolerance.hpp"
 
 namespace sifter {
@@ -39,11 +39,15 @@ std::string one_group(const std::string& vote, int channels, const std::string& 
   "format": "sifter-project/1",
   "defaults": { "proof_test_interval": "1 yr", "mttr": "8 h", "mission_time": "20 yr" },
   "components": [
-)" + components + R"(
+)" + components +
+         R"(
   ],
-  "sifs": [ { "id": "S1", "demand_mode": "low", "target": )" + target + R"(, "subsystems": [
-    { "name": "valves", "role": "final", "vote": ")" + vote + R"(", "channels": [)" + ids + R"(],
-      "beta": "5%", "beta_d": "2%", "mrt": "24 h")" + extra + R"( } ] } ]
+  "sifs": [ { "id": "S1", "demand_mode": "low", "target": )" +
+         target + R"(, "subsystems": [
+    { "name": "valves", "role": "final", "vote": ")" +
+         vote + R"(", "channels": [)" + ids + R"(],
+      "beta": "5%", "beta_d": "2%", "mrt": "24 h")" +
+         extra + R"( } ] } ]
 })";
 }
 
@@ -106,8 +110,8 @@ INSTANTIATE_TEST_SUITE_P(Votes, LongestIntervalPutBack,
 
 TEST(LongestInterval, NoIntervalMeetsATargetTheDetectedFailuresAloneExceed) {
   // lDD MTTR = 1e-4 x 8 = 8e-4 > 5e-4: no proof-test interval can help (DEVELOPERS.md, Methods M1, 1oo1).
-  const WhatIf w(load(one_group("1oo1", 1, R"({"pfd_avg": 0.0005})",
-                                R"("lambda_du": "1e-7/h", "lambda_dd": "1e-4/h")")));
+  const WhatIf w(
+      load(one_group("1oo1", 1, R"({"pfd_avg": 0.0005})", R"("lambda_du": "1e-7/h", "lambda_dd": "1e-4/h")")));
   const auto r = longest_proof_test_interval(w, 0, std::nullopt, 0.0);
   EXPECT_EQ(r.outcome, IntervalOutcome::kNone);
   expect_relative(r.measure_at_zero, 1e-4 * 8 + 1e-7 * 24, kExactRelTol);
@@ -161,7 +165,8 @@ std::string example_text() {
 }
 
 Project example() {
-  return load_project_text(example_text(), "examples/unit40.json", std::string(SIFTER_SOURCE_DIR) + "/examples").project;
+  return load_project_text(example_text(), "examples/unit40.json", std::string(SIFTER_SOURCE_DIR) + "/examples")
+      .project;
 }
 
 double check_pfd_of_sif401(const std::string& text) {
@@ -373,8 +378,8 @@ TEST(LongestInterval, InHighDemandARedundantGroupIsSolvedOnItsPfh) {
   ASSERT_EQ(r.outcome, IntervalOutcome::kFound);
   EXPECT_EQ(r.requirement.mode, DemandMode::kHigh);
   expect_relative(r.measure_at_longest, 2e-7, kSolverRelTol);
-  expect_relative(r.measure_at_zero, 1e-7 + 2 * (0.98 * 5e-7 + 0.95 * 2e-6) * 0.95 * 2e-6 * (2e-6 * 24 + 5e-7 * 8) / 2.5e-6,
-                  kExactRelTol);
+  expect_relative(r.measure_at_zero,
+                  1e-7 + 2 * (0.98 * 5e-7 + 0.95 * 2e-6) * 0.95 * 2e-6 * (2e-6 * 24 + 5e-7 * 8) / 2.5e-6, kExactRelTol);
 }
 
 }  // namespace

@@ -1,5 +1,6 @@
 // Specification of the command line: exit statuses, outputs written whole, the examples.
 #include <gtest/gtest.h>
+
 #include <nlohmann/json.hpp>
 
 #include "support/cli_support.hpp"
@@ -83,7 +84,9 @@ TEST(Cli, WorksheetCsvHasOneRowPerStep) {
   const auto r = run_sifter("check examples/unit40.json --quiet --worksheet-csv " + out.string());
   ASSERT_EQ(r.exit_code, 0) << r.err;
   const std::string csv = slurp(out);
-  EXPECT_EQ(csv.rfind("scenario,consequence,step,cause,item,title,value,credited,frequency_per_yr,required_rrf,note\r\n", 0), 0u);
+  EXPECT_EQ(
+      csv.rfind("scenario,consequence,step,cause,item,title,value,credited,frequency_per_yr,required_rrf,note\r\n", 0),
+      0u);
   // A title with a comma is quoted (RFC 4180).
   EXPECT_NE(csv.find("\"high level alarm, operator closes the inlet\""), std::string::npos);
 }
@@ -137,8 +140,9 @@ TEST(Cli, RefusesToOverwriteItsOwnInput) {
 TEST(Cli, AMissingProjectFileIsNamed) {
   const auto r = run_sifter("check no/such/file.json");
   EXPECT_EQ(r.exit_code, 2);
-  EXPECT_EQ(r.err, "sifter: no/such/file.json: expected a readable file, found no file at \"no/such/file.json\"\n"
-                   "  hint: check the path\n1 problem in the input; nothing was computed or written\n");
+  EXPECT_EQ(r.err,
+            "sifter: no/such/file.json: expected a readable file, found no file at \"no/such/file.json\"\n"
+            "  hint: check the path\n1 problem in the input; nothing was computed or written\n");
 }
 
 }  // namespace
@@ -179,8 +183,10 @@ TEST(CliCheck, NoExactSkipsTheCrossCheck) {
 }
 
 TEST(CliCheck, TheSameSeedGivesTheSameUncertaintyWhateverTheThreads) {
-  const auto one = nlohmann::json::parse(run_sifter("check examples/unit40.json --samples 4000 --seed 7 --threads 1 --json -").out);
-  const auto two = nlohmann::json::parse(run_sifter("check examples/unit40.json --samples 4000 --seed 7 --threads 2 --json -").out);
+  const auto one =
+      nlohmann::json::parse(run_sifter("check examples/unit40.json --samples 4000 --seed 7 --threads 1 --json -").out);
+  const auto two =
+      nlohmann::json::parse(run_sifter("check examples/unit40.json --samples 4000 --seed 7 --threads 2 --json -").out);
   EXPECT_EQ(one["sifs"][1]["uncertainty"], two["sifs"][1]["uncertainty"]);
   EXPECT_EQ(one["sifs"][1]["uncertainty"]["samples"], 4000);
 }
@@ -218,18 +224,19 @@ TEST_P(LimitedBy, TheLimitIsNamedAndTheExitStatusIsOne) {
   EXPECT_LT((*sif)["sil_achieved"].get<int>(), (*sif)["sil_required"].get<int>());
 }
 
-INSTANTIATE_TEST_SUITE_P(
-    ThreeResults, LimitedBy,
-    ::testing::Values(LimitedCase{"examples/unit50_shortfall.json", "SIF-501", "probability", ""},
-                      LimitedCase{"tests/data/good/architecture_limited.json", "S-ARCH", "architecture", "valve"},
-                      LimitedCase{"examples/unit60_existing_logic_solver.json", "SIF-601", "systematic",
-                                  "existing shutdown logic solver"}));
+INSTANTIATE_TEST_SUITE_P(ThreeResults, LimitedBy,
+                         ::testing::Values(LimitedCase{"examples/unit50_shortfall.json", "SIF-501", "probability", ""},
+                                           LimitedCase{"tests/data/good/architecture_limited.json", "S-ARCH",
+                                                       "architecture", "valve"},
+                                           LimitedCase{"examples/unit60_existing_logic_solver.json", "SIF-601",
+                                                       "systematic", "existing shutdown logic solver"}));
 
 TEST(CliLimits, TheExistingLogicSolverExampleSaysWhatWouldLiftIt) {
   const auto r = run_sifter("check examples/unit60_existing_logic_solver.json");
   EXPECT_EQ(r.exit_code, 1);
-  EXPECT_NE(r.out.find("SIL  probability SIL 3 | architecture SIL 3 | systematic SIL 2  ->  achieved SIL 2, required SIL 3"),
-            std::string::npos)
+  EXPECT_NE(
+      r.out.find("SIL  probability SIL 3 | architecture SIL 3 | systematic SIL 2  ->  achieved SIL 2, required SIL 3"),
+      std::string::npos)
       << r.out;
   EXPECT_NE(r.out.find("To lift it: use equipment of SC 3 or"), std::string::npos);
 }

@@ -5,8 +5,8 @@
 #include <cctype>
 #include <filesystem>
 
-#include "support/cli_support.hpp"
 #include "fuzz/check_path.hpp"
+#include "support/cli_support.hpp"
 
 namespace sifter {
 namespace {
@@ -30,13 +30,12 @@ class FuzzCrash : public ::testing::TestWithParam<std::string> {};
 
 // Load, verify and every writer, as the fuzz target runs them: a refused input is fine, an
 // escaped exception (an internal error, a broken invariant) or a sanitizer report is not.
-TEST_P(FuzzCrash, GoesThroughTheWholeCheckPathWithoutAnInternalError) {
-  EXPECT_NO_THROW(replay(GetParam()));
-}
+TEST_P(FuzzCrash, GoesThroughTheWholeCheckPathWithoutAnInternalError) { EXPECT_NO_THROW(replay(GetParam())); }
 
 INSTANTIATE_TEST_SUITE_P(FuzzCrashes, FuzzCrash, ::testing::ValuesIn(kept_inputs()), [](const auto& param_info) {
   std::string name = param_info.param;
-  std::replace_if(name.begin(), name.end(), [](char c) { return !std::isalnum(static_cast<unsigned char>(c)); }, '_');
+  std::replace_if(
+      name.begin(), name.end(), [](char c) { return !std::isalnum(static_cast<unsigned char>(c)); }, '_');
   return name;
 });
 
@@ -44,8 +43,9 @@ TEST(FuzzCrashes, AreKeptAndReplayed) { EXPECT_GE(kept_inputs().size(), 6u); }
 
 TEST(FuzzCrashes, TheInputsFoundSoFarAreNowRefused) {
   // Each once computed (or reported an internal error) where it must be refused as bad input.
-  for (const char* name : {"fuzz-vote-0oo2-5fbcfa0e.json", "review-vote-k-zero.json", "review-vote-n-zero.json", "review-overflow-rate-times-interval.json",
-                           "review-underflow-rrf.json", "review-overflow-scenario-rrf.json"})
+  for (const char* name :
+       {"fuzz-vote-0oo2-5fbcfa0e.json", "review-vote-k-zero.json", "review-vote-n-zero.json",
+        "review-overflow-rate-times-interval.json", "review-underflow-rrf.json", "review-overflow-scenario-rrf.json"})
     EXPECT_EQ(replay(name), fuzzing::Outcome::kRejected) << name;
 }
 
@@ -53,7 +53,8 @@ TEST(FuzzCrashes, TheInputsFoundSoFarAreNowRefused) {
 // the results JSON, however deep, is a finding; the shipped example passes them.
 TEST(FuzzInvariants, AWrittenPfdAboveOneOrANegativeFrequencyIsAFinding) {
   EXPECT_THROW(fuzzing::check_written(nlohmann::json::parse(R"({"sifs": [{"pfd_avg": 4.39}]})")), std::logic_error);
-  EXPECT_THROW(fuzzing::check_written(nlohmann::json::parse(R"({"scenarios": [{"required_pfd": 10}]})")), std::logic_error);
+  EXPECT_THROW(fuzzing::check_written(nlohmann::json::parse(R"({"scenarios": [{"required_pfd": 10}]})")),
+               std::logic_error);
   EXPECT_THROW(fuzzing::check_written(nlohmann::json::parse(R"({"s": [{"mitigated_frequency_per_yr": -1e-9}]})")),
                std::logic_error);
   EXPECT_NO_THROW(fuzzing::check_written(nlohmann::json::parse(R"({"sifs": [{"pfd_avg": 1, "rrf": 4.4e33}]})")));

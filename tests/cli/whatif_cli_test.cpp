@@ -1,5 +1,6 @@
 // Specification of the what-if commands on the command line: outputs, JSON keys, exit statuses.
 #include <gtest/gtest.h>
+
 #include <nlohmann/json.hpp>
 
 #include "support/cli_support.hpp"
@@ -56,7 +57,8 @@ TEST(WhatIfCli, AnUnknownSifIsAUsageErrorListingTheKnownIds) {
   for (const char* command : {"interval", "sensitivity"}) {
     const auto r = run_sifter(std::string(command) + " examples/unit40.json --sif SIF-999");
     EXPECT_EQ(r.exit_code, 2) << command;
-    EXPECT_EQ(r.err, "sifter: --sif: no SIF \"SIF-999\" in examples/unit40.json; its SIFs are: SIF-401, SIF-402, SIF-403\n");
+    EXPECT_EQ(r.err,
+              "sifter: --sif: no SIF \"SIF-999\" in examples/unit40.json; its SIFs are: SIF-401, SIF-402, SIF-403\n");
     EXPECT_TRUE(r.out.empty());
   }
 }
@@ -64,15 +66,18 @@ TEST(WhatIfCli, AnUnknownSifIsAUsageErrorListingTheKnownIds) {
 TEST(WhatIfCli, AnUnknownSubsystemIsAUsageErrorListingTheSubsystems) {
   const auto r = run_sifter("interval examples/unit40.json --sif SIF-401 --subsystem valves");
   EXPECT_EQ(r.exit_code, 2);
-  EXPECT_EQ(r.err, "sifter: --subsystem: SIF-401 has no subsystem \"valves\"; its subsystems are: \"level sensing\", "
-                   "\"safety controller\", \"outlet isolation\"\n");
+  EXPECT_EQ(r.err,
+            "sifter: --subsystem: SIF-401 has no subsystem \"valves\"; its subsystems are: \"level sensing\", "
+            "\"safety controller\", \"outlet isolation\"\n");
 }
 
 TEST(WhatIfCli, SweepWritesTableJsonAndCsv) {
   const auto dir = fresh_folder("sweep");
   const auto csv = dir / "sweep.csv";
-  const auto r = run_sifter("sweep examples/unit40.json --sif SIF-401 --subsystem 'outlet isolation' --vary "
-                            "proof_test_interval --from '3 mo' --to '2 yr' --steps 8 --json - --csv " + csv.string());
+  const auto r = run_sifter(
+      "sweep examples/unit40.json --sif SIF-401 --subsystem 'outlet isolation' --vary "
+      "proof_test_interval --from '3 mo' --to '2 yr' --steps 8 --json - --csv " +
+      csv.string());
   ASSERT_EQ(r.exit_code, 0) << r.err;
   const json j = json::parse(r.out);
   EXPECT_EQ(j["sif"], "SIF-401");
@@ -85,7 +90,8 @@ TEST(WhatIfCli, SweepWritesTableJsonAndCsv) {
   EXPECT_EQ(j["points"][0]["meets_target"], true);
   EXPECT_EQ(j["points"][7]["meets_target"], false);
   const std::string text = slurp(csv);
-  EXPECT_EQ(text.rfind("proof_test_interval_h,pfd_avg,pfh,rrf,sil_probability,sil_achieved,meets_target\r\n2190,", 0), 0u)
+  EXPECT_EQ(text.rfind("proof_test_interval_h,pfd_avg,pfh,rrf,sil_probability,sil_achieved,meets_target\r\n2190,", 0),
+            0u)
       << text;
 }
 
@@ -99,8 +105,9 @@ TEST(WhatIfCli, SweepTableEndsWithTheCaution) {
 TEST(WhatIfCli, BadVaryValuesAreUsageErrors) {
   auto r = run_sifter("sweep examples/unit40.json --sif SIF-401 --vary mrt --from '1 h' --to '2 h'");
   EXPECT_EQ(r.exit_code, 2);
-  EXPECT_EQ(r.err, "sifter: --vary: unknown parameter \"mrt\"; the parameters are: proof_test_interval, beta, mttr, "
-                   "proof_test_coverage, lambda_du_factor\n");
+  EXPECT_EQ(r.err,
+            "sifter: --vary: unknown parameter \"mrt\"; the parameters are: proof_test_interval, beta, mttr, "
+            "proof_test_coverage, lambda_du_factor\n");
   r = run_sifter("sweep examples/unit40.json --sif SIF-401 --vary proof_test_interval --from 3 --to '2 yr'");
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_NE(r.err.find("--from: expected a duration, found \"3\" (the unit is missing)"), std::string::npos) << r.err;
@@ -110,8 +117,9 @@ TEST(WhatIfCli, BadVaryValuesAreUsageErrors) {
 }
 
 TEST(WhatIfCli, CompareShowsEachVoteWithSpuriousTrips) {
-  const auto r = run_sifter("compare examples/unit40.json --sif SIF-401 --subsystem 'level sensing' "
-                            "--votes 1oo1,1oo2,2oo3 --json -");
+  const auto r = run_sifter(
+      "compare examples/unit40.json --sif SIF-401 --subsystem 'level sensing' "
+      "--votes 1oo1,1oo2,2oo3 --json -");
   ASSERT_EQ(r.exit_code, 0) << r.err;
   const json j = json::parse(r.out);
   ASSERT_EQ(j["rows"].size(), 3u);
@@ -121,7 +129,8 @@ TEST(WhatIfCli, CompareShowsEachVoteWithSpuriousTrips) {
                           "mttf_spurious_yr", "meets_target"})
     EXPECT_TRUE(j["rows"][0].contains(key)) << key;
   // 1oo2 trips on either transmitter, 2oo3 needs two: fewer spurious trips (DEVELOPERS.md, Methods M7).
-  EXPECT_GT(j["rows"][1]["spurious_trip_rate_per_yr"].get<double>(), j["rows"][2]["spurious_trip_rate_per_yr"].get<double>());
+  EXPECT_GT(j["rows"][1]["spurious_trip_rate_per_yr"].get<double>(),
+            j["rows"][2]["spurious_trip_rate_per_yr"].get<double>());
   // The current vote gives what check gives.
   const json check = json::parse(run_sifter("check examples/unit40.json --json -").out);
   EXPECT_DOUBLE_EQ(j["rows"][2]["pfd_avg"].get<double>(), check["sifs"][0]["pfd_avg"].get<double>());
@@ -132,7 +141,8 @@ TEST(WhatIfCli, CompareOfASubsystemWithoutBetaAsksForOne) {
   auto r = run_sifter("compare examples/unit40.json --sif SIF-401 --subsystem 'outlet isolation' --votes 1oo1,1oo2");
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_NE(r.err.find("needs one: give a common-cause fraction with --beta"), std::string::npos) << r.err;
-  r = run_sifter("compare examples/unit40.json --sif SIF-401 --subsystem 'outlet isolation' --votes 1oo1,1oo2 --beta 10%");
+  r = run_sifter(
+      "compare examples/unit40.json --sif SIF-401 --subsystem 'outlet isolation' --votes 1oo1,1oo2 --beta 10%");
   EXPECT_EQ(r.exit_code, 0) << r.err;
   EXPECT_TRUE(ends_with_caution(r.out));
   r = run_sifter("compare examples/unit40.json --sif SIF-401 --subsystem 'outlet isolation' --votes 1oo1,3oo2");
@@ -182,7 +192,8 @@ TEST(WhatIfCli, EachWhatIfCommandExitsAsItsHelpSays) {
     // CLI11 wraps nothing in footers: the sentence is found whole.
     EXPECT_NE(help.out.find(std::string("Exit status: ") + (c.exit_code == 1 ? "0 an interval" : c.help_says)),
               std::string::npos)
-        << c.command << "\n" << help.out;
+        << c.command << "\n"
+        << help.out;
     EXPECT_NE(help.out.find(c.help_says), std::string::npos) << c.command << "\n" << help.out;
     EXPECT_EQ(help.out.find("1 at least one falls short"), std::string::npos) << c.command;  // check's, not theirs
     const auto r = run_sifter(std::string(c.command) + " tests/data/whatif_no_interval.json " + c.args);

@@ -5,8 +5,8 @@
 #include <string>
 #include <vector>
 
-#include "support/constraints_fixtures.hpp"
 #include "sifter/engines/constraints.hpp"
+#include "support/constraints_fixtures.hpp"
 
 namespace sifter {
 namespace {
@@ -19,8 +19,8 @@ constexpr auto kB = ElementType::kB;
 // A probability result that never limits: well inside SIL 4, low demand.
 ProbabilityCheck comfortable() { return ProbabilityCheck{DemandMode::kLow, 4, 5e-5, 1e-3}; }
 
-std::vector<Limit> limits_of(const Sif& sif, const std::vector<Component>& comps, ConstraintBasis basis,
-                             int required, ProbabilityCheck p = comfortable()) {
+std::vector<Limit> limits_of(const Sif& sif, const std::vector<Component>& comps, ConstraintBasis basis, int required,
+                             ProbabilityCheck p = comfortable()) {
   return limits_for(p, sif_constraints(sif, comps, basis), required);
 }
 
@@ -159,9 +159,9 @@ TEST(Route1hLimit, SaysWhenNoSffIsEnough) {
 // ---- Systematic capability: missing data ---------------------------------------------------
 
 TEST(ScLimit, MissingScNamesTheElementAndTheScNeeded) {
-  const auto limits = limits_of(one_subsystem(group("final", vote(1, 2), {{0}, {1}})),
-                                {element("XV-1", kA, 0.7, 3), element("XV-2", kA, 0.7, std::nullopt)},
-                                ConstraintBasis::kIec61511, 2);
+  const auto limits =
+      limits_of(one_subsystem(group("final", vote(1, 2), {{0}, {1}})),
+                {element("XV-1", kA, 0.7, 3), element("XV-2", kA, 0.7, std::nullopt)}, ConstraintBasis::kIec61511, 2);
   ASSERT_EQ(limits.size(), 1u);
   EXPECT_EQ(limits[0].kind, "systematic");
   EXPECT_EQ(limits[0].element, "XV-2");

@@ -5,8 +5,8 @@
 #include <string>
 #include <vector>
 
-#include "support/constraints_fixtures.hpp"
 #include "sifter/engines/constraints.hpp"
+#include "support/constraints_fixtures.hpp"
 
 namespace sifter {
 namespace {
@@ -57,13 +57,14 @@ TEST_P(Iec61511Basis, GroupTakesTheHighestSilItsHftAllows) {
   EXPECT_EQ(r.sil_architecture, c.sil_architecture) << c.vote.text();
   EXPECT_EQ(r.systematic_capability, 3);
 }
-INSTANTIATE_TEST_SUITE_P(
-    Iec61511Part1, Iec61511Basis,
-    ::testing::Values(ArchitectureCase{vote(1, 1), kLow, 2}, ArchitectureCase{vote(1, 1), kHigh, 1},
-                      ArchitectureCase{vote(2, 2), kLow, 2}, ArchitectureCase{vote(1, 2), kLow, 3},
-                      ArchitectureCase{vote(1, 2), kHigh, 3}, ArchitectureCase{vote(1, 2, true), kHigh, 3},
-                      ArchitectureCase{vote(2, 3), kLow, 3}, ArchitectureCase{vote(1, 3), kLow, 4},
-                      ArchitectureCase{vote(2, 4), kHigh, 4}));
+INSTANTIATE_TEST_SUITE_P(Iec61511Part1, Iec61511Basis,
+                         ::testing::Values(ArchitectureCase{vote(1, 1), kLow, 2},
+                                           ArchitectureCase{vote(1, 1), kHigh, 1},
+                                           ArchitectureCase{vote(2, 2), kLow, 2}, ArchitectureCase{vote(1, 2), kLow, 3},
+                                           ArchitectureCase{vote(1, 2), kHigh, 3},
+                                           ArchitectureCase{vote(1, 2, true), kHigh, 3},
+                                           ArchitectureCase{vote(2, 3), kLow, 3}, ArchitectureCase{vote(1, 3), kLow, 4},
+                                           ArchitectureCase{vote(2, 4), kHigh, 4}));
 
 // ---- Route 1H: series and parallel ------------------------------------------------------
 
@@ -76,15 +77,15 @@ std::vector<Component> series_pair() {
 // Series elements in a channel: the lowest governs (IEC 61508-2:2010 7.4.4.2.3, from memory);
 // cells from Tables 2 and 3 [seen]: Type A 90-99 % HFT 0 is SIL 3, Type B 60-90 % HFT 0 is 1.
 TEST(Route1hSeries, ChannelTakesItsLowestElement) {
-  const auto r = subsystem_constraints(group("temperature", vote(1, 1), {{0, 1}}), series_pair(),
-                                       ConstraintBasis::kRoute1H, kLow);
+  const auto r =
+      subsystem_constraints(group("temperature", vote(1, 1), {{0, 1}}), series_pair(), ConstraintBasis::kRoute1H, kLow);
   ASSERT_EQ(r.elements.size(), 2u);
   EXPECT_EQ(r.elements[0].sil_route_1h, 3);
   EXPECT_EQ(r.elements[1].sil_route_1h, 1);
   EXPECT_EQ(r.sil_architecture, 1);
   EXPECT_EQ(r.sff_element, "TT-1");
-  const auto reversed = subsystem_constraints(group("temperature", vote(1, 1), {{1, 0}}), series_pair(),
-                                              ConstraintBasis::kRoute1H, kLow);
+  const auto reversed =
+      subsystem_constraints(group("temperature", vote(1, 1), {{1, 0}}), series_pair(), ConstraintBasis::kRoute1H, kLow);
   EXPECT_EQ(reversed.sil_architecture, 1);
 }
 
@@ -110,12 +111,14 @@ TEST(Route1hParallelOfDifferentElements, OneOoTwoOfTypeA55AndTypeB91ReachesSil3)
   const auto r = subsystem_constraints(group("level", vote(1, 2), {{0}, {1}}), comps, ConstraintBasis::kRoute1H, kLow);
   EXPECT_EQ(r.sil_architecture, 3);
   EXPECT_TRUE(has_cap(r, CapCause::kRoute1hElement, "LT-2"));
-  EXPECT_TRUE(has_finding(r, "In subsystem 'level', the channels are of different elements; at HFT 0 channel 1 "
-                             "SIL 1 (LS-1), channel 2 SIL 2 (LT-2). The group takes the best channel, governed by "
-                             "LT-2 (Type B, SFF 91.00 %, SIL 2 at HFT 0), plus its HFT 1: at most SIL 3 (Route 1H, "
-                             "parallel combination, IEC 61508-2:2010 7.4.4.2.4)."));
+  EXPECT_TRUE(has_finding(r,
+                          "In subsystem 'level', the channels are of different elements; at HFT 0 channel 1 "
+                          "SIL 1 (LS-1), channel 2 SIL 2 (LT-2). The group takes the best channel, governed by "
+                          "LT-2 (Type B, SFF 91.00 %, SIL 2 at HFT 0), plus its HFT 1: at most SIL 3 (Route 1H, "
+                          "parallel combination, IEC 61508-2:2010 7.4.4.2.4)."));
   // The order the channels are listed in does not matter.
-  const auto swapped = subsystem_constraints(group("level", vote(1, 2), {{1}, {0}}), comps, ConstraintBasis::kRoute1H, kLow);
+  const auto swapped =
+      subsystem_constraints(group("level", vote(1, 2), {{1}, {0}}), comps, ConstraintBasis::kRoute1H, kLow);
   EXPECT_EQ(swapped.sil_architecture, 3);
 }
 
@@ -155,8 +158,9 @@ TEST(Route1hNotAllowed, TypeBBelowSixtyPercentAtHftZeroCannotClaimASil) {
   const auto r = subsystem_constraints(group("level", vote(1, 1), {{0}}), {element("LT-1", kB, 0.5, 3)},
                                        ConstraintBasis::kRoute1H, kLow);
   EXPECT_EQ(r.sil_architecture, 0);
-  EXPECT_TRUE(has_finding(r, "In subsystem 'level', LT-1 (Type B, SFF 50.00 %) is not allowed at HFT 0 "
-                             "(Route 1H, IEC 61508-2:2010 Table 3)."));
+  EXPECT_TRUE(has_finding(r,
+                          "In subsystem 'level', LT-1 (Type B, SFF 50.00 %) is not allowed at HFT 0 "
+                          "(Route 1H, IEC 61508-2:2010 Table 3)."));
 }
 
 // Route 1H cannot look an element up without its type (issue 3): cannot claim, element named.
@@ -196,9 +200,10 @@ TEST(Route2h, TypeBElementNeedsSixtyPercentDiagnosticCoverage) {
   const auto below = route_2h_1oo2(route_2h_element("PT-1", kB, fit(40.01, 59.99, 0, 0), 0.9));
   EXPECT_EQ(below.sil_architecture, 0);
   EXPECT_TRUE(has_cap(below, CapCause::kDiagnosticCoverage, "PT-1"));
-  EXPECT_TRUE(has_finding(below, "In subsystem 'sensors', PT-1 (Type B) has DC 59.99 %, below the 60 % Route 2H "
-                                 "requires of Type B elements (IEC 61508-2:2010 7.4.4.3), so the subsystem cannot "
-                                 "claim a SIL on Route 2H."));
+  EXPECT_TRUE(has_finding(below,
+                          "In subsystem 'sensors', PT-1 (Type B) has DC 59.99 %, below the 60 % Route 2H "
+                          "requires of Type B elements (IEC 61508-2:2010 7.4.4.3), so the subsystem cannot "
+                          "claim a SIL on Route 2H."));
 }
 
 // Route 2H sets no DC rule for Type A elements (IEC 61508-2:2010 7.4.4.3 [seen]); an element
@@ -259,7 +264,8 @@ TEST(SystematicCapability, JustifiedDiverseRedundantGroupTakesOneMoreUpToFour) {
   EXPECT_EQ(r.systematic_capability, 3);
   EXPECT_TRUE(r.diversity_credit);
   EXPECT_EQ(sc_of(diverse(vote(1, 2), {{0}, {2}}, note), comps), 3);  // lowest (2) + 1
-  const auto sc4 = subsystem_constraints(diverse(vote(1, 2), {{3}, {4}}, note), comps, ConstraintBasis::kIec61511, kLow);
+  const auto sc4 =
+      subsystem_constraints(diverse(vote(1, 2), {{3}, {4}}, note), comps, ConstraintBasis::kIec61511, kLow);
   EXPECT_EQ(sc4.systematic_capability, 4);
   for (const auto& cap : sc4.caps) EXPECT_LE(cap.sil, 4) << cap.reason;
   EXPECT_EQ(sc_of(diverse(vote(2, 3), {{0}, {1}, {2}}, note), comps), 3);
@@ -295,15 +301,17 @@ TEST(VendorSubsystem, UsesDeclaredHftAndScAndCannotClaimWithoutThem) {
   EXPECT_EQ(declared.sil_architecture, 3);
   EXPECT_EQ(declared.systematic_capability, 3);
 
-  const auto missing = subsystem_constraints(vendor("logic", std::nullopt, std::nullopt), {},
-                                             ConstraintBasis::kIec61511, kLow);
+  const auto missing =
+      subsystem_constraints(vendor("logic", std::nullopt, std::nullopt), {}, ConstraintBasis::kIec61511, kLow);
   EXPECT_EQ(missing.hft, std::nullopt);
   EXPECT_EQ(missing.sil_architecture, 0);
   EXPECT_EQ(missing.systematic_capability, 0);
-  EXPECT_TRUE(has_finding(missing, "Subsystem 'logic' is a vendor figure without a declared HFT, so it cannot "
-                                   "claim a SIL from its architecture."));
-  EXPECT_TRUE(has_finding(missing, "Subsystem 'logic' is a vendor figure without a declared systematic capability, "
-                                   "so it cannot claim a SIL from it."));
+  EXPECT_TRUE(has_finding(missing,
+                          "Subsystem 'logic' is a vendor figure without a declared HFT, so it cannot "
+                          "claim a SIL from its architecture."));
+  EXPECT_TRUE(has_finding(missing,
+                          "Subsystem 'logic' is a vendor figure without a declared systematic capability, "
+                          "so it cannot claim a SIL from it."));
 }
 
 // On Route 1H a vendor figure has no elements: its certificate's SIL capability stands in.
@@ -333,8 +341,7 @@ TEST(SifConstraints, TakesTheLowestOfItsSubsystems) {
   std::vector<Component> comps = transmitters(2);
   comps.push_back(element("XV-1", kA, 0.7, 3));
   Sif sif;
-  sif.subsystems = {group("sensors", vote(1, 2), {{0}, {1}}), vendor("logic", 1, 2),
-                    group("final", vote(1, 1), {{2}})};
+  sif.subsystems = {group("sensors", vote(1, 2), {{0}, {1}}), vendor("logic", 1, 2), group("final", vote(1, 1), {{2}})};
   const auto r = sif_constraints(sif, comps, ConstraintBasis::kIec61511);
   ASSERT_EQ(r.subsystems.size(), 3u);
   EXPECT_EQ(r.subsystems[0].sil_architecture, 3);

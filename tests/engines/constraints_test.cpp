@@ -56,12 +56,11 @@ TEST_P(Table6, MinimumHftMatchesTheTable) {
     EXPECT_LT(max_sil_table6(c.min_hft - 1, c.mode), c.sil);
   }
 }
-INSTANTIATE_TEST_SUITE_P(
-    Iec61511Part1, Table6,
-    ::testing::Values(Table6Cell{1, DemandMode::kLow, 0}, Table6Cell{1, DemandMode::kHigh, 0},
-                      Table6Cell{2, DemandMode::kLow, 0}, Table6Cell{2, DemandMode::kHigh, 1},
-                      Table6Cell{3, DemandMode::kLow, 1}, Table6Cell{3, DemandMode::kHigh, 1},
-                      Table6Cell{4, DemandMode::kLow, 2}, Table6Cell{4, DemandMode::kHigh, 2}));
+INSTANTIATE_TEST_SUITE_P(Iec61511Part1, Table6,
+                         ::testing::Values(Table6Cell{1, DemandMode::kLow, 0}, Table6Cell{1, DemandMode::kHigh, 0},
+                                           Table6Cell{2, DemandMode::kLow, 0}, Table6Cell{2, DemandMode::kHigh, 1},
+                                           Table6Cell{3, DemandMode::kLow, 1}, Table6Cell{3, DemandMode::kHigh, 1},
+                                           Table6Cell{4, DemandMode::kLow, 2}, Table6Cell{4, DemandMode::kHigh, 2}));
 
 // IEC 61511-1:2016 Table 6 [seen] read the other way: what a group of HFT h may claim.
 TEST(Table6Inverse, HighestSilByHftAndMode) {
@@ -91,19 +90,18 @@ TEST_P(Route1hTables, CellMatchesTheTable) {
 }
 constexpr auto kA = ElementType::kA;
 constexpr auto kB = ElementType::kB;
-INSTANTIATE_TEST_SUITE_P(
-    Iec61508Part2, Route1hTables,
-    ::testing::Values(
-        // Type A: < 60 %: 1/2/3; 60-90 %: 2/3/4; 90-99 %: 3/4/4; >= 99 %: 3/4/4.
-        Route1hCell{kA, 0.30, 0, 1}, Route1hCell{kA, 0.30, 1, 2}, Route1hCell{kA, 0.30, 2, 3},
-        Route1hCell{kA, 0.75, 0, 2}, Route1hCell{kA, 0.75, 1, 3}, Route1hCell{kA, 0.75, 2, 4},
-        Route1hCell{kA, 0.95, 0, 3}, Route1hCell{kA, 0.95, 1, 4}, Route1hCell{kA, 0.95, 2, 4},
-        Route1hCell{kA, 0.995, 0, 3}, Route1hCell{kA, 0.995, 1, 4}, Route1hCell{kA, 0.995, 2, 4},
-        // Type B: < 60 %: not allowed/1/2; 60-90 %: 1/2/3; 90-99 %: 2/3/4; >= 99 %: 3/4/4.
-        Route1hCell{kB, 0.30, 0, 0}, Route1hCell{kB, 0.30, 1, 1}, Route1hCell{kB, 0.30, 2, 2},
-        Route1hCell{kB, 0.75, 0, 1}, Route1hCell{kB, 0.75, 1, 2}, Route1hCell{kB, 0.75, 2, 3},
-        Route1hCell{kB, 0.95, 0, 2}, Route1hCell{kB, 0.95, 1, 3}, Route1hCell{kB, 0.95, 2, 4},
-        Route1hCell{kB, 0.995, 0, 3}, Route1hCell{kB, 0.995, 1, 4}, Route1hCell{kB, 0.995, 2, 4}));
+INSTANTIATE_TEST_SUITE_P(Iec61508Part2, Route1hTables,
+                         ::testing::Values(
+                             // Type A: < 60 %: 1/2/3; 60-90 %: 2/3/4; 90-99 %: 3/4/4; >= 99 %: 3/4/4.
+                             Route1hCell{kA, 0.30, 0, 1}, Route1hCell{kA, 0.30, 1, 2}, Route1hCell{kA, 0.30, 2, 3},
+                             Route1hCell{kA, 0.75, 0, 2}, Route1hCell{kA, 0.75, 1, 3}, Route1hCell{kA, 0.75, 2, 4},
+                             Route1hCell{kA, 0.95, 0, 3}, Route1hCell{kA, 0.95, 1, 4}, Route1hCell{kA, 0.95, 2, 4},
+                             Route1hCell{kA, 0.995, 0, 3}, Route1hCell{kA, 0.995, 1, 4}, Route1hCell{kA, 0.995, 2, 4},
+                             // Type B: < 60 %: not allowed/1/2; 60-90 %: 1/2/3; 90-99 %: 2/3/4; >= 99 %: 3/4/4.
+                             Route1hCell{kB, 0.30, 0, 0}, Route1hCell{kB, 0.30, 1, 1}, Route1hCell{kB, 0.30, 2, 2},
+                             Route1hCell{kB, 0.75, 0, 1}, Route1hCell{kB, 0.75, 1, 2}, Route1hCell{kB, 0.75, 2, 3},
+                             Route1hCell{kB, 0.95, 0, 2}, Route1hCell{kB, 0.95, 1, 3}, Route1hCell{kB, 0.95, 2, 4},
+                             Route1hCell{kB, 0.995, 0, 3}, Route1hCell{kB, 0.995, 1, 4}, Route1hCell{kB, 0.995, 2, 4}));
 
 // Beyond HFT 2 the tables stop; each further fault tolerated adds one SIL, as the parallel
 // rule of IEC 61508-2:2010 7.4.4.2.4 does (from memory), never above SIL 4.
@@ -163,13 +161,13 @@ TEST_P(SffAtBandEdges, SffFromRatesFallsInTheRightBand) {
   EXPECT_EQ(sff_band(sff), c.band);
   EXPECT_EQ(max_sil_route_1h(kB, sff, 0), c.type_b_hft0);
 }
-INSTANTIATE_TEST_SUITE_P(
-    Iec61508Part2, SffAtBandEdges,
-    ::testing::Values(SffEdge{"Below60", fit(40.01, 0, 29.995, 29.995), 0.5999, SffBand::kBelow60, 0},
-                      SffEdge{"At60", fit(12, 1, 8.5, 8.5), 0.6, SffBand::kFrom60To90, 1},
-                      SffEdge{"At90", fit(4, 2, 17, 17), 0.9, SffBand::kFrom90To99, 2},
-                      SffEdge{"At99", fit(25, 0, 1237.5, 1237.5), 0.99, SffBand::kAtLeast99, 3}),
-    [](const ::testing::TestParamInfo<SffEdge>& edge) { return std::string(edge.param.name); });
+INSTANTIATE_TEST_SUITE_P(Iec61508Part2, SffAtBandEdges,
+                         ::testing::Values(SffEdge{"Below60", fit(40.01, 0, 29.995, 29.995), 0.5999, SffBand::kBelow60,
+                                                   0},
+                                           SffEdge{"At60", fit(12, 1, 8.5, 8.5), 0.6, SffBand::kFrom60To90, 1},
+                                           SffEdge{"At90", fit(4, 2, 17, 17), 0.9, SffBand::kFrom90To99, 2},
+                                           SffEdge{"At99", fit(25, 0, 1237.5, 1237.5), 0.99, SffBand::kAtLeast99, 3}),
+                         [](const ::testing::TestParamInfo<SffEdge>& edge) { return std::string(edge.param.name); });
 
 // The edge cases above are only worth having if the arithmetic really misses the edge.
 TEST(SffEdgeRates, ReallyComeOutOneUlpBelowTheEdge) {
@@ -187,8 +185,8 @@ TEST(DeclaredSff, IsUsedInsteadOfTheRatesAndReported) {
   EXPECT_EQ(*sff.value, 0.92);
   EXPECT_TRUE(sff.declared);
 
-  const auto r = subsystem_constraints(group("sensors", vote(1, 1), {{0}}), comps, ConstraintBasis::kRoute1H,
-                                       DemandMode::kLow);
+  const auto r =
+      subsystem_constraints(group("sensors", vote(1, 1), {{0}}), comps, ConstraintBasis::kRoute1H, DemandMode::kLow);
   EXPECT_EQ(r.sil_architecture, 2);  // Table 3: Type B, 90-99 %, HFT 0 [seen]
   EXPECT_EQ(r.sff, 0.92);
   EXPECT_TRUE(r.elements[0].sff_declared);

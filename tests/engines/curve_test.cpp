@@ -4,6 +4,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+
 #include "support/tolerance.hpp"
 
 namespace sifter {

@@ -2,8 +2,8 @@
 // devices, the independence note and the operator-time rule, each a finding and applied.
 #include <gtest/gtest.h>
 
-#include "support/lopa_fixtures.hpp"
 #include "sifter/engines/lopa.hpp"
+#include "support/lopa_fixtures.hpp"
 
 namespace sifter {
 namespace {
@@ -21,7 +21,8 @@ using testing::sif_layer;
 
 const WorksheetRow* row_of(const ScenarioResult& r, const std::string& item, const std::string& cause_id = "C1") {
   for (const auto& row : r.worksheet)
-    if (row.item == item && row.cause == cause_id && (row.step == WorksheetStep::kLayer || row.step == WorksheetStep::kSif))
+    if (row.item == item && row.cause == cause_id &&
+        (row.step == WorksheetStep::kLayer || row.step == WorksheetStep::kSif))
       return &row;
   return nullptr;
 }
@@ -37,9 +38,10 @@ TEST(LopaLayerRules, BpcsFunctionClaimingBelowOneTenthIsCappedAtOneTenth) {
   expect_relative(r.frequency_without_sif_per_yr, 0.01);  // 0.1/yr x 0.1, not x 0.01
   const auto m = messages_of(r, FindingKind::kBpcsCreditCapped);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Layer BPCS-1 (BPCS function) claims PFD 0.01; a BPCS function or operator response is credited "
-                  "with a PFD no lower than 0.1 (risk reduction 10 at most, IEC 61511-1:2016 clause 9.3), so 0.1 "
-                  "is used.");
+  EXPECT_EQ(m[0],
+            "Layer BPCS-1 (BPCS function) claims PFD 0.01; a BPCS function or operator response is credited "
+            "with a PFD no lower than 0.1 (risk reduction 10 at most, IEC 61511-1:2016 clause 9.3), so 0.1 "
+            "is used.");
   const auto* row = row_of(r, "BPCS-1");
   ASSERT_NE(row, nullptr);
   expect_relative(*row->value, 0.1);
@@ -70,8 +72,9 @@ TEST(LopaLayerRules, OnlyTwoBpcsLayersAreCredited) {
   expect_relative(r.frequency_without_sif_per_yr, 0.1 * 0.1 * 0.1);
   const auto m = messages_of(r, FindingKind::kTooManyBpcsLayers);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Layer BPCS-3 is the third BPCS-based layer in scenario S-BPCS; no more than two are credited in "
-                  "one scenario (BPCS-1 and BPCS-2), so BPCS-3 gets no credit.");
+  EXPECT_EQ(m[0],
+            "Layer BPCS-3 is the third BPCS-based layer in scenario S-BPCS; no more than two are credited in "
+            "one scenario (BPCS-1 and BPCS-2), so BPCS-3 gets no credit.");
   EXPECT_FALSE(row_of(r, "BPCS-3")->credited);
 }
 
@@ -90,8 +93,9 @@ TEST(LopaLayerRules, OperatorResponseOnTheBpcsCountsAsBpcsBased) {
   const auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
   const auto m = messages_of(r, FindingKind::kTooManyBpcsLayers);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Layer OP-1 is the third BPCS-based layer in scenario S-BPCS-OP; no more than two are credited in "
-                  "one scenario (BPCS-1 and BPCS-2), so OP-1 gets no credit.");
+  EXPECT_EQ(m[0],
+            "Layer OP-1 is the third BPCS-based layer in scenario S-BPCS-OP; no more than two are credited in "
+            "one scenario (BPCS-1 and BPCS-2), so OP-1 gets no credit.");
   expect_relative(r.frequency_without_sif_per_yr, 0.1 * 0.1 * 0.1 * 0.1);  // BPCS-1, BPCS-2 and OP-2
   EXPECT_TRUE(has_assumption_containing(r.assumptions, "at most two are credited per scenario"));
 }
@@ -112,8 +116,9 @@ TEST(LopaLayerRules, LayerSharingADeviceWithTheCauseGetsNoCredit) {
   const auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
   const auto m = messages_of(r, FindingKind::kNotIndependent);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Layer IPL-1 shares device DCS-4 with initiating cause C1, so IPL-1 is not independent of that "
-                  "cause and gets no credit against it.");
+  EXPECT_EQ(m[0],
+            "Layer IPL-1 shares device DCS-4 with initiating cause C1, so IPL-1 is not independent of that "
+            "cause and gets no credit against it.");
   expect_relative(r.consequences[0].frequency_without_sif_per_yr, 4.5e-4);
   expect_relative(r.required_rrf, 45.0);
   expect_relative(r.consequences[1].required_rrf, 9.0);  // asset 3: 9e-4/yr against 1e-4/yr
@@ -136,8 +141,9 @@ TEST(LopaLayerRules, IndependenceNoteKeepsTheCreditAndIsReported) {
   const auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
   const auto m = messages_of(r, FindingKind::kNotIndependent);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Layer IPL-1 shares device DCS-4 with initiating cause C1; IPL-1 is credited on its independence "
-                  "note \"alarm on a separate I/O card of DCS-4\".");
+  EXPECT_EQ(m[0],
+            "Layer IPL-1 shares device DCS-4 with initiating cause C1; IPL-1 is credited on its independence "
+            "note \"alarm on a separate I/O card of DCS-4\".");
   expect_relative(r.frequency_without_sif_per_yr, 4.5e-5);
 }
 
@@ -166,8 +172,9 @@ TEST(LopaLayerRules, LayerSharingWithAnEarlierCreditedLayerGetsNoCredit) {
   auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
   auto m = messages_of(r, FindingKind::kNotIndependent);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Layer OP-2 shares device LT-1 with layer BPCS-1, credited before it, so OP-2 is not independent "
-                  "and gets no credit.");
+  EXPECT_EQ(m[0],
+            "Layer OP-2 shares device LT-1 with layer BPCS-1, credited before it, so OP-2 is not independent "
+            "and gets no credit.");
   expect_relative(r.frequency_without_sif_per_yr, 0.01);
 
   s.causes[0].devices = {"DCS-1"};  // now BPCS-1 is not independent of the cause: OP-2 keeps its credit
@@ -191,8 +198,9 @@ TEST(LopaLayerRules, LayerSharingAComponentWithTheSifGetsNoCredit) {
   const auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
   const auto m = messages_of(r, FindingKind::kNotIndependent);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Layer IPL-2 shares device PT-401A with SIF-401, the SIF under assessment, so IPL-2 is not "
-                  "independent and gets no credit.");
+  EXPECT_EQ(m[0],
+            "Layer IPL-2 shares device PT-401A with SIF-401, the SIF under assessment, so IPL-2 is not "
+            "independent and gets no credit.");
   expect_relative(r.frequency_without_sif_per_yr, 1e-3);
 }
 
@@ -208,8 +216,9 @@ TEST(LopaLayerRules, SifSharingADeviceWithTheCauseIsNotCreditedAgainstIt) {
   const auto r = evaluate_scenario(p, s, ctx);
   const auto m = messages_of(r, FindingKind::kNotIndependent);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "SIF-401, the SIF under assessment, shares device XV-401 with initiating cause C1, so SIF-401 is "
-                  "not independent of that cause and gets no credit against it.");
+  EXPECT_EQ(m[0],
+            "SIF-401, the SIF under assessment, shares device XV-401 with initiating cause C1, so SIF-401 is "
+            "not independent of that cause and gets no credit against it.");
   expect_relative(*r.mitigated_frequency_per_yr, 1e-3);  // the SIF's 1e-3 is not applied
   EXPECT_FALSE(*r.meets_target);
 }
@@ -244,11 +253,13 @@ TEST(LopaLayerRules, OperatorResponseNeedsTenMinutesAvailable) {
   auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
   auto m = messages_of(r, FindingKind::kResponseTime);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Operator response OP-1 has 8 min available, less than the 10 min an operator response needs for "
-                  "credit, so OP-1 gets no credit.");
+  EXPECT_EQ(m[0],
+            "Operator response OP-1 has 8 min available, less than the 10 min an operator response needs for "
+            "credit, so OP-1 gets no credit.");
   expect_relative(r.frequency_without_sif_per_yr, 0.1);
-  EXPECT_TRUE(has_assumption_containing(r.assumptions, "at least 10 min available and at least 2 times its "
-                                                       "response time (common practice)"));
+  EXPECT_TRUE(has_assumption_containing(r.assumptions,
+                                        "at least 10 min available and at least 2 times its "
+                                        "response time (common practice)"));
 
   s.layers = {operator_layer("OP-1", 0.1, 5, 10)};  // exactly 10 min, twice the response time
   r = evaluate_scenario(p, s, lopa_context_from_project(p));
@@ -265,8 +276,9 @@ TEST(LopaLayerRules, OperatorResponseNeedsAMultipleOfItsResponseTime) {
   auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
   auto m = messages_of(r, FindingKind::kResponseTime);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Operator response OP-1 has 15 min available, less than 2 times its response time of 10 min "
-                  "(20 min), so OP-1 gets no credit.");
+  EXPECT_EQ(m[0],
+            "Operator response OP-1 has 15 min available, less than 2 times its response time of 10 min "
+            "(20 min), so OP-1 gets no credit.");
 
   s.layers = {operator_layer("OP-1", 0.1, 10, 20)};
   r = evaluate_scenario(p, s, lopa_context_from_project(p));
@@ -288,8 +300,9 @@ TEST(LopaLayerRules, OperatorResponseWithoutTimeAvailableGetsNoCredit) {
   const auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
   const auto m = messages_of(r, FindingKind::kResponseTime);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Operator response OP-1 states no time available; an operator response is credited only with at "
-                  "least 10 min available and at least 2 times its response time, so OP-1 gets no credit.");
+  EXPECT_EQ(m[0],
+            "Operator response OP-1 states no time available; an operator response is credited only with at "
+            "least 10 min available and at least 2 times its response time, so OP-1 gets no credit.");
   expect_relative(r.frequency_without_sif_per_yr, 0.1);
 }
 

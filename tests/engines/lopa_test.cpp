@@ -75,16 +75,18 @@ TEST(LopaWorksheet, RowsCarryTheFrequencyAfterEachStep) {
   s.not_credited = {{"second operator round", "not independent of the alarm"}};
   const auto r = evaluate_scenario(p, s, lopa_context_from_project(p));
   const std::vector<WorksheetStep> steps = {
-      WorksheetStep::kCause, WorksheetStep::kEnabling, WorksheetStep::kLayer,    WorksheetStep::kSif,
-      WorksheetStep::kLayer, WorksheetStep::kNotCredited, WorksheetStep::kTotal, WorksheetStep::kModifier,
+      WorksheetStep::kCause,    WorksheetStep::kEnabling,    WorksheetStep::kLayer, WorksheetStep::kSif,
+      WorksheetStep::kLayer,    WorksheetStep::kNotCredited, WorksheetStep::kTotal, WorksheetStep::kModifier,
       WorksheetStep::kModifier, WorksheetStep::kTarget};
   const std::vector<double> after = {0.1, 0.05, 0.005, 0.005, 5e-5, -1.0, 5e-5, 1.5e-5, 7.5e-6, 7.5e-6};
   ASSERT_EQ(r.worksheet.size(), steps.size());
   for (std::size_t i = 0; i < steps.size(); ++i) {
     SCOPED_TRACE("row " + std::to_string(i));
     EXPECT_EQ(r.worksheet[i].step, steps[i]);
-    if (after[i] < 0) EXPECT_FALSE(r.worksheet[i].frequency_per_yr.has_value());
-    else expect_relative(*r.worksheet[i].frequency_per_yr, after[i]);
+    if (after[i] < 0)
+      EXPECT_FALSE(r.worksheet[i].frequency_per_yr.has_value());
+    else
+      expect_relative(*r.worksheet[i].frequency_per_yr, after[i]);
   }
   EXPECT_EQ(r.worksheet[5].note, "not independent of the alarm");
   expect_relative(*r.worksheet.back().gap, 75.0);
@@ -257,8 +259,9 @@ TEST(LopaSilFindings, SmallRiskReductionNeedsNoSif) {
   EXPECT_EQ(r.required_sil, 0);
   const auto m = messages_of(r, FindingKind::kNoSifNeeded);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Scenario S-SIL0 needs a risk reduction of 5, no more than 10: no SIF is needed at this risk "
-                  "level (IEC 61511-1:2016 clause 9).");
+  EXPECT_EQ(m[0],
+            "Scenario S-SIL0 needs a risk reduction of 5, no more than 10: no SIF is needed at this risk "
+            "level (IEC 61511-1:2016 clause 9).");
 }
 
 // IEC 61511-1:2016 clause 9.2 (from memory): above 10 000 the design is re-examined first.
@@ -273,8 +276,9 @@ TEST(LopaSilFindings, RiskReductionAboveTenThousandCallsForReview) {
   EXPECT_EQ(r.required_sil, 4);
   auto m = messages_of(r, FindingKind::kSil4Review);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "Scenario S-SIL4 needs a risk reduction of 20000, above 10000 (SIL 4): re-examine the process "
-                  "design and the other layers before relying on a SIF (IEC 61511-1:2016 clause 9.2).");
+  EXPECT_EQ(m[0],
+            "Scenario S-SIL4 needs a risk reduction of 20000, above 10000 (SIL 4): re-examine the process "
+            "design and the other layers before relying on a SIF (IEC 61511-1:2016 clause 9.2).");
   s.target_frequency = Rate::from_per_year(1e-9);
   r = evaluate_scenario(p, s, lopa_context_from_project(p));
   m = messages_of(r, FindingKind::kSil4Review);
@@ -296,8 +300,9 @@ TEST(LopaDemandMode, StatedModeContradictedByTheRateIsAMismatch) {
   EXPECT_EQ(*r.demand_mode, DemandMode::kHigh) << "judged in high demand, the stricter";
   const auto m = messages_of(r, FindingKind::kModeMismatch);
   ASSERT_EQ(m.size(), 1u);
-  EXPECT_EQ(m[0], "SIF-7 is stated to be in low demand mode, but scenario S-MODE demands it 2 times a year, more "
-                  "than once a year (high demand, IEC 61511-1:2016 3.2.39); it is judged in high demand (the stricter).");
+  EXPECT_EQ(m[0],
+            "SIF-7 is stated to be in low demand mode, but scenario S-MODE demands it 2 times a year, more "
+            "than once a year (high demand, IEC 61511-1:2016 3.2.39); it is judged in high demand (the stricter).");
 }
 
 // Issue 4 item 3: a SIF named by several scenarios must satisfy each; the largest RRF governs.

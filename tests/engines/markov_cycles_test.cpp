@@ -35,7 +35,9 @@ ExactGroupInput one_channel(double lambda_du, double interval_hours, double miss
 // Closed form, one channel with undetected failures only and perfect instant tests
 // (DEVELOPERS.md, M8): PFDavg = 1 - (1 - exp(-x)) / x with x = lambda_du T1; its series
 // x/2 - x^2/6 + x^3/24 - ... is used at small x, where the closed form cancels.
-double closed_form_1oo1(double x) { return x < 1e-3 ? x / 2 - x * x / 6 + x * x * x / 24 : 1.0 - (-std::expm1(-x)) / x; }
+double closed_form_1oo1(double x) {
+  return x < 1e-3 ? x / 2 - x * x / 6 + x * x * x / 24 : 1.0 - (-std::expm1(-x)) / x;
+}
 
 TEST(ExactCycles, AOneMinuteProofTestOverTwentyYearsAnswersInUnderASecondAndEqualsTheClosedForm) {
   const double t1 = 1.0 / 60.0;

@@ -5,8 +5,8 @@
 #include <cmath>
 #include <stdexcept>
 
-#include "support/markov_reference.hpp"
 #include "sifter/engines/markov.hpp"
+#include "support/markov_reference.hpp"
 #include "support/tolerance.hpp"
 
 namespace sifter {
@@ -126,7 +126,8 @@ TEST(ExactSif, FailureFrequencyOfTwoChannelsIsTheirRatesTimesAvailability) {
                                             du_group(1, 1, 4e-5, 0.0, 2.0 * kYear, 5.0 * kYear)};
   const auto sif = sif_exact(groups);
   expect_relative(sif.failure_frequency_per_hour, 5e-5 * (1.0 - sif.pfd_avg), kSameModelRelTol);
-  EXPECT_LT(sif.failure_frequency_per_hour, sif.groups[0].failure_frequency_per_hour + sif.groups[1].failure_frequency_per_hour);
+  EXPECT_LT(sif.failure_frequency_per_hour,
+            sif.groups[0].failure_frequency_per_hour + sif.groups[1].failure_frequency_per_hour);
 }
 
 // The plot: at least the points asked for, every subsystem on the SIF's times, the SIF value

@@ -8,8 +8,8 @@
 #include <ostream>
 #include <stdexcept>
 
-#include "support/markov_reference.hpp"
 #include "sifter/engines/simplified.hpp"
+#include "support/markov_reference.hpp"
 #include "support/tolerance.hpp"
 
 namespace sifter {

@@ -7,14 +7,13 @@
 #include <cmath>
 #include <cstdio>
 #include <fstream>
+#include <nlohmann/json.hpp>
 #include <sstream>
 
-#include <nlohmann/json.hpp>
-
-#include "sifter/input/load.hpp"
 #include "sifter/analysis/maturity.hpp"
 #include "sifter/analysis/options.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/input/load.hpp"
 
 namespace sifter {
 namespace {
@@ -262,8 +261,8 @@ TEST(Maturity, AnEstimateInASourceMarksTheItemItsScenarioAndTheSifItFeeds) {
 class ExampleOptions : public ::testing::Test {
  protected:
   static void SetUpTestSuite() {
-    options_ = new ScenarioOptions(
-        compare_options(load_example("unit70_booster.json"), "OP-M-702-by-P-701", without_exact()));
+    options_ =
+        new ScenarioOptions(compare_options(load_example("unit70_booster.json"), "OP-M-702-by-P-701", without_exact()));
   }
   static void TearDownTestSuite() { delete options_; }
   static const OptionResult& option(const std::string& id) {

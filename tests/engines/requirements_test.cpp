@@ -5,8 +5,8 @@
 
 #include <gtest/gtest.h>
 
-#include "sifter/report/json_results.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/report/json_results.hpp"
 
 namespace sifter {
 namespace {

@@ -5,6 +5,7 @@
 
 #include <cmath>
 #include <string>
+
 #include "support/tolerance.hpp"
 
 namespace sifter {
@@ -224,8 +225,8 @@ TEST(AnnexB, TermsAddUpToThePfdAvg) {
 
 // ---- Imperfect and partial tests as the project file states them -----------------------
 
-#include "sifter/input/load.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/input/load.hpp"
 
 namespace sifter {
 namespace {
@@ -241,9 +242,11 @@ Project one_group_project(const std::string& vote, const std::string& extra) {
     { "id": "XV-3", "lambda_du": "2e-6/h", "lambda_dd": "5e-7/h", "lambda_su": "1e-6/h" }
   ],
   "sifs": [ { "id": "S1", "subsystems": [
-    { "name": "valves", "role": "final", "vote": ")" + vote + R"(", "channels": )" +
-                           std::string(vote.back() == '1' ? R"(["XV-1"])" : vote.back() == '2' ? R"(["XV-1", "XV-2"])"
-                                                                                                 : R"(["XV-1", "XV-2", "XV-3"])") +
+    { "name": "valves", "role": "final", "vote": ")" +
+                           vote + R"(", "channels": )" +
+                           std::string(vote.back() == '1'   ? R"(["XV-1"])"
+                                       : vote.back() == '2' ? R"(["XV-1", "XV-2"])"
+                                                            : R"(["XV-1", "XV-2", "XV-3"])") +
                            R"(, "beta": "5%", "mrt": "16 h")" + extra + R"( } ] } ]
 })";
   return load_project_text(text, "inline.json", ".").project;
@@ -284,10 +287,11 @@ TEST(TestSlices, ImperfectProofTestOfOneChannelFollowsClauseB325FromTheProjectFi
 TEST(TestSlices, PartialStrokeAndImperfectProofTestShareTheUndetectedRate) {
   // The partial stroke reveals its share at its own interval; the proof test reveals PTC of the
   // rest, and what both miss stays to the end of the mission (DEVELOPERS.md, Methods M2, generalised).
-  const auto p = one_group_project("1oo1", R"(, "proof_test_coverage": 0.9, "partial_stroke": {"interval": "1 mo", "coverage": 0.6})");
+  const auto p = one_group_project(
+      "1oo1", R"(, "proof_test_coverage": 0.9, "partial_stroke": {"interval": "1 mo", "coverage": 0.6})");
   const double ldu = 2e-6, ldd = 5e-7, t_pst = 730.0, t1 = 8760.0, t2 = 15 * 8760.0, mrt = 16.0, mttr = 8.0;
-  const double expected = 0.6 * ldu * (t_pst / 2 + mrt) + 0.4 * 0.9 * ldu * (t1 / 2 + mrt) +
-                          0.4 * 0.1 * ldu * (t2 / 2 + mrt) + ldd * mttr;
+  const double expected =
+      0.6 * ldu * (t_pst / 2 + mrt) + 0.4 * 0.9 * ldu * (t1 / 2 + mrt) + 0.4 * 0.1 * ldu * (t2 / 2 + mrt) + ldd * mttr;
   expect_relative(pfd_of(p), expected, kExactRelTol);
 }
 

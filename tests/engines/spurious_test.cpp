@@ -5,8 +5,8 @@
 
 #include <cmath>
 
-#include "sifter/input/load.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/input/load.hpp"
 #include "support/tolerance.hpp"
 
 namespace sifter {

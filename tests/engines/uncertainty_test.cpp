@@ -3,10 +3,10 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <boost/math/distributions/chi_squared.hpp>
 #include <boost/math/distributions/lognormal.hpp>
 #include <boost/math/distributions/normal.hpp>
-#include <algorithm>
 #include <cmath>
 #include <ostream>
 #include <stdexcept>
@@ -150,8 +150,8 @@ std::vector<Component> demo_components() {
   // and a logic solver taken as certain.
   Component logic;
   logic.id = "ls";
-  return {uncertain("pt_a", "TX-DEMO", 3.0), uncertain("pt_b", "TX-DEMO", 3.0), logic,
-          uncertain("xv_a", "", 3.0), uncertain("xv_b", "", 3.0)};
+  return {uncertain("pt_a", "TX-DEMO", 3.0), uncertain("pt_b", "TX-DEMO", 3.0), logic, uncertain("xv_a", "", 3.0),
+          uncertain("xv_b", "", 3.0)};
 }
 
 TEST(Plan, ComponentsOfOneLibraryModelShareOneSource) {
@@ -166,8 +166,7 @@ TEST(Plan, ComponentsOfOneLibraryModelShareOneSource) {
 }
 
 TEST(Plan, DifferentErrorFactorsOfOneModelGetSourcesOfTheirOwn) {
-  const std::vector<Component> components{uncertain("a", "M", 3.0), uncertain("b", "M", 5.0),
-                                          uncertain("c", "M", 3.0)};
+  const std::vector<Component> components{uncertain("a", "M", 3.0), uncertain("b", "M", 5.0), uncertain("c", "M", 3.0)};
   const auto plan = plan_uncertainty(components);
   ASSERT_EQ(plan.sources.size(), 2U);
   EXPECT_EQ(plan.sources[0].id, "model:M EF 3");
@@ -353,8 +352,13 @@ TEST(MonteCarlo, AnEvaluatorErrorReachesTheCaller) {
 // group_pfd_avg_value is the number group_pfd_avg reports, for every Annex B form (invented
 // demo data with detected failures, beta and MRT so that every term is exercised).
 TEST(FastPath, GroupPfdValueEqualsTheFullResultForEveryVote) {
-  for (const auto& [k, n, diagnostic] : {std::tuple{1, 1, false}, {1, 2, false}, {2, 2, false}, {2, 3, false},
-                                         {1, 3, false}, {1, 2, true}, {2, 4, false}}) {
+  for (const auto& [k, n, diagnostic] : {std::tuple{1, 1, false},
+                                         {1, 2, false},
+                                         {2, 2, false},
+                                         {2, 3, false},
+                                         {1, 3, false},
+                                         {1, 2, true},
+                                         {2, 4, false}}) {
     GroupData g;
     g.vote = Vote{k, n, diagnostic};
     g.channel.lambda_du.per_hour = 3e-7;

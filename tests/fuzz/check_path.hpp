@@ -1,23 +1,22 @@
 #pragma once
 // The whole `sifter check` path on text in memory, shared by the fuzz target and the replay test.
+#include <cmath>
+#include <nlohmann/json.hpp>
 #include <optional>
 #include <stdexcept>
 #include <string>
 #include <string_view>
 
-#include <cmath>
-
+#include "sifter/analysis/report_data.hpp"
+#include "sifter/analysis/verify.hpp"
+#include "sifter/analysis/whatif.hpp"
 #include "sifter/input/load.hpp"
-#include <nlohmann/json.hpp>
 #include "sifter/report/csv.hpp"
 #include "sifter/report/html.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/markdown.hpp"
-#include "sifter/analysis/report_data.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
-#include "sifter/analysis/verify.hpp"
-#include "sifter/analysis/whatif.hpp"
 
 namespace sifter::fuzzing {
 

@@ -3,8 +3,8 @@
 
 #include <gtest/gtest.h>
 
-#include "support/results_support.hpp"
 #include "sifter/input/load.hpp"
+#include "support/results_support.hpp"
 
 namespace sifter {
 namespace {

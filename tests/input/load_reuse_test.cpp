@@ -3,9 +3,9 @@
 
 #include <cmath>
 
-#include "support/results_support.hpp"
-#include "sifter/input/load.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/input/load.hpp"
+#include "support/results_support.hpp"
 
 namespace sifter {
 namespace {

@@ -3,12 +3,12 @@
 
 #include <gtest/gtest.h>
 
-#include "support/catalogue_support.hpp"
-
 #include <cmath>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
+
+#include "support/catalogue_support.hpp"
 
 namespace sifter {
 namespace {
@@ -167,7 +167,8 @@ TEST(Load, ALibraryPathThatIsADirectoryIsRefused) {
 }
 
 TEST(Load, HostileNumbersAndStringsAreRejectedCleanly) {
-  EXPECT_NE(error_of(R"({"format": "sifter-project/1", "defaults": {"mission_time": "1e400 h"}})").find("beyond the range of finite values"),
+  EXPECT_NE(error_of(R"({"format": "sifter-project/1", "defaults": {"mission_time": "1e400 h"}})")
+                .find("beyond the range of finite values"),
             std::string::npos);
   EXPECT_NE(error_of(R"({"format": "sifter-project/1", "components": [{"id": "A", "lambda_du": "NaN/h"}]})")
                 .find("/components/0/lambda_du"),

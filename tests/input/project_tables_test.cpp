@@ -8,9 +8,9 @@
 #include <filesystem>
 #include <fstream>
 
-#include "support/results_support.hpp"
 #include "sifter/input/csv_text.hpp"
 #include "sifter/model/printable.hpp"
+#include "support/results_support.hpp"
 
 namespace sifter {
 namespace {
@@ -52,8 +52,7 @@ INSTANTIATE_TEST_SUITE_P(ShippedProjects, RoundTrip,
                          ::testing::Values("examples/unit40.json", "examples/unit50_shortfall.json",
                                            "examples/unit60_existing_logic_solver.json",
                                            "examples/unit70_requirements.json", "tests/data/good/every_key.json",
-                                           "tests/data/unit40_rev_b.json",
-                                           "tests/data/whatif_no_interval.json",
+                                           "tests/data/unit40_rev_b.json", "tests/data/whatif_no_interval.json",
                                            "tests/data/good/architecture_limited.json",
                                            "tests/data/reuse/with_templates.json", "tests/data/reuse/expanded.json"),
                          [](const auto& param_info) {
@@ -87,7 +86,8 @@ TEST(ProjectTables, TheDeliverableKeysComeBackAsWritten) {
   ASSERT_EQ(after.at("components").size(), before.at("components").size());
   for (std::size_t i = 0; i < before.at("components").size(); ++i)
     for (const char* key : {"prior_use", "data_source", "response_time"})
-      EXPECT_EQ(after["components"][i].value(key, nlohmann::json()), before["components"][i].value(key, nlohmann::json()))
+      EXPECT_EQ(after["components"][i].value(key, nlohmann::json()),
+                before["components"][i].value(key, nlohmann::json()))
           << before["components"][i]["id"] << " " << key;
   int field_sources = 0;
   for (std::size_t i = 0; i < before.at("components").size(); ++i)

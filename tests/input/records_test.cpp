@@ -7,8 +7,8 @@
 #include <cctype>
 #include <filesystem>
 
-#include "support/catalogue_support.hpp"
 #include "sifter/input/load.hpp"
+#include "support/catalogue_support.hpp"
 
 namespace sifter {
 namespace {

@@ -2,17 +2,16 @@
 // clear message and exit status 2, quickly, and nothing is written.
 #include <gtest/gtest.h>
 
-#include "support/catalogue_support.hpp"
-#include <nlohmann/json.hpp>
-
 #include <cmath>
 #include <filesystem>
 #include <fstream>
+#include <nlohmann/json.hpp>
 #include <regex>
 
-#include "support/cli_support.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/input/load.hpp"
+#include "support/catalogue_support.hpp"
+#include "support/cli_support.hpp"
 
 namespace sifter {
 namespace {
@@ -68,10 +67,13 @@ std::string project_with(const std::string& lambda_du, const std::string& beta =
                          const std::string& vendor_pfd = "1e-4", const std::string& title = "\"hostile\"") {
   return R"({"format": "sifter-project/1", "title": )" + title + R"(,
     "defaults": {"proof_test_interval": "1 yr", "mttr": "8 h"},
-    "components": [{"id": "A", "lambda_du": )" + lambda_du + R"(}, {"id": "B", "lambda_du": )" + lambda_du + R"(}],
+    "components": [{"id": "A", "lambda_du": )" +
+         lambda_du + R"(}, {"id": "B", "lambda_du": )" + lambda_du + R"(}],
     "sifs": [{"id": "S1", "target": {"sil": 1}, "subsystems": [
-      {"name": "pair", "role": "sensor", "vote": "1oo2", "channels": ["A", "B"], "beta": )" + beta + R"(},
-      {"name": "vendor", "role": "logic", "pfd_avg": )" + vendor_pfd + R"(}]}]})";
+      {"name": "pair", "role": "sensor", "vote": "1oo2", "channels": ["A", "B"], "beta": )" +
+         beta + R"(},
+      {"name": "vendor", "role": "logic", "pfd_avg": )" +
+         vendor_pfd + R"(}]}]})";
 }
 
 // --- Hostile texts through the whole program: exit 2, a short message, nothing written ------
@@ -111,25 +113,29 @@ std::vector<HostileText> hostile_texts() {
   return {
       {"NestingOneHundredThousandLevelsDeep", nested(100000), "expected nesting no deeper than 64 levels"},
       {"ATenMegabyteKey", "{\"format\": \"sifter-project/1\", \"" + ten_mb + "\": 1}", "... (10485761 bytes)"},
-      {"ATenMegabyteUnknownId", project_with("\"100 FIT\"").replace(
-                                    project_with("\"100 FIT\"").find("[\"A\", \"B\"]"), 10, "[\"A\", \"" + ten_mb + "\"]"),
+      {"ATenMegabyteUnknownId",
+       project_with("\"100 FIT\"")
+           .replace(project_with("\"100 FIT\"").find("[\"A\", \"B\"]"), 10, "[\"A\", \"" + ten_mb + "\"]"),
        "expected the id of a component, found \"xxxx"},
       {"TwoHundredThousandUnknownKeys", many_keys, "expected at most 100 problems reported at once, found 199900 more",
        kMaxManyProblemsBytes},
-      {"ANumberBeyondDoubleRange", project_with("\"100 FIT\"", "1e400"), "expected numbers within the range of finite values, found the number 1e400"},
+      {"ANumberBeyondDoubleRange", project_with("\"100 FIT\"", "1e400"),
+       "expected numbers within the range of finite values, found the number 1e400"},
       {"ARateBeyondDoubleRange", project_with("\"1e400/h\""), "a number beyond the range of finite values"},
       {"NanSpelledAsARate", project_with("\"NaN/h\""), "a rate must be a finite number of zero or more"},
       {"InfinitySpelledAsARate", project_with("\"inf FIT\""), "a rate must be a finite number of zero or more"},
       {"NanSpelledAsAPercentage", project_with("\"100 FIT\"", "\"NaN%\""), "expected a fraction from 0 to 1"},
       {"NanAsAJsonLiteral", project_with("\"100 FIT\"", "NaN"), "expected valid JSON"},
-      {"DuplicateKeys", R"({"format": "sifter-project/1", "title": "a", "title": "b"})", "found \"title\" a second time"},
+      {"DuplicateKeys", R"({"format": "sifter-project/1", "title": "a", "title": "b"})",
+       "found \"title\" a second time"},
       {"DuplicateKeysSpelledWithEscapes", R"({"format": "sifter-project/1", "title": "a", "t\u0069tle": "b"})",
        "found \"title\" a second time"},
       {"AByteOrderMark", "\xEF\xBB\xBF" + project_with("\"100 FIT\""), "expected JSON text without a byte-order mark"},
       {"InvalidUtf8Byte", project_with("\"100 FIT\"", "\"5%\"", "1e-4", "\"\xFF\""), "expected valid JSON"},
       {"AnOverlongUtf8Encoding", project_with("\"100 FIT\"", "\"5%\"", "1e-4", "\"\xC0\xAF\""), "expected valid JSON"},
       {"ATruncatedUtf8Sequence", project_with("\"100 FIT\"", "\"5%\"", "1e-4", "\"\xE2\x82\""), "expected valid JSON"},
-      {"AUtf8EncodedSurrogate", project_with("\"100 FIT\"", "\"5%\"", "1e-4", "\"\xED\xA0\x80\""), "expected valid JSON"},
+      {"AUtf8EncodedSurrogate", project_with("\"100 FIT\"", "\"5%\"", "1e-4", "\"\xED\xA0\x80\""),
+       "expected valid JSON"},
       {"ALoneSurrogateEscape", project_with("\"100 FIT\"", "\"5%\"", "1e-4", "\"\\ud800\""), "expected valid JSON"},
       {"ANulByte", std::string("{\"format\": \"sifter-project/1\"") + '\0' + "}", "expected valid JSON"},
       {"AnEmptyFile", "", "expected valid JSON"},
@@ -227,7 +233,8 @@ TEST(HostileNumbers, NegativeZeroInTheQuantitiesIsZero) {
 
 TEST(HostileStrings, ATenMegabyteTitleIsAcceptedAsData) {
   const std::string title(10 * 1024 * 1024, 't');
-  const auto loaded = load_project_text(project_with("\"100 FIT\"", "\"5%\"", "1e-4", "\"" + title + "\""), "p.json", ".");
+  const auto loaded =
+      load_project_text(project_with("\"100 FIT\"", "\"5%\"", "1e-4", "\"" + title + "\""), "p.json", ".");
   EXPECT_EQ(loaded.project.title.size(), title.size());
 }
 
@@ -236,7 +243,8 @@ TEST(HostileStrings, AnUnknownTenMegabyteKeyIsNamedShortened) {
   const std::string message = refusal_of("{\"format\": \"sifter-project/1\", \"" + key + "\": 1}");
   EXPECT_LE(message.size(), kMaxMessageBytes);
   EXPECT_NE(message.find("hostile.json:1:32: /kkkk"), std::string::npos) << message.substr(0, 300);
-  EXPECT_NE(message.find("... (10485761 bytes): expected a key of a project, found unknown key \"kkkk"), std::string::npos)
+  EXPECT_NE(message.find("... (10485761 bytes): expected a key of a project, found unknown key \"kkkk"),
+            std::string::npos)
       << message.substr(0, 1000);
 }
 
@@ -267,7 +275,8 @@ TEST(HostileLibraries, ALibraryPathThatIsADeviceIsRefused) {
   std::ofstream(dir / "p.json") << R"({"format": "sifter-project/1", "libraries": ["/dev/zero"]})";
   const auto r = run_sifter("check " + (dir / "p.json").string());
   EXPECT_EQ(r.exit_code, 2);
-  EXPECT_NE(r.err.find("/libraries/0: expected a regular file, found a special file at \"/dev/zero\""), std::string::npos)
+  EXPECT_NE(r.err.find("/libraries/0: expected a regular file, found a special file at \"/dev/zero\""),
+            std::string::npos)
       << r.err;
 }
 

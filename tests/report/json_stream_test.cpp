@@ -8,9 +8,9 @@
 #include <nlohmann/json.hpp>
 #include <sstream>
 
+#include "sifter/analysis/verify.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/report/json_results.hpp"
-#include "sifter/analysis/verify.hpp"
 
 namespace sifter {
 namespace {

@@ -9,8 +9,8 @@
 #include <filesystem>
 #include <fstream>
 
-#include "support/cli_support.hpp"
 #include "sifter/model/diagnostics.hpp"
+#include "support/cli_support.hpp"
 
 namespace sifter {
 namespace {
@@ -75,8 +75,8 @@ TEST(OutputFile, AFolderThatCannotBeWrittenIsAnOutputErrorAndLeavesNothing) {
 TEST(OutputFile, AReadOnlyFolderIsAnOutputErrorAndKeepsTheOldFile) {
   const auto dir = fresh_folder("out_read_only");
   std::ofstream(dir / "r.json") << "old";
-  fs::permissions(dir, fs::perms::owner_read | fs::perms::owner_exec | fs::perms::group_read |
-                           fs::perms::group_exec | fs::perms::others_read | fs::perms::others_exec);
+  fs::permissions(dir, fs::perms::owner_read | fs::perms::owner_exec | fs::perms::group_read | fs::perms::group_exec |
+                           fs::perms::others_read | fs::perms::others_exec);
   // Root ignores folder permissions: the attempt runs in a child that has become "nobody".
   const pid_t child = ::fork();
   ASSERT_GE(child, 0);
@@ -134,8 +134,8 @@ TEST(OutputFile, TheInputIsNeverAnOutputUnderAnyName) {
   fs::create_symlink(dir / "p.json", dir / "link.json");
   fs::create_hard_link(dir / "p.json", dir / "hard.json");
   const std::string input = (dir / "p.json").string();
-  for (const auto& name : {input, (dir / "." / "p.json").string(), (dir / "link.json").string(),
-                           (dir / "hard.json").string()})
+  for (const auto& name :
+       {input, (dir / "." / "p.json").string(), (dir / "link.json").string(), (dir / "hard.json").string()})
     EXPECT_THROW(report::refuse_overwriting_inputs({name}, {input}), UsageError) << name;
   EXPECT_NO_THROW(report::refuse_overwriting_inputs({(dir / "other.json").string(), "-", ""}, {input}));
 }

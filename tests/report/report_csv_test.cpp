@@ -1,9 +1,9 @@
 // Specification of the per-SIF CSV of `sifter check --csv`.
-#include "sifter/report/csv.hpp"
-
 #include <gtest/gtest.h>
+
 #include <nlohmann/json.hpp>
 
+#include "sifter/report/csv.hpp"
 #include "support/cli_support.hpp"
 
 namespace sifter {
@@ -25,9 +25,12 @@ std::vector<std::vector<std::string>> parse_csv(const std::string& text) {
   for (std::size_t i = 0; i < text.size(); ++i) {
     const char c = text[i];
     if (quoted) {
-      if (c == '"' && i + 1 < text.size() && text[i + 1] == '"') field += text[++i];
-      else if (c == '"') quoted = false;
-      else field += c;
+      if (c == '"' && i + 1 < text.size() && text[i + 1] == '"')
+        field += text[++i];
+      else if (c == '"')
+        quoted = false;
+      else
+        field += c;
     } else if (c == '"') {
       quoted = true;
     } else if (c == ',') {

@@ -1,16 +1,15 @@
 // Specification of the writers' last line of defence: no NaN or infinity ever reaches an output.
-#include "sifter/model/format.hpp"
-
 #include <gtest/gtest.h>
 
 #include <limits>
 #include <sstream>
 
+#include "sifter/model/format.hpp"
+#include "sifter/model/pressure_units.hpp"
+#include "sifter/model/quantity.hpp"
 #include "sifter/report/json_results.hpp"
 #include "sifter/report/terminal.hpp"
 #include "sifter/report/worksheet.hpp"
-#include "sifter/model/pressure_units.hpp"
-#include "sifter/model/quantity.hpp"
 #include "sifter/results/sif.hpp"
 
 namespace sifter {

@@ -1,16 +1,15 @@
 // Specification of the HTML report: what it holds, that it fetches nothing, that it escapes user text.
-#include "sifter/report/html.hpp"
-
 #include <gtest/gtest.h>
-#include <nlohmann/json.hpp>
 
 #include <cstdlib>
+#include <nlohmann/json.hpp>
 
+#include "sifter/analysis/report_data.hpp"
+#include "sifter/input/load.hpp"
+#include "sifter/report/html.hpp"
+#include "sifter/report/svg.hpp"
 #include "support/cli_support.hpp"
 #include "support/report_support.hpp"
-#include "sifter/input/load.hpp"
-#include "sifter/report/svg.hpp"
-#include "sifter/analysis/report_data.hpp"
 
 namespace sifter {
 namespace {
@@ -106,7 +105,7 @@ TEST(HtmlReport, EscapesEveryPieceOfUserText) {
   EXPECT_EQ(r.html.find("</section><script"), std::string::npos);
   EXPECT_NE(r.html.find("&lt;script&gt;alert(1)&lt;/script&gt; plant | unit &#39;A&#39; &amp; &quot;B&quot;"),
             std::string::npos);
-  EXPECT_NE(r.html.find(">PT-&lt;1&gt;</text>"), std::string::npos);       // a tag in the drawing
+  EXPECT_NE(r.html.find(">PT-&lt;1&gt;</text>"), std::string::npos);  // a tag in the drawing
   EXPECT_NE(r.html.find(">PT-&quot;2&quot;</text>"), std::string::npos);
   EXPECT_NE(r.html.find("aria-label=\"Architecture of S&lt;1&gt;\""), std::string::npos);  // and in attributes
   // Read back as text, the title is what the author wrote.
@@ -169,7 +168,8 @@ TEST(HtmlReport, DrawsTheSensitivityRankingWhereRowsAreGivenAndSaysSoWhereNot) {
   EXPECT_EQ(count_of(example().html, "data-figure=\"sensitivity\""), 3u);
   const auto r = render("examples/unit40.json", [](ProjectResult&, ReportData& data) {
     for (auto& s : data.sifs) s.sensitivity.clear();
-    data.sifs[0].sensitivity = {{"outlet isolation: lambda_DU", 2.3e-3, 8.9e-3}, {"outlet isolation: MTTR", 4.5e-3, 4.6e-3}};
+    data.sifs[0].sensitivity = {{"outlet isolation: lambda_DU", 2.3e-3, 8.9e-3},
+                                {"outlet isolation: MTTR", 4.5e-3, 4.6e-3}};
   });
   EXPECT_EQ(count_of(r.html, "data-figure=\"sensitivity\""), 1u);
   EXPECT_EQ(count_of(r.html, "Sensitivity ranking: not computed in this run."), 2u);

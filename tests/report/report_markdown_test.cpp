@@ -1,12 +1,11 @@
 // Specification of the Markdown report: the HTML report's tables, cell for cell, and safe escaping.
-#include "sifter/report/markdown.hpp"
-
 #include <gtest/gtest.h>
 
-#include "support/report_support.hpp"
+#include "sifter/analysis/report_data.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/report/html.hpp"
-#include "sifter/analysis/report_data.hpp"
+#include "sifter/report/markdown.hpp"
+#include "support/report_support.hpp"
 
 namespace sifter {
 namespace {
@@ -58,7 +57,8 @@ TEST(MarkdownReport, CarriesTheCaution) {
 }
 
 TEST(MarkdownReport, EscapeMarkdownBackslashesMarkupAndFlattensLineBreaks) {
-  EXPECT_EQ(report::escape_markdown("a|b *c* _d_ <e> [f] #g `h` ~i & \\"), "a\\|b \\*c\\* \\_d\\_ \\<e\\> \\[f\\] \\#g \\`h\\` \\~i \\& \\\\");
+  EXPECT_EQ(report::escape_markdown("a|b *c* _d_ <e> [f] #g `h` ~i & \\"),
+            "a\\|b \\*c\\* \\_d\\_ \\<e\\> \\[f\\] \\#g \\`h\\` \\~i \\& \\\\");
   EXPECT_EQ(report::escape_markdown("two\nlines"), "two lines");
   EXPECT_EQ(report::escape_markdown("SIF-401 4.56e-03"), "SIF-401 4.56e-03");
 }

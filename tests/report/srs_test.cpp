@@ -6,13 +6,13 @@
 
 #include <nlohmann/json.hpp>
 
-#include "support/cli_support.hpp"
-#include "support/report_support.hpp"
+#include "sifter/analysis/report_data.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/report/html.hpp"
 #include "sifter/report/html_deliverable.hpp"
 #include "sifter/report/markdown.hpp"
-#include "sifter/analysis/report_data.hpp"
+#include "support/cli_support.hpp"
+#include "support/report_support.hpp"
 
 namespace sifter {
 namespace {
@@ -118,9 +118,9 @@ TEST(Srs, PutsDocumentNumberRevisionAndSignaturesOnTheCover) {
     EXPECT_NE(cover.find("<aside class=\"caution\">"), std::string::npos);
     // The print footer repeats number and revision on every printed page (a page-margin box;
     // tests/print_test.py reads it back from each printed page).
-    EXPECT_NE(html->find("@bottom-left { content: \"" + std::string(html == &example().srs
-                                                                         ? "Safety requirements specification"
-                                                                         : "SIL verification report") +
+    EXPECT_NE(html->find("@bottom-left { content: \"" +
+                         std::string(html == &example().srs ? "Safety requirements specification"
+                                                            : "SIL verification report") +
                          " · document DEMO-70-SRS-001 revision B\""),
               std::string::npos);
   }

@@ -8,8 +8,8 @@
 #include <fstream>
 #include <sstream>
 
-#include "support/cli_support.hpp"
 #include "sifter/report/text_table.hpp"
+#include "support/cli_support.hpp"
 
 namespace sifter {
 namespace {

@@ -3,9 +3,8 @@
 // closed form from the channels' survival probabilities, integrated by Boost.Math adaptive
 // Gauss-Kronrod quadrature. It shares no code with the engine: no states, no matrices.
 // Scope: undetected failures only, repairs instantaneous (MTTR = MRT = 0).
-#include <boost/math/quadrature/gauss_kronrod.hpp>
-
 #include <algorithm>
+#include <boost/math/quadrature/gauss_kronrod.hpp>
 #include <cmath>
 #include <functional>
 #include <numeric>

@@ -45,9 +45,12 @@ inline std::string text_of(const std::string& markup) {
   std::string out;
   bool in_tag = false;
   for (char c : markup) {
-    if (c == '<') in_tag = true;
-    else if (c == '>') in_tag = false;
-    else if (!in_tag) out += c;
+    if (c == '<')
+      in_tag = true;
+    else if (c == '>')
+      in_tag = false;
+    else if (!in_tag)
+      out += c;
   }
   return html_unescape(out);
 }
@@ -120,7 +123,8 @@ inline std::vector<ParsedTable> markdown_tables(const std::string& md) {
     if (i >= 2 && lines[i - 2].rfind("**", 0) == 0) {
       std::string caption;
       const std::string bold = lines[i - 2].substr(2, lines[i - 2].size() - 4);
-      for (std::size_t k = 0; k < bold.size(); ++k) caption += bold[k] == '\\' && k + 1 < bold.size() ? bold[++k] : bold[k];
+      for (std::size_t k = 0; k < bold.size(); ++k)
+        caption += bold[k] == '\\' && k + 1 < bold.size() ? bold[++k] : bold[k];
       t.caption = caption;
     }
     t.header = markdown_cells(lines[i]);

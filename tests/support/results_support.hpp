@@ -6,9 +6,9 @@
 #include <sstream>
 #include <string>
 
+#include "sifter/analysis/verify.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/report/json_results.hpp"
-#include "sifter/analysis/verify.hpp"
 
 namespace sifter::testing {
 

@@ -7,8 +7,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/model/model.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/model/model.hpp"
 #include "sifter/results/deliverable.hpp"
 
 namespace sifter {

@@ -6,8 +6,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/model/model.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/model/model.hpp"
 #include "sifter/results/diff.hpp"
 
 namespace sifter {

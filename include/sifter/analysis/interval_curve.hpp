@@ -5,8 +5,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/model/model.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/model/model.hpp"
 #include "sifter/results/report.hpp"
 
 namespace sifter {

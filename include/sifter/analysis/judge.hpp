@@ -12,7 +12,7 @@ namespace sifter {
 
 /// The SIF requirement from the risk analysis, when scenarios feed it.
 struct RequirementFromLopa {
-  double required_rrf = 0.0;            ///< the largest over the scenarios (low demand)
+  double required_rrf = 0.0;                    ///< the largest over the scenarios (low demand)
   std::optional<double> required_pfh_per_hour;  ///< high demand: the smallest over the scenarios
   DemandMode demand_mode = DemandMode::kLow;
   std::vector<std::string> scenarios;
@@ -24,11 +24,11 @@ struct RequirementFromLopa {
 /// edges) and, where a value is required, it is at_most that value.
 struct SifTarget {
   DemandMode mode = DemandMode::kLow;
-  std::optional<int> sil;                    ///< the required SIL; none = the SIF is not judged
-  std::optional<double> required_pfd;        ///< low demand: the required PFDavg, if a value is set
+  std::optional<int> sil;                       ///< the required SIL; none = the SIF is not judged
+  std::optional<double> required_pfd;           ///< low demand: the required PFDavg, if a value is set
   std::optional<double> required_pfh_per_hour;  ///< high demand: the required PFH, if set
-  std::optional<double> required_rrf;        ///< low demand: 1 / required_pfd where stated so
-  std::string text;                          ///< the target as a reviewer reads it
+  std::optional<double> required_rrf;           ///< low demand: 1 / required_pfd where stated so
+  std::string text;                             ///< the target as a reviewer reads it
   /// The value a figure must not exceed: the required value or the band's upper edge, the smaller.
   [[nodiscard]] std::optional<double> limit() const;
 };

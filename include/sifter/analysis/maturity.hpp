@@ -3,8 +3,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/model/model.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/model/model.hpp"
 
 namespace sifter {
 

@@ -6,8 +6,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/input/load.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/input/load.hpp"
 #include "sifter/results/options.hpp"
 
 namespace sifter {

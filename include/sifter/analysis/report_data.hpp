@@ -7,11 +7,11 @@
 #include <string>
 #include <vector>
 
-#include "sifter/engines/curve.hpp"
 #include "sifter/analysis/deliverable.hpp"
 #include "sifter/analysis/interval_curve.hpp"
 #include "sifter/analysis/options.hpp"
 #include "sifter/analysis/verify.hpp"
+#include "sifter/engines/curve.hpp"
 #include "sifter/results/report.hpp"
 
 namespace sifter {

@@ -7,12 +7,12 @@
 #include <string>
 #include <vector>
 
-#include "sifter/model/civil_date.hpp"
-#include "sifter/engines/field_statistics.hpp"
-#include "sifter/input/load.hpp"
-#include "sifter/model/records.hpp"
 #include "sifter/analysis/verify.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/engines/field_statistics.hpp"
+#include "sifter/input/load.hpp"
+#include "sifter/model/civil_date.hpp"
+#include "sifter/model/records.hpp"
 #include "sifter/results/service.hpp"
 
 namespace sifter {
@@ -29,6 +29,5 @@ Project project_with_judged_rates(const Project& project, const std::vector<Comp
 
 /// Assesses the records against the project.
 ServiceResult assess_service(const LoadedProject& loaded, const ServiceRecords& records, const ServiceOptions& options);
-
 
 }  // namespace sifter

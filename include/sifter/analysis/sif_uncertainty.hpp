@@ -1,7 +1,7 @@
 #pragma once
 /// Monte Carlo on a SIF's failure data: the distribution of its PFDavg (or PFH).
-#include "sifter/results/sif.hpp"
 #include "sifter/engines/uncertainty.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter {
 

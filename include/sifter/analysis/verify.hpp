@@ -5,14 +5,14 @@
 #include <map>
 #include <vector>
 
-#include "sifter/graph/dependency_graph.hpp"
-#include "sifter/engines/group_model.hpp"
 #include "sifter/analysis/judge.hpp"
-#include "sifter/input/load.hpp"
+#include "sifter/engines/group_model.hpp"
 #include "sifter/engines/lopa.hpp"
-#include "sifter/results/sif.hpp"
 #include "sifter/engines/simplified.hpp"
+#include "sifter/graph/dependency_graph.hpp"
+#include "sifter/input/load.hpp"
 #include "sifter/results/project.hpp"
+#include "sifter/results/sif.hpp"
 
 namespace sifter {
 
@@ -25,7 +25,7 @@ struct VerifyOptions {
   bool exact = true;  ///< run the exact time-dependent cross-check
   int samples = 0;    ///< Monte Carlo samples per SIF on the uncertain failure data; 0 = none
   std::uint64_t seed = 1;
-  int threads = 0;    ///< 0 = every core
+  int threads = 0;  ///< 0 = every core
   /// Called with (samples done, samples in all) during the Monte Carlo, for a progress bar.
   std::function<void(long long, long long)> progress;
 };

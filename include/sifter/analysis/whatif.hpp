@@ -11,9 +11,9 @@
 #include <string_view>
 #include <vector>
 
+#include "sifter/analysis/verify.hpp"
 #include "sifter/model/model.hpp"
 #include "sifter/results/sif.hpp"
-#include "sifter/analysis/verify.hpp"
 #include "sifter/results/whatif.hpp"
 
 namespace sifter {

@@ -88,12 +88,10 @@ ConstraintBasis constraint_basis(const Sif& sif, std::optional<ConstraintBasis> 
 ///   Route 1H it has no elements, so its sil_capability stands for the Tables 2/3 result and
 ///   without one it caps at 0.
 /// - sil_capability, where declared, caps both the architecture and the SC.
-SubsystemConstraints subsystem_constraints(const Subsystem& subsystem,
-                                           const std::vector<Component>& components,
+SubsystemConstraints subsystem_constraints(const Subsystem& subsystem, const std::vector<Component>& components,
                                            ConstraintBasis basis, DemandMode mode);
 
-SifConstraints sif_constraints(const Sif& sif, const std::vector<Component>& components,
-                               ConstraintBasis basis);
+SifConstraints sif_constraints(const Sif& sif, const std::vector<Component>& components, ConstraintBasis basis);
 /// The same in a demand mode decided elsewhere (by the LOPA demand rate).
 SifConstraints sif_constraints(const Sif& sif, const std::vector<Component>& components, ConstraintBasis basis,
                                DemandMode mode);
@@ -103,8 +101,7 @@ SifConstraints sif_constraints(const Sif& sif, const std::vector<Component>& com
 /// Every result below the required SIL: the probability (also when its SIL is reached but
 /// the achieved value is above the required one), and each architecture and SC cap of each
 /// subsystem below it, in subsystem order. Empty when the required SIL is 0.
-std::vector<Limit> limits_for(const ProbabilityCheck& probability, const SifConstraints& constraints,
-                              int sil_required);
+std::vector<Limit> limits_for(const ProbabilityCheck& probability, const SifConstraints& constraints, int sil_required);
 
 namespace detail {
 /// value >= edge, with sil.hpp's kEdgeRelTol (the mirror of at_most).

@@ -36,8 +36,8 @@ class ExactCache {
 /// warnings where the simplified value is non-conservative by more than 1 %, off by more
 /// than 10 %, or where lDU T1 > 0.1. Groups of different channels take the exact value as
 /// their PFDavg. Groups the exact engine cannot model are named in the assumptions.
-void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& result,
-                             std::vector<Warning>& warnings, ExactCache& cache);
+void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& result, std::vector<Warning>& warnings,
+                             ExactCache& cache);
 
 /// PFD(t) of the SIF and of each subsystem over the mission, `points` evenly spaced samples
 /// plus every test instant (vendor figures as constant lines).

@@ -9,8 +9,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/model/model.hpp"
 #include "sifter/engines/simplified.hpp"
+#include "sifter/model/model.hpp"
 #include "sifter/results/report.hpp"
 
 namespace sifter {
@@ -48,7 +48,7 @@ struct CurveSubsystem {
 /// B.2.2 rare-event approximation) over `mission`, with `uniform_samples` (at least 2) evenly
 /// spaced instants plus each test instant before and after.
 PfdPlot simplified_curve(const std::vector<CurveSubsystem>& subsystems, Duration mission,
-                          std::size_t uniform_samples = 400);
+                         std::size_t uniform_samples = 400);
 
 /// simplified_curve() for one SIF of a project: group data from verify's group_data_for, a
 /// supplier's PFDavg drawn flat, the project's mission time.

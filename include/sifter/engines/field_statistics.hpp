@@ -3,6 +3,7 @@
 /// Poisson rate, the gamma prior and its conjugate update, and Poisson tail probabilities.
 /// Pure functions on numbers (Boost.Math); the methods are listed in DEVELOPERS.md.
 #include <optional>
+
 #include "sifter/results/field.hpp"
 
 namespace sifter {

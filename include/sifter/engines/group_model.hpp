@@ -4,8 +4,8 @@
 #include <cstddef>
 #include <vector>
 
-#include "sifter/model/model.hpp"
 #include "sifter/engines/simplified.hpp"
+#include "sifter/model/model.hpp"
 
 namespace sifter {
 

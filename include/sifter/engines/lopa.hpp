@@ -13,8 +13,8 @@
 #include <vector>
 
 #include "sifter/model/model.hpp"
-#include "sifter/model/vocabulary.hpp"
 #include "sifter/model/quantity.hpp"
+#include "sifter/model/vocabulary.hpp"
 #include "sifter/results/lopa.hpp"
 
 namespace sifter {
@@ -37,9 +37,9 @@ inline constexpr double kSil4Rrf = 10000.0;
 
 /// What the SIF engines computed for one SIF, and the mode its author stated.
 struct SifFigures {
-  std::optional<double> pfd_avg;                  ///< computed PFDavg (low demand)
-  std::optional<Rate> pfh;                        ///< computed PFH (high demand), per hour
-  std::optional<DemandMode> demand_mode_stated;   ///< Sif::demand_mode_stated
+  std::optional<double> pfd_avg;                 ///< computed PFDavg (low demand)
+  std::optional<Rate> pfh;                       ///< computed PFH (high demand), per hour
+  std::optional<DemandMode> demand_mode_stated;  ///< Sif::demand_mode_stated
   /// The PFD (PFH) the scenarios credit: the judged figure, no better than the lower edge of
   /// the band of the SIL the SIF achieves (judge.hpp sif_credit); absent = the figure above.
   std::optional<double> credit;
@@ -63,22 +63,22 @@ bool modifier_applies(const Modifier& modifier, const std::string& category);
 
 /// The credit one layer (other than the SIF under assessment) receives after the layer rules.
 struct LayerCredit {
-  std::size_t layer = 0;       ///< index into Scenario::layers
-  double pfd_claimed = 1.0;    ///< Layer::pfd, or the computed PFDavg of a credited SIF layer
-  double pfd_credited = 1.0;   ///< after the BPCS cap; the factor applied where credited
-  bool credited = false;       ///< credited against at least one cause
-  std::vector<bool> for_cause; ///< credited against each cause (index into Scenario::causes)
-  bool before_sif = true;      ///< acts before the SIF under assessment (or there is none)
-  bool bpcs_based = false;     ///< counts towards the two-BPCS-layer limit
-  std::string note;            ///< why no or reduced credit, or the independence note relied on
+  std::size_t layer = 0;                 ///< index into Scenario::layers
+  double pfd_claimed = 1.0;              ///< Layer::pfd, or the computed PFDavg of a credited SIF layer
+  double pfd_credited = 1.0;             ///< after the BPCS cap; the factor applied where credited
+  bool credited = false;                 ///< credited against at least one cause
+  std::vector<bool> for_cause;           ///< credited against each cause (index into Scenario::causes)
+  bool before_sif = true;                ///< acts before the SIF under assessment (or there is none)
+  bool bpcs_based = false;               ///< counts towards the two-BPCS-layer limit
+  std::string note;                      ///< why no or reduced credit, or the independence note relied on
   std::vector<std::string> cause_notes;  ///< per cause: why no credit against it (or the note)
 };
 
 /// The layer rules applied to a scenario (CCPS 2001; IEC 61511-1:2016 clause 9.3).
 struct LayerAssessment {
-  std::vector<LayerCredit> layers;        ///< one per layer except the SIF under assessment
-  std::optional<std::size_t> sif_layer;   ///< index of the SIF under assessment in Scenario::layers
-  std::vector<bool> sif_for_cause;        ///< the SIF is independent of each cause (or justified)
+  std::vector<LayerCredit> layers;           ///< one per layer except the SIF under assessment
+  std::optional<std::size_t> sif_layer;      ///< index of the SIF under assessment in Scenario::layers
+  std::vector<bool> sif_for_cause;           ///< the SIF is independent of each cause (or justified)
   std::vector<std::string> sif_cause_notes;  ///< per cause: why the SIF gets no credit (or note)
   std::vector<Finding> findings;
   std::vector<std::string> assumptions;

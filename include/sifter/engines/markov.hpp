@@ -43,17 +43,17 @@ struct ExactGroupInput {
   Vote vote;
   /// Rates of the channels: one entry for N identical channels, or one entry per channel.
   std::vector<FailureRates> channels;
-  double beta = 0.0;    ///< common-cause fraction of lambda_du (effective, after any scaling)
-  double beta_d = 0.0;  ///< common-cause fraction of lambda_dd
-  Duration proof_test_interval;  ///< T1
-  Duration mttr;                 ///< restoration of detected failures
-  Duration mrt;                  ///< repair of failures a test has found
-  double proof_test_coverage = 1.0;  ///< PTC, share of lambda_du the proof test reveals
+  double beta = 0.0;                            ///< common-cause fraction of lambda_du (effective, after any scaling)
+  double beta_d = 0.0;                          ///< common-cause fraction of lambda_dd
+  Duration proof_test_interval;                 ///< T1
+  Duration mttr;                                ///< restoration of detected failures
+  Duration mrt;                                 ///< repair of failures a test has found
+  double proof_test_coverage = 1.0;             ///< PTC, share of lambda_du the proof test reveals
   std::optional<PartialStroke> partial_stroke;  ///< extra tests covering a share of lambda_du
   std::optional<Duration> test_duration;        ///< each channel bypassed this long when tested
   bool staggered = false;                       ///< channels' tests spread evenly over T1
   Duration mission_time;                        ///< the averages are taken over [0, mission]
-  bool track_each_channel = false;  ///< use the per-channel model even where counts would do
+  bool track_each_channel = false;              ///< use the per-channel model even where counts would do
 };
 
 /// PFD against time. Where a test acts, the instant appears twice: just before, then after.
@@ -72,9 +72,9 @@ struct ExactGroupResult {
   /// failures). IEC 61508-6:2010 B.3.3.2 counts these, assuming a detected failure puts the
   /// process in a safe state (its 1oo1 PFH is lambda_du); it also counts beta_D lambda_dd.
   double undetected_failure_frequency_per_hour = 0.0;
-  PfdCurve curve;           ///< at every instant where the model changes (or on a given grid)
-  int states = 0;           ///< size of the Markov chain
-  bool per_channel = false; ///< channels tracked one by one rather than by counts
+  PfdCurve curve;                  ///< at every instant where the model changes (or on a given grid)
+  int states = 0;                  ///< size of the Markov chain
+  bool per_channel = false;        ///< channels tracked one by one rather than by counts
   std::vector<std::string> notes;  ///< modelling choices that apply to this group
 };
 

@@ -4,9 +4,9 @@
 #include <string>
 #include <vector>
 
+#include "sifter/graph/plant_graph.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/model.hpp"
-#include "sifter/graph/plant_graph.hpp"
 
 namespace sifter {
 

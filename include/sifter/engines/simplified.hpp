@@ -20,11 +20,11 @@ struct TestSlice {
 /// simplified equations, the Monte Carlo and the what-ifs read about it.
 struct GroupData {
   Vote vote;
-  FailureRates channel;  ///< rates of one channel (series elements added); the mean where channels differ
+  FailureRates channel;                ///< rates of one channel (series elements added); the mean where channels differ
   std::vector<FailureRates> channels;  ///< each channel's own rates; empty = N copies of `channel`
-  double beta = 0.0;     ///< effective beta after any Table D.5 scaling
-  double beta_d = 0.0;   ///< effective beta_D after any Table D.5 scaling
-  std::vector<TestSlice> tests;  ///< how lambda_du is revealed; shares add to 1
+  double beta = 0.0;                   ///< effective beta after any Table D.5 scaling
+  double beta_d = 0.0;                 ///< effective beta_D after any Table D.5 scaling
+  std::vector<TestSlice> tests;        ///< how lambda_du is revealed; shares add to 1
   Duration mttr;
   Duration mrt;
   Duration proof_test_interval;           ///< T1 (the test-duration term divides by it)

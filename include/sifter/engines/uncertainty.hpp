@@ -108,23 +108,21 @@ class FactorSampler {
 };
 
 /// The factors of sample `sample_index` for `seed`, one per source of the plan.
-std::vector<double> sample_factors(const UncertaintyPlan& plan, std::uint64_t sample_index,
-                                   std::uint64_t seed);
+std::vector<double> sample_factors(const UncertaintyPlan& plan, std::uint64_t sample_index, std::uint64_t seed);
 
 /// The factor that scales component `component` in one sample: factors[source], or 1 for a
 /// component with no source.
-double component_factor(const UncertaintyPlan& plan, std::span<const double> factors,
-                        std::size_t component);
+double component_factor(const UncertaintyPlan& plan, std::span<const double> factors, std::size_t component);
 
 // ---- Monte Carlo ----------------------------------------------------------------------------
 
 /// The distribution of a result (PFDavg, or PFH per hour) over the samples.
 struct UncertaintySummary {
   double mean = 0.0;
-  double standard_deviation = 0.0;  ///< sample standard deviation (n - 1 in the denominator)
-  double p05 = 0.0;                 ///< 5th percentile, see percentile()
-  double p50 = 0.0;                 ///< median
-  double p95 = 0.0;                 ///< 95th percentile
+  double standard_deviation = 0.0;        ///< sample standard deviation (n - 1 in the denominator)
+  double p05 = 0.0;                       ///< 5th percentile, see percentile()
+  double p50 = 0.0;                       ///< median
+  double p95 = 0.0;                       ///< 95th percentile
   double probability_meets_target = 0.0;  ///< share of samples with value at_most(required)
   int samples = 0;
 };
@@ -139,9 +137,9 @@ using ProgressCallback = std::function<void(int completed)>;
 
 /// How to run a Monte Carlo.
 struct MonteCarloOptions {
-  int samples = 10000;     ///< number of samples, >= 1
-  std::uint64_t seed = 1;  ///< the same seed gives the same results on any number of threads
-  int threads = 0;         ///< worker threads; 0 = std::thread::hardware_concurrency()
+  int samples = 10000;        ///< number of samples, >= 1
+  std::uint64_t seed = 1;     ///< the same seed gives the same results on any number of threads
+  int threads = 0;            ///< worker threads; 0 = std::thread::hardware_concurrency()
   ProgressCallback progress;  ///< optional
   /// The sources the evaluator reads (indices into the plan); empty = all. Only these are
   /// drawn, with the same values a full draw would give; the others stay at factor 1.

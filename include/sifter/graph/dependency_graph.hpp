@@ -6,12 +6,11 @@
 /// independent of the initiating event and of the other credited layers) is checked here as
 /// plain graph reachability: two parties share a device when the same device vertex can be
 /// reached from both.
+#include <boost/graph/adjacency_list.hpp>
 #include <cstddef>
 #include <map>
 #include <string>
 #include <vector>
-
-#include <boost/graph/adjacency_list.hpp>
 
 #include "sifter/model/model.hpp"
 #include "sifter/results/project.hpp"

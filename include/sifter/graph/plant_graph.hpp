@@ -1,12 +1,11 @@
 #pragma once
 /// The SIFs as a Boost.Graph of signal flow (SIF -> groups -> channels -> components),
 /// its validation, and the components that several SIFs share.
+#include <boost/graph/adjacency_list.hpp>
 #include <memory>
 #include <string>
 #include <unordered_map>
 #include <vector>
-
-#include <boost/graph/adjacency_list.hpp>
 
 #include "sifter/model/model.hpp"
 #include "sifter/results/project.hpp"

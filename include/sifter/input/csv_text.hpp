@@ -25,7 +25,6 @@ std::optional<CsvSyntaxProblem> parse_csv(std::string_view text, CsvRows& rows);
 /// A cell quoted when it holds a comma, a quote or a line break.
 std::string csv_cell(std::string_view text);
 
-
 /// The inverse on import: one leading apostrophe before = + - @, tab or CR is removed.
 std::string restore_formula_text(std::string_view text);
 

@@ -12,8 +12,8 @@ namespace sifter {
 
 /// Limits that keep hostile input bounded in time and memory.
 inline constexpr std::size_t kMaxInputBytes = 256u * 1024u * 1024u;  ///< larger files are refused
-inline constexpr int kMaxNestingDepth = 64;  ///< project files need about 6 levels
-inline constexpr std::size_t kMaxReportedProblems = 100;  ///< problems kept per run; the rest are counted
+inline constexpr int kMaxNestingDepth = 64;                          ///< project files need about 6 levels
+inline constexpr std::size_t kMaxReportedProblems = 100;             ///< problems kept per run; the rest are counted
 
 /// A line and column, both 1-based.
 struct TextPosition {

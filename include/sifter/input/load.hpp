@@ -4,9 +4,9 @@
 #include <string>
 #include <vector>
 
+#include "sifter/engines/pressure.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/model.hpp"
-#include "sifter/engines/pressure.hpp"
 
 namespace sifter {
 
@@ -20,7 +20,7 @@ inline constexpr const char* kLibraryFormat = "sifter-library/1";
 struct LoadedProject {
   Project project;
   std::vector<Warning> warnings;
-  std::string sha256;  ///< of the project file's bytes, for the report
+  std::string sha256;               ///< of the project file's bytes, for the report
   std::vector<std::string> inputs;  ///< every file read: the project, then its libraries
   /// The graph the loader validated, of the project as loaded; verify_project reuses it.
   /// Reset it when changing the structure (SIFs, groups, channels) of `project`.

@@ -8,17 +8,17 @@ namespace sifter {
 
 /// Exit statuses of the command-line program.
 enum class ExitCode : int {
-  kAllMet = 0,       ///< every SIF meets its target
-  kShortfall = 1,    ///< at least one SIF (or scenario) falls short
-  kBadInput = 2,     ///< the input or the command line is wrong; nothing was written
-  kInternal = 3,     ///< a defect in sifter itself
+  kAllMet = 0,     ///< every SIF meets its target
+  kShortfall = 1,  ///< at least one SIF (or scenario) falls short
+  kBadInput = 2,   ///< the input or the command line is wrong; nothing was written
+  kInternal = 3,   ///< a defect in sifter itself
 };
 
 /// One problem in an input file: where it is, what was expected, what was found, and a hint.
 struct Diagnostic {
   std::string file;
-  int line = 0;     ///< 1-based; 0 when unknown
-  int column = 0;   ///< 1-based; 0 when unknown
+  int line = 0;         ///< 1-based; 0 when unknown
+  int column = 0;       ///< 1-based; 0 when unknown
   std::string pointer;  ///< RFC 6901 JSON pointer, e.g. "/sifs/0/subsystems/0/beta"
   std::string expected;
   std::string found;
@@ -30,7 +30,7 @@ std::string format_diagnostic(const Diagnostic& d);
 
 /// A plausibility remark on valid input: computed on, but shown to the reviewer.
 struct Warning {
-  std::string where;    ///< JSON pointer (or SIF/scenario id) of what it concerns
+  std::string where;  ///< JSON pointer (or SIF/scenario id) of what it concerns
   std::string message;
 };
 

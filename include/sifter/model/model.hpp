@@ -25,9 +25,9 @@ struct RateUncertainty {
 
 /// Field experience from which lambda_du is estimated at a one-sided confidence (chi-squared).
 struct FieldData {
-  int failures = 0;             ///< dangerous undetected failures counted
-  Duration device_hours;        ///< cumulated operating time of the population
-  double confidence = 0.7;      ///< one-sided confidence level, 0..1
+  int failures = 0;         ///< dangerous undetected failures counted
+  Duration device_hours;    ///< cumulated operating time of the population
+  double confidence = 0.7;  ///< one-sided confidence level, 0..1
 };
 
 /// The four failure rates of one element, per hour (IEC 61508-6 notation).
@@ -57,11 +57,11 @@ struct PriorUse {
 
 /// Where failure data come from, when written as an object (a plain string keeps `text` only).
 struct DataSource {
-  std::string kind;      ///< "certificate", "fmeda", "handbook", "field", "estimate"; empty for plain text
+  std::string kind;  ///< "certificate", "fmeda", "handbook", "field", "estimate"; empty for plain text
   std::string document;
   std::string revision;
   std::string date;
-  std::string text;      ///< the plain-string form
+  std::string text;  ///< the plain-string form
 };
 
 /// One line of a data source as a reviewer reads it, e.g. "FMEDA: R-123 rev B, 2024-03-01".
@@ -78,15 +78,15 @@ struct Component {
   std::optional<double> data_confidence;     ///< confidence of the failure data (Route 2H), 0..1
   std::optional<RateUncertainty> uncertainty;
   std::optional<FieldData> field_data;
-  std::string data_source;  ///< where the failure data come from (a safety manual, a database)
-  bool dangerous_rates_stated = false;  ///< the project or its library states lambda_D (checked in loading)
-  std::string in_service_since;  ///< ISO 8601 date the device went into service, empty if not stated
+  std::string data_source;                  ///< where the failure data come from (a safety manual, a database)
+  bool dangerous_rates_stated = false;      ///< the project or its library states lambda_D (checked in loading)
+  std::string in_service_since;             ///< ISO 8601 date the device went into service, empty if not stated
   DataStatus status = DataStatus::kVendor;  ///< maturity of its data
-  std::string pointer;  ///< where it is defined, e.g. "/components/3"
+  std::string pointer;                      ///< where it is defined, e.g. "/components/3"
   std::optional<PriorUse> prior_use;        ///< prior-use claim, IEC 61511-1:2016 11.5.3
   std::optional<DataSource> source;         ///< the data source in full (data_source holds its one line)
   std::optional<Duration> response_time;    ///< time from demand to its action (a valve's stroke)
-  std::string manufacturer;  ///< as written on the component or its library model, empty if none
+  std::string manufacturer;                 ///< as written on the component or its library model, empty if none
 };
 
 /// A vote: the group works while K of its N channels work. 1oo2D is K=1, N=2 with diagnostics.
@@ -130,8 +130,8 @@ struct Subsystem {
   Role role = Role::kSensor;
   Vote vote;
   std::vector<Channel> channels;
-  double beta = 0.0;    ///< common-cause fraction of undetected failures, as entered (1oo2 value)
-  double beta_d = 0.0;  ///< common-cause fraction of detected failures, as entered
+  double beta = 0.0;              ///< common-cause fraction of undetected failures, as entered (1oo2 value)
+  double beta_d = 0.0;            ///< common-cause fraction of detected failures, as entered
   bool beta_d_defaulted = false;  ///< beta_D was not given and equals beta
   CcfScaling ccf_scaling = CcfScaling::kNone;
   Duration proof_test_interval;
@@ -157,8 +157,8 @@ struct Subsystem {
   std::optional<int> sil_capability;
   bool diverse = false;
   std::string diversity_note;
-  std::string pointer;  ///< e.g. "/sifs/0/subsystems/1"
-  std::string template_name;  ///< the "subsystem_templates" entry it was built from, empty if none
+  std::string pointer;                    ///< e.g. "/sifs/0/subsystems/1"
+  std::string template_name;              ///< the "subsystem_templates" entry it was built from, empty if none
   std::optional<Duration> response_time;  ///< the subsystem's own, instead of its elements' sum
 
   [[nodiscard]] bool is_vendor() const { return vendor_pfd_avg.has_value() || vendor_pfh.has_value(); }
@@ -195,13 +195,13 @@ struct SifRequirements {
   std::optional<Duration> proof_test_interval;  ///< the longest interval the SIF may be tested at
   std::string proof_test_coverage;              ///< what the proof test must cover (text)
   std::string energize_to_trip;                 ///< "de-energise to trip" or its reverse (text)
-  std::string action;            ///< output action and its criterion of success (tight shut-off)
-  std::string functional_relation;  ///< how the inputs decide the outputs (voting, permissives)
-  std::string fault_response;    ///< response to detected faults, with the repair time allowed
-  std::string startup_restart;   ///< start-up and restart after a trip
-  std::string interfaces;        ///< with the BPCS and the operators
-  std::string environment;       ///< environmental extremes the devices must withstand
-  std::string operating_modes;   ///< plant modes in which the SIF is needed
+  std::string action;                           ///< output action and its criterion of success (tight shut-off)
+  std::string functional_relation;              ///< how the inputs decide the outputs (voting, permissives)
+  std::string fault_response;                   ///< response to detected faults, with the repair time allowed
+  std::string startup_restart;                  ///< start-up and restart after a trip
+  std::string interfaces;                       ///< with the BPCS and the operators
+  std::string environment;                      ///< environmental extremes the devices must withstand
+  std::string operating_modes;                  ///< plant modes in which the SIF is needed
   std::string pointer;                          ///< e.g. "/sifs/0/requirements"
 };
 
@@ -276,7 +276,7 @@ struct Layer {
   std::string independence_note;
   std::string pointer;
   std::vector<std::string> applies_to_causes;  ///< credited only against these causes; empty = all
-  std::string catalogue_id;  ///< the "layer_catalogue" entry it was taken from, empty if none
+  std::string catalogue_id;                    ///< the "layer_catalogue" entry it was taken from, empty if none
 };
 
 /// A consequence of a scenario, rated in the risk criteria.

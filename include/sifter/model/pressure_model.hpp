@@ -28,14 +28,14 @@ struct PressureSource {
   std::string title;
   DataStatus status = DataStatus::kVendor;
   // Centrifugal pump.
-  Pressure suction_max;                    ///< highest suction pressure, stated by the user
-  std::optional<Density> density_max;      ///< also used for static head from a fixed source
-  double speed_max_ratio = 1.0;            ///< highest speed / rated speed (affinity: H ~ N^2)
-  std::vector<CurvePoint> curve;           ///< vendor curve, flow ascending; empty = estimate
+  Pressure suction_max;                      ///< highest suction pressure, stated by the user
+  std::optional<Density> density_max;        ///< also used for static head from a fixed source
+  double speed_max_ratio = 1.0;              ///< highest speed / rated speed (affinity: H ~ N^2)
+  std::vector<CurvePoint> curve;             ///< vendor curve, flow ascending; empty = estimate
   std::optional<Length> rated_differential;  ///< estimate: rated differential head
-  double shutoff_margin = 0.0;             ///< estimate: shutoff = rated x (1 + margin)
+  double shutoff_margin = 0.0;               ///< estimate: shutoff = rated x (1 + margin)
   // Fixed source.
-  Pressure pressure;                       ///< the upstream system's maximum
+  Pressure pressure;  ///< the upstream system's maximum
   Length elevation;
   std::string pointer;
   [[nodiscard]] bool shutoff_estimated() const { return kind == Kind::kCentrifugalPump && curve.empty(); }
@@ -45,8 +45,8 @@ struct PressureSource {
 struct PressureEquipment {
   std::string id;
   std::string title;
-  Pressure mawp;            ///< maximum allowable working pressure (or design pressure)
-  Pressure test_pressure;   ///< hydrotest pressure (stated, or MAWP x test_factor)
+  Pressure mawp;           ///< maximum allowable working pressure (or design pressure)
+  Pressure test_pressure;  ///< hydrotest pressure (stated, or MAWP x test_factor)
   Length elevation;
   DataStatus status = DataStatus::kVendor;
   std::vector<std::string> sifs;  ///< SIFs that protect it (at most one)

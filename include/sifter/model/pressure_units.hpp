@@ -63,7 +63,8 @@ Parsed<Density> parse_density(std::string_view text);
 Parsed<VolumeFlow> parse_flow(std::string_view text);
 
 /// Accepted forms, for hints.
-inline constexpr std::string_view kPressureForms = "\"12 barg\", \"13 bara\", \"150 psig\", \"1200 kPag\" or \"1.2 MPag\"";
+inline constexpr std::string_view kPressureForms =
+    "\"12 barg\", \"13 bara\", \"150 psig\", \"1200 kPag\" or \"1.2 MPag\"";
 
 /// "12.3 barg" for people.
 std::string format_pressure(double bar_gauge);

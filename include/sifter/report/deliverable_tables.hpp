@@ -2,8 +2,8 @@
 /// The deliverable's tables (report and SRS): component data with sources, subsystem
 /// parameters, requirement checks, response budget, the specification's items, document
 /// control. Plain text cells shared by the HTML and Markdown writers.
-#include "sifter/results/deliverable.hpp"
 #include "sifter/report/tables.hpp"
+#include "sifter/results/deliverable.hpp"
 
 namespace sifter::report {
 

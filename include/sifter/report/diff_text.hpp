@@ -1,8 +1,7 @@
 #pragma once
 /// Terminal text and JSON of `sifter diff`.
-#include <string>
-
 #include <nlohmann/json.hpp>
+#include <string>
 
 #include "sifter/results/diff.hpp"
 

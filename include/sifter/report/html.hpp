@@ -3,8 +3,8 @@
 /// for the screen and for A4 paper.
 #include <string>
 
-#include "sifter/results/report.hpp"
 #include "sifter/results/project.hpp"
+#include "sifter/results/report.hpp"
 
 namespace sifter::report {
 

@@ -1,7 +1,6 @@
 #pragma once
 /// The `sifter-results/1` JSON writer.
 #include <nlohmann/json.hpp>
-
 #include <ostream>
 
 #include "sifter/report/json_stream.hpp"

@@ -3,8 +3,8 @@
 #include <string>
 
 #include "sifter/report/tables.hpp"
-#include "sifter/results/report.hpp"
 #include "sifter/results/project.hpp"
+#include "sifter/results/report.hpp"
 
 namespace sifter::report {
 

@@ -2,7 +2,6 @@
 /// Writers of the options comparison: the terminal table, sifter-options/1 JSON, and the
 /// report's section with a picture of our own comparing the options.
 #include <nlohmann/json.hpp>
-
 #include <string>
 #include <vector>
 

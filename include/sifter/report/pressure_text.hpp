@@ -1,8 +1,7 @@
 #pragma once
 /// The terminal's overpressure screening and preliminary-verdict sections.
-#include <string>
-
 #include <nlohmann/json.hpp>
+#include <string>
 
 #include "sifter/results/diff.hpp"
 #include "sifter/results/project.hpp"

@@ -6,8 +6,8 @@
 #include <string>
 #include <vector>
 
-#include "sifter/results/deliverable.hpp"
 #include "sifter/report/tables.hpp"
+#include "sifter/results/deliverable.hpp"
 #include "sifter/results/project.hpp"
 
 namespace sifter::report {

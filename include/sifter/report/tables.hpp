@@ -6,8 +6,8 @@
 #include <vector>
 
 #include "sifter/model/vocabulary.hpp"
-#include "sifter/results/report.hpp"
 #include "sifter/results/project.hpp"
+#include "sifter/results/report.hpp"
 
 namespace sifter::report {
 

@@ -1,8 +1,7 @@
 #pragma once
 /// JSON and CSV of the what-if commands; keys are a contract (extend, never rename).
-#include <string>
-
 #include <nlohmann/json.hpp>
+#include <string>
 
 #include "sifter/results/whatif.hpp"
 

@@ -35,40 +35,40 @@ enum class CapCause {
 struct Cap {
   CapKind kind = CapKind::kArchitecture;
   CapCause cause = CapCause::kFaultTolerance;
-  int sil = 0;                          ///< the highest SIL this rule allows, 0..4
-  std::optional<std::string> element;   ///< component id it names, if one
-  std::string reason;                   ///< one sentence with its source
+  int sil = 0;                         ///< the highest SIL this rule allows, 0..4
+  std::optional<std::string> element;  ///< component id it names, if one
+  std::string reason;                  ///< one sentence with its source
 };
 
 /// What the constraints read from one component of a group.
 struct ElementConstraints {
-  std::string component;                      ///< component id (tag)
+  std::string component;  ///< component id (tag)
   std::optional<ElementType> type;
-  std::optional<double> sff;                  ///< the SFF used, fraction
-  bool sff_declared = false;                  ///< from the safety manual, not the rates
-  std::optional<double> dc;                   ///< diagnostic coverage from the rates, fraction
-  std::optional<double> data_confidence;      ///< as declared, fraction (Route 2H)
-  std::optional<int> sil_route_1h;            ///< Tables 2/3 at the group's HFT (Route 1H only)
-  std::optional<int> systematic_capability;   ///< as declared, SC 1..4
-  std::optional<PriorUse> prior_use;          ///< as declared (IEC 61511-1:2016 11.5.3)
+  std::optional<double> sff;                 ///< the SFF used, fraction
+  bool sff_declared = false;                 ///< from the safety manual, not the rates
+  std::optional<double> dc;                  ///< diagnostic coverage from the rates, fraction
+  std::optional<double> data_confidence;     ///< as declared, fraction (Route 2H)
+  std::optional<int> sil_route_1h;           ///< Tables 2/3 at the group's HFT (Route 1H only)
+  std::optional<int> systematic_capability;  ///< as declared, SC 1..4
+  std::optional<PriorUse> prior_use;         ///< as declared (IEC 61511-1:2016 11.5.3)
 };
 
 /// Architecture and systematic capability of one subsystem.
 struct SubsystemConstraints {
-  std::string subsystem;                      ///< Subsystem::name
+  std::string subsystem;  ///< Subsystem::name
   ConstraintBasis basis = ConstraintBasis::kIec61511;
   DemandMode mode = DemandMode::kLow;
-  bool vendor = false;                        ///< Subsystem::is_vendor()
+  bool vendor = false;  ///< Subsystem::is_vendor()
   Vote vote;
-  std::optional<int> hft;                     ///< from the vote, or declared by a vendor
-  std::optional<double> sff;                  ///< lowest SFF of its components, fraction
-  std::optional<std::string> sff_element;     ///< the component with that SFF
-  int sil_architecture = 0;                   ///< lowest architecture cap, 0..4
-  int systematic_capability = 0;              ///< lowest SC cap, 0..4 (0: cannot claim)
-  bool diversity_credit = false;              ///< SC N+1 taken, IEC 61508-2:2010 7.4.3
-  std::vector<ElementConstraints> elements;   ///< each component once, in channel order
-  std::vector<Cap> caps;                      ///< every rule applied, both kinds
-  std::vector<std::string> findings;          ///< notes and the reasons of caps below SIL 4
+  std::optional<int> hft;                    ///< from the vote, or declared by a vendor
+  std::optional<double> sff;                 ///< lowest SFF of its components, fraction
+  std::optional<std::string> sff_element;    ///< the component with that SFF
+  int sil_architecture = 0;                  ///< lowest architecture cap, 0..4
+  int systematic_capability = 0;             ///< lowest SC cap, 0..4 (0: cannot claim)
+  bool diversity_credit = false;             ///< SC N+1 taken, IEC 61508-2:2010 7.4.3
+  std::vector<ElementConstraints> elements;  ///< each component once, in channel order
+  std::vector<Cap> caps;                     ///< every rule applied, both kinds
+  std::vector<std::string> findings;         ///< notes and the reasons of caps below SIL 4
 };
 
 /// A SIF's architecture and SC: the lowest of its subsystems (series rule, IEC 61508-2:2010
@@ -90,11 +90,11 @@ struct ProbabilityCheck {
 
 /// One result that keeps a SIF below its required SIL, and what would lift it.
 struct Limit {
-  std::string kind;                       ///< "probability", "architecture" or "systematic"
-  std::optional<std::string> subsystem;   ///< Subsystem::name
-  std::optional<std::string> element;     ///< component id (tag)
-  int sil = 0;                            ///< the SIL this result allows
-  std::string message;                    ///< plain English: why, and how to lift it
+  std::string kind;                      ///< "probability", "architecture" or "systematic"
+  std::optional<std::string> subsystem;  ///< Subsystem::name
+  std::optional<std::string> element;    ///< component id (tag)
+  int sil = 0;                           ///< the SIL this result allows
+  std::string message;                   ///< plain English: why, and how to lift it
 };
 
 }  // namespace sifter

@@ -20,9 +20,9 @@ struct DiffValue {
 
 /// One input that differs between the revisions.
 struct InputChange {
-  std::string pointer;  ///< JSON pointer in the new revision (the old one for what was removed)
-  std::string what;     ///< "lambda_du of XV-401", "frequency of cause C1"
-  std::string unit;     ///< "/h" component rates, "h" durations, "/yr" frequencies, "" otherwise
+  std::string pointer;                 ///< JSON pointer in the new revision (the old one for what was removed)
+  std::string what;                    ///< "lambda_du of XV-401", "frequency of cause C1"
+  std::string unit;                    ///< "/h" component rates, "h" durations, "/yr" frequencies, "" otherwise
   std::optional<DiffValue> old_value;  ///< empty: added in the new revision
   std::optional<DiffValue> new_value;  ///< empty: removed in the new revision
 };
@@ -32,7 +32,7 @@ struct ResultChange {
   std::string quantity;  ///< the results key: "required_rrf", "pfd_avg", "sil_achieved", "meets_target", ...
   std::optional<DiffValue> old_value;
   std::optional<DiffValue> new_value;
-  std::string unit;      ///< "/yr", "/h", or empty for a pure number, a SIL or a verdict
+  std::string unit;  ///< "/yr", "/h", or empty for a pure number, a SIL or a verdict
 };
 
 /// How a verdict (meets target, tolerable) moved.
@@ -59,12 +59,10 @@ struct FunctionDiff {
   std::optional<bool> old_verdict;  ///< meets target (SIF) or tolerable (scenario); empty: not judged
   std::optional<bool> new_verdict;
   VerdictChange verdict = VerdictChange::kNone;
-  std::vector<InputChange> inputs;    ///< its own inputs, and for a SIF the components it uses
+  std::vector<InputChange> inputs;  ///< its own inputs, and for a SIF the components it uses
   std::vector<ResultChange> results;
-  std::vector<std::string> related;   ///< a SIF: the scenarios feeding it whose inputs changed
-  [[nodiscard]] bool changed() const {
-    return presence != Presence::kBoth || !inputs.empty() || !results.empty();
-  }
+  std::vector<std::string> related;  ///< a SIF: the scenarios feeding it whose inputs changed
+  [[nodiscard]] bool changed() const { return presence != Presence::kBoth || !inputs.empty() || !results.empty(); }
 };
 
 /// How the overpressure verdict of one equipment item moved between the revisions.

@@ -69,9 +69,9 @@ struct ConsequenceResult {
   double target_frequency_per_yr = 0.0;
   double modifier_product = 1.0;  ///< the modifiers that apply to this category, multiplied
   double frequency_without_sif_per_yr = 0.0;
-  double required_pfd = 1.0;      ///< target / frequency without the SIF, at most 1
-  double required_rrf = 0.0;      ///< frequency without the SIF / target (below 1: met already)
-  int required_sil = 0;           ///< from the RRF (low demand) or the required PFH (high)
+  double required_pfd = 1.0;                         ///< target / frequency without the SIF, at most 1
+  double required_rrf = 0.0;                         ///< frequency without the SIF / target (below 1: met already)
+  int required_sil = 0;                              ///< from the RRF (low demand) or the required PFH (high)
   std::optional<double> required_pfh_per_hour;       ///< whenever there is a SIF
   std::optional<double> mitigated_frequency_per_yr;  ///< with the SIF's computed figure
   std::optional<bool> meets_target;
@@ -80,11 +80,11 @@ struct ConsequenceResult {
 /// What one initiating cause contributes, before the modifiers.
 struct CauseResult {
   std::string id;
-  double frequency_per_yr = 0.0;    ///< initiating event frequency
-  double enabling_product = 1.0;    ///< its enabling conditions, multiplied
-  double demand_rate_per_yr = 0.0;  ///< x the layers credited before the SIF: demands on it
+  double frequency_per_yr = 0.0;              ///< initiating event frequency
+  double enabling_product = 1.0;              ///< its enabling conditions, multiplied
+  double demand_rate_per_yr = 0.0;            ///< x the layers credited before the SIF: demands on it
   double frequency_without_sif_per_yr = 0.0;  ///< x every layer credited against it
-  bool sif_credited = true;         ///< the SIF is independent of this cause (or justified)
+  bool sif_credited = true;                   ///< the SIF is independent of this cause (or justified)
 };
 
 /// The result of one scenario. The top-level figures are those of the governing consequence
@@ -98,17 +98,17 @@ struct ScenarioResult {
   double required_pfd = 1.0;
   double required_rrf = 0.0;
   int required_sil = 0;
-  std::optional<double> demand_rate_per_yr;        ///< demands on the SIF
-  std::optional<DemandMode> demand_mode;           ///< decided: the stated mode, else the rate's
-  std::optional<DemandMode> demand_mode_stated;    ///< as the SIF states it
-  std::optional<double> required_pfh_per_hour;     ///< high demand: the smallest over consequences
-  std::optional<double> sif_pfd_avg;               ///< the SIF's computed PFDavg used (low demand)
-  std::optional<double> sif_pfh_per_hour;          ///< the SIF's computed PFH used (high demand)
-  std::optional<double> sif_credit_pfd;            ///< what the SIF is credited with (PFD, or PFH high demand)
-  std::optional<bool> sif_credit_capped;           ///< the band of its achieved SIL caps the credit
+  std::optional<double> demand_rate_per_yr;      ///< demands on the SIF
+  std::optional<DemandMode> demand_mode;         ///< decided: the stated mode, else the rate's
+  std::optional<DemandMode> demand_mode_stated;  ///< as the SIF states it
+  std::optional<double> required_pfh_per_hour;   ///< high demand: the smallest over consequences
+  std::optional<double> sif_pfd_avg;             ///< the SIF's computed PFDavg used (low demand)
+  std::optional<double> sif_pfh_per_hour;        ///< the SIF's computed PFH used (high demand)
+  std::optional<double> sif_credit_pfd;          ///< what the SIF is credited with (PFD, or PFH high demand)
+  std::optional<bool> sif_credit_capped;         ///< the band of its achieved SIL caps the credit
   std::optional<double> mitigated_frequency_per_yr;
-  std::optional<bool> meets_target;                ///< every consequence meets its target
-  std::size_t governing_consequence = 0;           ///< index into consequences
+  std::optional<bool> meets_target;       ///< every consequence meets its target
+  std::size_t governing_consequence = 0;  ///< index into consequences
   std::vector<ConsequenceResult> consequences;
   std::vector<CauseResult> causes;
   std::vector<Finding> findings;

@@ -23,8 +23,8 @@ struct OptionResult {
   double pv_trip_cost = 0.0;
   double tests_per_yr = 0.0;
   double trips_per_yr = 0.0;
-  double lifecycle_cost = 0.0;  ///< capex + the three present values
-  std::string reason;           ///< why infeasible or not tolerable; what it rests on otherwise
+  double lifecycle_cost = 0.0;                       ///< capex + the three present values
+  std::string reason;                                ///< why infeasible or not tolerable; what it rests on otherwise
   std::optional<double> mitigated_frequency_per_yr;  ///< the scenario with this option
   bool preliminary = false;
   std::vector<std::string> preliminary_because;

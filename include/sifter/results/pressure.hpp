@@ -29,9 +29,9 @@ struct EquipmentScreening {
   double test_pressure_barg = 0.0;
   double ratio = 0.0;  ///< max pressure / MAWP (gauge)
   OverpressureCategory category = OverpressureCategory::kNone;
-  std::string source;               ///< the governing source
-  std::vector<std::string> path;    ///< ids from the governing source to the item
-  double static_head_bar = 0.0;     ///< rho g (z_source - z_item) of the governing source
+  std::string source;                  ///< the governing source
+  std::vector<std::string> path;       ///< ids from the governing source to the item
+  double static_head_bar = 0.0;        ///< rho g (z_source - z_item) of the governing source
   std::vector<std::string> estimates;  ///< the estimates its verdict rests on (empty: final)
   [[nodiscard]] bool preliminary() const { return !estimates.empty(); }
 };

@@ -41,8 +41,8 @@ struct SubsystemInterval {
 
 /// PFDavg against the proof-test intervals of one SIF (low demand).
 struct IntervalSweep {
-  std::vector<IntervalPoint> points;     ///< from kSweepMinFactor to kSweepMaxFactor, geometric
-  double required_pfd = 0.0;             ///< the PFDavg the SIF must not exceed
+  std::vector<IntervalPoint> points;  ///< from kSweepMinFactor to kSweepMaxFactor, geometric
+  double required_pfd = 0.0;          ///< the PFDavg the SIF must not exceed
   /// The longest interval, from the what-if engine (longest_proof_test_interval, every tested
   /// subsystem together, no margin): the same answer `sifter interval` gives. Empty when the
   /// SIF has no requirement to solve against.
@@ -62,7 +62,7 @@ struct SensitivityRow {
 
 /// The drawings of one SIF.
 struct SifReportData {
-  std::optional<PfdPlot> pfd_curve;            ///< low demand only (PFD(t) has no meaning for PFH)
+  std::optional<PfdPlot> pfd_curve;             ///< low demand only (PFD(t) has no meaning for PFH)
   std::optional<IntervalSweep> interval_sweep;  ///< low demand with a required PFD
   std::vector<SensitivityRow> sensitivity;      ///< largest swing first; empty: not computed in this run
   std::optional<double> required_pfd;  ///< the line drawn: the stricter of the required PFD and the required SIL's band
@@ -76,11 +76,11 @@ struct ReportData {
   std::string date;          ///< of the run, ISO 8601 ("2025-01-31")
   std::string tool_version;  ///< SIFTER_VERSION
   bool exact_requested = true;
-  std::vector<SifReportData> sifs;  ///< one per ProjectResult::sifs, same order
-  DeliverableData deliverable;      ///< document control, component data, requirements
-  bool compact = false;             ///< register mode: figures and long tables left out
+  std::vector<SifReportData> sifs;               ///< one per ProjectResult::sifs, same order
+  DeliverableData deliverable;                   ///< document control, component data, requirements
+  bool compact = false;                          ///< register mode: figures and long tables left out
   std::shared_ptr<const ServiceResult> service;  ///< in-service records assessed (report --records), or null
-  std::vector<ScenarioOptions> options;  ///< the options of each scenario that lists some
+  std::vector<ScenarioOptions> options;          ///< the options of each scenario that lists some
 };
 
 /// Options of a report run.

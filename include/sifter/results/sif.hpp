@@ -4,9 +4,9 @@
 #include <string>
 #include <vector>
 
-#include "sifter/results/constraints.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/model.hpp"
+#include "sifter/results/constraints.hpp"
 
 namespace sifter {
 
@@ -20,26 +20,26 @@ inline constexpr const char* kCaution =
 /// On what an element's systematic result rests: its SC or a prior-use claim.
 struct SystematicBasis {
   std::string component;
-  std::string basis;             ///< "systematic capability", "prior use" or "none"
-  std::optional<int> sil;        ///< the SC or the SIL claimed on prior use
-  std::string evidence;          ///< the prior-use evidence, quoted
+  std::string basis;       ///< "systematic capability", "prior use" or "none"
+  std::optional<int> sil;  ///< the SC or the SIL claimed on prior use
+  std::string evidence;    ///< the prior-use evidence, quoted
 };
 
 /// One step of a SIF's response time: a subsystem's time and the element that governs it.
 struct ResponseTimeStep {
   std::string subsystem;
-  std::optional<double> seconds;       ///< empty when an element's response time is not stated
-  std::vector<std::string> path;       ///< the slowest channel's elements ("SOV-1", "XV-1")
-  std::vector<double> path_seconds;    ///< their own times, same order
-  bool stated_on_subsystem = false;    ///< "response_time" written on the subsystem itself
-  std::vector<std::string> missing;    ///< elements without a response time
+  std::optional<double> seconds;     ///< empty when an element's response time is not stated
+  std::vector<std::string> path;     ///< the slowest channel's elements ("SOV-1", "XV-1")
+  std::vector<double> path_seconds;  ///< their own times, same order
+  bool stated_on_subsystem = false;  ///< "response_time" written on the subsystem itself
+  std::vector<std::string> missing;  ///< elements without a response time
 };
 
 /// A computed check of a SIF against its stated requirements.
 struct RequirementCheck {
-  std::string check;             ///< "response_time_s", "spurious_trip_rate_per_yr", "proof_test_interval_h"
+  std::string check;  ///< "response_time_s", "spurious_trip_rate_per_yr", "proof_test_interval_h"
   bool ok = true;
-  double value = 0.0;            ///< in the unit the check's name ends with
+  double value = 0.0;  ///< in the unit the check's name ends with
   double limit = 0.0;
   std::string message;
 };
@@ -49,11 +49,11 @@ enum class JudgedOn { kSimplified, kExact };
 
 /// Why the judged figure is the one it is.
 enum class JudgedWhy {
-  kOnlyFigure,         ///< no exact figure (not run, or the exact engine cannot model a group)
-  kMoreConservative,   ///< the default rule: the larger of the two
-  kProjectChoice,      ///< the project's "judge_on"
-  kChannelsDiffer,     ///< the Annex B forms need identical channels
-  kBeyondSimplified,   ///< the simplified figure is outside its validity (lDU T1 large, or above 1)
+  kOnlyFigure,        ///< no exact figure (not run, or the exact engine cannot model a group)
+  kMoreConservative,  ///< the default rule: the larger of the two
+  kProjectChoice,     ///< the project's "judge_on"
+  kChannelsDiffer,    ///< the Annex B forms need identical channels
+  kBeyondSimplified,  ///< the simplified figure is outside its validity (lDU T1 large, or above 1)
 };
 
 /// "simplified" or "exact"; and the reason in words.
@@ -66,21 +66,21 @@ std::string ratio_text(double ratio);
 /// The result of one subsystem (voting group or vendor figure).
 struct SubsystemResult {
   std::string name;
-  std::string template_name;        ///< the subsystem template it was built from, empty if none
+  std::string template_name;  ///< the subsystem template it was built from, empty if none
   Role role = Role::kSensor;
-  std::string vote;                 ///< "2oo3", or "vendor" for a safety-manual figure
-  std::optional<Vote> voting;       ///< the vote as data; empty for a safety-manual figure
+  std::string vote;                                ///< "2oo3", or "vendor" for a safety-manual figure
+  std::optional<Vote> voting;                      ///< the vote as data; empty for a safety-manual figure
   std::vector<std::vector<std::string>> channels;  ///< component tags of each channel
   std::optional<double> pfd_avg;
   std::optional<double> pfh_per_hour;
-  double share = 0.0;               ///< of the SIF's PFDavg (or PFH)
+  double share = 0.0;  ///< of the SIF's PFDavg (or PFH)
   double independent_undetected = 0.0;
   double independent_detected = 0.0;
   double common_cause = 0.0;
   double beta_effective = 0.0;
   double beta_d_effective = 0.0;
   std::string equation;
-  FailureRates channel_rates;       ///< one channel's rates, series elements added
+  FailureRates channel_rates;  ///< one channel's rates, series elements added
   Duration proof_test_interval;
   // Architectural constraints and systematic capability.
   std::optional<int> hft;
@@ -149,7 +149,7 @@ struct SifResult {
   std::optional<double> pfh_simplified_per_hour;
   JudgedOn judged_on = JudgedOn::kSimplified;
   JudgedWhy judged_why = JudgedWhy::kOnlyFigure;
-  bool demand_mode_raised = false;  ///< stated low demand, demanded more than once a year: judged high
+  bool demand_mode_raised = false;   ///< stated low demand, demanded more than once a year: judged high
   std::optional<double> credit_pfd;  ///< the PFD (or PFH) its scenarios credit: judged, no better than its SIL band
   bool credit_capped = false;
   // Spurious trips.
@@ -157,8 +157,8 @@ struct SifResult {
   std::optional<double> mttf_spurious_yr;
   std::optional<UncertaintyResult> uncertainty;
   // Stated requirements (the SRS) and the checks computed against them.
-  std::optional<double> response_time_s;        ///< empty when an element's time is not stated
-  std::optional<double> response_time_limit_s;  ///< fraction x process safety time; empty without one
+  std::optional<double> response_time_s;          ///< empty when an element's time is not stated
+  std::optional<double> response_time_limit_s;    ///< fraction x process safety time; empty without one
   std::vector<ResponseTimeStep> response_budget;  ///< the subsystems in signal order
   std::vector<RequirementCheck> requirement_checks;
   // Data maturity: the verdict rests on these estimates (empty: it does not).

@@ -22,21 +22,21 @@ enum class IntervalOutcome {
 /// The longest proof-test interval with which a SIF still meets its requirement.
 struct IntervalResult {
   std::string sif;
-  std::optional<std::string> subsystem;      ///< empty: all of the SIF's tested subsystems together
-  std::vector<std::string> varied;           ///< the subsystems whose interval was varied
-  std::vector<Duration> current_intervals;   ///< their intervals in the project, same order
+  std::optional<std::string> subsystem;     ///< empty: all of the SIF's tested subsystems together
+  std::vector<std::string> varied;          ///< the subsystems whose interval was varied
+  std::vector<Duration> current_intervals;  ///< their intervals in the project, same order
   Requirement requirement;
-  double margin = 0.0;                       ///< kept below the requirement, fraction
-  double allowed = 0.0;                      ///< requirement.value x (1 - margin)
+  double margin = 0.0;   ///< kept below the requirement, fraction
+  double allowed = 0.0;  ///< requirement.value x (1 - margin)
   IntervalOutcome outcome = IntervalOutcome::kFound;
-  Duration longest;                          ///< kFound: the solution; kWholeMission: the mission time
-  int whole_months = 0;                      ///< the largest whole number of months that meets it
-  double measure_at_longest = 0.0;           ///< PFDavg (PFH per hour) at `longest`
+  Duration longest;                 ///< kFound: the solution; kWholeMission: the mission time
+  int whole_months = 0;             ///< the largest whole number of months that meets it
+  double measure_at_longest = 0.0;  ///< PFDavg (PFH per hour) at `longest`
   std::optional<double> measure_at_whole_months;
-  double measure_now = 0.0;                  ///< with the project's intervals
-  double measure_at_zero = 0.0;              ///< at interval 0: the terms the interval does not touch
-  Duration mission;                          ///< upper end of the search
-  std::vector<std::string> notes;            ///< what the interval cannot fix, the method
+  double measure_now = 0.0;        ///< with the project's intervals
+  double measure_at_zero = 0.0;    ///< at interval 0: the terms the interval does not touch
+  Duration mission;                ///< upper end of the search
+  std::vector<std::string> notes;  ///< what the interval cannot fix, the method
 };
 
 /// A parameter `sweep` can vary.
