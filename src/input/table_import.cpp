@@ -346,7 +346,7 @@ class Importer {
       for (const auto& c : t.layout->columns) {
         if (c.path.empty()) continue;
         const std::string text = cell(t, row, c.header);
-        put(sif, p, c.path, text.empty() ? OJson() : value_of(c.kind, text), place(t, row, c.header));
+        put(sif, p, c.path, text.empty() ? OJson() : cell_value(c.kind, text), place(t, row, c.header));
       }
     });
   }
