@@ -122,42 +122,7 @@ class Cursor {
         continue;
       }
       if (++i_ >= text_.size()) return false;
-      const char e = text_[i_++];
-      switch (e) {
-        case 'n':
-          buffer += '\n';
-          break;
-        case 't':
-          buffer += '\t';
-          break;
-        case 'r':
-          buffer += '\r';
-          break;
-        case 'b':
-          buffer += '\b';
-          break;
-        case 'f':
-          buffer += '\f';
-          break;
-        case 'u': {
-          std::uint32_t cp = 0;
-          if (!read_hex4(cp)) return false;
-          if (cp >= 0xD800 && cp <= 0xDBFF && i_ + 1 < text_.size() && text_[i_] == '\\' && text_[i_ + 1] == 'u') {
-            const std::size_t back = i_;
-            i_ += 2;
-            std::uint32_t low = 0;
-            if (read_hex4(low) && low >= 0xDC00 && low <= 0xDFFF)
-              cp = 0x10000 + ((cp - 0xD800) << 10) + (low - 0xDC00);
-            else
-              i_ = back;  // a lone surrogate: the parser refuses the text anyway
-          }
-          append_utf8(buffer, cp);
-          break;
-        }
-        default:
-          buffer += e;
-          break;
-      }
+      if (!read_escape(buffer)) return false;
     }
     return false;
   }
@@ -170,6 +135,46 @@ class Cursor {
   }
 
  private:
+  // Decodes the escape after a backslash (the cursor on its letter) into `buffer`; false on bad syntax.
+  bool read_escape(std::string& buffer) {
+    const char e = text_[i_++];
+    switch (e) {
+      case 'n':
+        buffer += '\n';
+        break;
+      case 't':
+        buffer += '\t';
+        break;
+      case 'r':
+        buffer += '\r';
+        break;
+      case 'b':
+        buffer += '\b';
+        break;
+      case 'f':
+        buffer += '\f';
+        break;
+      case 'u': {
+        std::uint32_t cp = 0;
+        if (!read_hex4(cp)) return false;
+        if (cp >= 0xD800 && cp <= 0xDBFF && i_ + 1 < text_.size() && text_[i_] == '\\' && text_[i_ + 1] == 'u') {
+          const std::size_t back = i_;
+          i_ += 2;
+          std::uint32_t low = 0;
+          if (read_hex4(low) && low >= 0xDC00 && low <= 0xDFFF)
+            cp = 0x10000 + ((cp - 0xD800) << 10) + (low - 0xDC00);
+          else
+            i_ = back;  // a lone surrogate: the parser refuses the text anyway
+        }
+        append_utf8(buffer, cp);
+        break;
+      }
+      default:
+        buffer += e;
+        break;
+    }
+    return true;
+  }
   bool read_hex4(std::uint32_t& out) {
     if (i_ + 4 > text_.size()) return false;
     out = 0;

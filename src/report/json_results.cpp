@@ -230,6 +230,21 @@ void emit_uncertainty(W& w, const SifResult& s) {
 }
 
 template <typename W>
+void emit_requirement_checks(W& w, const SifResult& s) {
+  w.key("requirement_checks").begin_array();
+  for (const auto& c : s.requirement_checks) {
+    w.begin_object();
+    w.key("check").value(c.check);
+    w.key("ok").value(c.ok);
+    w.key("value").number(c.value, "requirement value");
+    w.key("limit").number(c.limit, "requirement limit");
+    w.key("message").value(c.message);
+    w.end_object();
+  }
+  w.end_array();
+}
+
+template <typename W>
 void emit_sif(W& w, const SifResult& s) {
   w.begin_object();
   w.key("id").value(s.id);
@@ -265,17 +280,7 @@ void emit_sif(W& w, const SifResult& s) {
   emit_uncertainty(w, s);
   w.key("response_time_s").number(s.response_time_s, "response_time_s");
   w.key("response_time_limit_s").number(s.response_time_limit_s, "response_time_limit_s");
-  w.key("requirement_checks").begin_array();
-  for (const auto& c : s.requirement_checks) {
-    w.begin_object();
-    w.key("check").value(c.check);
-    w.key("ok").value(c.ok);
-    w.key("value").number(c.value, "requirement value");
-    w.key("limit").number(c.limit, "requirement limit");
-    w.key("message").value(c.message);
-    w.end_object();
-  }
-  w.end_array();
+  emit_requirement_checks(w, s);
   w.key("pfd_avg_simplified").number(s.pfd_avg_simplified, "pfd_avg_simplified");
   w.key("pfh_simplified").number(s.pfh_simplified_per_hour, "pfh_simplified");
   w.key("pfd_avg_judged").number(s.pfd_avg, "pfd_avg_judged");
