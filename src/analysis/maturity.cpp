@@ -3,6 +3,8 @@
 
 #include <algorithm>
 #include <map>
+#include <string_view>
+#include <unordered_map>
 
 namespace sifter {
 namespace {
@@ -26,19 +28,41 @@ std::vector<std::string> scenario_estimates(const Scenario& scenario) {
   return out;
 }
 
+namespace {
+
+// Scenario results by id, so that a register of thousands of SIFs and scenarios is marked in
+// time proportional to its size.
+using ScenarioIndex = std::unordered_map<std::string_view, std::vector<const ScenarioResult*>>;
+
+ScenarioIndex index_by_id(const std::vector<ScenarioResult>& scenarios) {
+  ScenarioIndex index;
+  index.reserve(scenarios.size());
+  for (const auto& s : scenarios) index[s.id].push_back(&s);
+  return index;
+}
+
 std::vector<std::string> sif_estimates(const Project& project, const Sif& sif, const SifResult& result,
-                                       const std::vector<ScenarioResult>& scenarios) {
+                                       const ScenarioIndex& scenarios) {
   std::vector<std::string> out;
   for (const auto& sub : sif.subsystems)
     for (const auto& ch : sub.channels)
       for (std::size_t c : ch.components)
         if (c < project.components.size() && project.components[c].status == DataStatus::kEstimate)
           add_once(out, "data of component " + project.components[c].id + " (status estimate)");
-  for (const auto& id : result.scenarios)
-    for (const auto& s : scenarios)
-      if (s.id == id && s.preliminary)
-        add_once(out, "requirement from scenario " + id + ": " + joined(s.preliminary_because));
+  for (const auto& id : result.scenarios) {
+    auto found = scenarios.find(id);
+    if (found == scenarios.end()) continue;
+    for (const ScenarioResult* s : found->second)
+      if (s->preliminary) add_once(out, "requirement from scenario " + id + ": " + joined(s->preliminary_because));
+  }
   return out;
+}
+
+}  // namespace
+
+std::vector<std::string> sif_estimates(const Project& project, const Sif& sif, const SifResult& result,
+                                       const std::vector<ScenarioResult>& scenarios) {
+  return sif_estimates(project, sif, result, index_by_id(scenarios));
 }
 
 void mark_preliminary(const Project& project, ProjectResult& result) {
@@ -51,9 +75,10 @@ void mark_preliminary(const Project& project, ProjectResult& result) {
     r.preliminary_because = scenario_estimates(*it->second);
     r.preliminary = !r.preliminary_because.empty();
   }
+  const ScenarioIndex scenarios = index_by_id(result.scenarios);
   for (std::size_t i = 0; i < result.sifs.size() && i < project.sifs.size(); ++i) {
     auto& r = result.sifs[i];
-    r.preliminary_because = sif_estimates(project, project.sifs[i], r, result.scenarios);
+    r.preliminary_because = sif_estimates(project, project.sifs[i], r, scenarios);
     r.preliminary = !r.preliminary_because.empty();
   }
 }

@@ -56,7 +56,7 @@ std::function<void(long long, long long)> progress_bar() {
 int run_check(const CheckOptions& options) {
   report::refuse_overwriting_inputs(
       {options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path}, {options.project});
-  const LoadedProject loaded = load_project_file(options.project);
+  const LoadedProject& loaded = keep_until_exit(load_project_file(options.project));
   report::refuse_overwriting_inputs(
       {options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path}, loaded.inputs);
   for (const auto& id : options.sifs) find_sif(loaded.project, id);  // an unknown id is a usage error
@@ -66,7 +66,7 @@ int run_check(const CheckOptions& options) {
   vo.seed = options.seed;
   vo.threads = options.threads;
   if (options.samples > 0) vo.progress = progress_bar();
-  const ProjectResult result = verify_project(loaded, vo);
+  const ProjectResult& result = keep_until_exit(verify_project(loaded, vo));
   // Render everything before any output is renamed into place, so that a failure leaves no
   // partial output. The JSON goes SIF by SIF into its temporary file: a register of
   // thousands of SIFs is never one tree in memory.

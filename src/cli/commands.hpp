@@ -2,7 +2,10 @@
 // The subcommands of the sifter program; each file adds one and returns its action.
 #include <CLI/CLI.hpp>
 #include <functional>
+#include <memory>
 #include <string>
+#include <type_traits>
+#include <vector>
 
 #include "sifter/model/civil_date.hpp"
 #include "sifter/model/model.hpp"
@@ -11,6 +14,18 @@ namespace sifter::cli {
 
 /// What a subcommand does once its options are parsed; returns the exit status.
 using Action = std::function<int()>;
+
+/// Moves a large value (a loaded register, its results) to the heap and keeps it until the
+/// process ends: the operating system takes the memory back at exit far faster than a walk
+/// of destructors over millions of small allocations. The value stays reachable from a
+/// global, so leak checkers do not report it.
+template <typename T>
+const T& keep_until_exit(T&& value) {
+  static auto* kept = new std::vector<std::shared_ptr<const void>>();
+  auto held = std::make_shared<const std::decay_t<T>>(std::forward<T>(value));
+  kept->push_back(held);
+  return *held;
+}
 
 /// The SIF of that id, or a UsageError listing the ids there are.
 const Sif& find_sif(const Project& project, const std::string& id);

@@ -1,6 +1,8 @@
 // Demand-mode consistency and the signal path of a SIF (see plausibility.hpp).
 #include "sifter/engines/plausibility.hpp"
 
+#include <algorithm>
+
 namespace sifter {
 
 std::vector<GraphProblem> demand_mode_mismatches(const Sif& sif, DemandMode mode, const std::string& basis) {
@@ -53,6 +55,35 @@ std::vector<Warning> signal_path_warnings(const Sif& sif) {
   };
   if (!sensor) add("sensor");
   if (!final_element) add("final-element");
+  return out;
+}
+
+}  // namespace sifter
+
+namespace sifter {
+
+SifsByPlace::SifsByPlace(const Project& project) {
+  by_pointer_.reserve(project.sifs.size());
+  by_id_.reserve(project.sifs.size());
+  for (std::size_t i = 0; i < project.sifs.size(); ++i) {
+    by_pointer_[project.sifs[i].pointer].push_back(i);
+    by_id_[project.sifs[i].id].push_back(i);
+  }
+}
+
+std::vector<std::size_t> SifsByPlace::named_by(const std::string& where) const {
+  std::vector<std::size_t> out;
+  auto add = [&](const auto& map, std::string_view key) {
+    auto found = map.find(key);
+    if (found != map.end()) out.insert(out.end(), found->second.begin(), found->second.end());
+  };
+  add(by_id_, where);
+  add(by_pointer_, where);
+  // A place inside a SIF: every proper prefix of `where` that ends before a '/'.
+  for (std::size_t slash = where.find('/'); slash != std::string::npos; slash = where.find('/', slash + 1))
+    add(by_pointer_, std::string_view(where).substr(0, slash));
+  std::sort(out.begin(), out.end());
+  out.erase(std::unique(out.begin(), out.end()), out.end());
   return out;
 }
 

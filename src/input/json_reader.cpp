@@ -200,6 +200,7 @@ std::optional<int> ObjectReader::integer(const std::string& key, int lo, int hi,
   if (const Json* v = present(key);
       v && v->is_number_integer() && v->get<long long>() >= lo && v->get<long long>() <= hi)
     return static_cast<int>(v->get<long long>());
+  if (absent_and_optional(key, required)) return std::nullopt;
   const std::string expected = "a whole number from " + std::to_string(lo) + " to " + std::to_string(hi);
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -225,6 +226,7 @@ std::optional<double> ObjectReader::fraction(const std::string& key, bool requir
     const double x = v->get<double>();
     if (std::isfinite(x) && x >= 0.0 && x <= 1.0) return without_negative_zero(x);
   }
+  if (absent_and_optional(key, required)) return std::nullopt;
   const std::string expected = "a fraction from 0 to 1, such as 0.05 or \"5%\"";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -243,6 +245,7 @@ std::optional<double> ObjectReader::probability(const std::string& key, bool req
     const double x = v->get<double>();
     if (std::isfinite(x) && x >= 0.0 && x <= 1.0) return without_negative_zero(x);
   }
+  if (absent_and_optional(key, required)) return std::nullopt;
   const std::string expected = "a probability from 0 to 1";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -258,6 +261,7 @@ std::optional<Rate> ObjectReader::rate(const std::string& key, bool required) {
     auto parsed = parse_rate(v->get_ref<const std::string&>());
     if (parsed.value) return parsed.value;
   }
+  if (absent_and_optional(key, required)) return std::nullopt;
   const std::string expected = "a rate with its unit";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -278,6 +282,7 @@ std::optional<Duration> ObjectReader::duration(const std::string& key, bool requ
     auto parsed = parse_duration(v->get_ref<const std::string&>());
     if (parsed.value) return parsed.value;
   }
+  if (absent_and_optional(key, required)) return std::nullopt;
   const std::string expected = "a duration with its unit";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -298,6 +303,7 @@ std::optional<std::string> ObjectReader::choice(const std::string& key, std::ini
   if (const Json* v = present(key); v && v->is_string())
     for (const char* a : allowed)
       if (v->get_ref<const std::string&>() == a) return v->get<std::string>();
+  if (absent_and_optional(key, required)) return std::nullopt;
   std::string list;
   std::vector<std::string> names;
   for (const char* a : allowed) {
@@ -339,6 +345,14 @@ std::vector<std::string> ObjectReader::strings(const std::string& key) {
 
 // A key may be marked twice; finish() removes the repeats from its hint.
 void ObjectReader::mark_known(std::string_view key) { known_.emplace_back(key); }
+
+// The slow paths of the typed reads build their messages; an optional key that is simply
+// absent needs none, so it is marked known and answered before any text is made.
+bool ObjectReader::absent_and_optional(const std::string& key, bool required) {
+  if (required || (is_object_ && value_.contains(key))) return false;
+  mark_known(key);
+  return true;
+}
 
 void ObjectReader::allow(std::initializer_list<const char*> keys) {
   for (const char* k : keys) mark_known(k);

@@ -100,6 +100,7 @@ class ObjectReader {
   std::string what_;
   bool is_object_;
   void mark_known(std::string_view key);
+  bool absent_and_optional(const std::string& key, bool required);
   const Json* present(const std::string& key);
 
   std::vector<std::string> known_;  ///< a few dozen keys at most: a flat list beats a tree

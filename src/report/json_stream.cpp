@@ -3,7 +3,9 @@
 
 #include <cassert>
 #include <charconv>
+#include <cstdint>
 #include <cstdio>
+#include <cstring>
 
 #include "sifter/model/format.hpp"
 
@@ -89,33 +91,64 @@ JsonStream& JsonStream::end_array() {
 
 // RFC 8259 section 7: quote, backslash and control characters escaped; UTF-8 passes through
 // (the loader accepts only valid UTF-8, so every text here is valid).
+namespace {
+bool needs_escape(char c) { return c == '"' || c == '\\' || static_cast<unsigned char>(c) < 0x20; }
+
+// The first byte at or after `from` that must be escaped, or text.size(). Eight bytes are
+// tested at once (a word has a byte below 0x20, a quote or a backslash exactly when these
+// masks are non-zero; bytes of 0x80 and above never match); the byte itself is then found
+// one at a time.
+std::size_t first_to_escape(std::string_view text, std::size_t from) {
+  constexpr std::uint64_t kOnes = 0x0101010101010101ULL;
+  constexpr std::uint64_t kHigh = 0x8080808080808080ULL;
+  std::size_t i = from;
+  for (; i + 8 <= text.size(); i += 8) {
+    std::uint64_t w = 0;
+    std::memcpy(&w, text.data() + i, 8);
+    const std::uint64_t quote = w ^ (kOnes * '"');
+    const std::uint64_t backslash = w ^ (kOnes * '\\');
+    const std::uint64_t hits = ((w - kOnes * 0x20) | (quote - kOnes) | (backslash - kOnes)) & ~w & kHigh;
+    if (hits != 0) break;
+  }
+  while (i < text.size() && !needs_escape(text[i])) ++i;
+  return i;
+}
+}  // namespace
+
 void JsonStream::escaped(std::string_view text) {
   buffer_ += '"';
-  for (const char c : text) {
-    const auto u = static_cast<unsigned char>(c);
-    if (c == '"')
-      buffer_ += "\\\"";
-    else if (c == '\\')
-      buffer_ += "\\\\";
-    else if (u >= 0x20)
-      buffer_ += c;
-    else if (c == '\n')
-      buffer_ += "\\n";
-    else if (c == '\t')
-      buffer_ += "\\t";
-    else if (c == '\r')
-      buffer_ += "\\r";
-    else if (c == '\b')
-      buffer_ += "\\b";
-    else if (c == '\f')
-      buffer_ += "\\f";
-    else {
-      char buf[8];
-      std::snprintf(buf, sizeof buf, "\\u%04x", u);
-      buffer_ += buf;
-    }
+  // Runs of characters that pass through unchanged are appended whole (most texts are one run).
+  for (std::size_t from = 0;;) {
+    const std::size_t i = first_to_escape(text, from);
+    buffer_.append(text.data() + from, i - from);
+    if (i == text.size()) break;
+    escape_one(text[i]);
+    from = i + 1;
   }
   buffer_ += '"';
+}
+
+void JsonStream::escape_one(char c) {
+  const auto u = static_cast<unsigned char>(c);
+  if (c == '"')
+    buffer_ += "\\\"";
+  else if (c == '\\')
+    buffer_ += "\\\\";
+  else if (c == '\n')
+    buffer_ += "\\n";
+  else if (c == '\t')
+    buffer_ += "\\t";
+  else if (c == '\r')
+    buffer_ += "\\r";
+  else if (c == '\b')
+    buffer_ += "\\b";
+  else if (c == '\f')
+    buffer_ += "\\f";
+  else {
+    char buf[8];
+    std::snprintf(buf, sizeof buf, "\\u%04x", u);
+    buffer_ += buf;
+  }
 }
 
 JsonStream& JsonStream::value(std::string_view text) {

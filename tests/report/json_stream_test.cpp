@@ -59,6 +59,26 @@ TEST(JsonStream, TextsAreEscapedAsJsonRequires) {
   EXPECT_EQ(nlohmann::json::parse(text).get<std::string>(), nasty);
 }
 
+// The escaping scans eight bytes at a time: a character to escape at every offset of a word,
+// beside UTF-8 and every control character, must come out as nlohmann::json writes it
+// (an independent implementation of RFC 8259 section 7).
+TEST(JsonStream, TextsAreEscapedAsNlohmannWritesThemWhereverTheCharacterFalls) {
+  const std::string specials = std::string("\"\\\n\t\r\b\f\x01\x1f", 9) + std::string(1, '\0');
+  std::vector<std::string> texts = {"", "plain text longer than one word", "\xc3\xa9t\xc3\xa9 \xe2\x89\xa4 1e-3 /h ~"};
+  for (char c : specials)
+    for (std::size_t at = 0; at < 20; ++at) {
+      std::string t(21, 'a');
+      t[at] = c;
+      texts.push_back(t);
+      texts.push_back("\xce\xbb" + t.substr(0, at + 1));  // a two-byte letter before it
+    }
+  for (int c = 0; c < 0x20; ++c) texts.push_back("control " + std::string(1, static_cast<char>(c)) + " here");
+  for (const auto& t : texts) {
+    const std::string ours = written(JsonLayout::kCompact, [&](JsonStream& w) { w.value(t); });
+    EXPECT_EQ(ours, nlohmann::json(t).dump()) << "text of " << t.size() << " bytes";
+  }
+}
+
 TEST(JsonStream, NonFiniteNumberIsRefusedAsAnInternalError) {
   for (double bad : {std::numeric_limits<double>::quiet_NaN(), std::numeric_limits<double>::infinity()}) {
     try {

@@ -1,7 +1,10 @@
 #pragma once
 /// Physical and logical plausibility of a SIF that needs its demand mode: the supplier's figure
 /// and the target must be of that mode; the signal path should reach from sensor to final element.
+#include <cstddef>
 #include <string>
+#include <string_view>
+#include <unordered_map>
 #include <vector>
 
 #include "sifter/graph/plant_graph.hpp"
@@ -20,16 +23,27 @@ std::vector<GraphProblem> demand_mode_mismatches(const Sif& sif, DemandMode mode
 /// stated "path_exception" is quoted back in the warning.
 std::vector<Warning> signal_path_warnings(const Sif& sif);
 
+/// The SIFs (indices into Project::sifs) that a warning's place names: the SIF's pointer, a
+/// place inside it, or its id; each index once, in increasing order.
+class SifsByPlace {
+ public:
+  explicit SifsByPlace(const Project& project);
+  [[nodiscard]] std::vector<std::size_t> named_by(const std::string& where) const;
+
+ private:
+  std::unordered_map<std::string_view, std::vector<std::size_t>> by_pointer_;
+  std::unordered_map<std::string_view, std::vector<std::size_t>> by_id_;
+};
+
 /// Copies into each SIF's own `warnings` every warning about it (its pointer, a place inside
-/// it, or its id), so that the SIF's block shows what `warnings` lists.
+/// it, or its id), so that the SIF's block shows what `warnings` lists. Each warning is looked
+/// up by its place, so the work grows with the warnings, not with warnings times SIFs.
 template <typename SifResults>
 void attach_sif_warnings(const Project& project, const std::vector<Warning>& warnings, SifResults& sifs) {
-  for (std::size_t i = 0; i < sifs.size() && i < project.sifs.size(); ++i) {
-    const std::string& p = project.sifs[i].pointer;
-    for (const auto& w : warnings)
-      if (w.where == p || w.where == project.sifs[i].id || w.where.rfind(p + "/", 0) == 0)
-        sifs[i].warnings.push_back(w.message);
-  }
+  const SifsByPlace index(project);
+  for (const auto& w : warnings)
+    for (std::size_t i : index.named_by(w.where))
+      if (i < sifs.size()) sifs[i].warnings.push_back(w.message);
 }
 
 }  // namespace sifter

@@ -10,6 +10,7 @@
 #include <cstddef>
 #include <map>
 #include <string>
+#include <unordered_map>
 #include <vector>
 
 #include "sifter/model/model.hpp"
@@ -71,18 +72,18 @@ class DependencyGraph {
     DependencyKind kind = DependencyKind::kDevice;
     std::string name;
   };
-  // setS out-edges: a device listed twice by one party is one edge. bidirectionalS keeps the
-  // in-edges for queries from the device side.
-  using Graph = boost::adjacency_list<boost::setS, boost::vecS, boost::bidirectionalS, Node>;
+  // vecS out-edges: a device listed twice by one party is two edges, which every walk visits
+  // once (reach_devices keeps a visited set); a tree per vertex cost more than the walks.
+  using Graph = boost::adjacency_list<boost::vecS, boost::vecS, boost::directedS, Node>;
 
   Vertex add_vertex(DependencyKind kind, const std::string& name);
   // Device vertices reachable from v; through_sifs = false stops at SIF vertices.
   [[nodiscard]] std::vector<Vertex> reach_devices(Vertex v, bool through_sifs) const;
 
   Graph graph_;
-  std::map<std::string, Vertex> devices_;
-  std::map<std::string, Vertex> components_;
-  std::map<std::string, Vertex> sifs_;
+  std::unordered_map<std::string, Vertex> devices_;
+  std::unordered_map<std::string, Vertex> components_;
+  std::unordered_map<std::string, Vertex> sifs_;
 };
 
 /// The devices of a project on which several SIFs or scenarios rely (see

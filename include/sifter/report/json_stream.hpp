@@ -53,6 +53,7 @@ class JsonStream {
   void before_value();
   void newline();
   void escaped(std::string_view text);
+  void escape_one(char c);
 
   std::ostream& out_;
   bool pretty_;
