@@ -27,7 +27,7 @@ add_test(NAME example_unit40_report
 add_test(NAME browser_renders_the_example_report
          COMMAND sh ${CMAKE_CURRENT_SOURCE_DIR}/browser_test.sh $<TARGET_FILE:sifter>
                  ${PROJECT_SOURCE_DIR}/examples/unit40.json ${CMAKE_CURRENT_BINARY_DIR}/browser 8 30)
-set_tests_properties(browser_renders_the_example_report PROPERTIES SKIP_RETURN_CODE 77 TIMEOUT 300)
+set_tests_properties(browser_renders_the_example_report PROPERTIES LABELS browser SKIP_RETURN_CODE 77 TIMEOUT 300)
 
 # The deliverables example: requirements, prior-use devices, data sources and document control.
 add_test(NAME example_unit70_requirements_meets_targets
@@ -44,11 +44,11 @@ add_test(NAME example_unit70_report
 add_test(NAME browser_renders_the_example_srs
          COMMAND sh ${CMAKE_CURRENT_SOURCE_DIR}/browser_test.sh $<TARGET_FILE:sifter>
                  ${PROJECT_SOURCE_DIR}/examples/unit70_requirements.json ${CMAKE_CURRENT_BINARY_DIR}/browser-srs 2 12 srs)
-set_tests_properties(browser_renders_the_example_srs PROPERTIES SKIP_RETURN_CODE 77 TIMEOUT 300)
+set_tests_properties(browser_renders_the_example_srs PROPERTIES LABELS browser SKIP_RETURN_CODE 77 TIMEOUT 300)
 add_test(NAME browser_renders_the_requirements_report
          COMMAND sh ${CMAKE_CURRENT_SOURCE_DIR}/browser_test.sh $<TARGET_FILE:sifter>
                  ${PROJECT_SOURCE_DIR}/examples/unit70_requirements.json ${CMAKE_CURRENT_BINARY_DIR}/browser-70 4 20)
-set_tests_properties(browser_renders_the_requirements_report PROPERTIES SKIP_RETURN_CODE 77 TIMEOUT 300)
+set_tests_properties(browser_renders_the_requirements_report PROPERTIES LABELS browser SKIP_RETURN_CODE 77 TIMEOUT 300)
 
 # In-service records of the example (invented): the failing solenoid model, the overdue test and
 # the changed verdict of SIF-401 (exit 1: a SIF falls short with the service rates).

@@ -28,4 +28,4 @@ add_test(NAME printed_register_fits_two_pages_per_sif_with_the_document_footer_o
          COMMAND ${SIFTER_PYTHON3} ${CMAKE_CURRENT_SOURCE_DIR}/print_test.py $<TARGET_FILE:sifter>
                  ${PROJECT_SOURCE_DIR} ${CMAKE_CURRENT_BINARY_DIR}/print)
 set_tests_properties(printed_register_fits_two_pages_per_sif_with_the_document_footer_on_every_page
-                     PROPERTIES SKIP_RETURN_CODE 77 TIMEOUT 600)
+                     PROPERTIES LABELS browser SKIP_RETURN_CODE 77 TIMEOUT 600)
