@@ -12,10 +12,10 @@
 #include "sifter/analysis/sif_uncertainty.hpp"
 #include "sifter/analysis/verify.hpp"
 #include "sifter/engines/cross_check.hpp"
-#include "sifter/engines/plausibility.hpp"
 #include "sifter/engines/probability_cap.hpp"
 #include "sifter/engines/uncertainty.hpp"
 #include "sifter/graph/plant_graph.hpp"
+#include "sifter/input/plausibility.hpp"
 #include "sifter/model/format.hpp"
 
 namespace sifter {

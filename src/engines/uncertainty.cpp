@@ -3,7 +3,6 @@
 
 #include <algorithm>
 #include <atomic>
-#include <boost/math/distributions/chi_squared.hpp>
 #include <cassert>
 #include <chrono>
 #include <cmath>
@@ -20,15 +19,6 @@
 #include "sifter/engines/sil.hpp"
 
 namespace sifter {
-
-Rate lambda_du_from_field_data(const FieldData& data) {
-  assert(data.failures >= 0 && data.device_hours.hours > 0.0);
-  assert(data.confidence > 0.0 && data.confidence < 1.0);
-  // Time-truncated observation: the upper bound takes 2n + 2 degrees of freedom, one failure
-  // more than counted, as if the next one were about to happen.
-  const boost::math::chi_squared chi2(2.0 * data.failures + 2.0);
-  return Rate{boost::math::quantile(chi2, data.confidence) / (2.0 * data.device_hours.hours)};
-}
 
 double lognormal_sigma(double error_factor) {
   assert(error_factor >= 1.0);

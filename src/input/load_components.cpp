@@ -6,7 +6,6 @@
 
 #include "input/load_parts.hpp"
 #include "input/load_pressure.hpp"
-#include "sifter/engines/uncertainty.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/model/civil_date.hpp"
 #include "sifter/model/format.hpp"

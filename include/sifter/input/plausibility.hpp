@@ -4,7 +4,6 @@
 #include <string>
 #include <vector>
 
-#include "sifter/graph/plant_graph.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/model.hpp"
 
