@@ -8,11 +8,10 @@
 
 #include "sifter/engines/constraints.hpp"
 #include "sifter/engines/requirements.hpp"
+#include "sifter/model/quantity.hpp"
 
 namespace sifter {
 namespace {
-
-constexpr double kSecondsPerHour = 3600.0;
 
 std::string per_year_text(Rate rate) {
   char buf[32];

@@ -11,19 +11,17 @@
 namespace sifter {
 namespace {
 
-std::string num(double v) { return sifter::figure(v); }
-
 std::string describe_target(const Target& t, DemandMode mode) {
   switch (t.kind) {
     case Target::Kind::kSil:
-      return "SIL " + num(t.value) + (mode == DemandMode::kLow ? " (PFDavg < " : " (PFH < ") +
-             num(sil_upper_limit(static_cast<int>(t.value), mode)) + ")";
+      return "SIL " + sifter::figure(t.value) + (mode == DemandMode::kLow ? " (PFDavg < " : " (PFH < ") +
+             sifter::figure(sil_upper_limit(static_cast<int>(t.value), mode)) + ")";
     case Target::Kind::kRrf:
-      return "RRF " + num(t.value) + " (PFDavg <= " + num(1.0 / t.value) + ")";
+      return "RRF " + sifter::figure(t.value) + " (PFDavg <= " + sifter::figure(1.0 / t.value) + ")";
     case Target::Kind::kPfdAvg:
-      return "PFDavg <= " + num(t.value);
+      return "PFDavg <= " + sifter::figure(t.value);
     case Target::Kind::kPfh:
-      return "PFH <= " + num(t.value) + "/h";
+      return "PFH <= " + sifter::figure(t.value) + "/h";
   }
   return {};
 }
@@ -89,10 +87,11 @@ SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<Requir
         (!out.required_pfh_per_hour || *lopa->required_pfh_per_hour < *out.required_pfh_per_hour))
       out.required_pfh_per_hour = lopa->required_pfh_per_hour;
     out.sil = std::max(out.sil.value_or(0), lopa_sil);
-    out.text = (out.text.empty() ? "" : out.text + "; ") + "LOPA: " +
-               (low ? (none_needed ? "no SIF needed (required RRF " + num(lopa->required_rrf) + ", PFD capped at 1)"
-                                   : "RRF " + num(lopa->required_rrf))
-                    : "PFH <= " + num(out.required_pfh_per_hour.value_or(0.0)) + "/h");
+    out.text =
+        (out.text.empty() ? "" : out.text + "; ") + "LOPA: " +
+        (low ? (none_needed ? "no SIF needed (required RRF " + sifter::figure(lopa->required_rrf) + ", PFD capped at 1)"
+                            : "RRF " + sifter::figure(lopa->required_rrf))
+             : "PFH <= " + sifter::figure(out.required_pfh_per_hour.value_or(0.0)) + "/h");
   }
   if (low)
     out.required_pfh_per_hour.reset();

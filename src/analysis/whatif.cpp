@@ -17,8 +17,6 @@ namespace detail {
 
 std::string quoted_name(const std::string& name) { return "'" + name + "'"; }
 
-std::string number_text(double value) { return sifter::figure(value); }
-
 std::vector<std::size_t> subsystems_to_vary(const Sif& sif, std::optional<std::size_t> subsystem,
                                             const std::string& what) {
   if (subsystem) {
@@ -94,15 +92,15 @@ std::optional<Requirement> governing_requirement(const SifResult& r) {
   const char* unit = low ? "" : "/h";
   if (value) {
     q.value = *value;
-    q.basis = std::string("required ") + measure + " " + detail::number_text(*value) + unit;
+    q.basis = std::string("required ") + measure + " " + sifter::figure(*value) + unit;
   }
   if (r.sil_required && *r.sil_required > 0) {
     const double edge = sil_upper_limit(*r.sil_required, q.mode);
     if (!value || edge <= *value) {
       q.value = edge;
       q.band_edge = true;
-      q.basis = "SIL " + std::to_string(*r.sil_required) + " band (" + measure + " < " + detail::number_text(edge) +
-                unit + ")";
+      q.basis =
+          "SIL " + std::to_string(*r.sil_required) + " band (" + measure + " < " + sifter::figure(edge) + unit + ")";
     }
   }
   if (!value && !q.band_edge) return std::nullopt;
@@ -132,11 +130,11 @@ void solve_interval(IntervalResult& out, const Measure& measure_at, double allow
   if (out.measure_at_zero > allowed) {
     out.outcome = IntervalOutcome::kNone;
     out.notes.push_back("even with an interval of zero the SIF's " + std::string(m) + " is " +
-                        detail::number_text(out.measure_at_zero) +
+                        sifter::figure(out.measure_at_zero) +
                         ": the terms the proof-test interval does not touch (detected failures and MTTR, repair "
                         "times, failures the proof test misses, common cause in high demand, the other subsystems) "
                         "already exceed " +
-                        detail::number_text(out.allowed));
+                        sifter::figure(out.allowed));
     return;
   }
   if (at_top <= allowed) {

@@ -3,6 +3,7 @@
 
 #include "analysis/whatif_parts.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter {
 namespace {
@@ -61,11 +62,11 @@ CompareResult compare_votes(const WhatIf& what_if, std::size_t sif, std::size_t 
   out.notes.push_back("channels beyond the subsystem's own are identical copies of channel 0, with components " +
                       std::string("named <id>~2, <id>~3, ...; a smaller vote keeps the first channels"));
   if (beta)
-    out.notes.push_back("beta " + detail::number_text(*beta * 100) + "% used for every vote" +
+    out.notes.push_back("beta " + sifter::figure(*beta * 100) + "% used for every vote" +
                         (sub.beta_d_defaulted || sub.beta <= 0.0 ? " (beta_D the same)" : "; beta_D as stated"));
   else
-    out.notes.push_back("beta " + detail::number_text(sub.beta * 100) + "% and beta_D " +
-                        detail::number_text(sub.beta_d * 100) + "% as in the project");
+    out.notes.push_back("beta " + sifter::figure(sub.beta * 100) + "% and beta_D " + sifter::figure(sub.beta_d * 100) +
+                        "% as in the project");
   if (sub.ccf_scaling == CcfScaling::kIec61508TableD5)
     out.notes.push_back("beta scaled per vote by IEC 61508-6:2010 Table D.5 where it has a cell");
   return out;

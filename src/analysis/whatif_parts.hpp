@@ -17,9 +17,6 @@ std::vector<std::size_t> subsystems_to_vary(const Sif& sif, std::optional<std::s
 /// "'level sensing'", how messages quote a subsystem.
 std::string quoted_name(const std::string& name);
 
-/// A number for messages, four significant digits.
-std::string number_text(double value);
-
 /// Replaces the components of the subsystem's channels by copies, so that changing their
 /// rates touches no other subsystem; the copies get ids `<id>~<n>` that are not yet taken.
 void copy_components_of(Project& project, Subsystem& subsystem);

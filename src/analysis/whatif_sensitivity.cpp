@@ -5,6 +5,7 @@
 
 #include "analysis/whatif_parts.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter {
 namespace {
@@ -117,16 +118,81 @@ std::vector<Probe> probes_for(const Project& project, std::size_t sif, Provenanc
 
 constexpr double kMaxSensitivityFactor = 10.0;
 
-}  // namespace
-
-SensitivityResult sensitivity(const WhatIf& what_if, std::size_t sif, double factor) {
-  // Above 10 the varied inputs leave the physical range (and an interval divided by 1e200 would
-  // ask the exact engine for 1e200 tests); README "Limits".
+// Above 10 the varied inputs leave the physical range (and an interval divided by 1e200 would
+// ask the exact engine for 1e200 tests); README "Limits".
+void check_factor(double factor) {
   if (!(factor > 1.0) || !(factor <= kMaxSensitivityFactor))
     throw UsageError(
         "the factor must be a number above 1 and at most 10 (each input is divided and multiplied by "
         "it), found " +
-        detail::number_text(factor));
+        sifter::figure(factor));
+}
+
+// The SIF's measure with one input divided and multiplied by the factor, the others held; a
+// fraction is held at 1 where the factor would lift it above.
+SensitivityInput vary(const WhatIf& what_if, std::size_t sif, const Probe& probe, double factor) {
+  SensitivityInput in;
+  in.name = probe.name;
+  in.pointer = probe.pointer;
+  in.unit = probe.unit;
+  in.base_value = probe.base;
+  in.low_value = probe.base / factor;
+  in.high_value = probe.base * factor;
+  if (probe.fraction && in.high_value > 1.0) {
+    in.high_value = 1.0;
+    in.clamped = true;
+  }
+  auto at = [&](double v) {
+    Project p = what_if.project();
+    probe.set(p, v);
+    return sif_measure(what_if.verify(p, sif)).value_or(0.0);
+  };
+  in.at_low = at(in.low_value);
+  in.at_high = at(in.high_value);
+  in.swing = std::fabs(in.at_high - in.at_low);
+  return in;
+}
+
+// The components of a group's second and later channels, which the simplified equations do not read.
+std::string later_channel_components(const Project& project, const Sif& sif) {
+  std::string out;
+  for (const auto& sub : sif.subsystems)
+    for (std::size_t ch = 1; ch < sub.channels.size(); ++ch)
+      for (auto c : sub.channels[ch].components) out += (out.empty() ? "" : ", ") + project.components[c].id;
+  return out;
+}
+
+// What the reader needs to read the bars: how the inputs were varied, and where a value came
+// from elsewhere or moves nothing.
+std::vector<std::string> sensitivity_notes(const Project& project, const Sif& sif, double factor,
+                                           const std::string& clamped, const Provenance& provenance) {
+  std::vector<std::string> notes;
+  notes.push_back("each input is divided and multiplied by " + sifter::figure(factor) +
+                  " alone, the others held at the project's values");
+  notes.push_back("a component's four rates are scaled together, so its SFF and DC stay the same");
+  if (!clamped.empty()) notes.push_back("fractions held at 1 where the factor would exceed it: " + clamped);
+  const std::string later_channels = later_channel_components(project, sif);
+  if (!later_channels.empty())
+    notes.push_back(
+        "the simplified equations take a group's rates from its first channel (the channels are "
+        "identical), so these move nothing here: " +
+        later_channels);
+  std::string defaults;
+  if (!provenance.interval_default.empty()) defaults += "the interval of " + listed(provenance.interval_default);
+  if (!provenance.mttr_default.empty())
+    defaults += (defaults.empty() ? "" : "; ") + std::string("the MTTR of ") + listed(provenance.mttr_default);
+  if (!defaults.empty()) notes.push_back("from the project defaults, varied here for one subsystem only: " + defaults);
+  if (!provenance.mrt_follows.empty())
+    notes.push_back("MRT follows MTTR where it was not given: " + listed(provenance.mrt_follows));
+  if (!provenance.beta_d_follows.empty())
+    notes.push_back("beta_D follows beta where it was not given: " + listed(provenance.beta_d_follows));
+  return notes;
+}
+
+}  // namespace
+
+SensitivityResult sensitivity(const WhatIf& what_if, std::size_t sif, double factor) {
+  check_factor(factor);
   const Project& base = what_if.project();
   const SifResult now = what_if.baseline(sif);
   const auto measure_now = sif_measure(now);
@@ -140,54 +206,12 @@ SensitivityResult sensitivity(const WhatIf& what_if, std::size_t sif, double fac
   std::string clamped;
   Provenance provenance;
   for (const Probe& probe : probes_for(base, sif, provenance)) {
-    SensitivityInput in;
-    in.name = probe.name;
-    in.pointer = probe.pointer;
-    in.unit = probe.unit;
-    in.base_value = probe.base;
-    in.low_value = probe.base / factor;
-    in.high_value = probe.base * factor;
-    if (probe.fraction && in.high_value > 1.0) {
-      in.high_value = 1.0;
-      in.clamped = true;
-      clamped += (clamped.empty() ? "" : ", ") + probe.name;
-    }
-    auto at = [&](double v) {
-      Project p = base;
-      probe.set(p, v);
-      return sif_measure(what_if.verify(p, sif)).value_or(0.0);
-    };
-    in.at_low = at(in.low_value);
-    in.at_high = at(in.high_value);
-    in.swing = std::fabs(in.at_high - in.at_low);
-    out.inputs.push_back(std::move(in));
+    out.inputs.push_back(vary(what_if, sif, probe, factor));
+    if (out.inputs.back().clamped) clamped += (clamped.empty() ? "" : ", ") + probe.name;
   }
   std::stable_sort(out.inputs.begin(), out.inputs.end(),
                    [](const SensitivityInput& a, const SensitivityInput& b) { return a.swing > b.swing; });
-  out.notes.push_back("each input is divided and multiplied by " + detail::number_text(factor) +
-                      " alone, the others held at the project's values");
-  out.notes.push_back("a component's four rates are scaled together, so its SFF and DC stay the same");
-  if (!clamped.empty()) out.notes.push_back("fractions held at 1 where the factor would exceed it: " + clamped);
-  std::string later_channels;
-  for (const auto& sub : base.sifs[sif].subsystems)
-    for (std::size_t ch = 1; ch < sub.channels.size(); ++ch)
-      for (auto c : sub.channels[ch].components)
-        later_channels += (later_channels.empty() ? "" : ", ") + base.components[c].id;
-  if (!later_channels.empty())
-    out.notes.push_back(
-        "the simplified equations take a group's rates from its first channel (the channels are "
-        "identical), so these move nothing here: " +
-        later_channels);
-  std::string defaults;
-  if (!provenance.interval_default.empty()) defaults += "the interval of " + listed(provenance.interval_default);
-  if (!provenance.mttr_default.empty())
-    defaults += (defaults.empty() ? "" : "; ") + std::string("the MTTR of ") + listed(provenance.mttr_default);
-  if (!defaults.empty())
-    out.notes.push_back("from the project defaults, varied here for one subsystem only: " + defaults);
-  if (!provenance.mrt_follows.empty())
-    out.notes.push_back("MRT follows MTTR where it was not given: " + listed(provenance.mrt_follows));
-  if (!provenance.beta_d_follows.empty())
-    out.notes.push_back("beta_D follows beta where it was not given: " + listed(provenance.beta_d_follows));
+  out.notes = sensitivity_notes(base, base.sifs[sif], factor, clamped, provenance);
   return out;
 }
 

@@ -5,6 +5,7 @@
 
 #include "analysis/whatif_parts.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/model/format.hpp"
 
 namespace sifter {
 namespace {
@@ -29,7 +30,7 @@ void check_value(SweepParameter p, double v, const char* end) {
   if (!std::isfinite(v)) throw UsageError("--" + std::string(end) + " must be a finite number");
   if (is_fraction(p) && (v < 0.0 || v > 1.0))
     throw UsageError(name + " is a fraction: --" + end + " must lie from 0 to 1 (or 0% to 100%), found " +
-                     detail::number_text(v));
+                     sifter::figure(v));
   if (p == SweepParameter::kLambdaDuFactor && v <= 0.0)
     throw UsageError("lambda_du_factor multiplies lambda_du: --" + std::string(end) + " must be above 0");
   if (p == SweepParameter::kProofTestInterval && v <= 0.0)
@@ -37,8 +38,8 @@ void check_value(SweepParameter p, double v, const char* end) {
   if (v < 0.0) throw UsageError("--" + std::string(end) + " must not be negative");
   // Bounds that keep every point a physical input and the work of the sweep bounded (README "Limits").
   if (p == SweepParameter::kLambdaDuFactor && v > kMaxRateFactor)
-    throw UsageError("lambda_du_factor: --" + std::string(end) + " must be at most " +
-                     detail::number_text(kMaxRateFactor) + ", found " + detail::number_text(v));
+    throw UsageError("lambda_du_factor: --" + std::string(end) + " must be at most " + sifter::figure(kMaxRateFactor) +
+                     ", found " + sifter::figure(v));
   if (p == SweepParameter::kProofTestInterval && (v < kMinIntervalHours || v > kMaxDurationHours))
     throw UsageError("a proof-test interval for a sweep lies from 1 d to 100 yr: --" + std::string(end) + " is " +
                      format_duration(Duration{v}));

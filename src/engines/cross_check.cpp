@@ -13,8 +13,6 @@
 namespace sifter {
 namespace {
 
-std::string pct(double v) { return sifter::percent(v); }
-
 // The exact measure comparable with the simplified PFH under the same assumption: IEC
 // 61508-6:2010 B.3.3.2 takes a detected failure to the safe state, so only failures whose last
 // is undetected count; with "alarm_only" every failure counts.
@@ -87,28 +85,37 @@ std::vector<std::optional<ExactGroupInput>> exact_inputs(const Project& project,
   return out;
 }
 
-void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& r, std::vector<Warning>& warnings,
-                             ExactCache& cache) {
-  const bool low = r.demand_mode == DemandMode::kLow;
-  const auto inputs = exact_inputs(project, sif);
+namespace {
+
+// The groups the exact engine models and the vendor figures, constant in time, beside them.
+struct ExactSplit {
   std::vector<ExactGroupInput> modelled;
-  double vendor_constant = 0.0;  // PFD of the vendor figures, constant in time
+  double vendor_constant = 0.0;  // PFD (PFH) of the vendor figures
+  bool supported = true;         // false when a group cannot be modelled (named in the assumptions)
+};
+
+ExactSplit split_for_exact(const std::vector<std::optional<ExactGroupInput>>& inputs, SifResult& r, bool low) {
+  ExactSplit split;
   for (std::size_t i = 0; i < inputs.size(); ++i) {
-    auto& sub = r.subsystems[i];
+    const auto& sub = r.subsystems[i];
     if (!inputs[i]) {
-      vendor_constant += low ? sub.pfd_avg.value_or(0.0) : sub.pfh_per_hour.value_or(0.0);
+      split.vendor_constant += low ? sub.pfd_avg.value_or(0.0) : sub.pfh_per_hour.value_or(0.0);
       continue;
     }
     const std::string why = exact_group_unsupported(*inputs[i]);
     if (!why.empty()) {
       r.assumptions.push_back(sub.name + ": no exact cross-check (" + why + ")");
-      return;
+      split.supported = false;
+      return split;
     }
-    modelled.push_back(*inputs[i]);
+    split.modelled.push_back(*inputs[i]);
   }
-  if (modelled.empty()) return;
-  const auto exact_ptr = cache.get(modelled);
-  const SifExactResult& exact = *exact_ptr;
+  return split;
+}
+
+// Each modelled subsystem's exact figure and the exact engine's notes on it.
+void record_group_figures(const Sif& sif, const std::vector<std::optional<ExactGroupInput>>& inputs,
+                          const SifExactResult& exact, bool low, SifResult& r) {
   std::size_t k = 0;
   for (std::size_t i = 0; i < inputs.size(); ++i) {
     if (!inputs[i]) continue;
@@ -120,8 +127,11 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
       sub.pfh_exact_per_hour = comparable_pfh(g, sif.subsystems[i].alarm_only_on_detected);
     for (const auto& note : g.notes) r.assumptions.push_back(sub.name + " (exact engine): " + note);
   }
-  // The SIF's exact value: the product form of the modelled groups, with the vendor figures
-  // as constants: 1 - (1 - u_vendor)(1 - P(t)) averages to 1 - (1 - u_vendor)(1 - avg P).
+}
+
+// The SIF's exact value: the product form of the modelled groups, with the vendor figures
+// as constants: 1 - (1 - u_vendor)(1 - P(t)) averages to 1 - (1 - u_vendor)(1 - avg P).
+double record_sif_figure(const SifExactResult& exact, double vendor_constant, bool low, SifResult& r) {
   double sif_exact_value = 0.0;
   if (low) {
     sif_exact_value = 1.0 - (1.0 - vendor_constant) * (1.0 - exact.pfd_avg);
@@ -132,27 +142,48 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
     sif_exact_value += vendor_constant;
     r.pfh_exact_per_hour = sif_exact_value;
   }
-  const std::optional<double> simplified = low ? r.pfd_avg_simplified : r.pfh_simplified_per_hour;
-  if (!simplified || !(sif_exact_value > 0.0)) return;
-  // From the two figures as printed, so that the ratio reads as the printed pair gives.
-  const double ratio = as_printed(*simplified) / as_printed(sif_exact_value);
-  r.simplified_over_exact = ratio;
+  return sif_exact_value;
+}
+
+// The ratio in the assumptions, and a warning where the simplified figure is non-conservative
+// or far from the exact one.
+void judge_agreement(const Project& project, const Sif& sif, double ratio, bool low, SifResult& r,
+                     std::vector<Warning>& warnings) {
   const bool whole = mission_whole_intervals(project, sif);
   r.assumptions.push_back(
       std::string("exact cross-check: multi-phase Markov model over the mission of ") +
       format_duration(project.defaults.mission_time) +
       (whole ? "" : " (not a whole number of proof-test intervals: the last interval is cut short)") +
-      "; simplified/exact = " + ratio_text(ratio));
+      "; simplified/exact = " + sifter::ratio(ratio));
   if (ratio < 1.0 - kNonConservativeTolerance)
     warnings.push_back(
         {sif.pointer,
-         "the simplified " + std::string(low ? "PFDavg" : "PFH") + " is " + pct(1.0 - ratio) +
+         "the simplified " + std::string(low ? "PFDavg" : "PFH") + " is " + sifter::percent(1.0 - ratio) +
              " below the exact value (non-conservative); the verdict rests on the exact figure unless the project's "
              "\"judge_on\" says otherwise"});
   else if (std::abs(ratio - 1.0) > kDisagreementTolerance)
     warnings.push_back({sif.pointer, "the simplified and exact " + std::string(low ? "PFDavg" : "PFH") + " differ by " +
-                                         pct(std::abs(ratio - 1.0)) + " (simplified/exact = " + ratio_text(ratio) +
-                                         ")"});
+                                         sifter::percent(std::abs(ratio - 1.0)) +
+                                         " (simplified/exact = " + sifter::ratio(ratio) + ")"});
+}
+
+}  // namespace
+
+void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& r, std::vector<Warning>& warnings,
+                             ExactCache& cache) {
+  const bool low = r.demand_mode == DemandMode::kLow;
+  const auto inputs = exact_inputs(project, sif);
+  const ExactSplit split = split_for_exact(inputs, r, low);
+  if (!split.supported || split.modelled.empty()) return;
+  const auto exact = cache.get(split.modelled);
+  record_group_figures(sif, inputs, *exact, low, r);
+  const double sif_exact_value = record_sif_figure(*exact, split.vendor_constant, low, r);
+  const std::optional<double> simplified = low ? r.pfd_avg_simplified : r.pfh_simplified_per_hour;
+  if (!simplified || !(sif_exact_value > 0.0)) return;
+  // From the two figures as printed, so that the ratio reads as the printed pair gives.
+  const double ratio = as_printed(*simplified) / as_printed(sif_exact_value);
+  r.simplified_over_exact = ratio;
+  judge_agreement(project, sif, ratio, low, r, warnings);
 }
 
 SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
@@ -187,7 +218,5 @@ SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
   c.pfd_avg_exact = 1.0 - (1.0 - vendor_total) * (1.0 - exact.pfd_avg);
   return c;
 }
-
-std::string ratio_text(double ratio) { return sifter::ratio(ratio); }
 
 }  // namespace sifter

@@ -198,6 +198,162 @@ class CycleOperator {
   std::vector<Eigen::MatrixXd> squares_;  // A^(2^i)
 };
 
+// The test instants of a group in time order: the head's, then those of cycle c at c P plus
+// their offset; none from `last` on (no test at the mission's end).
+class TestSchedule {
+ public:
+  TestSchedule(const CyclePattern& pattern, double tol, double last)
+      : period_(pattern.period_hours),
+        last_(last),
+        head_(instants_of(pattern.head, tol)),
+        cycle_(instants_of(pattern.cycle, tol)) {
+    settle();
+  }
+
+  const std::vector<Instant>& cycle() const { return cycle_; }
+  double cycle_start() const { return static_cast<double>(c_) * period_; }
+
+  // The time of the next instant not yet applied (infinity when none is left).
+  double next_time() const {
+    if (c_ == 0 && index_ < head_.size())
+      return head_[index_].time_hours < last_ ? head_[index_].time_hours : std::numeric_limits<double>::infinity();
+    if (c_ == 0 || cycle_.empty()) return std::numeric_limits<double>::infinity();
+    const double t = cycle_start() + cycle_[index_].time_hours;
+    return t < last_ ? t : std::numeric_limits<double>::infinity();
+  }
+
+  const std::vector<Action>& next_actions() const { return c_ == 0 ? head_[index_].actions : cycle_[index_].actions; }
+
+  void advance() {
+    ++index_;
+    settle();
+  }
+
+  // How many whole cycles c .. c+r-1 end at or before `limit`, when the schedule stands at
+  // the start of cycle c and the state has not passed it (0 or less otherwise).
+  long long whole_cycles_before(double limit, double now) const {
+    if (c_ < 1 || index_ != 0 || now > cycle_start()) return 0;
+    long long r = static_cast<long long>(std::floor(limit / period_)) - c_;
+    while (r > 0 && static_cast<double>(c_ + r) * period_ > limit) --r;
+    return r;
+  }
+
+  void skip_cycles(long long r) { c_ += r; }
+
+ private:
+  // Moves past a finished head or cycle to the next cycle's first instant.
+  void settle() {
+    while (c_ == 0 ? index_ >= head_.size() : index_ >= cycle_.size()) {
+      ++c_;
+      index_ = 0;
+      if (cycle_.empty()) break;
+    }
+  }
+
+  double period_;
+  double last_;
+  std::vector<Instant> head_;
+  std::vector<Instant> cycle_;
+  long long c_ = 0;        // the cycle of the next instant (0: the head)
+  std::size_t index_ = 0;  // the next instant within it
+};
+
+// The group's state as a row [p, integrals since the last grid point], stepped through time.
+class RowPropagation {
+ public:
+  RowPropagation(Stepper& stepper, int states)
+      : stepper_(stepper), n_(states), row_(Eigen::RowVectorXd::Zero(states + kColumns)) {
+    row_(0) = 1.0;  // state 0: every channel working
+  }
+
+  double now() const { return now_; }
+  ChannelMask bypassed() const { return bypassed_; }
+  Eigen::VectorXd state() const { return row_.head(n_).transpose(); }
+  double pfd() { return stepper_.pfd(bypassed_, state()); }
+
+  void step_to(double to) {
+    if (to <= now_) return;
+    const auto& s = stepper_.segment(bypassed_, to - now_);
+    p_ = row_.head(n_).transpose();
+    row_.tail(kColumns) += p_.transpose() * s.integrals;
+    row_.head(n_) = (s.step_transposed * p_).transpose();
+    now_ = to;
+  }
+
+  // The actions of one instant, each recorded in `record` when given.
+  void act(const std::vector<Action>& list, std::vector<Action>* record) {
+    p_ = row_.head(n_).transpose();
+    for (const auto& a : list) {
+      if (record) record->push_back(a);
+      if (a.kind == Action::kBypassStart) {
+        bypassed_ |= a.channels;
+        continue;
+      }
+      apply(stepper_.jump(a), p_, scratch_);
+      if (a.kind == Action::kBypassEnd) bypassed_ &= ~a.channels;
+    }
+    row_.head(n_) = p_.transpose();
+  }
+
+  // r whole cycles at once, ending at `end`.
+  void run_cycles(CycleOperator& cycles, long long r, double end) {
+    cycles.apply(r, row_);
+    now_ = end;
+  }
+
+  // The integrals [PFD, failures, undetected failures] since the last call, then zero.
+  Eigen::RowVector3d take_integrals() {
+    const Eigen::RowVector3d integrals = row_.tail(kColumns);
+    row_.tail(kColumns).setZero();
+    return integrals;
+  }
+
+ private:
+  Stepper& stepper_;
+  int n_;
+  Eigen::RowVectorXd row_;
+  Eigen::VectorXd p_;
+  Eigen::VectorXd scratch_;
+  ChannelMask bypassed_ = 0;
+  double now_ = 0.0;
+};
+
+// Applies every test instant before `until` less the tolerance, whole cycles at once where they fit.
+void apply_instants_before(double until, double tol, TestSchedule& schedule, CycleOperator& cycles,
+                           RowPropagation& state) {
+  for (;;) {
+    const double t = schedule.next_time();
+    if (t >= until - tol) return;
+    if (const long long r = schedule.whole_cycles_before(until - tol, state.now()); r > 0) {
+      state.step_to(schedule.cycle_start());
+      schedule.skip_cycles(r);
+      state.run_cycles(cycles, r, schedule.cycle_start());
+      continue;
+    }
+    state.step_to(t);
+    state.act(schedule.next_actions(), nullptr);
+    schedule.advance();
+  }
+}
+
+GroupTrace averaged_trace(std::size_t count, bool keep_states) {
+  GroupTrace trace;
+  trace.averaged = true;
+  trace.pfd_before.resize(count);
+  trace.pfd_after.resize(count);
+  trace.bypassed.resize(count);
+  trace.segment_integrals.assign(count > 0 ? count - 1 : 0, Eigen::RowVector3d::Zero());
+  if (keep_states) trace.state_after.resize(count);
+  return trace;
+}
+
+void add_segment(GroupTrace& trace, std::size_t segment, const Eigen::RowVector3d& integrals) {
+  trace.segment_integrals[segment] = integrals;
+  trace.pfd_integral_hours += integrals(0);
+  trace.expected_failures += integrals(1);
+  trace.expected_undetected_failures += integrals(2);
+}
+
 }  // namespace
 
 GroupTrace propagate_cycles(const GroupChain& chain, const CyclePattern& pattern, double mission_hours,
@@ -205,112 +361,25 @@ GroupTrace propagate_cycles(const GroupChain& chain, const CyclePattern& pattern
                             std::vector<std::vector<Action>>& actions) {
   const double period = pattern.period_hours;
   const double tol = kSameInstantShare * period;
-  const double last = mission_hours * (1.0 - kSameInstantShare);  // no test at the mission's end
-  const auto head = instants_of(pattern.head, tol);
-  const auto cycle = instants_of(pattern.cycle, tol);
+  TestSchedule schedule(pattern, tol, mission_hours * (1.0 - kSameInstantShare));
   Stepper stepper(chain);
-  const int n = chain.size();
-  CycleOperator cycles(stepper, n, cycle, period);
-
-  // The next instant not yet applied: instant `index` of cycle `c` (c = 0: the head).
-  long long c = 0;
-  std::size_t index = 0;
-  auto settle = [&] {
-    while (c == 0 ? index >= head.size() : index >= cycle.size()) {
-      ++c;
-      index = 0;
-      if (cycle.empty()) break;
-    }
-  };
-  auto next_time = [&]() -> double {
-    if (c == 0 && index < head.size())
-      return head[index].time_hours < last ? head[index].time_hours : std::numeric_limits<double>::infinity();
-    if (c == 0 || cycle.empty()) return std::numeric_limits<double>::infinity();
-    const double t = static_cast<double>(c) * period + cycle[index].time_hours;
-    return t < last ? t : std::numeric_limits<double>::infinity();
-  };
-  auto next_actions = [&]() -> const std::vector<Action>& {
-    return c == 0 ? head[index].actions : cycle[index].actions;
-  };
-  settle();
-
-  GroupTrace trace;
-  trace.averaged = true;
-  const std::size_t count = grid.size();
-  trace.pfd_before.resize(count);
-  trace.pfd_after.resize(count);
-  trace.bypassed.resize(count);
-  trace.segment_integrals.assign(count > 0 ? count - 1 : 0, Eigen::RowVector3d::Zero());
-  if (keep_states) trace.state_after.resize(count);
-  actions.assign(count, {});
-  Eigen::RowVectorXd row = Eigen::RowVectorXd::Zero(n + kColumns);  // [p, integrals of this segment]
-  row(0) = 1.0;
-  Eigen::VectorXd p;
-  Eigen::VectorXd scratch;
-  ChannelMask bypassed = 0;
-  double now = 0.0;
-  auto step = [&](double to) {
-    if (to <= now) return;
-    const auto& s = stepper.segment(bypassed, to - now);
-    p = row.head(n).transpose();
-    row.tail(kColumns) += p.transpose() * s.integrals;
-    row.head(n) = (s.step_transposed * p).transpose();
-    now = to;
-  };
-  auto act = [&](const std::vector<Action>& list, std::vector<Action>* record) {
-    p = row.head(n).transpose();
-    for (const auto& a : list) {
-      if (record) record->push_back(a);
-      if (a.kind == Action::kBypassStart) {
-        bypassed |= a.channels;
-        continue;
-      }
-      apply(stepper.jump(a), p, scratch);
-      if (a.kind == Action::kBypassEnd) bypassed &= ~a.channels;
-    }
-    row.head(n) = p.transpose();
-  };
-  for (std::size_t i = 0; i < count; ++i) {
+  CycleOperator cycles(stepper, chain.size(), schedule.cycle(), period);
+  RowPropagation state(stepper, chain.size());
+  GroupTrace trace = averaged_trace(grid.size(), keep_states);
+  actions.assign(grid.size(), {});
+  for (std::size_t i = 0; i < grid.size(); ++i) {
     const double b = grid[i];
-    for (;;) {
-      const double t = next_time();
-      if (t >= b - tol) break;
-      if (c >= 1 && index == 0 && now <= static_cast<double>(c) * period) {
-        // Whole cycles c .. c+r-1 that end at or before b.
-        long long r = static_cast<long long>(std::floor((b - tol) / period)) - c;
-        while (r > 0 && static_cast<double>(c + r) * period > b - tol) --r;
-        if (r > 0) {
-          step(static_cast<double>(c) * period);
-          cycles.apply(r, row);
-          c += r;
-          now = static_cast<double>(c) * period;
-          continue;
-        }
-      }
-      step(t);
-      act(next_actions(), nullptr);
-      ++index;
-      settle();
+    apply_instants_before(b, tol, schedule, cycles, state);
+    state.step_to(b);
+    if (i > 0) add_segment(trace, i - 1, state.take_integrals());
+    trace.pfd_before[i] = state.pfd();
+    while (std::fabs(schedule.next_time() - b) <= tol) {
+      state.act(schedule.next_actions(), &actions[i]);
+      schedule.advance();
     }
-    step(b);
-    if (i > 0) {
-      trace.segment_integrals[i - 1] = row.tail(kColumns);
-      trace.pfd_integral_hours += row(n);
-      trace.expected_failures += row(n + 1);
-      trace.expected_undetected_failures += row(n + 2);
-      row.tail(kColumns).setZero();
-    }
-    p = row.head(n).transpose();
-    trace.pfd_before[i] = stepper.pfd(bypassed, p);
-    while (std::fabs(next_time() - b) <= tol) {
-      act(next_actions(), &actions[i]);
-      ++index;
-      settle();
-    }
-    p = row.head(n).transpose();
-    trace.pfd_after[i] = stepper.pfd(bypassed, p);
-    trace.bypassed[i] = bypassed;
-    if (keep_states) trace.state_after[i] = p;
+    trace.pfd_after[i] = state.pfd();
+    trace.bypassed[i] = state.bypassed();
+    if (keep_states) trace.state_after[i] = state.state();
   }
   return trace;
 }

@@ -202,7 +202,8 @@ void fill_curves(SifExactResult& r, const std::vector<double>& grid, const std::
   r.curve = detail::curve_on_grid(grid, acts, pfd_sif(before), pfd_sif(after));
 }
 
-SifExactResult evaluate(const std::vector<ExactGroupInput>& groups, int points) {
+// The mission every subsystem shares; refuses a group the exact engine cannot model.
+double shared_mission(const std::vector<ExactGroupInput>& groups) {
   if (groups.empty()) throw std::invalid_argument("exact engine: a SIF needs at least one subsystem");
   const double mission = groups.front().mission_time.hours;
   for (std::size_t i = 0; i < groups.size(); ++i) {
@@ -211,86 +212,123 @@ SifExactResult evaluate(const std::vector<ExactGroupInput>& groups, int points) 
     if (std::fabs(groups[i].mission_time.hours - mission) > 1e-9 * mission)
       throw std::invalid_argument("exact engine: the subsystems of a SIF must share one mission time");
   }
+  return mission;
+}
+
+// The groups' chains and how each is tested: stepped through its timeline, or composed by whole
+// test cycles when it is tested more than kMaxSteppedInstants times.
+struct SifModel {
+  double mission = 0.0;
   std::vector<GroupChain> chains;
-  std::vector<std::vector<detail::TimedAction>> timelines;
-  std::vector<detail::CyclePattern> patterns;  // valid only for the groups composed by cycles
-  std::vector<double> times;
+  std::vector<std::vector<detail::TimedAction>> timelines;  // empty for the groups composed by cycles
+  std::vector<detail::CyclePattern> patterns;               // valid only for the groups composed by cycles
+  std::vector<double> times;                                // the instants the common grid must hold
+};
+
+SifModel sif_model(const std::vector<ExactGroupInput>& groups) {
+  SifModel model;
+  model.mission = shared_mission(groups);
   bool compressed = false;
   for (const auto& g : groups) {
-    chains.emplace_back(g);
-    patterns.emplace_back();
-    if (detail::timeline_instants(g, chains.back()) > detail::kMaxSteppedInstants) {
-      patterns.back() = detail::cycle_pattern(g, chains.back());
-      if (!patterns.back().valid)
+    model.chains.emplace_back(g);
+    model.patterns.emplace_back();
+    if (detail::timeline_instants(g, model.chains.back()) > detail::kMaxSteppedInstants) {
+      model.patterns.back() = detail::cycle_pattern(g, model.chains.back());
+      if (!model.patterns.back().valid)
         throw std::invalid_argument(
             "exact engine: a partial stroke interval that neither divides the proof-test "
             "interval nor is a whole multiple of it allows at most 20000 tests");
       compressed = true;
-      timelines.emplace_back();
+      model.timelines.emplace_back();
       continue;
     }
-    timelines.push_back(detail::group_timeline(g, chains.back()));
-    for (const auto& ta : timelines.back()) times.push_back(ta.time_hours);
+    model.timelines.push_back(detail::group_timeline(g, model.chains.back()));
+    for (const auto& ta : model.timelines.back()) model.times.push_back(ta.time_hours);
   }
   // Groups tested more than kMaxSteppedInstants times are composed by whole cycles on a grid of
   // the other groups' instants and kCompressedSamples even samples (README "Limits").
   if (compressed)
     for (int j = 0; j < detail::kCompressedSamples; ++j)
-      times.push_back(mission * j / (detail::kCompressedSamples - 1));
-  auto run = [&](const std::vector<double>& grid, bool keep_states, auto& actions) {
-    std::vector<GroupTrace> traces;
-    for (std::size_t i = 0; i < groups.size(); ++i) {
-      if (patterns[i].valid) {
-        actions.emplace_back();
-        traces.push_back(detail::propagate_cycles(chains[i], patterns[i], mission, grid, keep_states, actions.back()));
-        continue;
-      }
-      actions.push_back(detail::actions_on_grid(timelines[i], grid));
-      traces.push_back(detail::propagate(chains[i], grid, actions.back(), keep_states));
-    }
-    return traces;
-  };
-  const auto grid = detail::merge_grid(times, mission);
-  std::vector<std::vector<std::vector<detail::Action>>> actions;
-  const auto traces = run(grid, groups.size() > 1, actions);
+      model.times.push_back(model.mission * j / (detail::kCompressedSamples - 1));
+  return model;
+}
 
+using GridActions = std::vector<std::vector<std::vector<detail::Action>>>;
+
+// Every group propagated over the grid; `actions` gets each group's actions at each grid point.
+std::vector<GroupTrace> run_on_grid(const SifModel& model, const std::vector<double>& grid, bool keep_states,
+                                    GridActions& actions) {
+  std::vector<GroupTrace> traces;
+  for (std::size_t i = 0; i < model.chains.size(); ++i) {
+    if (model.patterns[i].valid) {
+      actions.emplace_back();
+      traces.push_back(detail::propagate_cycles(model.chains[i], model.patterns[i], model.mission, grid, keep_states,
+                                                actions.back()));
+      continue;
+    }
+    actions.push_back(detail::actions_on_grid(model.timelines[i], grid));
+    traces.push_back(detail::propagate(model.chains[i], grid, actions.back(), keep_states));
+  }
+  return traces;
+}
+
+// One group's averages over the mission, and the notes on how it was modelled.
+ExactGroupResult group_result(const ExactGroupInput& group, const SifModel& model, std::size_t i,
+                              const GroupTrace& trace, bool several) {
+  const double mission = model.mission;
+  ExactGroupResult g;
+  g.pfd_avg = trace.pfd_integral_hours / mission;
+  g.failure_frequency_per_hour = trace.expected_failures / mission;
+  g.undetected_failure_frequency_per_hour = trace.expected_undetected_failures / mission;
+  g.states = model.chains[i].size();
+  g.per_channel = model.chains[i].per_channel();
+  g.notes = detail::group_notes(group, model.chains[i]);
+  if (model.patterns[i].valid)
+    g.notes.push_back(
+        "tested about " + std::to_string(std::llround(detail::timeline_instants(group, model.chains[i]))) +
+        " times over the mission: whole test cycles composed by repeated squaring; its curve "
+        "sampled at " +
+        std::to_string(detail::kCompressedSamples) + " instants" +
+        (several ? ", and its terms with the other subsystems taken at its average between them" : std::string()));
+  return g;
+}
+
+// The SIF's averages: the groups' sums less the terms of two or more groups failed together.
+SifExactResult sif_averages(const std::vector<ExactGroupInput>& groups, const SifModel& model,
+                            const std::vector<GroupTrace>& traces, const std::vector<double>& grid) {
   SifExactResult r;
   for (std::size_t i = 0; i < groups.size(); ++i) {
-    ExactGroupResult g;
-    g.pfd_avg = traces[i].pfd_integral_hours / mission;
-    g.failure_frequency_per_hour = traces[i].expected_failures / mission;
-    g.undetected_failure_frequency_per_hour = traces[i].expected_undetected_failures / mission;
-    g.states = chains[i].size();
-    g.per_channel = chains[i].per_channel();
-    g.notes = detail::group_notes(groups[i], chains[i]);
-    if (patterns[i].valid)
-      g.notes.push_back(
-          "tested about " + std::to_string(std::llround(detail::timeline_instants(groups[i], chains[i]))) +
-          " times over the mission: whole test cycles composed by repeated squaring; its curve "
-          "sampled at " +
-          std::to_string(detail::kCompressedSamples) + " instants" +
-          (groups.size() > 1 ? ", and its terms with the other subsystems taken at its average between them"
-                             : std::string()));
+    ExactGroupResult g = group_result(groups[i], model, i, traces[i], groups.size() > 1);
     r.pfd_avg += g.pfd_avg;
     r.failure_frequency_per_hour += g.failure_frequency_per_hour;
     r.undetected_failure_frequency_per_hour += g.undetected_failure_frequency_per_hour;
     r.groups.push_back(std::move(g));
   }
   if (groups.size() > 1) {
-    const auto cross = cross_terms(chains, traces, grid);
-    r.pfd_avg -= cross.pfd / mission;
-    r.failure_frequency_per_hour -= cross.frequency / mission;
-    r.undetected_failure_frequency_per_hour -= cross.undetected_frequency / mission;
+    const auto cross = cross_terms(model.chains, traces, grid);
+    r.pfd_avg -= cross.pfd / model.mission;
+    r.failure_frequency_per_hour -= cross.frequency / model.mission;
+    r.undetected_failure_frequency_per_hour -= cross.undetected_frequency / model.mission;
   }
+  return r;
+}
+
+SifExactResult evaluate(const std::vector<ExactGroupInput>& groups, int points) {
+  SifModel model = sif_model(groups);
+  const auto grid = detail::merge_grid(model.times, model.mission);
+  GridActions actions;
+  const auto traces = run_on_grid(model, grid, groups.size() > 1, actions);
+  SifExactResult r = sif_averages(groups, model, traces, grid);
   if (points <= 0) {
     fill_curves(r, grid, traces, actions);
     return r;
   }
+  // The curve on a finer grid: `points` even samples added to the test instants.
   points = std::max(points, 2);
-  for (int j = 0; j < points; ++j) times.push_back(mission * j / (points - 1));
-  const auto plot_grid = detail::merge_grid(std::move(times), mission);
-  std::vector<std::vector<std::vector<detail::Action>>> plot_actions;
-  fill_curves(r, plot_grid, run(plot_grid, false, plot_actions), plot_actions);
+  for (int j = 0; j < points; ++j) model.times.push_back(model.mission * j / (points - 1));
+  const auto plot_grid = detail::merge_grid(std::move(model.times), model.mission);
+  GridActions plot_actions;
+  fill_curves(r, plot_grid, run_on_grid(model, plot_grid, false, plot_actions), plot_actions);
   return r;
 }
 

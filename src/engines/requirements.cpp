@@ -7,13 +7,10 @@
 #include "sifter/engines/constraints.hpp"
 #include "sifter/engines/sil.hpp"
 #include "sifter/model/format.hpp"
+#include "sifter/model/quantity.hpp"
 
 namespace sifter {
 namespace {
-
-constexpr double kSecondsPerHour = 3600.0;
-
-std::string num(double v) { return sifter::figure(v); }
 
 ResponseTimeStep step_of(const Project& project, const Subsystem& sub) {
   ResponseTimeStep step;
@@ -87,7 +84,7 @@ void check_response_time(const SifRequirements& q, SifResult& r, std::vector<Lim
   c.value = t;
   c.limit = limit;
   c.ok = at_most(t, limit);
-  const std::string share = num(100.0 * q.response_time_fraction) + "% of the process safety time " +
+  const std::string share = sifter::figure(100.0 * q.response_time_fraction) + "% of the process safety time " +
                             format_seconds(pst) +
                             (q.response_time_fraction_stated ? "" : ", the common-practice share when none is stated");
   c.message = "response time " + format_seconds(t) + (c.ok ? " within " : " exceeds ") + "the allowed " +
@@ -113,8 +110,8 @@ void check_spurious(const Project& project, const Sif& sif, const SifRequirement
   c.value = r.spurious_trip_rate_per_yr;
   c.limit = q.max_spurious_trip_rate->per_year();
   c.ok = at_most(c.value, c.limit);
-  c.message = "spurious trip rate " + num(c.value) + "/yr " + (c.ok ? "within" : "above") + " the limit " +
-              num(c.limit) + "/yr";
+  c.message = "spurious trip rate " + sifter::figure(c.value) + "/yr " + (c.ok ? "within" : "above") + " the limit " +
+              sifter::figure(c.limit) + "/yr";
   if (!c.ok && !r.subsystems.empty()) {
     const auto largest = std::max_element(r.subsystems.begin(), r.subsystems.end(), [](const auto& a, const auto& b) {
       return a.spurious_trip_rate_per_yr < b.spurious_trip_rate_per_yr;
@@ -130,12 +127,12 @@ void check_spurious(const Project& project, const Sif& sif, const SifRequirement
             most = project.components[k].rates.lambda_s();
             element = project.components[k].id;
           }
-    c.message +=
-        "; the largest contributor is '" + largest->name + "' (" + num(largest->spurious_trip_rate_per_yr) + "/yr)";
+    c.message += "; the largest contributor is '" + largest->name + "' (" +
+                 sifter::figure(largest->spurious_trip_rate_per_yr) + "/yr)";
     limits.push_back({"spurious trips", largest->name, element, 0,
-                      "The SIF trips without a demand " + num(c.value) + " times a year, more than the " +
-                          num(c.limit) + "/yr allowed; the largest contributor is '" + largest->name + "' (" +
-                          num(largest->spurious_trip_rate_per_yr) + "/yr" +
+                      "The SIF trips without a demand " + sifter::figure(c.value) + " times a year, more than the " +
+                          sifter::figure(c.limit) + "/yr allowed; the largest contributor is '" + largest->name +
+                          "' (" + sifter::figure(largest->spurious_trip_rate_per_yr) + "/yr" +
                           (element ? ", most of it " + *element : "") +
                           "). To lift it: a voting that needs two channels to trip (2oo2, 2oo3) or elements with "
                           "fewer safe failures there."});

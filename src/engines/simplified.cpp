@@ -220,8 +220,6 @@ GroupPfh group_pfh(const GroupData& g) {
   return out;
 }
 
-bool table_d5_covers(int k, int n) { return k >= 1 && k <= n && (n <= 5 || k == n); }
-
 double ccf_multiplier_table_d5(int k, int n) {
   // IEC 61508-6:2010 Annex D, Table D.5 (DEVELOPERS.md, Methods M1, from memory); rows M = K, columns N.
   static constexpr std::array<std::array<double, 4>, 4> kTable{{

@@ -3,7 +3,6 @@
 
 #include <algorithm>
 #include <atomic>
-#include <boost/math/distributions/chi_squared.hpp>
 #include <cassert>
 #include <chrono>
 #include <cmath>
@@ -20,15 +19,6 @@
 #include "sifter/engines/sil.hpp"
 
 namespace sifter {
-
-Rate lambda_du_from_field_data(const FieldData& data) {
-  assert(data.failures >= 0 && data.device_hours.hours > 0.0);
-  assert(data.confidence > 0.0 && data.confidence < 1.0);
-  // Time-truncated observation: the upper bound takes 2n + 2 degrees of freedom, one failure
-  // more than counted, as if the next one were about to happen.
-  const boost::math::chi_squared chi2(2.0 * data.failures + 2.0);
-  return Rate{boost::math::quantile(chi2, data.confidence) / (2.0 * data.device_hours.hours)};
-}
 
 double lognormal_sigma(double error_factor) {
   assert(error_factor >= 1.0);
@@ -240,6 +230,97 @@ int worker_count(int requested, int chunks) {
   return std::clamp(threads, 1, std::max(chunks, 1));
 }
 
+// Where each sample's factors come from: the plan's table when it was drawn for this seed and
+// sample count, else drawn here, only for the pairs of sources the evaluator reads (the others
+// keep factor 1).
+struct FactorSource {
+  const FactorSampler& sampler;
+  std::span<const double> drawn;   // empty: draw here
+  std::vector<std::size_t> pairs;  // empty: every pair
+  std::uint64_t seed = 0;
+};
+
+FactorSource factor_source(const FactorSampler& sampler, const UncertaintyPlan& plan,
+                           const MonteCarloOptions& options) {
+  const bool use_drawn = !plan.drawn.factors.empty() && plan.drawn.seed == options.seed &&
+                         plan.drawn.samples == options.samples &&
+                         plan.drawn.factors.size() == static_cast<std::size_t>(options.samples) * sampler.size();
+  FactorSource source{
+      sampler, use_drawn ? std::span<const double>(plan.drawn.factors) : std::span<const double>(), {}, options.seed};
+  for (auto s : options.sources) source.pairs.push_back(s / 2);
+  std::sort(source.pairs.begin(), source.pairs.end());
+  source.pairs.erase(std::unique(source.pairs.begin(), source.pairs.end()), source.pairs.end());
+  return source;
+}
+
+// The values of samples [begin, end); `factors` is the worker's scratch row.
+void evaluate_samples(const FactorSource& source, const SampleEvaluator& evaluate, int begin, int end,
+                      std::vector<double>& factors, std::vector<double>& values) {
+  for (int i = begin; i < end; ++i) {
+    if (!source.drawn.empty()) {
+      const auto row = static_cast<std::size_t>(i) * factors.size();
+      values[static_cast<std::size_t>(i)] = evaluate(source.drawn.subspan(row, factors.size()));
+      continue;
+    }
+    if (source.pairs.empty())
+      source.sampler.sample(source.seed, static_cast<std::uint64_t>(i), factors);
+    else
+      source.sampler.sample_pairs(source.seed, static_cast<std::uint64_t>(i), source.pairs, factors);
+    values[static_cast<std::size_t>(i)] = evaluate(factors);
+  }
+}
+
+// The samples in chunks, shared out to the workers, and how far they have got.
+struct ChunkedRun {
+  ChunkedRun(int sample_count, int threads)
+      : samples(sample_count), running(threads), errors(static_cast<std::size_t>(threads)) {}
+
+  int samples;
+  int chunks = (samples + kChunkSamples - 1) / kChunkSamples;
+  std::atomic<int> next_chunk{0};
+  std::atomic<int> completed{0};
+  std::mutex mutex;
+  std::condition_variable done_signal;
+  int running;
+  std::vector<std::exception_ptr> errors;  // one per worker
+};
+
+// One worker: takes chunks until none is left; an exception stops every worker early.
+void work(ChunkedRun& run, std::size_t worker, const FactorSource& source, const SampleEvaluator& evaluate,
+          std::vector<double>& values) {
+  try {
+    std::vector<double> factors(source.sampler.size(), 1.0);
+    for (int chunk = run.next_chunk++; chunk < run.chunks; chunk = run.next_chunk++) {
+      const int begin = chunk * kChunkSamples;
+      const int end = std::min(begin + kChunkSamples, run.samples);
+      evaluate_samples(source, evaluate, begin, end, factors, values);
+      run.completed += end - begin;
+    }
+  } catch (...) {
+    run.errors[worker] = std::current_exception();
+    run.next_chunk = run.chunks;  // let the other workers stop early
+  }
+  const std::lock_guard lock(run.mutex);
+  if (--run.running == 0) run.done_signal.notify_all();
+}
+
+// Blocks until every worker is done. The calling thread only reports progress, so the
+// callback never runs concurrently.
+void wait_reporting_progress(ChunkedRun& run, const ProgressCallback& progress) {
+  std::unique_lock lock(run.mutex);
+  while (!run.done_signal.wait_for(lock, kProgressPeriod, [&] { return run.running == 0; }))
+    if (progress) {
+      lock.unlock();
+      progress(run.completed.load());
+      lock.lock();
+    }
+}
+
+void rethrow_first(const std::vector<std::exception_ptr>& errors) {
+  for (const auto& e : errors)
+    if (e) std::rethrow_exception(e);
+}
+
 }  // namespace
 
 UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarloOptions& options,
@@ -251,79 +332,23 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
                                    const SampleEvaluator& evaluate, const SampleJudge& meets) {
   assert(options.samples >= 1);
   const FactorSampler sampler(plan);
-  // The plan's table serves only the seed and sample count it was drawn for.
-  const bool use_drawn = !plan.drawn.factors.empty() && plan.drawn.seed == options.seed &&
-                         plan.drawn.samples == options.samples &&
-                         plan.drawn.factors.size() == static_cast<std::size_t>(options.samples) * sampler.size();
-  const std::span<const double> drawn =
-      use_drawn ? std::span<const double>(plan.drawn.factors) : std::span<const double>();
-  // Only the pairs of sources the evaluator reads are drawn; the others keep factor 1.
-  std::vector<std::size_t> pairs;
-  for (auto source : options.sources) pairs.push_back(source / 2);
-  std::sort(pairs.begin(), pairs.end());
-  pairs.erase(std::unique(pairs.begin(), pairs.end()), pairs.end());
+  const FactorSource source = factor_source(sampler, plan, options);
   std::vector<double> values(static_cast<std::size_t>(options.samples));
-  const int chunks = (options.samples + kChunkSamples - 1) / kChunkSamples;
-  const int threads = worker_count(options.threads, chunks);
-
-  std::atomic<int> next_chunk{0};
-  std::atomic<int> completed{0};
-  std::mutex mutex;
-  std::condition_variable done_signal;
-  int running = threads;
-  std::vector<std::exception_ptr> errors(static_cast<std::size_t>(threads));
-
-  auto work = [&](std::size_t worker) {
-    try {
-      std::vector<double> factors(sampler.size(), 1.0);
-      for (int chunk = next_chunk++; chunk < chunks; chunk = next_chunk++) {
-        const int begin = chunk * kChunkSamples;
-        const int end = std::min(begin + kChunkSamples, options.samples);
-        for (int i = begin; i < end; ++i) {
-          if (!drawn.empty()) {
-            const auto row = static_cast<std::size_t>(i) * factors.size();
-            values[static_cast<std::size_t>(i)] = evaluate(drawn.subspan(row, factors.size()));
-            continue;
-          }
-          if (pairs.empty())
-            sampler.sample(options.seed, static_cast<std::uint64_t>(i), factors);
-          else
-            sampler.sample_pairs(options.seed, static_cast<std::uint64_t>(i), pairs, factors);
-          values[static_cast<std::size_t>(i)] = evaluate(factors);
-        }
-        completed += end - begin;
-      }
-    } catch (...) {
-      errors[worker] = std::current_exception();
-      next_chunk = chunks;  // let the other workers stop early
-    }
-    const std::lock_guard lock(mutex);
-    if (--running == 0) done_signal.notify_all();
-  };
-
+  const int threads = worker_count(options.threads, (options.samples + kChunkSamples - 1) / kChunkSamples);
+  ChunkedRun run(options.samples, threads);
   if (threads == 1 && !options.progress) {  // one worker: run it here, start no thread
-    running = 1;
-    work(0);
-    if (errors[0]) std::rethrow_exception(errors[0]);
+    work(run, 0, source, evaluate, values);
+    rethrow_first(run.errors);
     return summarize_samples(values, meets);
   }
   std::vector<std::thread> workers;
   workers.reserve(static_cast<std::size_t>(threads));
-  for (int t = 0; t < threads; ++t) workers.emplace_back(work, static_cast<std::size_t>(t));
-  {
-    // The calling thread only reports progress, so the callback never runs concurrently.
-    std::unique_lock lock(mutex);
-    while (!done_signal.wait_for(lock, kProgressPeriod, [&] { return running == 0; }))
-      if (options.progress) {
-        lock.unlock();
-        options.progress(completed.load());
-        lock.lock();
-      }
-  }
+  for (int t = 0; t < threads; ++t)
+    workers.emplace_back([&, t] { work(run, static_cast<std::size_t>(t), source, evaluate, values); });
+  wait_reporting_progress(run, options.progress);
   for (auto& w : workers) w.join();
-  for (const auto& e : errors)
-    if (e) std::rethrow_exception(e);
-  if (options.progress) options.progress(completed.load());
+  rethrow_first(run.errors);
+  if (options.progress) options.progress(run.completed.load());
   return summarize_samples(values, meets);
 }
 

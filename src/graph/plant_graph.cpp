@@ -5,7 +5,7 @@
 #include <set>
 #include <unordered_map>
 
-#include "input/json_reader.hpp"
+#include "sifter/model/diagnostics.hpp"
 
 namespace sifter {
 
@@ -39,7 +39,7 @@ void PlantGraph::add_sif(const Project& project, std::size_t s) {
         if (it == by_id.end()) {
           if (ids.empty())
             for (const auto& comp : project.components) ids.push_back(comp.id);
-          const auto near = detail::nearest(ch.component_ids[e], ids);
+          const auto near = nearest(ch.component_ids[e], ids);
           problems_.push_back({ch.component_ids.size() > 1 ? ch.pointer + "/" + std::to_string(e) : ch.pointer,
                                "the id of a component", "\"" + ch.component_ids[e] + "\", which is not defined",
                                near.empty() ? "add it to \"components\"" : "did you mean \"" + near + "\"?"});

@@ -48,9 +48,6 @@ struct LoadContext {
 /// "the number 8", "the string \"8 hrs\"", "an object", ... for messages.
 std::string describe(const Json& value);
 
-/// The known key nearest to an unknown one (edit distance at most 3), or empty.
-std::string nearest(const std::string& word, const std::vector<std::string>& known);
-
 /// Reads the members of one JSON object; every read marks a key as known, and finish()
 /// reports the keys nobody asked for, with the nearest known key as a hint.
 class ObjectReader {

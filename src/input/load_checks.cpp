@@ -6,7 +6,7 @@
 #include <vector>
 
 #include "input/load_parts.hpp"
-#include "sifter/engines/plausibility.hpp"
+#include "sifter/input/plausibility.hpp"
 
 namespace sifter::detail {
 

@@ -6,7 +6,6 @@
 
 #include "input/load_parts.hpp"
 #include "input/load_pressure.hpp"
-#include "sifter/engines/uncertainty.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/model/civil_date.hpp"
 #include "sifter/model/format.hpp"
@@ -17,8 +16,6 @@ namespace {
 // A declared SFF may round the rates' own figure; a larger gap means one of them is wrong.
 constexpr double kSffAgreement = 0.01;
 constexpr double kMaxRatePerHour = 1e5;
-
-std::string percent_text(double fraction) { return sifter::percent(fraction); }
 
 // What one JSON object says about an element; absent fields stay empty so that a component
 // can override its library model field by field.
@@ -217,8 +214,8 @@ void check_failure_behaviour(LoadContext& ctx, ObjectReader& r, const Component&
   if (std::fabs(from_rates - *fields.sff) > kSffAgreement)
     ctx.error(0, r.has("sff") ? r.at("sff") : r.pointer(),
               "a declared SFF within 1 percentage point of the SFF of the component's own rates (" +
-                  percent_text(from_rates) + ")",
-              "a declared SFF of " + percent_text(*fields.sff),
+                  sifter::percent(from_rates) + ")",
+              "a declared SFF of " + sifter::percent(*fields.sff),
               "correct the rates or the SFF; drop \"sff\" to use the rates' own figure");
 }
 

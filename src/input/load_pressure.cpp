@@ -3,7 +3,7 @@
 
 #include <set>
 
-#include "sifter/engines/lopa.hpp"
+#include "sifter/model/vocabulary.hpp"
 
 namespace sifter::detail {
 namespace {

@@ -38,7 +38,7 @@ class RecordChecker {
   std::optional<std::size_t> component(const std::string& id, Field field, const Report& report) const {
     auto it = index_.find(id);
     if (it != index_.end()) return it->second;
-    const std::string near = detail::nearest(id, ids_);
+    const std::string near = nearest(id, ids_);
     report(field, "a component of the project", quote_text(id),
            near.empty() ? "the project's components are listed under /components" : "did you mean \"" + near + "\"?");
     return std::nullopt;

@@ -5,7 +5,6 @@
 #include <set>
 
 #include "input/load_parts.hpp"
-#include "sifter/engines/simplified.hpp"
 
 namespace sifter::detail {
 namespace {

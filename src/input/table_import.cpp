@@ -128,7 +128,7 @@ class Importer {
                                 });
       if (empty_column) continue;
       if (k < 0) {
-        const std::string near = detail::nearest(h, names);
+        const std::string near = nearest(h, names);
         problem({t.path, 1, static_cast<int>(i) + 1, h}, "a column of " + layout.file, "the header \"" + h + "\"",
                 near.empty() ? "the layout is in data/csv-tables.md" : "did you mean \"" + near + "\"?");
       } else if (t.at[static_cast<std::size_t>(k)] >= 0) {
@@ -312,7 +312,7 @@ class Importer {
     if (ids.count(id)) return true;
     std::vector<std::string> names;
     for (const auto& [name, _] : ids) names.push_back(name);
-    const std::string near = detail::nearest(id, names);
+    const std::string near = nearest(id, names);
     problem(place(t, row, header), what, "\"" + id + "\"",
             near.empty() ? "add its row first" : "did you mean \"" + near + "\"?");
     return false;

@@ -1,6 +1,7 @@
 // Formatting of input diagnostics for people.
 #include "sifter/model/diagnostics.hpp"
 
+#include <algorithm>
 #include <utility>
 
 namespace sifter {
@@ -45,5 +46,32 @@ InputError::InputError(std::vector<Diagnostic> diagnostics, std::size_t follow_o
     : Error(summarise(diagnostics, follow_ons_suppressed), ExitCode::kBadInput),
       diagnostics_(std::move(diagnostics)),
       follow_ons_suppressed_(follow_ons_suppressed) {}
+
+std::string nearest(const std::string& word, const std::vector<std::string>& known) {
+  std::string best;
+  std::size_t best_distance = 4;
+  for (const auto& k : known) {
+    // The distance is at least the difference in length: skip hopeless candidates, so that a
+    // hostile 10 MB key costs one comparison of lengths, not a 10 MB x N table.
+    const std::size_t length_gap = word.size() > k.size() ? word.size() - k.size() : k.size() - word.size();
+    if (length_gap >= best_distance) continue;
+    // Levenshtein distance, small strings only.
+    std::vector<std::size_t> prev(k.size() + 1), cur(k.size() + 1);
+    for (std::size_t j = 0; j <= k.size(); ++j) prev[j] = j;
+    for (std::size_t i = 1; i <= word.size(); ++i) {
+      cur[0] = i;
+      for (std::size_t j = 1; j <= k.size(); ++j) {
+        const std::size_t cost = word[i - 1] == k[j - 1] ? 0 : 1;
+        cur[j] = std::min({prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + cost});
+      }
+      std::swap(prev, cur);
+    }
+    if (prev[k.size()] < best_distance) {
+      best_distance = prev[k.size()];
+      best = k;
+    }
+  }
+  return best;
+}
 
 }  // namespace sifter

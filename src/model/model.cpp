@@ -1,7 +1,10 @@
-// Readable names of the model's enumerations.
+// The model's own functions: votes, readable names of its enumerations, the lambda_du that field
+// data give, and the votes Table D.5 covers.
 #include "sifter/model/model.hpp"
 
 #include <algorithm>
+#include <boost/math/distributions/chi_squared.hpp>
+#include <cassert>
 #include <cctype>
 
 namespace sifter {
@@ -86,5 +89,16 @@ std::string describe(const DataSource& source) {
   if (!source.date.empty()) out += ", " + source.date;
   return out;
 }
+
+Rate lambda_du_from_field_data(const FieldData& data) {
+  assert(data.failures >= 0 && data.device_hours.hours > 0.0);
+  assert(data.confidence > 0.0 && data.confidence < 1.0);
+  // Time-truncated observation: the upper bound takes 2n + 2 degrees of freedom, one failure
+  // more than counted, as if the next one were about to happen.
+  const boost::math::chi_squared chi2(2.0 * data.failures + 2.0);
+  return Rate{boost::math::quantile(chi2, data.confidence) / (2.0 * data.device_hours.hours)};
+}
+
+bool table_d5_covers(int k, int n) { return k >= 1 && k <= n && (n <= 5 || k == n); }
 
 }  // namespace sifter

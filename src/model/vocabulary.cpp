@@ -11,10 +11,6 @@
 
 namespace sifter {
 
-namespace {
-constexpr double kSecondsPerHour = 3600.0;
-}  // namespace
-
 std::string format_number(double value) {
   if (value == 0.0) return "0";
   if (!std::isfinite(value)) return std::isnan(value) ? "nan" : (value > 0 ? "inf" : "-inf");

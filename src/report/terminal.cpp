@@ -144,7 +144,7 @@ std::string figure_lines(const SifResult& s, std::size_t width) {
   else
     out += fit_line(sils, width, "  ", "     ") + fit_line(outcome, width, "       ", "    ");
   if (s.simplified_over_exact)
-    out += fit_line("exact cross-check  simplified/exact = " + ratio_text(*s.simplified_over_exact) +
+    out += fit_line("exact cross-check  simplified/exact = " + sifter::ratio(*s.simplified_over_exact) +
                         " (multi-phase Markov over the mission)",
                     width, "  ", "    ");
   if (s.uncertainty)

@@ -78,9 +78,6 @@ double mean_down_time_hours(const GroupData& group, int j);
 /// 1.0 for 1oo2 and for NooN groups, which have no common-cause term.
 double ccf_multiplier_table_d5(int k, int n);
 
-/// Whether Table D.5 has a cell for this vote.
-bool table_d5_covers(int k, int n);
-
 /// Binomial coefficient C(n, k) as a double.
 double binomial(int n, int k);
 

@@ -13,14 +13,6 @@
 
 namespace sifter {
 
-// ---- Field data ---------------------------------------------------------------------------
-
-/// lambda_du at the one-sided upper confidence bound of field experience, per hour:
-/// chi-squared(confidence; 2n + 2) / (2 T), n failures in T device-hours (the time-truncated
-/// bound used for Route 2H failure data, IEC 61508-2:2010 7.4.4.3, from memory; common
-/// practice in reliability handbooks). Preconditions, validated by the loader: n >= 0, T > 0, 0 < confidence < 1.
-Rate lambda_du_from_field_data(const FieldData& data);
-
 // ---- Lognormal error factors ----------------------------------------------------------------
 
 /// z of the 95th percentile of the standard normal distribution.

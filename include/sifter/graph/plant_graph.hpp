@@ -7,18 +7,11 @@
 #include <unordered_map>
 #include <vector>
 
+#include "sifter/model/diagnostics.hpp"
 #include "sifter/model/model.hpp"
 #include "sifter/results/project.hpp"
 
 namespace sifter {
-
-/// A problem in the SIF structure, with the pointer of the place it concerns.
-struct GraphProblem {
-  std::string pointer;
-  std::string expected;
-  std::string found;
-  std::string hint;
-};
 
 /// What a vertex of the plant graph stands for.
 enum class VertexKind { kSif, kGroup, kChannel, kComponent };

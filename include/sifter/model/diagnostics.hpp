@@ -28,6 +28,15 @@ struct Diagnostic {
 /// Renders a diagnostic as "file:line:column: /pointer: expected …, found …\n  hint: …".
 std::string format_diagnostic(const Diagnostic& d);
 
+/// A problem in the SIF structure (found by the plant graph or the plausibility checks), with the pointer of the place
+/// it concerns.
+struct GraphProblem {
+  std::string pointer;
+  std::string expected;
+  std::string found;
+  std::string hint;
+};
+
 /// A plausibility remark on valid input: computed on, but shown to the reviewer.
 struct Warning {
   std::string where;  ///< JSON pointer (or SIF/scenario id) of what it concerns
@@ -68,5 +77,9 @@ class OutputError : public Error {
  public:
   explicit OutputError(const std::string& message) : Error(message, ExitCode::kBadInput) {}
 };
+
+/// The known word nearest to an unknown one (edit distance at most 3), or empty: the "did you
+/// mean" of a hint.
+std::string nearest(const std::string& word, const std::vector<std::string>& known);
 
 }  // namespace sifter

@@ -30,6 +30,12 @@ struct FieldData {
   double confidence = 0.7;  ///< one-sided confidence level, 0..1
 };
 
+/// lambda_du at the one-sided upper confidence bound of field experience, per hour:
+/// chi-squared(confidence; 2n + 2) / (2 T), n failures in T device-hours (the time-truncated
+/// bound used for Route 2H failure data, IEC 61508-2:2010 7.4.4.3, from memory; common
+/// practice in reliability handbooks). Preconditions, validated by the loader: n >= 0, T > 0, 0 < confidence < 1.
+Rate lambda_du_from_field_data(const FieldData& data);
+
 /// The four failure rates of one element, per hour (IEC 61508-6 notation).
 struct FailureRates {
   Rate lambda_du;  ///< dangerous undetected
@@ -107,6 +113,9 @@ std::optional<Vote> parse_vote(std::string_view text);
 
 /// How beta is adjusted for groups other than 1oo2.
 enum class CcfScaling { kNone, kIec61508TableD5 };
+
+/// Whether IEC 61508-6:2010 Table D.5 has a cell for the vote K-out-of-N (N up to 5, and NooN).
+bool table_d5_covers(int k, int n);
 
 /// A subsystem's role in the signal path.
 enum class Role { kSensor, kLogic, kFinal };

@@ -9,6 +9,8 @@ namespace sifter {
 /// Hours in one year and one month, as the project file defines them (1 yr = 8760 h, 1 mo = 730 h).
 inline constexpr double kHoursPerYear = 8760.0;
 inline constexpr double kHoursPerMonth = 730.0;
+/// Seconds in one hour, for response times and process safety times stated in seconds.
+inline constexpr double kSecondsPerHour = 3600.0;
 /// One FIT is one failure in 1e9 device-hours.
 inline constexpr double kPerHourPerFit = 1e-9;
 

@@ -60,9 +60,6 @@ enum class JudgedWhy {
 std::string to_string(JudgedOn on);
 std::string to_string(JudgedWhy why);
 
-/// The one text of a simplified/exact ratio (three decimals), used wherever a ratio is printed.
-std::string ratio_text(double ratio);
-
 /// The result of one subsystem (voting group or vendor figure).
 struct SubsystemResult {
   std::string name;

@@ -7,7 +7,6 @@
 #include <unordered_map>
 #include <vector>
 
-#include "sifter/graph/plant_graph.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/model.hpp"
 

@@ -1,5 +1,5 @@
 // Demand-mode consistency and the signal path of a SIF (see plausibility.hpp).
-#include "sifter/engines/plausibility.hpp"
+#include "sifter/input/plausibility.hpp"
 
 #include <algorithm>
 
