@@ -136,17 +136,8 @@ void read_defaults(LoadContext& ctx, const Json& root, Project& project) {
   r.finish();
 }
 
-LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
-  LoadedProject out;
-  Project& project = out.project;
-  project.file = ctx.sources[0].path;
-  // The digest of the bytes as read is computed on a second core while the text is parsed (the
-  // parse blanks comments in place, so the thread hashes its own copy).
-  auto digest = std::async(std::launch::async, [bytes = ctx.sources[0].text] { return sha256_hex(bytes); });
-  auto root = parse_source(ctx, 0, "");
-  if (!root) throw InputError(ctx.located());
-  ObjectReader top(ctx, *root, "", 0, "a project");
-  if (!top.is_object()) throw InputError(ctx.located());
+// The project's own keys: format, title, document control and the project-wide choices.
+void read_header(LoadContext& ctx, ObjectReader& top, Project& project) {
   if (auto format = top.string("format", true)) {
     project.format = *format;
     if (*format != kProjectFormat)
@@ -162,6 +153,20 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
     project.judge_on = *judge_on == "simplified" ? JudgeOn::kSimplified
                        : *judge_on == "exact"    ? JudgeOn::kExact
                                                  : JudgeOn::kConservative;
+}
+
+LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
+  LoadedProject out;
+  Project& project = out.project;
+  project.file = ctx.sources[0].path;
+  // The digest of the bytes as read is computed on a second core while the text is parsed (the
+  // parse blanks comments in place, so the thread hashes its own copy).
+  auto digest = std::async(std::launch::async, [bytes = ctx.sources[0].text] { return sha256_hex(bytes); });
+  auto root = parse_source(ctx, 0, "");
+  if (!root) throw InputError(ctx.located());
+  ObjectReader top(ctx, *root, "", 0, "a project");
+  if (!top.is_object()) throw InputError(ctx.located());
+  read_header(ctx, top, project);
   top.member("defaults");
   read_defaults(ctx, *root, project);
   detail::ModelIndex models;

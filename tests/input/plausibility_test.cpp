@@ -1,6 +1,6 @@
 // Specification of how warnings find the SIF they are about: by the SIF's pointer, a place
 // inside it, or its id; never by a pointer that merely starts with the same characters.
-#include "sifter/engines/plausibility.hpp"
+#include "sifter/input/plausibility.hpp"
 
 #include <gtest/gtest.h>
 
