@@ -5,7 +5,7 @@
 #include <cmath>
 #include <utility>
 
-#include "sifter/analysis/verify.hpp"
+#include "sifter/engines/group_model.hpp"
 
 namespace sifter {
 namespace {

@@ -50,7 +50,7 @@ struct CurveSubsystem {
 PfdPlot simplified_curve(const std::vector<CurveSubsystem>& subsystems, Duration mission,
                          std::size_t uniform_samples = 400);
 
-/// simplified_curve() for one SIF of a project: group data from verify's group_data_for, a
+/// simplified_curve() for one SIF of a project: group data from group_data_for (group_model), a
 /// supplier's PFDavg drawn flat, the project's mission time.
 PfdPlot simplified_curve(const Project& project, const Sif& sif, std::size_t uniform_samples = 400);
 
