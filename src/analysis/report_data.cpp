@@ -37,10 +37,7 @@ std::optional<double> required_line(const SifResult& sif) {
 PfdPlot pfd_plot(const Project& project, const Sif& sif, const ReportOptions& options) {
   if (options.exact) {
     try {
-      const SifCurve c = exact_curve(project, sif, static_cast<int>(options.curve_samples));
-      return PfdPlot{c.time_hours, c.pfd_sif, c.pfd_subsystems,
-                     "exact multi-phase Markov model of every group (matrix exponential; Van Loan's form for the "
-                     "integrals); PFD_SIF(t) = 1 - prod(1 - PFD_i(t))"};
+      return exact_curve(project, sif, static_cast<int>(options.curve_samples));
     } catch (const Error&) {
       // A group the exact engine cannot model: the simplified curve, which says so.
     }

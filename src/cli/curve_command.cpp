@@ -24,13 +24,13 @@ struct CurveOptions {
   std::string json_path;
 };
 
-std::string curve_csv(const SifCurve& c) {
+std::string curve_csv(const PfdPlot& c) {
   std::string out = "time_h,pfd_sif";
   for (const auto& n : c.subsystem_names) out += "," + report::csv_field("pfd " + n);
   out += "\r\n";
   char buf[40];
-  for (std::size_t i = 0; i < c.time_hours.size(); ++i) {
-    std::snprintf(buf, sizeof buf, "%.6g", sifter::checked(c.time_hours[i], "time"));
+  for (std::size_t i = 0; i < c.t_hours.size(); ++i) {
+    std::snprintf(buf, sizeof buf, "%.6g", sifter::checked(c.t_hours[i], "time"));
     out += buf;
     std::snprintf(buf, sizeof buf, ",%.6e", sifter::checked(c.pfd_sif[i], "pfd"));
     out += buf;
@@ -43,10 +43,10 @@ std::string curve_csv(const SifCurve& c) {
   return out;
 }
 
-nlohmann::json curve_json(const std::string& sif, const SifCurve& c) {
+nlohmann::json curve_json(const std::string& sif, const PfdPlot& c) {
   nlohmann::json j{{"sif", sif},
-                   {"pfd_avg_exact", sifter::checked(c.pfd_avg_exact, "pfd")},
-                   {"time_h", c.time_hours},
+                   {"pfd_avg_exact", sifter::checked(c.pfd_avg.value_or(0.0), "pfd")},
+                   {"time_h", c.t_hours},
                    {"pfd_sif", c.pfd_sif},
                    {"subsystems", nlohmann::json::array()}};
   for (std::size_t i = 0; i < c.subsystem_names.size(); ++i)
@@ -81,7 +81,7 @@ Action add_curve_command(CLI::App& app) {
     const LoadedProject loaded = load_project_file(opts->project);
     report::refuse_overwriting_inputs({opts->csv_path, opts->json_path}, loaded.inputs);
     const Sif& sif = find_sif(loaded.project, opts->sif);
-    const SifCurve c = exact_curve(loaded.project, sif, opts->points);
+    const PfdPlot c = exact_curve(loaded.project, sif, opts->points);
     const std::string csv = opts->csv_path.empty() ? "" : curve_csv(c);
     const std::string json = opts->json_path.empty() ? "" : curve_json(sif.id, c).dump() + "\n";
     report::write_outputs({{opts->csv_path, csv}, {opts->json_path, json}});
@@ -89,8 +89,8 @@ Action add_curve_command(CLI::App& app) {
       double peak = 0.0;
       for (double p : c.pfd_sif) peak = std::max(peak, p);
       std::cout << "PFD(t) of " << escape_controls(sif.id) << " over "
-                << format_duration(loaded.project.defaults.mission_time) << ": " << c.time_hours.size()
-                << " points, average " << sifter::sci(c.pfd_avg_exact) << ", peak " << sifter::sci(peak)
+                << format_duration(loaded.project.defaults.mission_time) << ": " << c.t_hours.size()
+                << " points, average " << sifter::sci(c.pfd_avg.value_or(0.0)) << ", peak " << sifter::sci(peak)
                 << " (exact multi-phase Markov engine)\n\n"
                 << report::wrapped_caution();
     }

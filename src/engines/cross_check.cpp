@@ -186,7 +186,7 @@ void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& 
   judge_agreement(project, sif, ratio, low, r, warnings);
 }
 
-SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
+PfdPlot exact_curve(const Project& project, const Sif& sif, int points) {
   const auto inputs = exact_inputs(project, sif);
   std::vector<ExactGroupInput> modelled;
   std::vector<double> vendor;  // constant PFD per vendor subsystem
@@ -200,10 +200,13 @@ SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
       throw UsageError("the exact engine cannot model subsystem \"" + sif.subsystems[i].name + "\": " + why);
     modelled.push_back(*inputs[i]);
   }
-  SifCurve c;
+  PfdPlot c;
+  c.engine =
+      "exact multi-phase Markov model of every group (matrix exponential; Van Loan's form for the "
+      "integrals); PFD_SIF(t) = 1 - prod(1 - PFD_i(t))";
   if (modelled.empty()) throw UsageError("SIF " + sif.id + " has only vendor figures: its PFD is constant");
   const SifExactResult exact = sif_curve(modelled, points);
-  c.time_hours = exact.curve.time_hours;
+  c.t_hours = exact.curve.time_hours;
   double vendor_total = 0.0;
   for (double v : vendor) vendor_total += v;
   for (double p : exact.curve.pfd) c.pfd_sif.push_back(1.0 - (1.0 - vendor_total) * (1.0 - p));
@@ -211,11 +214,11 @@ SifCurve exact_curve(const Project& project, const Sif& sif, int points) {
   for (std::size_t i = 0; i < inputs.size(); ++i) {
     c.subsystem_names.push_back(sif.subsystems[i].name);
     if (!inputs[i])
-      c.pfd_subsystems.emplace_back(c.time_hours.size(), vendor[v++]);
+      c.pfd_subsystems.emplace_back(c.t_hours.size(), vendor[v++]);
     else
       c.pfd_subsystems.push_back(exact.groups[k++].curve.pfd);
   }
-  c.pfd_avg_exact = 1.0 - (1.0 - vendor_total) * (1.0 - exact.pfd_avg);
+  c.pfd_avg = 1.0 - (1.0 - vendor_total) * (1.0 - exact.pfd_avg);
   return c;
 }
 

@@ -123,7 +123,9 @@ PfdPlot simplified_curve(const Project& project, const Sif& sif, std::size_t uni
       c.group = group_data_for(project, sub);
     subsystems.push_back(std::move(c));
   }
-  return simplified_curve(subsystems, project.defaults.mission_time, uniform_samples);
+  PfdPlot plot = simplified_curve(subsystems, project.defaults.mission_time, uniform_samples);
+  for (const auto& sub : sif.subsystems) plot.subsystem_names.push_back(sub.name);
+  return plot;
 }
 
 }  // namespace sifter

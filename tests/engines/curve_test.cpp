@@ -5,6 +5,9 @@
 
 #include <cmath>
 
+#include "sifter/analysis/verify.hpp"
+#include "sifter/engines/cross_check.hpp"
+#include "sifter/input/load.hpp"
 #include "support/tolerance.hpp"
 
 namespace sifter {
@@ -137,6 +140,39 @@ TEST(Curve, ANoOutOfNGroupFailsOnAnyChannelWithoutASeparateCommonCauseTerm) {
   const GroupData g = group(2, 2, 1e-6, 0.0, 0.1, 0.1, 0.0);
   const double q = 1e-6 * 1000.0;
   expect_relative(group_pfd_at(g, 1000.0, false), 1.0 - (1.0 - q) * (1.0 - q), 1e-12);
+}
+
+}  // namespace
+}  // namespace sifter
+
+namespace sifter {
+namespace {
+
+// One curve type for both engines: the exact engine's curve of each SIF of the shipped example
+// names its subsystems in the SIF's order, and its mission average is the exact PFDavg that
+// `check` reports for that SIF (the same engine, reached through verify).
+TEST(CurveOfTheExactEngine, NamesTheSubsystemsAndAveragesToTheExactFigureOfCheck) {
+  const LoadedProject loaded = load_project_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40.json");
+  const ProjectResult checked = verify_project(loaded, VerifyOptions{});
+  int compared = 0;
+  for (std::size_t i = 0; i < loaded.project.sifs.size(); ++i) {
+    const Sif& sif = loaded.project.sifs[i];
+    const SifResult& r = checked.sifs[i];
+    if (!r.pfd_avg_exact || r.demand_mode != DemandMode::kLow) continue;
+    PfdPlot plot;
+    try {
+      plot = exact_curve(loaded.project, sif, 200);
+    } catch (const UsageError&) {
+      continue;  // only supplier figures: no curve
+    }
+    ASSERT_EQ(plot.subsystem_names.size(), sif.subsystems.size());
+    for (std::size_t g = 0; g < sif.subsystems.size(); ++g) EXPECT_EQ(plot.subsystem_names[g], sif.subsystems[g].name);
+    ASSERT_TRUE(plot.pfd_avg.has_value());
+    expect_relative(*plot.pfd_avg, *r.pfd_avg_exact, 1e-6);
+    EXPECT_FALSE(plot.engine.empty());
+    ++compared;
+  }
+  EXPECT_GT(compared, 0);
 }
 
 }  // namespace

@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "sifter/engines/markov.hpp"
+#include "sifter/results/report.hpp"
 #include "sifter/results/sif.hpp"
 
 namespace sifter {
@@ -39,17 +40,10 @@ class ExactCache {
 void apply_exact_cross_check(const Project& project, const Sif& sif, SifResult& result, std::vector<Warning>& warnings,
                              ExactCache& cache);
 
-/// PFD(t) of the SIF and of each subsystem over the mission, `points` evenly spaced samples
-/// plus every test instant (vendor figures as constant lines).
-struct SifCurve {
-  std::vector<double> time_hours;
-  std::vector<double> pfd_sif;
-  std::vector<std::string> subsystem_names;
-  std::vector<std::vector<double>> pfd_subsystems;  ///< one per subsystem, on time_hours
-  double pfd_avg_exact = 0.0;
-};
-
-/// The curve of one SIF from the exact engine; throws UsageError when a group cannot be modelled.
-SifCurve exact_curve(const Project& project, const Sif& sif, int points);
+/// The curve of one SIF from the exact engine: PFD(t) of the SIF and of each subsystem over the
+/// mission, `points` evenly spaced samples plus every test instant (vendor figures as constant
+/// lines), with the names of the subsystems and the SIF's exact mission average. Throws
+/// UsageError when a group cannot be modelled.
+PfdPlot exact_curve(const Project& project, const Sif& sif, int points);
 
 }  // namespace sifter

@@ -23,6 +23,8 @@ struct PfdPlot {
   std::vector<double> pfd_sif;                      ///< the SIF: sum over its subsystems in series
   std::vector<std::vector<double>> pfd_subsystems;  ///< one series per subsystem, in the SIF's order
   std::string engine;                               ///< which engine drew it, in words, with its source
+  std::vector<std::string> subsystem_names;         ///< the subsystems' names, in the order of pfd_subsystems
+  std::optional<double> pfd_avg;  ///< the SIF's mission average of PFD(t), where the engine computed it
 };
 
 /// One point of the sweep: every proof-test interval of the SIF times `factor`.
