@@ -62,7 +62,18 @@ std::optional<double> SifTarget::limit() const {
   return value;
 }
 
-SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<RequirementFromLopa>& lopa,
+std::string demand_basis(const SifRequirement& requirement) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.3g", requirement.demand_rate_per_yr);
+  std::string out =
+      std::string("demand rate ") + buf + "/yr from scenario" + (requirement.scenarios.size() > 1 ? "s " : " ");
+  for (std::size_t i = 0; i < requirement.scenarios.size(); ++i) out += (i ? ", " : "") + requirement.scenarios[i];
+  out += requirement.demand_mode == DemandMode::kLow ? "; at most once a year is low demand (IEC 61511-1:2016 3.2.39)"
+                                                     : "; above once a year is high demand (IEC 61511-1:2016 3.2.39)";
+  return out;
+}
+
+SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<SifRequirement>& lopa,
                      std::vector<Warning>& warnings) {
   SifTarget out;
   out.mode = mode;

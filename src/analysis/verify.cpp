@@ -71,7 +71,7 @@ void warn_beyond_simplified_range(const Sif& sif, const SifResult& r, std::vecto
 
 }  // namespace
 
-SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<SifRequirement>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings) {
   ExactCache cache;
   return verify_sif(project, sif, lopa, options, warnings, cache);
@@ -81,14 +81,14 @@ namespace {
 
 // Identity, constraint basis, demand mode and its reason. A SIF its scenarios demand more than
 // once a year is judged in high demand whatever its stated mode (IEC 61511-1:2016 3.2.39).
-SifResult start_result(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa) {
+SifResult start_result(const Project& project, const Sif& sif, const std::optional<SifRequirement>& lopa) {
   SifResult r;
   r.id = sif.id;
   r.title = sif.title;
   r.constraints = sif.constraints.value_or(project.constraints.value_or(ConstraintBasis::kIec61511));
   if (lopa) {
     r.demand_mode = lopa->demand_mode;
-    r.demand_mode_basis = lopa->demand_basis;
+    r.demand_mode_basis = demand_basis(*lopa);
     r.scenarios = lopa->scenarios;
     r.demand_mode_raised = sif.demand_mode_stated == DemandMode::kLow && lopa->demand_mode == DemandMode::kHigh;
     if (r.demand_mode_raised)
@@ -168,7 +168,7 @@ VerdictBasis verdict_basis(const SifResult& r, std::optional<double> route_2h_co
   return basis;
 }
 
-SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<SifRequirement>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache) {
   SifResult r = start_result(project, sif, lopa);
   detail::DefaultsApplied defaults;

@@ -31,24 +31,13 @@ bool ProjectResult::all_met() const {
 namespace {
 
 // What the risk analysis asks of each SIF, from the scenarios that credit it.
-std::map<std::string, RequirementFromLopa> requirements_from(const std::vector<ScenarioResult>& scenarios,
-                                                             std::vector<Warning>& warnings) {
-  std::map<std::string, RequirementFromLopa> out;
-  for (const auto& req : sif_requirements(scenarios)) {
-    RequirementFromLopa r;
-    r.required_rrf = req.required_rrf;
-    r.required_pfh_per_hour = req.required_pfh_per_hour;
-    r.demand_mode = req.demand_mode;
-    r.scenarios = req.scenarios;
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.3g", req.demand_rate_per_yr);
-    r.demand_basis = std::string("demand rate ") + buf + "/yr from scenario" + (req.scenarios.size() > 1 ? "s " : " ");
-    for (std::size_t i = 0; i < req.scenarios.size(); ++i) r.demand_basis += (i ? ", " : "") + req.scenarios[i];
-    r.demand_basis += req.demand_mode == DemandMode::kLow
-                          ? "; at most once a year is low demand (IEC 61511-1:2016 3.2.39)"
-                          : "; above once a year is high demand (IEC 61511-1:2016 3.2.39)";
+std::map<std::string, SifRequirement> requirements_from(const std::vector<ScenarioResult>& scenarios,
+                                                        std::vector<Warning>& warnings) {
+  std::map<std::string, SifRequirement> out;
+  for (auto& req : sif_requirements(scenarios)) {
     for (const auto& f : req.findings) warnings.push_back({req.sif, to_string(f.kind) + ": " + f.message});
-    out.emplace(req.sif, std::move(r));
+    std::string id = req.sif;
+    out.emplace(std::move(id), std::move(req));
   }
   return out;
 }
@@ -144,7 +133,7 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
 
 }  // namespace
 
-std::map<std::string, RequirementFromLopa> lopa_requirements(const Project& project, std::vector<Warning>& warnings) {
+std::map<std::string, SifRequirement> lopa_requirements(const Project& project, std::vector<Warning>& warnings) {
   if (project.scenarios.empty()) return {};
   return requirements_from(evaluate_scenarios(project, lopa_context_from_project(project)), warnings);
 }
@@ -154,12 +143,12 @@ namespace {
 // A SIF without a stated mode takes it from the LOPA; its supplier figures and target must be
 // of that mode (the loader checked SIFs whose mode is stated or assumed).
 void refuse_mode_mismatches_from_lopa(const Project& project,
-                                      const std::map<std::string, RequirementFromLopa>& requirements) {
+                                      const std::map<std::string, SifRequirement>& requirements) {
   std::vector<Diagnostic> problems;
   for (const auto& sif : project.sifs) {
     auto it = requirements.find(sif.id);
     if (sif.demand_mode_stated || it == requirements.end()) continue;
-    for (const auto& p : demand_mode_mismatches(sif, it->second.demand_mode, it->second.demand_basis))
+    for (const auto& p : demand_mode_mismatches(sif, it->second.demand_mode, demand_basis(it->second)))
       problems.push_back({project.file, 0, 0, p.pointer, p.expected, p.found, p.hint});
   }
   if (!problems.empty()) throw InputError(problems);

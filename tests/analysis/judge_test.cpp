@@ -46,7 +46,7 @@ TEST(Judge, StatedTargetAndLopaGiveTheStricter) {
   Sif sif;
   sif.id = "S";
   sif.target = Target{Target::Kind::kSil, 1.0};
-  RequirementFromLopa lopa;
+  SifRequirement lopa;
   lopa.required_rrf = 1040.0;
   std::vector<Warning> warnings;
   const SifTarget t = sif_target(sif, DemandMode::kLow, lopa, warnings);

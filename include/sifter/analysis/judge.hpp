@@ -7,17 +7,13 @@
 
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/model.hpp"
+#include "sifter/results/lopa.hpp"
 
 namespace sifter {
 
-/// The SIF requirement from the risk analysis, when scenarios feed it.
-struct RequirementFromLopa {
-  double required_rrf = 0.0;                    ///< the largest over the scenarios (low demand)
-  std::optional<double> required_pfh_per_hour;  ///< high demand: the smallest over the scenarios
-  DemandMode demand_mode = DemandMode::kLow;
-  std::vector<std::string> scenarios;
-  std::string demand_basis;
-};
+/// Why the SIF's demand mode is what its scenarios make it, in words: the summed demand rate,
+/// the scenarios it comes from and the once-a-year boundary (IEC 61511-1:2016 3.2.39).
+std::string demand_basis(const SifRequirement& requirement);
 
 /// What one SIF must reach: the stricter of its stated target and its scenarios' requirement.
 /// A figure meets it when its SIL band reaches `sil` (IEC 61511-1:2016 Tables 4/5, half-open
@@ -35,7 +31,7 @@ struct SifTarget {
 
 /// Builds the one requirement of a SIF in `mode`; a stated target that differs from what the
 /// LOPA asks is reported in `warnings` (the stricter applies).
-SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<RequirementFromLopa>& lopa,
+SifTarget sif_target(const Sif& sif, DemandMode mode, const std::optional<SifRequirement>& lopa,
                      std::vector<Warning>& warnings);
 
 /// The one judge: whether `figure` (PFDavg, or PFH per hour, as target.mode says) meets the

@@ -18,7 +18,7 @@ namespace sifter {
 
 /// What the risk analysis asks of each SIF its scenarios credit, by SIF id (empty without
 /// scenarios); the LOPA findings go to `warnings`. It does not depend on the SIFs' own figures.
-std::map<std::string, RequirementFromLopa> lopa_requirements(const Project& project, std::vector<Warning>& warnings);
+std::map<std::string, SifRequirement> lopa_requirements(const Project& project, std::vector<Warning>& warnings);
 
 /// Options of a verification run.
 struct VerifyOptions {
@@ -38,12 +38,12 @@ VerdictBasis verdict_basis(const SifResult& r, std::optional<double> route_2h_co
 
 /// Verifies one SIF: PFDavg or PFH of every subsystem and of the SIF, RRF, the SIL from
 /// probability, the target and the verdict, with the assumptions applied.
-SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<SifRequirement>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings);
 
 class ExactCache;
 /// The same, sharing exact results between SIFs of identical architecture and data.
-SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<RequirementFromLopa>& lopa,
+SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<SifRequirement>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache);
 
 /// Throws InputError (exit 2) naming each SIF and scenario whose figures left the finite

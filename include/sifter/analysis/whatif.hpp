@@ -33,7 +33,7 @@ class WhatIf {
 
  private:
   Project project_;
-  std::map<std::string, RequirementFromLopa> requirements_;
+  std::map<std::string, SifRequirement> requirements_;
 };
 
 /// The SIF's figure in its demand mode: PFDavg (low) or PFH per hour (high); empty when a
