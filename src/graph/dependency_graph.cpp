@@ -108,20 +108,45 @@ std::vector<std::string> DependencyGraph::common_devices(Vertex a, Vertex b) con
 }
 
 std::vector<SharedDevice> DependencyGraph::shared_devices() const {
-  // Walk forward once from every user and invert: cheaper than a backward walk per device.
-  std::map<std::string, std::vector<std::string>> users_of;  // tag -> users, sorted by tag
+  // Walk forward once from every user and invert, by vertex index: cheaper than a backward
+  // walk per device, and no device's name is copied unless two parties rely on it.
+  const std::size_t n = boost::num_vertices(graph_);
+  std::vector<std::vector<Vertex>> users_of(n);  // device vertex -> users, in the order met
+  std::vector<std::size_t> walked(n, 0);         // the walk (1-based) that last reached a vertex
+  std::vector<Vertex> stack;
+  std::size_t walk = 0;
   auto collect = [&](DependencyKind kind) {
     for (auto [v, end] = boost::vertices(graph_); v != end; ++v) {
       if (graph_[*v].kind != kind) continue;
-      for (Vertex d : reach_devices(*v, false)) users_of[graph_[d].name].push_back(graph_[*v].name);
+      ++walk;
+      walked[*v] = walk;
+      stack.assign(1, *v);
+      while (!stack.empty()) {  // the walk of reach_devices(v, false), with marks kept between walks
+        const Vertex u = stack.back();
+        stack.pop_back();
+        if (graph_[u].kind == DependencyKind::kDevice) users_of[u].push_back(*v);
+        if (u != *v && graph_[u].kind == DependencyKind::kSif) continue;
+        for (auto [e, e_end] = boost::out_edges(u, graph_); e != e_end; ++e) {
+          const Vertex w = boost::target(*e, graph_);
+          if (walked[w] != walk) {
+            walked[w] = walk;
+            stack.push_back(w);
+          }
+        }
+      }
     }
   };
   // SIFs first, then scenarios, each in the order they were added (project order).
   collect(DependencyKind::kSif);
   collect(DependencyKind::kScenario);
   std::vector<SharedDevice> shared;
-  for (auto& [tag, users] : users_of)
-    if (users.size() >= 2) shared.push_back({tag, std::move(users)});
+  for (Vertex d = 0; d < n; ++d) {
+    if (users_of[d].size() < 2) continue;
+    SharedDevice device{graph_[d].name, {}};
+    for (Vertex u : users_of[d]) device.users.push_back(graph_[u].name);
+    shared.push_back(std::move(device));
+  }
+  std::sort(shared.begin(), shared.end(), [](const SharedDevice& a, const SharedDevice& b) { return a.tag < b.tag; });
   return shared;
 }
 
