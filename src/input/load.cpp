@@ -155,6 +155,32 @@ void read_header(LoadContext& ctx, ObjectReader& top, Project& project) {
                                                  : JudgeOn::kConservative;
 }
 
+// Components and SIFs are read on two cores: neither section depends on the other (a SIF names
+// its components by id, resolved later by the graph). The SIFs' problems and warnings are
+// collected apart and appended after the components', so that the messages, their order and
+// the cap on how many are kept are those of one reader going through the file.
+void read_components_and_sifs(LoadContext& ctx, const Json& root, const detail::ModelIndex& models,
+                              Project& project) {
+  LoadContext sif_ctx;
+  for (const auto& source : ctx.sources) sif_ctx.sources.push_back({source.path, {}});  // paths only
+  sif_ctx.problems = ctx.problems;  // a problem of "defaults" is seen by the SIFs that inherit it
+  sif_ctx.problems_not_kept = ctx.problems_not_kept;
+  const std::size_t kept_before = ctx.problems.size();
+  const std::size_t counted_before = ctx.problems_not_kept;
+  auto sifs = std::async(std::launch::async, [&] { detail::read_sifs(sif_ctx, root, project); });
+  detail::read_components(ctx, root, models, project);  // touches project.components only
+  sifs.get();                                           // read_sifs touches project.sifs only
+  for (std::size_t i = kept_before; i < sif_ctx.problems.size(); ++i) {
+    if (ctx.problems.size() >= kMaxReportedProblems)
+      ++ctx.problems_not_kept;
+    else
+      ctx.problems.push_back(std::move(sif_ctx.problems[i]));
+  }
+  ctx.problems_not_kept += sif_ctx.problems_not_kept - counted_before;  // those beyond the cap among the SIFs'
+  ctx.follow_ons_suppressed += sif_ctx.follow_ons_suppressed;
+  for (auto& w : sif_ctx.warnings) ctx.warnings.push_back(std::move(w));
+}
+
 LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   LoadedProject out;
   Project& project = out.project;
@@ -177,10 +203,9 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   // twice (as JSON and as structs) at its full size.
   detail::ReuseRecord reuse = detail::expand_reuse(ctx, *root, top);
   top.member("components");
-  detail::read_components(ctx, *root, models, project);
-  root->erase("components");
   top.member("sifs");
-  detail::read_sifs(ctx, *root, project);
+  read_components_and_sifs(ctx, *root, models, project);
+  root->erase("components");
   root->erase("sifs");
   top.member("risk_criteria");
   top.member("scenarios");

@@ -3,6 +3,7 @@
 #include <cstdio>
 #include <map>
 #include <set>
+#include <unordered_set>
 
 #include "input/load_parts.hpp"
 #include "input/load_pressure.hpp"
@@ -277,7 +278,7 @@ void take_fields(Component& c, ElementFields& fields) {
 }
 
 void read_component(LoadContext& ctx, const Json& value, const std::string& pointer, const ModelIndex& models,
-                    ModelFieldsCache& model_fields, std::set<std::string>& seen, Project& project) {
+                    ModelFieldsCache& model_fields, std::unordered_set<std::string>& seen, Project& project) {
   ObjectReader r(ctx, value, pointer, 0, "a component");
   Component c;
   c.pointer = pointer;
@@ -333,8 +334,9 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
     ctx.error(0, "/components", "an array of components", describe(*it));
     return;
   }
-  std::set<std::string> seen;
+  std::unordered_set<std::string> seen;
   ModelFieldsCache model_fields;
+  project.components.reserve(project.components.size() + it->size());
   for (std::size_t i = 0; i < it->size(); ++i)
     read_component(ctx, (*it)[i], "/components/" + std::to_string(i), models, model_fields, seen, project);
 }

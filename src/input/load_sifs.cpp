@@ -3,6 +3,7 @@
 #include <cctype>
 #include <cmath>
 #include <set>
+#include <unordered_set>
 
 #include "input/load_parts.hpp"
 
@@ -293,7 +294,8 @@ void read_sifs(LoadContext& ctx, const Json& root, Project& project) {
     ctx.error(0, "/sifs", "an array of SIFs", describe(*it));
     return;
   }
-  std::set<std::string> ids;
+  std::unordered_set<std::string> ids;
+  project.sifs.reserve(project.sifs.size() + it->size());
   for (std::size_t i = 0; i < it->size(); ++i) {
     const std::string pointer = "/sifs/" + std::to_string(i);
     ObjectReader r(ctx, (*it)[i], pointer, 0, "a SIF");

@@ -184,6 +184,43 @@ TEST(Load, ANumberBeyondDoubleRangeIsNotReadAsInfinity) {
             std::string::npos);
 }
 
+// Components and SIFs are read side by side; the messages still come as one reader going
+// through the file would give them: every component's problem before any SIF's, and the cap of
+// 100 problems kept counts the rest, whichever section they are in.
+std::string project_with_bad_components_and_sifs(int components, int sifs) {
+  std::string text = R"({"format": "sifter-project/1", "defaults": {"proof_test_interval": "1 yr", "mttr": "8 h"},
+  "components": [)";
+  for (int i = 0; i < components; ++i)
+    text += std::string(i ? "," : "") + R"({"id": "C)" + std::to_string(i) + R"(", "lambda_du": "often"})";
+  text += "], \"sifs\": [";
+  for (int i = 0; i < sifs; ++i)
+    text += std::string(i ? "," : "") + R"({"id": "S)" + std::to_string(i) +
+            R"(", "target": {"sil": 1}, "subsystems": [{"name": "a", "role": "sensor", "vote": "1o1", "channels": ["C0"]}]})";
+  return text + "]}";
+}
+
+TEST(Load, ComponentProblemsComeBeforeSifProblemsAsInTheFile) {
+  const std::string message = error_of(project_with_bad_components_and_sifs(3, 3));
+  const auto last_component = message.rfind("/components/2/lambda_du");
+  const auto first_sif = message.find("/sifs/0/subsystems/0/vote");
+  ASSERT_NE(last_component, std::string::npos) << message;
+  ASSERT_NE(first_sif, std::string::npos) << message;
+  EXPECT_LT(last_component, first_sif);
+  EXPECT_LT(message.find("/sifs/0/"), message.find("/sifs/1/"));
+  EXPECT_LT(message.find("/sifs/1/"), message.find("/sifs/2/"));
+  EXPECT_NE(message.find("6 problems in the input"), std::string::npos) << message;
+}
+
+TEST(Load, TheCapOnProblemsKeptCountsThoseOfBothSections) {
+  // 70 components and 50 SIFs, one problem each: the 70 and the first 30 SIFs are kept.
+  const std::string message = error_of(project_with_bad_components_and_sifs(70, 50));
+  EXPECT_NE(message.find("/components/69/lambda_du"), std::string::npos);
+  EXPECT_NE(message.find("/sifs/29/subsystems/0/vote"), std::string::npos);
+  EXPECT_EQ(message.find("/sifs/30/"), std::string::npos);
+  EXPECT_NE(message.find("expected at most 100 problems reported at once, found 20 more"), std::string::npos)
+      << message.substr(message.size() > 600 ? message.size() - 600 : 0);
+}
+
 TEST(Load, AByteOrderMarkIsRefusedWithAHint) {
   EXPECT_NE(error_of("\xEF\xBB\xBF{}").find("save the file as UTF-8 without BOM"), std::string::npos);
 }
