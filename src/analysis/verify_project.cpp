@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <atomic>
 #include <cstdio>
+#include <future>
 #include <map>
 #include <mutex>
 #include <thread>
@@ -53,6 +54,7 @@ void parallel_for(std::size_t n, int threads, const std::function<void(std::size
   }
   std::atomic<std::size_t> next{0};
   std::exception_ptr failure;
+  std::size_t failure_index = n;  // the failure of the first item in order, whatever the threads did
   std::mutex failure_mutex;
   auto work = [&] {
     for (std::size_t i = next++; i < n; i = next++) {
@@ -60,7 +62,10 @@ void parallel_for(std::size_t n, int threads, const std::function<void(std::size
         body(i);
       } catch (...) {
         std::lock_guard<std::mutex> lock(failure_mutex);
-        if (!failure) failure = std::current_exception();
+        if (i < failure_index) {
+          failure = std::current_exception();
+          failure_index = i;
+        }
       }
     }
   };
@@ -131,11 +136,27 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
   }
 }
 
+// The scenarios are independent of each other once the context is set: evaluated on every core
+// (or `threads`), each into its own place, so the results keep the project's order.
+std::vector<ScenarioResult> evaluate_scenarios_on_cores(const Project& project, const LopaContext& context,
+                                                        int threads) {
+  std::vector<ScenarioResult> out(project.scenarios.size());
+  parallel_for(out.size(), threads,
+               [&](std::size_t i) { out[i] = evaluate_scenario(project, project.scenarios[i], context); });
+  return out;
+}
+
+std::map<std::string, SifRequirement> lopa_requirements_on_cores(const Project& project, std::vector<Warning>& warnings,
+                                                                 int threads) {
+  if (project.scenarios.empty()) return {};
+  return requirements_from(evaluate_scenarios_on_cores(project, lopa_context_from_project(project), threads),
+                           warnings);
+}
+
 }  // namespace
 
 std::map<std::string, SifRequirement> lopa_requirements(const Project& project, std::vector<Warning>& warnings) {
-  if (project.scenarios.empty()) return {};
-  return requirements_from(evaluate_scenarios(project, lopa_context_from_project(project)), warnings);
+  return lopa_requirements_on_cores(project, warnings, 0);
 }
 
 namespace {
@@ -169,7 +190,7 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   // depend on the SIF's own figures; then the SIFs; then the scenarios again with the SIFs'
   // computed PFDavg (or PFH) for the mitigated frequencies.
   LopaContext context = lopa_context_from_project(project);
-  const auto requirements = lopa_requirements(project, out.warnings);
+  const auto requirements = lopa_requirements_on_cores(project, out.warnings, options.threads);
   refuse_mode_mismatches_from_lopa(project, requirements);
   // SIFs are independent once their requirements are known: verify them on every core, each
   // with its own warnings, and merge in project order so the output does not depend on threads.
@@ -199,8 +220,11 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
     for (std::size_t i = 0; i < n; ++i) cap_probabilities(project.sifs[i], out.sifs[i], out.warnings);
   }
   if (!project.scenarios.empty()) {
-    out.scenarios = evaluate_scenarios(project, context);
-    out.shared_devices = shared_devices(project);
+    // Who shares which device does not depend on any figure: found on a second core meanwhile.
+    auto devices = std::async(options.threads == 1 ? std::launch::deferred : std::launch::async,
+                              [&project] { return shared_devices(project); });
+    out.scenarios = evaluate_scenarios_on_cores(project, context, options.threads);
+    out.shared_devices = devices.get();
   }
   out.pressure = loaded.pressure;
   mark_preliminary(project, out);
