@@ -4,8 +4,10 @@
 #include <boost/math/quadrature/gauss.hpp>
 #include <cmath>
 #include <deque>
+#include <memory>
 #include <stdexcept>
 #include <unsupported/Eigen/MatrixFunctions>
+#include <vector>
 
 #include "engines/exact_memo.hpp"
 #include "engines/markov_chain.hpp"
@@ -127,10 +129,14 @@ CrossTerms cross_terms(const std::vector<GroupChain>& chains, const std::vector<
   double fastest = 0.0;
   for (const auto& c : chains) fastest = std::max(fastest, c.fastest_rate_per_hour());
   std::deque<GradedRule> rules;
-  std::vector<std::deque<NodeColumns>> columns(chains.size());
+  // The node columns met so far, per group: shared with the run's memo, not copied.
+  std::vector<std::vector<std::shared_ptr<const NodeColumns>>> columns(chains.size());
   CrossTerms out;
   const std::size_t groups = chains.size();
   const auto cols = static_cast<Eigen::Index>(groups);
+  std::array<Eigen::MatrixXd, 3> at;  // u, w, w_u per node and group; sized once per rule length
+  std::vector<double> prefix(groups + 1);
+  std::vector<double> suffix(groups + 1);
   for (std::size_t k = 0; k + 1 < grid.size(); ++k) {
     const double length = grid[k + 1] - grid[k];
     auto same = [&](double l) { return std::fabs(l - length) <= 1e-10 * length; };
@@ -138,8 +144,7 @@ CrossTerms cross_terms(const std::vector<GroupChain>& chains, const std::vector<
     if (rule_it == rules.end()) rule_it = rules.insert(rules.end(), graded_rule(length, fastest));
     const GradedRule& rule = *rule_it;
     const auto nodes = static_cast<Eigen::Index>(rule.offsets_hours.size());
-    std::array<Eigen::MatrixXd, 3> at{Eigen::MatrixXd(nodes, cols), Eigen::MatrixXd(nodes, cols),
-                                      Eigen::MatrixXd(nodes, cols)};  // u, w, w_u per node and group
+    for (auto& m : at) m.resize(nodes, cols);  // no allocation when the size is unchanged
     for (std::size_t i = 0; i < groups; ++i) {
       if (traces[i].averaged) {  // a group tested too often to resolve: its average over the segment
         for (std::size_t w = 0; w < 3; ++w)
@@ -150,14 +155,13 @@ CrossTerms cross_terms(const std::vector<GroupChain>& chains, const std::vector<
       }
       const ChannelMask m = traces[i].bypassed[k];
       auto& cache = columns[i];
-      auto it = std::find_if(cache.begin(), cache.end(),
-                             [&](const NodeColumns& c) { return c.bypassed == m && same(c.length_hours); });
-      if (it == cache.end()) it = cache.insert(cache.end(), *shared_node_columns(chains[i], m, rule));
+      auto it = std::find_if(cache.begin(), cache.end(), [&](const std::shared_ptr<const NodeColumns>& c) {
+        return c->bypassed == m && same(c->length_hours);
+      });
+      if (it == cache.end()) it = cache.insert(cache.end(), shared_node_columns(chains[i], m, rule));
       const Eigen::VectorXd& p = traces[i].state_after[k];
-      for (std::size_t w = 0; w < 3; ++w) at[w].col(static_cast<Eigen::Index>(i)) = it->of[w].transpose() * p;
+      for (std::size_t w = 0; w < 3; ++w) at[w].col(static_cast<Eigen::Index>(i)).noalias() = (*it)->of[w].transpose() * p;
     }
-    std::vector<double> prefix(groups + 1);
-    std::vector<double> suffix(groups + 1);
     for (Eigen::Index j = 0; j < nodes; ++j) {
       // prod_{l != i}(1 - u_l) from prefix and suffix products, without dividing.
       prefix[0] = suffix[groups] = 1.0;
