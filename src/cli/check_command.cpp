@@ -1,6 +1,7 @@
 // `sifter check`: verify a project and write the summary, JSON and CSV.
 #include <unistd.h>
 
+#include <future>
 #include <iostream>
 #include <memory>
 #include <optional>
@@ -70,6 +71,18 @@ int run_check(const CheckOptions& options) {
   // Render everything before any output is renamed into place, so that a failure leaves no
   // partial output. The JSON goes SIF by SIF into its temporary file: a register of
   // thousands of SIFs is never one tree in memory.
+  // The terminal text is rendered on a second core while the files are written (both only read
+  // the results); it is printed after every file is in place.
+  const bool summary_to_stdout = !options.quiet && options.json_path != "-";
+  report::TerminalOptions terminal;
+  terminal.width = terminal_width();
+  terminal.sifs = options.sifs;
+  terminal.summary = options.summary;
+  auto summary_text = std::async(summary_to_stdout && options.threads != 1 ? std::launch::async : std::launch::deferred,
+                                 [&]() -> std::string {
+                                   return summary_to_stdout ? escape_controls(report::render_terminal(result, terminal))
+                                                            : "";
+                                 });
   std::optional<report::AtomicOutput> json_out, csv_out, rows_out, xlsx_out;
   if (!options.json_path.empty()) {
     json_out.emplace(options.json_path);
@@ -90,12 +103,7 @@ int run_check(const CheckOptions& options) {
     xlsx_out.emplace(options.xlsx_path);
     xlsx_out->stream() << workbook;
   }
-  const bool summary_to_stdout = !options.quiet && options.json_path != "-";
-  report::TerminalOptions terminal;
-  terminal.width = terminal_width();
-  terminal.sifs = options.sifs;
-  terminal.summary = options.summary;
-  const std::string summary = summary_to_stdout ? escape_controls(report::render_terminal(result, terminal)) : "";
+  const std::string summary = summary_text.get();
   report::commit_all({json_out ? &*json_out : nullptr, csv_out ? &*csv_out : nullptr, rows_out ? &*rows_out : nullptr,
                       xlsx_out ? &*xlsx_out : nullptr});
   if (summary_to_stdout) {
