@@ -4,7 +4,9 @@
 #include <algorithm>
 #include <map>
 #include <set>
+#include <string_view>
 #include <tuple>
+#include <unordered_map>
 
 #include "sifter/input/json_source.hpp"
 
@@ -176,15 +178,25 @@ ReuseRecord expand_reuse(LoadContext& ctx, Json& root, ObjectReader& top) {
   return record;
 }
 
+namespace {
+// Origin names by the pointer of the object that took them (the last one written wins), so
+// that a register of thousands of templated subsystems is matched in one pass, not a square.
+std::unordered_map<std::string_view, const std::string*> names_by_pointer(const std::vector<ReuseOrigin>& origins) {
+  std::unordered_map<std::string_view, const std::string*> out;
+  for (const auto& o : origins) out.insert_or_assign(o.pointer, &o.name);
+  return out;
+}
+}  // namespace
+
 void finish_reuse(LoadContext& ctx, const ReuseRecord& record, Project& project) {
+  const auto templates = names_by_pointer(record.subsystems);
   for (auto& sif : project.sifs)
     for (auto& sub : sif.subsystems)
-      for (const auto& o : record.subsystems)
-        if (o.pointer == sub.pointer) sub.template_name = o.name;
+      if (auto it = templates.find(sub.pointer); it != templates.end()) sub.template_name = *it->second;
+  const auto entries = names_by_pointer(record.layers);
   for (auto& s : project.scenarios) {
     for (auto& layer : s.layers)
-      for (const auto& o : record.layers)
-        if (o.pointer == layer.pointer) layer.catalogue_id = o.name;
+      if (auto it = entries.find(layer.pointer); it != entries.end()) layer.catalogue_id = *it->second;
     check_applies_to_causes(ctx, s);
   }
 }
