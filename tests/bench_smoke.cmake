@@ -5,7 +5,7 @@ if(SIFTER_PYTHON3)
   if(SIFTER_NO_NUMPY EQUAL 0)
     add_test(NAME bench.register_vs_peer_smoke
              COMMAND ${SIFTER_PYTHON3} ${CMAKE_CURRENT_SOURCE_DIR}/bench/register_vs_peer.py --sifter $<TARGET_FILE:sifter>
-                     --runs 1 --sizes 20 --mc-sifs 5 --mc-samples 50)
+                     --runs 1 --sizes 20 --mc-sifs 5 --mc-samples 50 --templated)
   else()
     message(STATUS "python3-numpy not found: the benchmark smoke test is skipped")
   endif()

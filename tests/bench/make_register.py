@@ -1,13 +1,14 @@
 #!/usr/bin/env python3
 """Writes a synthetic plant register: N SIFs of varied architectures, with LOPA scenarios.
 
-Usage: make_register.py N OUTPUT.json [--seed S] [--library PATH]
+Usage: make_register.py N OUTPUT.json [--seed S] [--library PATH] [--templates]
 
 Invented data for benchmarks and tests, not for design. The same N and seed give the same file.
 Sensors vote 1oo1, 1oo2, 2oo3 or 1oo2D; the logic is a safety PLC component or a vendor figure
 from a safety manual; final elements are series channels (solenoid + valve) in 1oo1 or 1oo2, or a
 motor trip. About one SIF in ten is in high demand. Every other SIF has a LOPA scenario that
-feeds it (causes, enabling conditions, modifiers, layers).
+feeds it (causes, enabling conditions, modifiers, layers). With --templates every logic
+subsystem is written as a reference to a subsystem template, with its own figures beside it.
 """
 import argparse
 import json
@@ -87,6 +88,7 @@ def main():
     ap.add_argument("--seed", type=int, default=20240601)
     here = os.path.dirname(os.path.abspath(__file__))
     ap.add_argument("--library", default=os.path.join(here, "..", "..", "data", "components", "illustrative.json"))
+    ap.add_argument("--templates", action="store_true", help="write the logic subsystems through a template")
     args = ap.parse_args()
     rng = random.Random(args.seed)
     components, sifs, scenarios = [], [], []
@@ -96,6 +98,15 @@ def main():
         sifs.append(sif)
         if not high and i % 2 == 0:
             scenarios.append(scenario_for(rng, sif["id"], i))
+    templates = {}
+    if args.templates:
+        templates = {"logic-plc": {"role": "logic", "vote": "1oo1"},
+                     "logic-vendor": {"role": "logic", "hft": 1, "systematic_capability": 3}}
+        for sif in sifs:
+            logic = sif["subsystems"][1]
+            kind = "logic-plc" if "channels" in logic else "logic-vendor"
+            own = {k: v for k, v in logic.items() if k not in templates[kind] and k != "role"}
+            sif["subsystems"][1] = dict(name=own.pop("name"), template=kind, **own)
     out_dir = os.path.dirname(os.path.abspath(args.output))
     project = {
         "format": "sifter-project/1",
@@ -103,6 +114,7 @@ def main():
         "defaults": {"proof_test_interval": "1 yr", "mttr": "8 h", "mission_time": "20 yr"},
         "libraries": [os.path.relpath(os.path.abspath(args.library), out_dir)],
         "components": components,
+        **({"subsystem_templates": templates} if templates else {}),
         "sifs": sifs,
         "risk_criteria": {"safety": {"3": "1e-4/yr", "4": "1e-5/yr"}},
         "scenarios": scenarios,

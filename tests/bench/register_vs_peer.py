@@ -2,7 +2,7 @@
 """Times `sifter check` against the numpy peer on generated registers, and prints the ratios.
 
 Usage: register_vs_peer.py [--sifter build/sifter] [--runs 3] [--sizes 10000 100000]
-                           [--mc-sifs 2000] [--mc-samples 10000] [--keep DIR]
+                           [--mc-sifs 2000] [--mc-samples 10000] [--keep DIR] [--templated]
 
 For each size N it writes a register with make_register.py, then runs, RUNS times each:
 the numpy peer (numpy_peer.py), `sifter check --quiet --no-exact --json OUT`, and
@@ -61,6 +61,8 @@ def main():
     ap.add_argument("--mc-sifs", type=int, default=2000)
     ap.add_argument("--mc-samples", type=int, default=10000)
     ap.add_argument("--keep", help="keep the registers and outputs in this directory")
+    ap.add_argument("--templated", action="store_true",
+                    help="also time --no-exact on the same register written through subsystem templates")
     args = ap.parse_args()
     if not os.path.exists("/usr/bin/time"):
         sys.exit("register_vs_peer: needs GNU time (Debian package \"time\")")
@@ -84,6 +86,15 @@ def main():
                 print("| %d | %.1f MB | %s | %.3f | %.3f | %.2f | %.0f | %.1fx | %.2fx |" % (
                     n, size_mb, name, m["best"], m["median"], m["cpu"], m["rss"], m["rss"] / size_mb,
                     m["best"] / peer), flush=True)
+            if args.templated:
+                tpl = os.path.join(tmp, "register_%d_templates.json" % n)
+                subprocess.run([args.python, os.path.join(HERE, "make_register.py"), str(n), tpl, "--templates"],
+                               check=True)
+                tpl_mb = os.path.getsize(tpl) / 1048576.0
+                m = measure([args.sifter, "check", "--quiet", "--no-exact", "--json", out, tpl], args.runs, tmp)
+                print("| %d | %.1f MB | sifter --no-exact --json, logic through templates | %.3f | %.3f | %.2f | %.0f "
+                      "| %.1fx | %.2fx |" % (n, tpl_mb, m["best"], m["median"], m["cpu"], m["rss"], m["rss"] / tpl_mb,
+                                            m["best"] / peer), flush=True)
         if args.mc_sifs > 0:
             reg = os.path.join(tmp, "register_mc_%d.json" % args.mc_sifs)
             subprocess.run([args.python, os.path.join(HERE, "make_register.py"), str(args.mc_sifs), reg], check=True)
