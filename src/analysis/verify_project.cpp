@@ -189,6 +189,12 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   // The risk analysis first: it sets each SIF's requirement and demand mode, which do not
   // depend on the SIF's own figures; then the SIFs; then the scenarios again with the SIFs'
   // computed PFDavg (or PFH) for the mitigated frequencies.
+  // Who shares which device depends on no figure: found on a second core from the start, so
+  // that the project's dependency graph is freed before the results grow.
+  std::future<std::vector<SharedDevice>> devices;
+  if (!project.scenarios.empty())
+    devices = std::async(options.threads == 1 ? std::launch::deferred : std::launch::async,
+                         [&project] { return shared_devices(project); });
   LopaContext context = lopa_context_from_project(project);
   const auto requirements = lopa_requirements_on_cores(project, out.warnings, options.threads);
   refuse_mode_mismatches_from_lopa(project, requirements);
@@ -220,9 +226,6 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
     for (std::size_t i = 0; i < n; ++i) cap_probabilities(project.sifs[i], out.sifs[i], out.warnings);
   }
   if (!project.scenarios.empty()) {
-    // Who shares which device does not depend on any figure: found on a second core meanwhile.
-    auto devices = std::async(options.threads == 1 ? std::launch::deferred : std::launch::async,
-                              [&project] { return shared_devices(project); });
     out.scenarios = evaluate_scenarios_on_cores(project, context, options.threads);
     out.shared_devices = devices.get();
   }

@@ -27,11 +27,11 @@ void PlantGraph::add_sif(const Project& project, std::size_t s) {
   auto previous = sv;
   for (std::size_t g = 0; g < sif.subsystems.size(); ++g) {
     const Subsystem& sub = sif.subsystems[g];
-    const auto gv = boost::add_vertex(PlantVertex{VertexKind::kGroup, sub.name, s, g, g}, graph_);
+    const auto gv = boost::add_vertex(PlantVertex{VertexKind::kGroup, {}, s, g, g}, graph_);
     boost::add_edge(previous, gv, graph_);  // the signal passes from one subsystem to the next
     previous = gv;
     for (std::size_t c = 0; c < sub.channels.size(); ++c) {
-      const auto cv = boost::add_vertex(PlantVertex{VertexKind::kChannel, sub.channels[c].pointer, s, g, c}, graph_);
+      const auto cv = boost::add_vertex(PlantVertex{VertexKind::kChannel, {}, s, g, c}, graph_);
       boost::add_edge(gv, cv, graph_);
       const Channel& ch = sub.channels[c];
       for (std::size_t e = 0; e < ch.component_ids.size(); ++e) {
@@ -124,14 +124,12 @@ std::vector<GraphProblem> validate_project_graph(Project& project, std::shared_p
   const PlantGraph& graph = *built;
   if (!graph.problems().empty()) return graph.problems();
   if (keep) *keep = std::move(built);
-  // Resolve ids into indices now that every one is known.
-  std::unordered_map<std::string, std::size_t> by_id;
-  for (std::size_t c = 0; c < project.components.size(); ++c) by_id.emplace(project.components[c].id, c);
+  // Resolve ids into indices now that every one is known (the graph's index of them).
   for (auto& sif : project.sifs)
     for (auto& sub : sif.subsystems)
       for (auto& ch : sub.channels) {
         ch.components.clear();
-        for (const auto& id : ch.component_ids) ch.components.push_back(by_id.at(id));
+        for (const auto& id : ch.component_ids) ch.components.push_back(graph.component_index(id));
       }
   return {};
 }

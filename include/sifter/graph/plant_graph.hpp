@@ -16,7 +16,9 @@ namespace sifter {
 /// What a vertex of the plant graph stands for.
 enum class VertexKind { kSif, kGroup, kChannel, kComponent };
 
-/// A vertex: its kind, a readable label (tag) and the index of what it stands for.
+/// A vertex: its kind, a readable label and the index of what it stands for. SIFs and
+/// components are labelled by their ids; groups and channels, of which a register holds hundreds
+/// of thousands, only by their indices (their names are in the project).
 struct PlantVertex {
   VertexKind kind = VertexKind::kComponent;
   std::string label;
@@ -43,6 +45,9 @@ class PlantGraph {
   /// The groups of a SIF in signal order (sensor -> logic -> final as written).
   [[nodiscard]] std::vector<std::size_t> signal_order(std::size_t sif) const;
   [[nodiscard]] const PlantGraphType& graph() const { return graph_; }
+  /// The index in Project::components of a component id the graph resolved (throws
+  /// std::out_of_range for an id it did not: ask only when problems() is empty).
+  [[nodiscard]] std::size_t component_index(const std::string& id) const { return component_index_.at(id); }
 
  private:
   void add_sif(const Project& project, std::size_t s);
