@@ -120,7 +120,11 @@ std::vector<std::size_t> PlantGraph::signal_order(std::size_t sif) const {
 }
 
 std::vector<GraphProblem> validate_project_graph(Project& project, std::shared_ptr<const PlantGraph>* keep) {
-  auto built = std::make_shared<const PlantGraph>(project);
+  return adopt_project_graph(project, std::make_shared<const PlantGraph>(project), keep);
+}
+
+std::vector<GraphProblem> adopt_project_graph(Project& project, std::shared_ptr<const PlantGraph> built,
+                                              std::shared_ptr<const PlantGraph>* keep) {
   const PlantGraph& graph = *built;
   if (!graph.problems().empty()) return graph.problems();
   if (keep) *keep = std::move(built);

@@ -65,4 +65,9 @@ class PlantGraph {
 /// that verification does not build it again.
 std::vector<GraphProblem> validate_project_graph(Project& project, std::shared_ptr<const PlantGraph>* keep = nullptr);
 
+/// validate_project_graph with a graph already built from this project's components and SIFs
+/// (by a caller that built it on another core while reading the rest of the file).
+std::vector<GraphProblem> adopt_project_graph(Project& project, std::shared_ptr<const PlantGraph> built,
+                                              std::shared_ptr<const PlantGraph>* keep = nullptr);
+
 }  // namespace sifter
