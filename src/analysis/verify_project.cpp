@@ -149,8 +149,9 @@ std::vector<ScenarioResult> evaluate_scenarios_on_cores(const Project& project, 
 std::map<std::string, SifRequirement> lopa_requirements_on_cores(const Project& project, std::vector<Warning>& warnings,
                                                                  int threads) {
   if (project.scenarios.empty()) return {};
-  return requirements_from(evaluate_scenarios_on_cores(project, lopa_context_from_project(project), threads),
-                           warnings);
+  LopaContext context = lopa_context_from_project(project);
+  context.worksheet = false;  // this pass only sets the requirements
+  return requirements_from(evaluate_scenarios_on_cores(project, context, threads), warnings);
 }
 
 }  // namespace

@@ -325,6 +325,7 @@ ScenarioResult evaluate_scenario(const Project& project, const Scenario& scenari
   for (const auto& rc : rated) r.consequences.push_back(consequence_result(rc, scenario, f));
   summarise(r);
   sil_findings(r);
+  if (!context.worksheet) return r;
   method_assumptions(r, scenario, a, project.operator_time_multiple);
   r.worksheet = build_worksheet(scenario, a, r);
   return r;

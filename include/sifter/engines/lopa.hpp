@@ -52,6 +52,9 @@ struct LopaContext {
   /// Position of each SIF in Project::sifs, so that a scenario finds the SIF it credits
   /// without a scan of every SIF (empty: found by a scan).
   std::unordered_map<std::string, std::size_t> sif_index;
+  /// False for a pass that needs only what each scenario asks of its SIF: the worksheet rows
+  /// and the method's assumptions are then left empty.
+  bool worksheet = true;
 };
 
 /// The context a project gives before any SIF is computed: stated modes only.
