@@ -327,7 +327,7 @@ void check_model_entry(LoadContext& ctx, const Json& entry, int source, const st
   r.finish();
 }
 
-void read_components(LoadContext& ctx, const Json& root, const ModelIndex& models, Project& project) {
+void read_components(LoadContext& ctx, Json& root, const ModelIndex& models, Project& project) {
   auto it = root.find("components");
   if (it == root.end()) return;
   if (!it->is_array()) {
@@ -337,8 +337,10 @@ void read_components(LoadContext& ctx, const Json& root, const ModelIndex& model
   std::unordered_set<std::string> seen;
   ModelFieldsCache model_fields;
   project.components.reserve(project.components.size() + it->size());
-  for (std::size_t i = 0; i < it->size(); ++i)
+  for (std::size_t i = 0; i < it->size(); ++i) {
     read_component(ctx, (*it)[i], "/components/" + std::to_string(i), models, model_fields, seen, project);
+    (*it)[i] = nullptr;  // its JSON is freed while still in cache, and its memory serves the next component
+  }
 }
 
 }  // namespace sifter::detail

@@ -20,8 +20,9 @@ using ModelIndex = std::map<std::string, ModelEntry>;
 void read_libraries(LoadContext& ctx, ObjectReader& owner, const std::string& base_dir, ModelIndex& models,
                     std::vector<std::string>& chain);
 
-/// Reads "components", merging library models, into project.components.
-void read_components(LoadContext& ctx, const Json& root, const ModelIndex& models, Project& project);
+/// Reads "components", merging library models, into project.components. Each entry's JSON is
+/// set to null once read (its text position is found again from the file when reported).
+void read_components(LoadContext& ctx, Json& root, const ModelIndex& models, Project& project);
 
 /// Checks one library model entry's fields in its own file.
 void check_model_entry(LoadContext& ctx, const Json& entry, int source, const std::string& pointer);
