@@ -78,11 +78,10 @@ int run_check(const CheckOptions& options) {
   terminal.width = terminal_width();
   terminal.sifs = options.sifs;
   terminal.summary = options.summary;
-  auto summary_text = std::async(summary_to_stdout && options.threads != 1 ? std::launch::async : std::launch::deferred,
-                                 [&]() -> std::string {
-                                   return summary_to_stdout ? escape_controls(report::render_terminal(result, terminal))
-                                                            : "";
-                                 });
+  auto summary_text = std::async(
+      summary_to_stdout && options.threads != 1 ? std::launch::async : std::launch::deferred, [&]() -> std::string {
+        return summary_to_stdout ? escape_controls(report::render_terminal(result, terminal)) : "";
+      });
   std::optional<report::AtomicOutput> json_out, csv_out, rows_out, xlsx_out;
   if (!options.json_path.empty()) {
     json_out.emplace(options.json_path);
@@ -145,7 +144,7 @@ Action add_check_command(CLI::App& app) {
   cmd->add_option("--samples", opts->samples, "Monte Carlo samples per SIF on the uncertain failure data")
       ->check(CLI::Range(0, 10000000));
   cmd->add_option("--seed", opts->seed, "seed of the Monte Carlo (same seed, same results)");
-  cmd->add_option("--threads", opts->threads, "threads for the Monte Carlo (default: every core)")
+  cmd->add_option("--threads", opts->threads, "threads for verification and the Monte Carlo (default: every core)")
       ->check(CLI::Range(0, 256));
   return [opts]() { return run_check(*opts); };
 }

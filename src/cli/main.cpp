@@ -1,8 +1,10 @@
 // The sifter program: parse the command line, run one subcommand, map errors to exit codes.
 #include <iostream>
 #include <map>
+#include <memory>
 
 #include "commands.hpp"
+#include "help_format.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/printable.hpp"
 
@@ -10,6 +12,7 @@ int main(int argc, char** argv) {
   CLI::App app{"sifter: LOPA and SIL verification of safety instrumented functions (IEC 61511 / IEC 61508)"};
   app.set_version_flag("--version", std::string("sifter ") + SIFTER_VERSION);
   app.require_subcommand(1);
+  app.formatter(std::make_shared<sifter::cli::NarrowHelp>());  // before the commands, which inherit it
   app.footer(
       "Exit status: 0 every SIF meets its target; 1 at least one falls short; 2 bad input or usage.\n"
       "sifter is a calculation aid: results must be reviewed by a competent functional-safety practitioner.");

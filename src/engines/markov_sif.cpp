@@ -160,7 +160,8 @@ CrossTerms cross_terms(const std::vector<GroupChain>& chains, const std::vector<
       });
       if (it == cache.end()) it = cache.insert(cache.end(), shared_node_columns(chains[i], m, rule));
       const Eigen::VectorXd& p = traces[i].state_after[k];
-      for (std::size_t w = 0; w < 3; ++w) at[w].col(static_cast<Eigen::Index>(i)).noalias() = (*it)->of[w].transpose() * p;
+      for (std::size_t w = 0; w < 3; ++w)
+        at[w].col(static_cast<Eigen::Index>(i)).noalias() = (*it)->of[w].transpose() * p;
     }
     for (Eigen::Index j = 0; j < nodes; ++j) {
       // prod_{l != i}(1 - u_l) from prefix and suffix products, without dividing.

@@ -159,8 +159,7 @@ void read_header(LoadContext& ctx, ObjectReader& top, Project& project) {
 // its components by id, resolved later by the graph). The SIFs' problems and warnings are
 // collected apart and appended after the components', so that the messages, their order and
 // the cap on how many are kept are those of one reader going through the file.
-void read_components_and_sifs(LoadContext& ctx, Json& root, const detail::ModelIndex& models,
-                              Project& project) {
+void read_components_and_sifs(LoadContext& ctx, Json& root, const detail::ModelIndex& models, Project& project) {
   LoadContext sif_ctx;
   for (const auto& source : ctx.sources) sif_ctx.sources.push_back({source.path, {}});  // paths only
   sif_ctx.problems = ctx.problems;  // a problem of "defaults" is seen by the SIFs that inherit it

@@ -194,8 +194,9 @@ std::string project_with_bad_components_and_sifs(int components, int sifs) {
     text += std::string(i ? "," : "") + R"({"id": "C)" + std::to_string(i) + R"(", "lambda_du": "often"})";
   text += "], \"sifs\": [";
   for (int i = 0; i < sifs; ++i)
-    text += std::string(i ? "," : "") + R"({"id": "S)" + std::to_string(i) +
-            R"(", "target": {"sil": 1}, "subsystems": [{"name": "a", "role": "sensor", "vote": "1o1", "channels": ["C0"]}]})";
+    text +=
+        std::string(i ? "," : "") + R"({"id": "S)" + std::to_string(i) +
+        R"(", "target": {"sil": 1}, "subsystems": [{"name": "a", "role": "sensor", "vote": "1o1", "channels": ["C0"]}]})";
   return text + "]}";
 }
 
