@@ -204,8 +204,9 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.member("components");
   top.member("sifs");
   read_components_and_sifs(ctx, *root, models, project);
-  // The signal-flow graph needs only the components and SIFs: built on the second core while
-  // the rest is read (which adds scenarios and pressure data, never components or SIFs).
+  detail::name_templated_subsystems(reuse, project);
+  // The signal-flow graph needs only the components and SIFs, complete from here on: built on
+  // the second core while the rest is read (which writes scenarios and pressure data only).
   auto plant = std::async(std::launch::async, [&project] { return std::make_shared<const PlantGraph>(project); });
   root->erase("components");
   root->erase("sifs");
@@ -220,8 +221,8 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.finish();
   detail::check_project_plausibility(ctx, project);
   if (ctx.problems.empty()) out.pressure = detail::screen_and_generate(ctx, project);
-  if (auto graph = plant.get(); ctx.problems.empty()) {
-    const auto graph_problems = adopt_project_graph(project, std::move(graph), &out.graph);
+  if (ctx.problems.empty()) {  // otherwise the graph is dropped unread (its future joins on return)
+    const auto graph_problems = adopt_project_graph(project, plant.get(), &out.graph);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
     if (graph_problems.empty()) detail::check_diverse_groups(ctx, project);
   }

@@ -188,11 +188,14 @@ std::unordered_map<std::string_view, const std::string*> names_by_pointer(const 
 }
 }  // namespace
 
-void finish_reuse(LoadContext& ctx, const ReuseRecord& record, Project& project) {
+void name_templated_subsystems(const ReuseRecord& record, Project& project) {
   const auto templates = names_by_pointer(record.subsystems);
   for (auto& sif : project.sifs)
     for (auto& sub : sif.subsystems)
       if (auto it = templates.find(sub.pointer); it != templates.end()) sub.template_name = *it->second;
+}
+
+void finish_reuse(LoadContext& ctx, const ReuseRecord& record, Project& project) {
   const auto entries = names_by_pointer(record.layers);
   for (auto& s : project.scenarios) {
     for (auto& layer : s.layers)

@@ -30,8 +30,11 @@ struct ReuseRecord {
 /// through `top`. Called once, after parsing and before the SIFs and scenarios are read.
 ReuseRecord expand_reuse(LoadContext& ctx, Json& root, ObjectReader& top);
 
-/// After the sections are read: records each subsystem's template and each layer's catalogue
-/// entry in the model, and checks "applies_to_causes" against the scenario's causes.
+/// After the SIFs are read: records each subsystem's template in the model.
+void name_templated_subsystems(const ReuseRecord& record, Project& project);
+
+/// After the scenarios are read: records each layer's catalogue entry in the model, and checks
+/// "applies_to_causes" against the scenario's causes.
 void finish_reuse(LoadContext& ctx, const ReuseRecord& record, Project& project);
 
 /// Before the problems are reported: moves those in inherited fields to the template or entry

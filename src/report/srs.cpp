@@ -146,9 +146,7 @@ void devices(Blocks& b, const SifResult& s, const DeliverableData& data) {
       for (const auto& tag : ch) {
         if (std::find(seen.begin(), seen.end(), tag) != seen.end()) continue;
         seen.push_back(tag);
-        const ComponentDataRow* row = nullptr;
-        for (const auto& c : data.components)
-          if (c.id == tag) row = &c;
+        const ComponentDataRow* row = data.component(tag);
         t.rows.push_back({{first ? sub.name : ""},
                           {first ? sub.vote : ""},
                           {tag},
