@@ -33,6 +33,17 @@ struct Place {
   std::string header;
 };
 
+struct Table;
+
+// Where a cell of a table sits, kept for every cell read (a register has millions): the table
+// and the header are referred to, not copied, and turned into a Place only for a message.
+struct CellPlace {
+  const Table* table = nullptr;
+  int row = 0;
+  int column = 0;
+  int header = 0;  // index into the table layout's columns
+};
+
 // One table read: its rows and, for each layout column, where it sits in the file (-1: absent).
 struct Table {
   const TableLayout* layout = nullptr;
@@ -174,6 +185,12 @@ class Importer {
     return restore_formula_text(trim_cell(cells[static_cast<std::size_t>(c)]));
   }
 
+  CellPlace cell_place(const Table& t, int row, const std::string& header) const {
+    const int k = t.layout->index(header);
+    const int c = t.at[static_cast<std::size_t>(k)];
+    return {&t, row + 1, c < 0 ? 1 : c + 1, k};
+  }
+
   Place place(const Table& t, int row, const std::string& header) const {
     const int k = t.layout->index(header);
     const int c = t.at[static_cast<std::size_t>(k)];
@@ -181,7 +198,7 @@ class Importer {
   }
 
   // Sets a member at a path ("partial_stroke/interval") and records where its cell is.
-  void put(OJson& object, const std::string& pointer, const std::string& path, OJson value, const Place& at) {
+  void put(OJson& object, const std::string& pointer, const std::string& path, OJson value, const CellPlace& at) {
     OJson* target = &object;
     std::string p = pointer;
     std::size_t start = 0;
@@ -207,12 +224,12 @@ class Importer {
   // The columns of one row into an object at `pointer`; `only` limits the columns (layers.csv).
   OJson row_object(const Table& t, int row, const std::string& pointer, const std::vector<std::string>& only = {}) {
     OJson o = OJson::object();
-    places_[pointer] = place(t, row, t.layout->columns.front().header);
+    places_[pointer] = cell_place(t, row, t.layout->columns.front().header);
     for (const auto& c : t.layout->columns) {
       if (c.path.empty()) continue;
       if (!only.empty() && std::find(only.begin(), only.end(), c.header) == only.end()) continue;
       const std::string text = cell(t, row, c.header);
-      put(o, pointer, c.path, text.empty() ? OJson() : cell_value(c.kind, text), place(t, row, c.header));
+      put(o, pointer, c.path, text.empty() ? OJson() : cell_value(c.kind, text), cell_place(t, row, c.header));
     }
     return o;
   }
@@ -243,10 +260,10 @@ class Importer {
         fs::path rel = fs::weakly_canonical(fs::absolute(lib)).lexically_relative(fs::weakly_canonical(out_dir));
         if (rel.empty()) rel = fs::absolute(lib);
         root["libraries"].push_back(rel.generic_string());
-        places_["/libraries/" + std::to_string(root["libraries"].size() - 1)] = place(t, row, "value");
+        places_["/libraries/" + std::to_string(root["libraries"].size() - 1)] = cell_place(t, row, "value");
         return;
       }
-      put(root, "", s->path, cell_value(s->kind, text), place(t, row, "value"));
+      put(root, "", s->path, cell_value(s->kind, text), cell_place(t, row, "value"));
     });
   }
 
@@ -291,8 +308,8 @@ class Importer {
                 "\"" + category + "\" \"" + severity + "\" a second time");
         return;
       }
-      places_.try_emplace("/risk_criteria/" + escape_pointer_token(category), place(t, row, "category"));
-      places_[p] = place(t, row, "tolerable_frequency");
+      places_.try_emplace("/risk_criteria/" + escape_pointer_token(category), cell_place(t, row, "category"));
+      places_[p] = cell_place(t, row, "tolerable_frequency");
       root["risk_criteria"][category][severity] = cell_value(CellKind::kValue, freq);
     });
   }
@@ -341,12 +358,12 @@ class Importer {
       }
       const std::string p = "/sifs/" + std::to_string(sif_index_[id]);
       OJson& sif = root["sifs"][sif_index_[id]];
-      places_[p + "/requirements"] = place(t, row, "sif");
+      places_[p + "/requirements"] = cell_place(t, row, "sif");
       sif["requirements"] = OJson::object();
       for (const auto& c : t.layout->columns) {
         if (c.path.empty()) continue;
         const std::string text = cell(t, row, c.header);
-        put(sif, p, c.path, text.empty() ? OJson() : cell_value(c.kind, text), place(t, row, c.header));
+        put(sif, p, c.path, text.empty() ? OJson() : cell_value(c.kind, text), cell_place(t, row, c.header));
       }
     });
   }
@@ -360,12 +377,12 @@ class Importer {
       const std::string p = "/scenarios/" + std::to_string(it->second);
       if (first) {
         OJson s = OJson::object();
-        places_[p] = place(t, row, "scenario");
-        put(s, p, "id", id, place(t, row, "scenario"));
+        places_[p] = cell_place(t, row, "scenario");
+        put(s, p, "id", id, cell_place(t, row, "scenario"));
         for (const auto& h : shared) {
           const auto& c = t.layout->columns[static_cast<std::size_t>(t.layout->index(h))];
           const std::string text = cell(t, row, h);
-          put(s, p, c.path, text.empty() ? OJson() : cell_value(c.kind, text), place(t, row, h));
+          put(s, p, c.path, text.empty() ? OJson() : cell_value(c.kind, text), cell_place(t, row, h));
           scenario_cells_[id][h] = text;
         }
         root["scenarios"].push_back(s);
@@ -424,7 +441,7 @@ class Importer {
       if (entry == "layer" && o.contains("applies_to")) {  // a layer's applies_to names causes
         o["applies_to_causes"] = o["applies_to"];
         o.erase("applies_to");
-        places_[p + "/applies_to_causes"] = place(t, row, "applies_to");
+        places_[p + "/applies_to_causes"] = cell_place(t, row, "applies_to");
       }
       items.push_back(std::move(o));
     });
@@ -447,10 +464,11 @@ class Importer {
             p = p.substr(0, p.rfind('/'));
           }
           if (found != places_.end()) {
-            d.file = found->second.file;
-            d.line = found->second.row;
-            d.column = found->second.column;
-            d.pointer = "column \"" + found->second.header + "\"";
+            const CellPlace& at = found->second;
+            d.file = at.table->path;
+            d.line = at.row;
+            d.column = at.column;
+            d.pointer = "column \"" + at.table->layout->columns[static_cast<std::size_t>(at.header)].header + "\"";
           } else {
             d.file = dir_;
             d.line = d.column = 0;
@@ -465,7 +483,7 @@ class Importer {
   std::string dir_, output_;
   std::vector<Diagnostic> problems_;
   std::map<std::string, Table> tables_;
-  std::map<std::string, Place> places_;
+  std::map<std::string, CellPlace> places_;
   std::map<std::string, std::size_t> sif_index_, scenario_index_;
   std::map<std::string, std::map<std::string, std::size_t>> cause_index_;
   std::map<std::string, std::map<std::string, std::string>> scenario_cells_;
