@@ -6,6 +6,7 @@
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/whatif_json.hpp"
 #include "sifter/report/whatif_text.hpp"
+#include "terminal_width.hpp"
 #include "whatif_args.hpp"
 
 namespace sifter::cli {
@@ -43,7 +44,8 @@ Action add_compare_command(CLI::App& app) {
     const auto subsystem = subsystem_index(loaded.project.sifs[sif], opts->subsystem);
     const WhatIf what_if(loaded.project);
     const CompareResult result = compare_votes(what_if, sif, *subsystem, votes, beta);
-    emit(opts->json_path, report::compare_json(result).dump(2) + "\n", report::render_compare(result));
+    emit(opts->json_path, report::compare_json(result).dump(2) + "\n",
+         report::render_compare(result, terminal_width()));
     return static_cast<int>(ExitCode::kAllMet);
   };
 }

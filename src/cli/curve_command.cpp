@@ -11,7 +11,9 @@
 #include "sifter/model/printable.hpp"
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/terminal.hpp"
+#include "sifter/report/text_table.hpp"
 #include "sifter/report/worksheet.hpp"
+#include "terminal_width.hpp"
 
 namespace sifter::cli {
 namespace {
@@ -88,11 +90,15 @@ Action add_curve_command(CLI::App& app) {
     if (opts->csv_path != "-" && opts->json_path != "-") {
       double peak = 0.0;
       for (double p : c.pfd_sif) peak = std::max(peak, p);
-      std::cout << "PFD(t) of " << escape_controls(sif.id) << " over "
-                << format_duration(loaded.project.defaults.mission_time) << ": " << c.t_hours.size()
-                << " points, average " << sifter::sci(c.pfd_avg.value_or(0.0)) << ", peak " << sifter::sci(peak)
-                << " (exact multi-phase Markov engine)\n\n"
-                << report::wrapped_caution();
+      const std::size_t width = std::min<std::size_t>(terminal_width(), 96);
+      std::cout << report::wrap(escape_controls("PFD(t) of " + sif.id + " over " +
+                                                format_duration(loaded.project.defaults.mission_time) + ": " +
+                                                std::to_string(c.t_hours.size()) + " points, average " +
+                                                sifter::sci(c.pfd_avg.value_or(0.0)) + ", peak " + sifter::sci(peak) +
+                                                " (exact multi-phase Markov engine)"),
+                                width, "")
+                << "\n"
+                << report::wrapped_caution(width);
     }
     return 0;
   };

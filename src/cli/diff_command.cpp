@@ -6,6 +6,7 @@
 #include "sifter/input/load.hpp"
 #include "sifter/report/diff_text.hpp"
 #include "sifter/report/output_file.hpp"
+#include "terminal_width.hpp"
 #include "whatif_args.hpp"
 
 namespace sifter::cli {
@@ -35,7 +36,7 @@ Action add_diff_command(CLI::App& app) {
     vo.exact = false;
     const ProjectDiff diff = diff_projects(old_loaded.project, verify_project(old_loaded, vo), new_loaded.project,
                                            verify_project(new_loaded, vo));
-    emit(opts->json_path, report::diff_json(diff).dump(2) + "\n", report::render_diff(diff));
+    emit(opts->json_path, report::diff_json(diff).dump(2) + "\n", report::render_diff(diff, terminal_width()));
     return static_cast<int>(diff.any_worsened() ? ExitCode::kShortfall : ExitCode::kAllMet);
   };
 }

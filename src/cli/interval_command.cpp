@@ -6,6 +6,7 @@
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/whatif_json.hpp"
 #include "sifter/report/whatif_text.hpp"
+#include "terminal_width.hpp"
 #include "whatif_args.hpp"
 
 namespace sifter::cli {
@@ -40,7 +41,8 @@ Action add_interval_command(CLI::App& app) {
     const auto subsystem = subsystem_index(loaded.project.sifs[sif], opts->subsystem);
     const WhatIf what_if(loaded.project);
     const IntervalResult result = longest_proof_test_interval(what_if, sif, subsystem, margin);
-    emit(opts->json_path, report::interval_json(result).dump(2) + "\n", report::render_interval(result));
+    emit(opts->json_path, report::interval_json(result).dump(2) + "\n",
+         report::render_interval(result, terminal_width()));
     return static_cast<int>(result.outcome == IntervalOutcome::kNone ? ExitCode::kShortfall : ExitCode::kAllMet);
   };
 }

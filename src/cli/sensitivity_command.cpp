@@ -6,6 +6,7 @@
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/whatif_json.hpp"
 #include "sifter/report/whatif_text.hpp"
+#include "terminal_width.hpp"
 #include "whatif_args.hpp"
 
 namespace sifter::cli {
@@ -36,7 +37,8 @@ Action add_sensitivity_command(CLI::App& app) {
     const std::size_t sif = sif_index(loaded.project, opts->sif);
     const WhatIf what_if(loaded.project);
     const SensitivityResult result = sensitivity(what_if, sif, factor);
-    emit(opts->json_path, report::sensitivity_json(result).dump(2) + "\n", report::render_sensitivity(result));
+    emit(opts->json_path, report::sensitivity_json(result).dump(2) + "\n",
+         report::render_sensitivity(result, terminal_width()));
     return static_cast<int>(ExitCode::kAllMet);
   };
 }

@@ -8,6 +8,7 @@
 #include "sifter/report/output_file.hpp"
 #include "sifter/report/whatif_json.hpp"
 #include "sifter/report/whatif_text.hpp"
+#include "terminal_width.hpp"
 #include "whatif_args.hpp"
 
 namespace sifter::cli {
@@ -64,7 +65,7 @@ Action add_sweep_command(CLI::App& app) {
     const SweepResult result = sweep(what_if, request);
     const std::string json_text = opts->json_path.empty() ? "" : report::sweep_json(result).dump(2) + "\n";
     const std::string csv = opts->csv_path.empty() ? "" : report::sweep_csv(result);
-    const std::string text = report::render_sweep(result);
+    const std::string text = report::render_sweep(result, terminal_width());
     report::write_outputs({{opts->csv_path, csv}, {opts->json_path, json_text}});
     if (opts->json_path != "-") std::cout << escape_controls(text);
     return static_cast<int>(ExitCode::kAllMet);

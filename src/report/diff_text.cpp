@@ -1,6 +1,8 @@
 // Terminal text and JSON of `sifter diff`.
 #include "sifter/report/diff_text.hpp"
 
+#include <algorithm>
+
 #include "sifter/model/format.hpp"
 #include "sifter/report/pressure_text.hpp"
 #include "sifter/report/terminal.hpp"
@@ -9,6 +11,9 @@
 
 namespace sifter::report {
 namespace {
+
+// Prose stops at 96 columns, or at the terminal's edge when it is narrower.
+std::size_t prose_width(std::size_t width) { return std::min<std::size_t>(width, 96); }
 
 using nlohmann::json;
 
@@ -27,24 +32,25 @@ std::string verdict_text(const std::optional<bool>& v, bool scenario) {
   return *v ? "meets" : "FALLS SHORT";
 }
 
-std::string render_function(const FunctionDiff& d, const std::string& kind) {
+std::string render_function(const FunctionDiff& d, const std::string& kind, std::size_t width) {
   std::string out = kind + " " + d.id;
   if (d.presence != Presence::kBoth) out += "  " + to_string(d.presence);
   if (d.verdict != VerdictChange::kNone)
     out += "  verdict " + std::string(d.verdict == VerdictChange::kWorsened ? "WORSENED" : to_string(d.verdict)) +
            ": " + verdict_text(d.old_verdict, kind != "SIF") + " -> " + verdict_text(d.new_verdict, kind != "SIF");
-  out += "\n";
+  out = fit_line(out, prose_width(width), "", "  ");
   if (!d.related.empty()) {
     std::string s;
     for (const auto& r : d.related) s += (s.empty() ? "" : ", ") + r;
-    out += wrap("fed by changed scenario" + std::string(d.related.size() > 1 ? "s " : " ") + s, 92, "  ");
+    out += wrap("fed by changed scenario" + std::string(d.related.size() > 1 ? "s " : " ") + s, prose_width(width) - 4,
+                "  ");
   }
   if (!d.inputs.empty()) {
     out += "  inputs\n";
     TextTable t({"pointer", "input", "old", "new"});
     for (const auto& c : d.inputs)
       t.add_row({c.pointer, c.what, value_text(c.old_value, c.unit), value_text(c.new_value, c.unit)});
-    out += t.render("    ");
+    out += t.render("    ", width);
   }
   if (!d.results.empty()) {
     out += "  results\n";
@@ -52,7 +58,7 @@ std::string render_function(const FunctionDiff& d, const std::string& kind) {
     for (const auto& c : d.results) {
       t.add_row({c.quantity, value_text(c.old_value, c.unit), value_text(c.new_value, c.unit)});
     }
-    out += t.render("    ");
+    out += t.render("    ", width);
   }
   return out;
 }
@@ -92,8 +98,9 @@ json function_json(const FunctionDiff& d) {
 
 }  // namespace
 
-std::string render_diff(const ProjectDiff& diff) {
-  std::string out = "sifter diff: " + diff.old_file + " -> " + diff.new_file + "\n\n";
+std::string render_diff(const ProjectDiff& diff, std::size_t width) {
+  std::string out =
+      fit_line("sifter diff: " + diff.old_file + " -> " + diff.new_file, prose_width(width), "", "  ") + "\n";
   std::string unchanged;
   int changed_sifs = 0;
   int changed_scenarios = 0;
@@ -106,7 +113,7 @@ std::string render_diff(const ProjectDiff& diff) {
       }
       ++changed;
       worsened += d.verdict == VerdictChange::kWorsened ? 1 : 0;
-      out += render_function(d, kind) + "\n";
+      out += render_function(d, kind, width) + "\n";
     }
   };
   section(diff.sifs, "SIF", changed_sifs);
@@ -116,15 +123,16 @@ std::string render_diff(const ProjectDiff& diff) {
     TextTable t({"pointer", "input", "old", "new"});
     for (const auto& c : diff.project_inputs)
       t.add_row({c.pointer, c.what, value_text(c.old_value, c.unit), value_text(c.new_value, c.unit)});
-    out += t.render("    ") + "\n";
+    out += t.render("    ", width) + "\n";
   }
   out += render_equipment_diff(diff.equipment);
-  if (!unchanged.empty()) out += wrap("Unchanged: " + unchanged, 92, "") + "\n";
+  if (!unchanged.empty()) out += wrap("Unchanged: " + unchanged, prose_width(width), "") + "\n";
   auto count = [](int n, const char* one, const char* many) { return std::to_string(n) + " " + (n == 1 ? one : many); };
-  out += "Summary: " + count(changed_sifs, "SIF", "SIFs") + " and " +
-         count(changed_scenarios, "scenario", "scenarios") + " changed; " + count(worsened, "verdict", "verdicts") +
-         " worsened\n";
-  return out + "\n" + wrapped_caution();
+  out += fit_line("Summary: " + count(changed_sifs, "SIF", "SIFs") + " and " +
+                      count(changed_scenarios, "scenario", "scenarios") + " changed; " +
+                      count(worsened, "verdict", "verdicts") + " worsened",
+                  prose_width(width), "", "  ");
+  return out + "\n" + wrapped_caution(prose_width(width));
 }
 
 json diff_json(const ProjectDiff& diff) {

@@ -1,29 +1,36 @@
 // The overpressure screening and the preliminary verdicts, for the terminal.
 #include "sifter/report/pressure_text.hpp"
 
+#include <algorithm>
 #include <cstdio>
 
 #include "sifter/model/format.hpp"
 #include "sifter/model/pressure_units.hpp"
+#include "sifter/report/text_table.hpp"
 #include "sifter/results/project.hpp"
 
 namespace sifter::report {
 
-std::string render_pressure_text(const ProjectResult& r) {
+std::string render_pressure_text(const ProjectResult& r, std::size_t width) {
   std::string out;
   if (r.pressure) {
     out += "Overpressure screening (blocked outlet, no friction credit)\n";
-    char line[200];
-    std::snprintf(line, sizeof line, "  %-10s %10s %10s %6s %-16s %s\n", "item", "max barg", "MAWP barg", "ratio",
-                  "category", "path");
-    out += line;
+    // The path goes under its row when the terminal is too narrow for it.
+    TextTable t({"item", "max barg", "MAWP barg", "ratio", "category", "path"},
+                {false, true, true, true, false, false});
+    t.set_fit({Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kKeep, Fit::kBelow});
+    char number[32];
+    auto fixed = [&](double v, const char* format) {
+      std::snprintf(number, sizeof number, format, v);
+      return std::string(number);
+    };
     for (const auto& e : r.pressure->equipment) {
       std::string path;
       for (const auto& p : e.path) path += (path.empty() ? "" : ">") + p;
-      std::snprintf(line, sizeof line, "  %-10.10s %10.2f %10.2f %6.3f %-16s %s%s\n", e.id.c_str(), e.max_pressure_barg,
-                    e.mawp_barg, e.ratio, to_string(e.category).c_str(), path.c_str(), e.preliminary() ? " *" : "");
-      out += line;
+      t.add_row({e.id, fixed(e.max_pressure_barg, "%.2f"), fixed(e.mawp_barg, "%.2f"), fixed(e.ratio, "%.3f"),
+                 to_string(e.category), path + (e.preliminary() ? " *" : "")});
     }
+    out += t.render("  ", width);
     for (const auto& id : r.pressure->not_reached) out += "  " + id + ": no source reaches it\n";
     for (const auto& id : r.pressure->generated) out += "  generated scenario " + id + "\n";
     out += "\n";
@@ -31,7 +38,7 @@ std::string render_pressure_text(const ProjectResult& r) {
   const auto preliminary = preliminary_verdicts(r);
   if (!preliminary.empty()) {
     out += "PRELIMINARY verdicts (rest on estimates; `check --final` refuses them)\n";
-    for (const auto& p : preliminary) out += "  * " + p + "\n";
+    for (const auto& p : preliminary) out += fit_line("* " + p, std::min<std::size_t>(width, 96), "  ", "  ");
     out += "\n";
   }
   return out;

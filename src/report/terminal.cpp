@@ -198,7 +198,7 @@ std::string render_sif(const SifResult& s, std::size_t width) {
   out += figure_lines(s, width);
   out += "  verdict  " + verdict_words(s.meets_target) + "\n";
   out += spurious_line(s, width);
-  out += requirements_lines(s);
+  out += requirements_lines(s, width);
   const std::size_t prose = std::min(width, kProseWidth);
   if (!s.limits.empty()) {
     out += "  limited by\n";
@@ -232,7 +232,7 @@ std::string render_terminal(const ProjectResult& r, const TerminalOptions& optio
     for (const auto& s : r.sifs)
       if (!filtered || chosen.count(s.id)) out += render_sif(s, width) + "\n";
   }
-  out += render_pressure_text(r);
+  out += render_pressure_text(r, width);
   std::vector<std::pair<std::string, std::vector<std::string>>> shared;
   for (const auto& c : r.shared_components) shared.emplace_back(c.component, c.sifs);
   out += users_list("Components shared between SIFs (check their independence)", shared, width);

@@ -21,10 +21,13 @@ std::string verdict(const std::optional<bool>& meets) {
   return *meets ? "meets" : "FALLS SHORT";
 }
 
-std::string notes_block(const std::vector<std::string>& notes) {
+// Prose stops at 96 columns, or at the terminal's edge when it is narrower.
+std::size_t prose_width(std::size_t width) { return std::min<std::size_t>(width, 96); }
+
+std::string notes_block(const std::vector<std::string>& notes, std::size_t width) {
   if (notes.empty()) return "";
   std::string out = "  notes\n";
-  for (const auto& n : notes) out += wrap("- " + n, 92, "    ");
+  for (const auto& n : notes) out += wrap("- " + n, prose_width(width) - 4, "    ");
   return out;
 }
 
@@ -48,9 +51,9 @@ std::string names(const std::vector<std::string>& items) {
 }
 
 // "  label        text", the text wrapped under itself.
-std::string labelled(const std::string& label, const std::string& text) {
+std::string labelled(const std::string& label, const std::string& text, std::size_t width) {
   constexpr std::size_t kLabelWidth = 13;
-  const std::string body = wrap(text, 96 - 2 - kLabelWidth, "");
+  const std::string body = wrap(text, prose_width(width) - 2 - kLabelWidth, "");
   std::string out;
   std::size_t start = 0;
   bool first = true;
@@ -67,7 +70,7 @@ std::string labelled(const std::string& label, const std::string& text) {
   return out;
 }
 
-std::string ending() { return "\n" + wrapped_caution(); }
+std::string ending(std::size_t width) { return "\n" + wrapped_caution(prose_width(width)); }
 
 }  // namespace
 
@@ -80,19 +83,21 @@ std::string what_if_value(double value, const std::string& unit) {
   return value != 0.0 && value < 0.001 ? sci(value) : percent(value);
 }
 
-std::string render_interval(const IntervalResult& r) {
+std::string render_interval(const IntervalResult& r, std::size_t width) {
   const DemandMode mode = r.requirement.mode;
   const std::string m = measure_name(mode);
   std::string out = "Longest proof-test interval of " + r.sif + "\n";
-  out += labelled("varied", r.subsystem ? "subsystem '" + *r.subsystem + "'"
-                                        : "all subsystems with channels, tested together: " + names(r.varied));
+  out += labelled("varied",
+                  r.subsystem ? "subsystem '" + *r.subsystem + "'"
+                              : "all subsystems with channels, tested together: " + names(r.varied),
+                  width);
   std::string req = r.requirement.basis;
   if (r.margin > 0.0) req += "; margin " + percent(r.margin) + ": " + m + " at most " + measure_text(r.allowed, mode);
-  out += labelled("requirement", req);
+  out += labelled("requirement", req, width);
   std::string now;
   for (std::size_t i = 0; i < r.varied.size(); ++i)
     now += (i ? ", " : "") + (r.varied.size() > 1 ? r.varied[i] + " " : "") + format_duration(r.current_intervals[i]);
-  out += labelled("now", m + " " + measure_text(r.measure_now, mode) + " with interval " + now);
+  out += labelled("now", m + " " + measure_text(r.measure_now, mode) + " with interval " + now, width);
   out += "\n";
   // Just inside a band edge the figure rounds to the edge itself; say which side it is on.
   const std::string inside = r.requirement.band_edge && r.margin == 0.0 ? " (just inside the band)" : "";
@@ -119,17 +124,18 @@ std::string render_interval(const IntervalResult& r) {
   }
   out += "  interval 0   " + m + " " + measure_text(r.measure_at_zero, mode) +
          " (the terms the interval does not touch)\n";
-  return out + notes_block(r.notes) + ending();
+  return out + notes_block(r.notes, width) + ending(width);
 }
 
-std::string render_sweep(const SweepResult& r) {
+std::string render_sweep(const SweepResult& r, std::size_t width) {
   const bool low = r.mode == DemandMode::kLow;
   const bool duration = is_duration(r.parameter);
-  std::string out = "Sweep of " + to_string(r.parameter) + " for " + r.sif + ", " +
-                    (r.subsystem ? "subsystem '" + *r.subsystem + "'" : "subsystems " + names(r.varied)) + "\n";
+  std::string out = fit_line("Sweep of " + to_string(r.parameter) + " for " + r.sif + ", " +
+                                 (r.subsystem ? "subsystem '" + *r.subsystem + "'" : "subsystems " + names(r.varied)),
+                             prose_width(width), "", "  ");
   if (!r.points.empty()) {
     const auto req = governing_requirement(r.points.front().result);
-    out += "  requirement  " + (req ? req->basis : std::string("none (not judged)")) + "\n\n";
+    out += labelled("requirement", req ? req->basis : std::string("none (not judged)"), width) + "\n";
   }
   std::vector<std::string> header{to_string(r.parameter)};
   if (duration) header.push_back("[h]");
@@ -152,16 +158,17 @@ std::string render_sweep(const SweepResult& r) {
     row.push_back(verdict(s.meets_target));
     t.add_row(row);
   }
-  out += t.render("  ");
-  return out + notes_block(r.notes) + ending();
+  out += t.render("  ", width);
+  return out + notes_block(r.notes, width) + ending(width);
 }
 
-std::string render_compare(const CompareResult& r) {
+std::string render_compare(const CompareResult& r, std::size_t width) {
   const bool low = r.mode == DemandMode::kLow;
-  std::string out = "Votes compared for " + r.sif + ", subsystem '" + r.subsystem + "'\n";
+  std::string out =
+      fit_line("Votes compared for " + r.sif + ", subsystem '" + r.subsystem + "'", prose_width(width), "", "  ");
   if (!r.rows.empty()) {
     const auto req = governing_requirement(r.rows.front().result);
-    out += "  requirement  " + (req ? req->basis : std::string("none (not judged)")) + "\n\n";
+    out += labelled("requirement", req ? req->basis : std::string("none (not judged)"), width) + "\n";
   }
   TextTable t({"vote", low ? "PFDavg sub" : "PFH sub", low ? "PFDavg SIF" : "PFH SIF", "RRF", "SIL prob", "HFT",
                "SIL arch sub/SIF", "trips/yr", "MTTF [yr]", "verdict"},
@@ -176,20 +183,21 @@ std::string render_compare(const CompareResult& r) {
                sci(s.spurious_trip_rate_per_yr), s.mttf_spurious_yr ? plain(*s.mttf_spurious_yr) : "-",
                verdict(s.meets_target)});
   }
-  out += t.render("  ");
+  out += t.render("  ", width);
   std::vector<std::string> notes = r.notes;
   notes.push_back(
       "PFDavg, SIL arch: of the subsystem and of the SIF; trips/yr and MTTF: spurious trips of the whole "
       "SIF, " +
       std::string(kSpuriousTripSource));
-  return out + notes_block(notes) + ending();
+  return out + notes_block(notes, width) + ending(width);
 }
 
-std::string render_sensitivity(const SensitivityResult& r) {
+std::string render_sensitivity(const SensitivityResult& r, std::size_t width) {
   const char* m = measure_name(r.mode);
-  std::string out = "Sensitivity of " + r.sif + ": " + m + " " + measure_text(r.base, r.mode) +
-                    ", each input divided and multiplied by " + plain(r.factor) + "\n";
-  if (r.requirement) out += "  requirement  " + r.requirement->basis + "\n";
+  std::string out = fit_line("Sensitivity of " + r.sif + ": " + m + " " + measure_text(r.base, r.mode) +
+                                 ", each input divided and multiplied by " + plain(r.factor),
+                             prose_width(width), "", "  ");
+  if (r.requirement) out += labelled("requirement", r.requirement->basis, width);
   out += "\n";
   double widest = 0.0;
   for (const auto& in : r.inputs) widest = std::max(widest, in.swing);
@@ -201,14 +209,14 @@ std::string render_sensitivity(const SensitivityResult& r) {
                what_if_value(in.high_value, in.unit) + (in.clamped ? "*" : ""), sci(in.at_low), sci(in.at_high),
                sci(in.swing), std::string(static_cast<std::size_t>(bar), '#')});
   }
-  out += t.render("  ");
+  out += t.render("  ", width);
   std::vector<std::string> notes = r.notes;
   for (const auto& in : r.inputs)
     if (in.clamped) {
       notes.push_back("* held at 1: a fraction cannot exceed it");
       break;
     }
-  return out + notes_block(notes) + ending();
+  return out + notes_block(notes, width) + ending(width);
 }
 
 }  // namespace sifter::report

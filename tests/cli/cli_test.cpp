@@ -1,15 +1,19 @@
 // Specification of the command line: exit statuses, outputs written whole, the examples.
 #include <gtest/gtest.h>
 
+#include <cstdlib>
 #include <nlohmann/json.hpp>
 #include <sstream>
+#include <vector>
 
+#include "sifter/report/text_table.hpp"
 #include "support/cli_support.hpp"
 
 namespace sifter {
 namespace {
 
 using nlohmann::json;
+using report::display_width;
 using testing::fresh_folder;
 using testing::run_sifter;
 using testing::slurp;
@@ -41,6 +45,40 @@ TEST(Cli, EveryCommandsHelpFitsEightyColumns) {
                          "functional-safety practitioner."),
             std::string::npos)
       << top.out;
+}
+
+// Common practice, as for the help: what each command prints on the shipped examples fits the
+// 80-column terminal it was run in (COLUMNS=80, stdout a pipe), tables and prose alike.
+TEST(Cli, EveryCommandsTextOnTheExamplesFitsEightyColumns) {
+  const std::vector<std::string> runs = {
+      "check examples/unit40.json",
+      "check examples/unit50_shortfall.json",
+      "check examples/unit60_existing_logic_solver.json",
+      "check examples/unit70_booster.json",
+      "check examples/unit70_booster_estimate.json",
+      "check examples/unit70_requirements.json",
+      "interval examples/unit40.json --sif SIF-401",
+      "sensitivity examples/unit40.json --sif SIF-401",
+      "sweep examples/unit40.json --sif SIF-401 --vary proof_test_interval --from '6 mo' --to '4 yr' --steps 4",
+      "compare examples/unit40.json --sif SIF-401 --subsystem 'level sensing' --votes 1oo1,1oo2,2oo3",
+      "curve examples/unit40.json --sif SIF-401",
+      "diff examples/unit40.json examples/unit50_shortfall.json",
+      "service examples/unit40.json examples/records/unit40.json --as-of 2026-06-01",
+  };
+  ::setenv("COLUMNS", "80", 1);
+  for (const auto& args : runs) {
+    const auto r = run_sifter(args);
+    EXPECT_NE(r.exit_code, 2) << args << "\n" << r.err;
+    EXPECT_FALSE(r.out.empty()) << args;
+    std::istringstream lines(r.out);
+    std::string line;
+    int number = 0;
+    while (std::getline(lines, line)) {
+      ++number;
+      EXPECT_LE(display_width(line), 80u) << "sifter " << args << ", line " << number << ": " << line;
+    }
+  }
+  ::unsetenv("COLUMNS");
 }
 
 TEST(Cli, UnknownOptionIsAUsageErrorWithStatusTwo) {

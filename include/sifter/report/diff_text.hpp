@@ -1,5 +1,6 @@
 #pragma once
 /// Terminal text and JSON of `sifter diff`.
+#include <cstddef>
 #include <nlohmann/json.hpp>
 #include <string>
 
@@ -8,8 +9,8 @@
 namespace sifter::report {
 
 /// The changed SIFs and scenarios, verdict changes first, then the unchanged by name; ends
-/// with the caution.
-std::string render_diff(const ProjectDiff& diff);
+/// with the caution. `width` is the terminal's: prose stops at 96 columns, tables give way.
+std::string render_diff(const ProjectDiff& diff, std::size_t width = 96);
 
 /// {format, old, new, any_worsened, sifs: [{id, presence, changed, verdict_change, old_verdict,
 /// new_verdict, inputs: [{pointer, what, unit, old, new}], results: [{quantity, old, new}],

@@ -1,5 +1,6 @@
 #pragma once
 /// The terminal's overpressure screening and preliminary-verdict sections.
+#include <cstddef>
 #include <nlohmann/json.hpp>
 #include <string>
 
@@ -10,7 +11,7 @@ namespace sifter::report {
 
 /// The screening table (item, max pressure, MAWP, ratio, category, source, path) and the list
 /// of verdicts resting on estimates; empty when the project has neither.
-std::string render_pressure_text(const ProjectResult& result);
+std::string render_pressure_text(const ProjectResult& result, std::size_t width = 96);
 
 /// The diff's "Overpressure verdicts" section; empty when none moved.
 std::string render_equipment_diff(const std::vector<EquipmentDiff>& items);
