@@ -64,6 +64,7 @@ TEST(Cli, EveryCommandsTextOnTheExamplesFitsEightyColumns) {
       "curve examples/unit40.json --sif SIF-401",
       "diff examples/unit40.json examples/unit50_shortfall.json",
       "service examples/unit40.json examples/records/unit40.json --as-of 2026-06-01",
+      "options examples/unit70_booster.json --scenario OP-M-702-by-P-701",
   };
   ::setenv("COLUMNS", "80", 1);
   for (const auto& args : runs) {
