@@ -80,13 +80,24 @@ CountCheck count_check(int observed, std::optional<double> expected, double flag
   return c;
 }
 
+// Positions in records.events of each component's events, so that a SIF reads only its own
+// components' events (a register's records hold hundreds of thousands).
+std::vector<std::vector<std::size_t>> events_by_component(const ServiceRecords& records, std::size_t components) {
+  std::vector<std::vector<std::size_t>> out(components);
+  for (std::size_t k = 0; k < records.events.size(); ++k)
+    if (records.events[k].component_index < components) out[records.events[k].component_index].push_back(k);
+  return out;
+}
+
 // Distinct dates of events of one kind on the SIF's components: a demand seen by three
 // transmitters is one demand.
-int distinct_dates(const ServiceRecords& records, const std::vector<std::size_t>& components, EventKind kind) {
+int distinct_dates(const ServiceRecords& records, const std::vector<std::vector<std::size_t>>& events_of,
+                   const std::vector<std::size_t>& components, EventKind kind) {
   std::set<CivilDate> dates;
-  for (const auto& e : records.events)
-    if (e.kind == kind && std::find(components.begin(), components.end(), e.component_index) != components.end())
-      dates.insert(e.date);
+  for (auto c : components)
+    if (c < events_of.size())
+      for (auto k : events_of[c])
+        if (records.events[k].kind == kind) dates.insert(records.events[k].date);
   return static_cast<int>(dates.size());
 }
 
@@ -128,10 +139,10 @@ std::optional<double> measure_of(const SifResult& r) {
 }
 
 // The longest proof-test interval (all the SIF's tested subsystems together) with which the SIF
-// meets its requirement again, from the what-if engine on the project with the posterior rates.
-void advise_restore(const Project& judged, std::size_t index, SifService& s) {
+// meets its requirement again, from the what-if engine on the project with the posterior rates
+// (one engine for every SIF that needs the advice).
+void advise_restore(const WhatIf& what_if, std::size_t index, SifService& s) {
   try {
-    const WhatIf what_if(judged);
     s.restore = longest_proof_test_interval(what_if, index, std::nullopt, 0.0);
   } catch (const UsageError& e) {
     s.restore_note = e.what();
@@ -173,13 +184,16 @@ std::vector<ComponentService> judge_components(const Project& project, const Ser
 }
 
 // What the verification runs share: the project as it stands, with the posterior rates, and
-// the LOPA's demand rates.
+// the LOPA's demand rates; and the indexes every SIF reads (its components' events, the
+// schedule rows that name it).
 struct Verifications {
   const LoadedProject& loaded;
   const LoadedProject& judged_loaded;
   const ProjectResult& design;
   const ProjectResult& judged;
   const std::map<std::string, double>& demand_rate_per_yr;
+  const std::vector<std::vector<std::size_t>>& events_of_component;
+  const std::map<std::string, std::vector<std::size_t>>& schedule_rows_of_sif;
 };
 
 void count_events(const Sif& sif, const ServiceRecords& records, const Verifications& v, std::size_t i,
@@ -196,13 +210,14 @@ void count_events(const Sif& sif, const ServiceRecords& records, const Verificat
       expected_demands = it->second * s.observed_years;
     expected_trips = v.design.sifs[i].spurious_trip_rate_per_yr * s.observed_years;
   }
-  s.demands = count_check(distinct_dates(records, components, EventKind::kDemand), expected_demands, flag_below);
-  s.spurious_trips =
-      count_check(distinct_dates(records, components, EventKind::kSpuriousTrip), expected_trips, flag_below);
+  s.demands = count_check(distinct_dates(records, v.events_of_component, components, EventKind::kDemand),
+                          expected_demands, flag_below);
+  s.spurious_trips = count_check(distinct_dates(records, v.events_of_component, components, EventKind::kSpuriousTrip),
+                                 expected_trips, flag_below);
 }
 
 SifService assess_sif(const Project& project, std::size_t i, const ServiceRecords& records, const Verifications& v,
-                      const std::vector<ScheduleRow>& schedule, double flag_below) {
+                      const std::vector<ScheduleRow>& schedule, double flag_below, std::optional<WhatIf>& restore) {
   const Sif& sif = project.sifs[i];
   SifService s;
   s.id = sif.id;
@@ -212,10 +227,19 @@ SifService assess_sif(const Project& project, std::size_t i, const ServiceRecord
   s.meets_design = v.design.sifs[i].meets_target;
   s.meets_judged = v.judged.sifs[i].meets_target;
   s.verdict_changed = s.meets_design != s.meets_judged;
-  if (s.meets_judged == false) advise_restore(v.judged_loaded.project, i, s);
+  if (s.meets_judged == false) {
+    try {
+      if (!restore) restore.emplace(v.judged_loaded.project);
+      advise_restore(*restore, i, s);
+    } catch (const UsageError& e) {
+      s.restore_note = e.what();
+    }
+  }
   count_events(sif, records, v, i, flag_below, s);
-  for (const auto& row : schedule) {
-    if (std::find(row.sifs.begin(), row.sifs.end(), sif.id) == row.sifs.end()) continue;
+  const auto rows = v.schedule_rows_of_sif.find(sif.id);
+  if (rows == v.schedule_rows_of_sif.end()) return s;
+  for (auto k : rows->second) {  // in schedule order
+    const ScheduleRow& row = schedule[k];
     s.any_overdue = s.any_overdue || row.overdue;
     if (!s.earliest_due || row.next_due < *s.earliest_due) {
       s.earliest_due = row.next_due;
@@ -262,10 +286,15 @@ ServiceResult assess_service(const LoadedProject& loaded, const ServiceRecords& 
   if (!project.scenarios.empty())
     for (const auto& req : sif_requirements(evaluate_scenarios(project, lopa_context_from_project(project))))
       demand_rate_per_yr[req.sif] = req.demand_rate_per_yr;
-  const Verifications v{loaded, judged_loaded, design, judged, demand_rate_per_yr};
   out.schedule = schedule_of(project, records);
+  std::map<std::string, std::vector<std::size_t>> rows_of_sif;
+  for (std::size_t k = 0; k < out.schedule.size(); ++k)
+    for (const auto& id : out.schedule[k].sifs) rows_of_sif[id].push_back(k);
+  const auto events_of = events_by_component(records, project.components.size());
+  const Verifications v{loaded, judged_loaded, design, judged, demand_rate_per_yr, events_of, rows_of_sif};
+  std::optional<WhatIf> restore;  // made for the first SIF that falls short with the posterior rates
   for (std::size_t i = 0; i < project.sifs.size(); ++i)
-    out.sifs.push_back(assess_sif(project, i, records, v, out.schedule, options.flag_below));
+    out.sifs.push_back(assess_sif(project, i, records, v, out.schedule, options.flag_below, restore));
   out.notes = method_notes(options.prior_hours);
   return out;
 }

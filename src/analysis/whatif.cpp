@@ -65,6 +65,17 @@ WhatIf::WhatIf(Project project) : project_(std::move(project)) {
   requirements_ = lopa_requirements(project_, ignored);
 }
 
+SifResult WhatIf::verify_variant(const Sif& variant) const {
+  auto it = requirements_.find(variant.id);
+  std::vector<Warning> ignored;
+  VerifyOptions options;  // as verify(): check's options on one thread
+  options.threads = 1;
+  SifResult r = verify_sif(project_, variant, it == requirements_.end() ? std::nullopt : std::optional(it->second),
+                           options, ignored);
+  cap_probabilities(variant, r, ignored);
+  return r;
+}
+
 SifResult WhatIf::verify(const Project& modified, std::size_t sif) const {
   const Sif& s = modified.sifs.at(sif);
   auto it = requirements_.find(s.id);
@@ -201,10 +212,10 @@ IntervalResult longest_proof_test_interval(const WhatIf& what_if, std::size_t si
   out.allowed = requirement->value * (1.0 - margin);
   out.measure_now = *measure_now;
   out.mission = base.defaults.mission_time;
+  Sif variant = s;  // only this SIF's intervals change: the project is not copied per step
   auto measure_at = [&](double hours) {
-    Project p = base;
-    for (auto i : vary) p.sifs[sif].subsystems[i].proof_test_interval = Duration{hours};
-    return sif_measure(what_if.verify(p, sif)).value_or(0.0);
+    for (auto i : vary) variant.subsystems[i].proof_test_interval = Duration{hours};
+    return sif_measure(what_if.verify_variant(variant)).value_or(0.0);
   };
   solve_interval(out, measure_at, allowed_for_solver(*requirement, out.allowed));
   add_context_notes(out, s, now);

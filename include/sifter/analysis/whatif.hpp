@@ -30,6 +30,10 @@ class WhatIf {
   [[nodiscard]] SifResult verify(const Project& modified, std::size_t sif) const;
   /// The unmodified SIF's result.
   [[nodiscard]] SifResult baseline(std::size_t sif) const { return verify(project_, sif); }
+  /// Verifies `variant`, a changed copy of one of project()'s SIFs (same id), against the
+  /// unchanged rest of the project: what verify() gives for a project copy holding it, without
+  /// copying the project (verification of a SIF reads no other SIF).
+  [[nodiscard]] SifResult verify_variant(const Sif& variant) const;
 
  private:
   Project project_;
