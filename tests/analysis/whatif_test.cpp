@@ -174,6 +174,32 @@ double check_pfd_of_sif401(const std::string& text) {
   return *verify_project(loaded).sifs[0].pfd_avg;
 }
 
+// Property: a changed copy of one SIF verified against the unchanged project gives, bit for
+// bit, what verifying a whole project copy holding that change gives (and so what check gives
+// for it): the interval solver relies on it to avoid copying the project per step.
+TEST(WhatIfVariant, EqualsVerifyingAProjectCopyThatHoldsTheChange) {
+  for (const char* example : {"unit40.json", "unit50_shortfall.json", "unit60_existing_logic_solver.json",
+                              "unit70_booster.json", "unit70_requirements.json"}) {
+    const LoadedProject loaded = load_project_file(std::string(SIFTER_SOURCE_DIR) + "/examples/" + example);
+    const WhatIf what_if(loaded.project);
+    for (std::size_t i = 0; i < loaded.project.sifs.size(); ++i) {
+      for (double hours : {730.0, 8760.0, 3.0 * 8760.0}) {
+        Project copy = loaded.project;
+        for (auto& sub : copy.sifs[i].subsystems) sub.proof_test_interval = Duration{hours};
+        const SifResult whole = what_if.verify(copy, i);
+        const SifResult variant = what_if.verify_variant(copy.sifs[i]);
+        const std::string where = std::string(example) + " " + copy.sifs[i].id + " at " + std::to_string(hours) + " h";
+        EXPECT_EQ(variant.pfd_avg, whole.pfd_avg) << where;
+        EXPECT_EQ(variant.pfh_per_hour, whole.pfh_per_hour) << where;
+        EXPECT_EQ(variant.pfd_avg_exact, whole.pfd_avg_exact) << where;
+        EXPECT_EQ(variant.sil_achieved, whole.sil_achieved) << where;
+        EXPECT_EQ(variant.meets_target, whole.meets_target) << where;
+        EXPECT_EQ(variant.assumptions, whole.assumptions) << where;
+      }
+    }
+  }
+}
+
 TEST(Sweep, EndpointsEqualCheckAtTheSameValues) {
   const WhatIf w(example());
   SweepRequest q;
