@@ -54,6 +54,50 @@ std::function<void(long long, long long)> progress_bar() {
 }
 
 // Verifies, renders every output, then commits them all: nothing is written if any fails.
+VerifyOptions verify_options(const CheckOptions& options) {
+  VerifyOptions vo;
+  vo.exact = !options.no_exact;
+  vo.samples = options.samples;
+  vo.seed = options.seed;
+  vo.threads = options.threads;
+  if (options.samples > 0) vo.progress = progress_bar();
+  return vo;
+}
+
+// The files check writes, each whole in its temporary file until they are renamed together.
+struct CheckFiles {
+  std::optional<report::AtomicOutput> json, worksheet, rows, xlsx;
+  void commit() {
+    report::commit_all(
+        {json ? &*json : nullptr, worksheet ? &*worksheet : nullptr, rows ? &*rows : nullptr, xlsx ? &*xlsx : nullptr});
+  }
+};
+
+// The JSON goes SIF by SIF into its temporary file: a register of thousands of SIFs is never
+// one tree in memory.
+void write_files(const CheckOptions& options, const LoadedProject& loaded, const ProjectResult& result,
+                 CheckFiles& files) {
+  if (!options.json_path.empty()) {
+    files.json.emplace(options.json_path);
+    report::write_results_json(result, files.json->stream(),
+                               options.pretty ? report::JsonLayout::kPretty : report::JsonLayout::kCompact);
+    files.json->stream() << "\n";
+  }
+  if (!options.worksheet_csv_path.empty()) {
+    files.worksheet.emplace(options.worksheet_csv_path);
+    files.worksheet->stream() << report::worksheet_csv(result);
+  }
+  if (!options.csv_path.empty()) {
+    files.rows.emplace(options.csv_path);
+    files.rows->stream() << report::sif_csv(result);
+  }
+  if (!options.xlsx_path.empty()) {
+    const std::string workbook = report::workbook_xlsx(result, loaded.project.components);
+    files.xlsx.emplace(options.xlsx_path);
+    files.xlsx->stream() << workbook;
+  }
+}
+
 int run_check(const CheckOptions& options) {
   report::refuse_overwriting_inputs(
       {options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path}, {options.project});
@@ -61,18 +105,10 @@ int run_check(const CheckOptions& options) {
   report::refuse_overwriting_inputs(
       {options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path}, loaded.inputs);
   for (const auto& id : options.sifs) find_sif(loaded.project, id);  // an unknown id is a usage error
-  VerifyOptions vo;
-  vo.exact = !options.no_exact;
-  vo.samples = options.samples;
-  vo.seed = options.seed;
-  vo.threads = options.threads;
-  if (options.samples > 0) vo.progress = progress_bar();
-  const ProjectResult& result = keep_until_exit(verify_project(loaded, vo));
+  const ProjectResult& result = keep_until_exit(verify_project(loaded, verify_options(options)));
   // Render everything before any output is renamed into place, so that a failure leaves no
-  // partial output. The JSON goes SIF by SIF into its temporary file: a register of
-  // thousands of SIFs is never one tree in memory.
-  // The terminal text is rendered on a second core while the files are written (both only read
-  // the results); it is printed after every file is in place.
+  // partial output. The terminal text is rendered on a second core while the files are written
+  // (both only read the results); it is printed after every file is in place.
   const bool summary_to_stdout = !options.quiet && options.json_path != "-";
   report::TerminalOptions terminal;
   terminal.width = terminal_width();
@@ -82,29 +118,10 @@ int run_check(const CheckOptions& options) {
       summary_to_stdout && options.threads != 1 ? std::launch::async : std::launch::deferred, [&]() -> std::string {
         return summary_to_stdout ? escape_controls(report::render_terminal(result, terminal)) : "";
       });
-  std::optional<report::AtomicOutput> json_out, csv_out, rows_out, xlsx_out;
-  if (!options.json_path.empty()) {
-    json_out.emplace(options.json_path);
-    report::write_results_json(result, json_out->stream(),
-                               options.pretty ? report::JsonLayout::kPretty : report::JsonLayout::kCompact);
-    json_out->stream() << "\n";
-  }
-  if (!options.worksheet_csv_path.empty()) {
-    csv_out.emplace(options.worksheet_csv_path);
-    csv_out->stream() << report::worksheet_csv(result);
-  }
-  if (!options.csv_path.empty()) {
-    rows_out.emplace(options.csv_path);
-    rows_out->stream() << report::sif_csv(result);
-  }
-  if (!options.xlsx_path.empty()) {
-    const std::string workbook = report::workbook_xlsx(result, loaded.project.components);
-    xlsx_out.emplace(options.xlsx_path);
-    xlsx_out->stream() << workbook;
-  }
+  CheckFiles files;
+  write_files(options, loaded, result, files);
   const std::string summary = summary_text.get();
-  report::commit_all({json_out ? &*json_out : nullptr, csv_out ? &*csv_out : nullptr, rows_out ? &*rows_out : nullptr,
-                      xlsx_out ? &*xlsx_out : nullptr});
+  files.commit();
   if (summary_to_stdout) {
     std::cout << summary;
   } else {
