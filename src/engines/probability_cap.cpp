@@ -9,8 +9,14 @@
 namespace sifter {
 namespace {
 
-// Returns true when it capped.
+// Returns true when it capped. Below zero a probability can only be the rounding of a
+// difference near zero (the exact engine's one minus the working states, for rates near
+// 1e-160/h): it is 0.
 bool cap(std::optional<double>& p) {
+  if (p && *p < 0.0) {
+    p = 0.0;
+    return true;
+  }
   if (!p || !(*p > 1.0)) return false;
   p = 1.0;
   return true;
