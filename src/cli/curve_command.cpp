@@ -90,7 +90,7 @@ Action add_curve_command(CLI::App& app) {
     if (opts->csv_path != "-" && opts->json_path != "-") {
       double peak = 0.0;
       for (double p : c.pfd_sif) peak = std::max(peak, p);
-      const std::size_t width = std::min<std::size_t>(terminal_width(), 96);
+      const std::size_t width = report::prose_width(terminal_width());
       std::cout << report::wrap(escape_controls("PFD(t) of " + sif.id + " over " +
                                                 format_duration(loaded.project.defaults.mission_time) + ": " +
                                                 std::to_string(c.t_hours.size()) + " points, average " +

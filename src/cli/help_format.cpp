@@ -3,6 +3,8 @@
 
 #include <sstream>
 
+#include "sifter/report/text_table.hpp"
+
 namespace sifter::cli {
 
 std::string wrap_words(const std::string& text, std::size_t width) {
@@ -13,21 +15,9 @@ std::string wrap_words(const std::string& text, std::size_t width) {
   while (std::getline(lines, line)) {
     if (!first_line) out += '\n';
     first_line = false;
-    std::istringstream words(line);
-    std::string word;
-    std::size_t used = 0;
-    while (words >> word) {
-      if (used > 0 && used + 1 + word.size() > width) {
-        out += '\n';
-        used = 0;
-      }
-      if (used > 0) {
-        out += ' ';
-        ++used;
-      }
-      out += word;
-      used += word.size();
-    }
+    std::string wrapped = report::wrap(line, width, "");
+    if (!wrapped.empty()) wrapped.pop_back();  // report::wrap ends every line with a newline
+    out += wrapped;
   }
   if (!text.empty() && text.back() == '\n') out += '\n';
   return out;

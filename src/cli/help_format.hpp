@@ -7,7 +7,8 @@
 namespace sifter::cli {
 
 /// Wraps `text` at spaces so that no line is longer than `width` (a word longer than the width
-/// stays whole); the line breaks already in the text are kept.
+/// stays whole); the line breaks already in the text are kept. Each line is wrapped as the
+/// terminal writers wrap prose (report::wrap): an item that starts with "- " hangs under its text.
 std::string wrap_words(const std::string& text, std::size_t width);
 
 /// The formatter of every command's --help: set on the program before its commands are added,

@@ -12,9 +12,6 @@
 namespace sifter::report {
 namespace {
 
-// Prose stops at 96 columns, or at the terminal's edge when it is narrower.
-std::size_t prose_width(std::size_t width) { return std::min<std::size_t>(width, 96); }
-
 using nlohmann::json;
 
 std::string value_text(const std::optional<DiffValue>& v, const std::string& unit) {

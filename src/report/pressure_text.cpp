@@ -38,7 +38,7 @@ std::string render_pressure_text(const ProjectResult& r, std::size_t width) {
   const auto preliminary = preliminary_verdicts(r);
   if (!preliminary.empty()) {
     out += "PRELIMINARY verdicts (rest on estimates; `check --final` refuses them)\n";
-    for (const auto& p : preliminary) out += fit_line("* " + p, std::min<std::size_t>(width, 96), "  ", "  ");
+    for (const auto& p : preliminary) out += fit_line("* " + p, prose_width(width), "  ", "  ");
     out += "\n";
   }
   return out;

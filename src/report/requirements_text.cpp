@@ -11,7 +11,7 @@ namespace sifter::report {
 
 std::string requirements_lines(const SifResult& s, std::size_t width) {
   if (s.requirement_checks.empty() && !s.response_time_s) return "";
-  const std::size_t text_width = std::min<std::size_t>(width, 96) - 4;  // after the indent
+  const std::size_t text_width = prose_width(width) - 4;  // after the indent
   std::string out = "  requirements\n";
   if (s.response_time_s && !s.response_time_limit_s)
     out += wrap("response time " + format_seconds(*s.response_time_s) + " (no process safety time stated)", text_width,

@@ -17,9 +17,6 @@
 namespace sifter::report {
 namespace {
 
-// Prose (limits, assumptions, warnings) stays at a readable measure on a wide terminal.
-constexpr std::size_t kProseWidth = 96;
-
 std::string verdict_words(const std::optional<bool>& meets) {
   if (!meets) return "NOT JUDGED (no target)";
   return *meets ? "MEETS TARGET" : "FALLS SHORT";
@@ -42,7 +39,7 @@ std::string spurious_line(const SifResult& s, std::size_t width) {
     parts += (parts.empty() ? "" : ", ") + sub.name + " " + (vendor ? "not given" : sci(sub.spurious_trip_rate_per_yr));
   }
   if (!parts.empty()) text += " (" + parts + ")";
-  return fit_line(text, std::min(width, kProseWidth), "  ", "    ");
+  return fit_line(text, prose_width(width), "  ", "    ");
 }
 
 // What keeps the SIF where it is, in a few words: its limits, else the results that set the
@@ -87,12 +84,12 @@ std::string shortfalls(const ProjectResult& r, std::size_t width) {
       out += fit_line("- SIF " + s.id + ": achieved " + sil_words(s.sil_achieved) +
                           (s.sil_required ? ", required " + sil_words(*s.sil_required) : std::string()) + "; " +
                           limit_words(s),
-                      std::min(width, kProseWidth), "  ");
+                      prose_width(width), "  ");
   for (const auto& s : r.scenarios)
     if (s.meets_target && !*s.meets_target)
       out += fit_line("- scenario " + s.id + ": " + sci_or_dash(s.mitigated_frequency_per_yr) +
                           "/yr with the SIF against a target of " + sci(s.target_frequency_per_yr) + "/yr",
-                      std::min(width, kProseWidth), "  ");
+                      prose_width(width), "  ");
   return out.empty() ? "" : "Falling short\n" + out;
 }
 
@@ -199,7 +196,7 @@ std::string render_sif(const SifResult& s, std::size_t width) {
   out += "  verdict  " + verdict_words(s.meets_target) + "\n";
   out += spurious_line(s, width);
   out += requirements_lines(s, width);
-  const std::size_t prose = std::min(width, kProseWidth);
+  const std::size_t prose = prose_width(width);
   if (!s.limits.empty()) {
     out += "  limited by\n";
     for (const auto& l : s.limits) out += fit_line("[" + l.kind + "] " + l.message, prose, "    ", "  ");
@@ -241,12 +238,11 @@ std::string render_terminal(const ProjectResult& r, const TerminalOptions& optio
   out += users_list("Devices several SIFs or scenarios rely on", shared, width);
   if (!r.warnings.empty()) {
     out += "Warnings\n";
-    for (const auto& w : r.warnings)
-      out += fit_line(w.where + ": " + w.message, std::min(width, kProseWidth), "  ", "    ");
+    for (const auto& w : r.warnings) out += fit_line(w.where + ": " + w.message, prose_width(width), "  ", "    ");
     out += "\n";
   }
   out += counts(r, width);
-  out += "\n" + wrapped_caution(std::min(width, kProseWidth));
+  out += "\n" + wrapped_caution(prose_width(width));
   return out;
 }
 

@@ -208,7 +208,9 @@ std::string wrap(const std::string& text, std::size_t width, const std::string& 
   // Continuation lines hang under the first word when the text starts with "- ".
   const bool hanging = text.rfind("- ", 0) == 0;
   while (words >> word) {
-    if (!line.empty() && display_width(line) + 1 + display_width(word) > width) {
+    // A hanging line starts two columns further in, so it holds two columns less.
+    const std::size_t room = out.empty() || !hanging ? width : width - std::min<std::size_t>(width, 2);
+    if (!line.empty() && display_width(line) + 1 + display_width(word) > room) {
       out += (out.empty() ? indent : indent + (hanging ? "  " : "")) + line + "\n";
       line.clear();
     }

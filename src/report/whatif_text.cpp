@@ -21,9 +21,6 @@ std::string verdict(const std::optional<bool>& meets) {
   return *meets ? "meets" : "FALLS SHORT";
 }
 
-// Prose stops at 96 columns, or at the terminal's edge when it is narrower.
-std::size_t prose_width(std::size_t width) { return std::min<std::size_t>(width, 96); }
-
 std::string notes_block(const std::vector<std::string>& notes, std::size_t width) {
   if (notes.empty()) return "";
   std::string out = "  notes\n";

@@ -84,7 +84,7 @@ std::string render_worksheet(const ScenarioResult& s, std::size_t width) {
                      sci(s.target_frequency_per_yr) + "/yr -> " +
                      (s.meets_target ? (*s.meets_target ? "TOLERABLE" : "NOT TOLERABLE") : std::string("not judged")),
                  width, "  ");
-  const std::size_t text_width = std::min<std::size_t>(width, 96);
+  const std::size_t text_width = prose_width(width);
   if (!s.findings.empty()) {
     out += "  findings\n";
     for (const auto& f : s.findings) out += fit_line("- [" + to_string(f.kind) + "] " + f.message, text_width, "    ");

@@ -59,6 +59,10 @@ TEST(Cli, EveryCommandsTextOnTheExamplesFitsEightyColumns) {
       "check examples/unit70_requirements.json",
       "interval examples/unit40.json --sif SIF-401",
       "sensitivity examples/unit40.json --sif SIF-401",
+      // notes whose items hang under their dash: these had a line of 82 columns before wrap
+      // counted the hanging indent
+      "sensitivity examples/unit40.json --sif SIF-403",
+      "sensitivity examples/unit70_booster.json --sif SIF-701",
       "sweep examples/unit40.json --sif SIF-401 --vary proof_test_interval --from '6 mo' --to '4 yr' --steps 4",
       "compare examples/unit40.json --sif SIF-401 --subsystem 'level sensing' --votes 1oo1,1oo2,2oo3",
       "curve examples/unit40.json --sif SIF-401",

@@ -86,6 +86,33 @@ TEST(TerminalWidth, WithoutATerminalOrColumnsTheSummaryIsFittedToOneHundred) {
   EXPECT_NE(lines_too_wide(r.out, 80), "");  // the worksheet uses the room it has
 }
 
+// Every line of `text`, without its indent, is at most `width` wide.
+bool every_line_fits(const std::string& text, std::size_t indent, std::size_t width) {
+  std::istringstream lines(text);
+  std::string line;
+  while (std::getline(lines, line))
+    if (report::display_width(line) > indent + width) return false;
+  return true;
+}
+
+TEST(ProseWrap, AnItemThatHangsUnderItsDashStillFitsTheWidth) {
+  const std::string item = "- the proof-test coverage of the valve assembly is taken from the vendor's assessment";
+  const std::string out = report::wrap(item, 30, "    ");
+  EXPECT_TRUE(every_line_fits(out, 4, 30)) << out;
+  EXPECT_EQ(out.substr(0, 6), "    - ");
+  EXPECT_NE(out.find("\n      "), std::string::npos) << "later lines hang under the text:\n" << out;
+}
+
+TEST(ProseWrap, PlainTextFillsEachLineToTheWidth) {
+  EXPECT_EQ(report::wrap("one two three four", 9, ""), "one two\nthree\nfour\n");
+  EXPECT_EQ(report::wrap("one two three four", 13, "  "), "  one two three\n  four\n");
+}
+
+TEST(ProseWidth, ProseStopsAtNinetySixColumnsOrAtANarrowerTerminal) {
+  EXPECT_EQ(report::prose_width(200), 96u);
+  EXPECT_EQ(report::prose_width(80), 80u);
+}
+
 TEST(TextTable, ANarrowTableBreaksItsWrappingColumnBetweenWordsNeverInsideOne) {
   report::TextTable t({"tag", "title", "value"}, {false, false, true});
   t.set_fit({report::Fit::kKeep, report::Fit::kWrap, report::Fit::kKeep});

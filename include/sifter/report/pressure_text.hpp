@@ -4,6 +4,7 @@
 #include <nlohmann/json.hpp>
 #include <string>
 
+#include "sifter/report/text_table.hpp"
 #include "sifter/results/diff.hpp"
 #include "sifter/results/project.hpp"
 
@@ -11,7 +12,7 @@ namespace sifter::report {
 
 /// The screening table (item, max pressure, MAWP, ratio, category, source, path) and the list
 /// of verdicts resting on estimates; empty when the project has neither.
-std::string render_pressure_text(const ProjectResult& result, std::size_t width = 96);
+std::string render_pressure_text(const ProjectResult& result, std::size_t width = kProseWidth);
 
 /// The diff's "Overpressure verdicts" section; empty when none moved.
 std::string render_equipment_diff(const std::vector<EquipmentDiff>& items);

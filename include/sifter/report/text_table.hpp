@@ -47,7 +47,16 @@ class TextTable {
   std::vector<Row> rows_;
 };
 
+/// Prose (limits, assumptions, notes, warnings) stops at 96 columns on a wide terminal, and at
+/// the terminal's edge on a narrower one; tables may use the whole width.
+inline constexpr std::size_t kProseWidth = 96;
+[[nodiscard]] inline std::size_t prose_width(std::size_t terminal_width) {
+  return terminal_width < kProseWidth ? terminal_width : kProseWidth;
+}
+
 /// Wraps text at word boundaries; every line starts with `indent`; `width` excludes the indent.
+/// Text that starts with "- " hangs: its later lines start two columns further in and hold two
+/// columns less, so that every line fits `width` after the indent.
 std::string wrap(const std::string& text, std::size_t width, const std::string& indent);
 
 /// `text` as one line when indent and text fit in `width`, else broken between words (runs of
