@@ -116,7 +116,6 @@ DeliverableData build_deliverable_data(const Project& project, const ProjectResu
     if (c.source) row.source_kind = c.source->kind;
     if (c.response_time) row.response_time_s = c.response_time->hours * kSecondsPerHour;
     if (auto u = users.find(i); u != users.end()) row.sifs = u->second;
-    d.component_by_id.insert_or_assign(row.id, d.components.size());
     d.components.push_back(std::move(row));
   }
   for (std::size_t i = 0; i < project.sifs.size() && i < result.sifs.size(); ++i) {

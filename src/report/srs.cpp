@@ -133,7 +133,7 @@ void operation(Blocks& b, const SifRequirements& q) {
   b.list(std::move(items));
 }
 
-void devices(Blocks& b, const SifResult& s, const DeliverableData& data) {
+void devices(Blocks& b, const SifResult& s, const ComponentRows& rows) {
   b.heading("Devices and their data");
   Table t;
   t.caption = "Devices in signal order, with the source of their failure data";
@@ -146,7 +146,7 @@ void devices(Blocks& b, const SifResult& s, const DeliverableData& data) {
       for (const auto& tag : ch) {
         if (std::find(seen.begin(), seen.end(), tag) != seen.end()) continue;
         seen.push_back(tag);
-        const ComponentDataRow* row = data.component(tag);
+        const ComponentDataRow* row = rows.find(tag);
         t.rows.push_back({{first ? sub.name : ""},
                           {first ? sub.vote : ""},
                           {tag},
@@ -163,7 +163,18 @@ void devices(Blocks& b, const SifResult& s, const DeliverableData& data) {
 
 }  // namespace
 
-std::vector<SrsBlock> srs_sif_blocks(const ProjectResult& result, const DeliverableData& data, std::size_t i) {
+ComponentRows::ComponentRows(const std::vector<ComponentDataRow>& rows) : rows_(rows) {
+  index_.reserve(rows.size());
+  for (std::size_t i = 0; i < rows.size(); ++i) index_.insert_or_assign(rows[i].id, i);
+}
+
+const ComponentDataRow* ComponentRows::find(const std::string& id) const {
+  auto it = index_.find(id);
+  return it == index_.end() ? nullptr : &rows_[it->second];
+}
+
+std::vector<SrsBlock> srs_sif_blocks(const ProjectResult& result, const DeliverableData& data,
+                                     const ComponentRows& rows, std::size_t i) {
   const SifResult& s = result.sifs.at(i);
   const SifDeliverable& d = data.sifs.at(i);
   const SifRequirements q = d.requirements.value_or(SifRequirements{});
@@ -175,7 +186,7 @@ std::vector<SrsBlock> srs_sif_blocks(const ProjectResult& result, const Delivera
   proof_test(b, s, d, q);
   spurious(b, s, q);
   operation(b, q);
-  devices(b, s, data);
+  devices(b, s, rows);
   b.heading("Checklist and open items");
   b.table(requirement_items_table(d));
   auto open = d.open_items();

@@ -81,11 +81,12 @@ std::string render_srs_html(const ProjectResult& r, const DeliverableData& d, co
   out += "<nav class=\"contents\"><h3>Contents</h3><ol>\n";
   for (auto i : o.sifs) out += "<li><a href=\"#" + srs_anchor(i) + "\">" + esc(r.sifs[i].id) + "</a></li>\n";
   out += "</ol></nav>\n";
+  const ComponentRows rows(d.components);
   for (auto i : o.sifs) {
     const SifResult& s = r.sifs[i];
     out += "<section class=\"sif\" id=\"" + srs_anchor(i) + "\">\n<h2>" + esc(s.id) +
            (s.title.empty() ? "" : ": " + esc(s.title)) + "</h2>\n";
-    out += blocks_html(srs_sif_blocks(r, d, i)) + "</section>\n";
+    out += blocks_html(srs_sif_blocks(r, d, rows, i)) + "</section>\n";
   }
   out += "<footer>Written by sifter " + esc(o.tool_version) + " on " + esc(o.date) + " from " + esc(r.file) + ". " +
          esc(kCaution) + "</footer>\n</body>\n</html>\n";
@@ -107,10 +108,11 @@ std::string render_srs_markdown(const ProjectResult& r, const DeliverableData& d
     out += "*No document control stated.*\n\n";
   }
   out += "> **Caution.** " + escape_markdown(kCaution) + "\n\n";
+  const ComponentRows rows(d.components);
   for (auto i : o.sifs) {
     const SifResult& s = r.sifs[i];
     out += "## " + escape_markdown(s.id) + (s.title.empty() ? "" : ": " + escape_markdown(s.title)) + "\n\n";
-    out += blocks_markdown(srs_sif_blocks(r, d, i));
+    out += blocks_markdown(srs_sif_blocks(r, d, rows, i));
   }
   return out;
 }

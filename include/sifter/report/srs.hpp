@@ -4,6 +4,8 @@
 /// function, timing, proof test, spurious trips, operation, devices with their data sources, and
 /// the open items. Written as HTML (self-contained, like the report) or Markdown.
 #include <string>
+#include <string_view>
+#include <unordered_map>
 #include <vector>
 
 #include "sifter/report/tables.hpp"
@@ -20,8 +22,23 @@ struct SrsBlock {
   std::vector<std::string> items;  ///< kList, kOpenItems
 };
 
-/// The blocks of one SIF's section (without its title).
-std::vector<SrsBlock> srs_sif_blocks(const ProjectResult& result, const DeliverableData& data, std::size_t sif);
+/// The component rows of the deliverables found by id: built once per document, as a register's
+/// SRS looks up every device of every SIF. Ids are unique in a project; were one given twice,
+/// its last row would answer.
+class ComponentRows {
+ public:
+  explicit ComponentRows(const std::vector<ComponentDataRow>& rows);
+  /// The row of `id`, nullptr if none.
+  [[nodiscard]] const ComponentDataRow* find(const std::string& id) const;
+
+ private:
+  const std::vector<ComponentDataRow>& rows_;
+  std::unordered_map<std::string_view, std::size_t> index_;
+};
+
+/// The blocks of one SIF's section (without its title); `rows` are those of `data.components`.
+std::vector<SrsBlock> srs_sif_blocks(const ProjectResult& result, const DeliverableData& data,
+                                     const ComponentRows& rows, std::size_t sif);
 
 /// What the SRS writers need besides the results.
 struct SrsOptions {

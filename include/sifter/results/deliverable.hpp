@@ -3,7 +3,6 @@
 /// Plain data of the results contract: the standard library and the model only.
 #include <optional>
 #include <string>
-#include <unordered_map>
 #include <vector>
 
 #include "sifter/model/model.hpp"
@@ -61,21 +60,6 @@ struct DeliverableData {
   std::optional<DocumentControl> document;
   std::vector<ComponentDataRow> components;  ///< every component, in project order
   std::vector<SifDeliverable> sifs;          ///< one per SIF, project order
-  /// Position in `components` by id, built with them (a register's SRS looks up every device).
-  std::unordered_map<std::string, std::size_t> component_by_id;
-
-  /// The row of a component id, nullptr if none: through the index when it covers every row,
-  /// else by a scan (data assembled by hand); the last row of an id answers, as ids are unique.
-  [[nodiscard]] const ComponentDataRow* component(const std::string& id) const {
-    if (component_by_id.size() == components.size()) {
-      auto it = component_by_id.find(id);
-      return it == component_by_id.end() ? nullptr : &components[it->second];
-    }
-    const ComponentDataRow* row = nullptr;
-    for (const auto& c : components)
-      if (c.id == id) row = &c;
-    return row;
-  }
 };
 
 }  // namespace sifter
