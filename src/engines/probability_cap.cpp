@@ -9,17 +9,20 @@
 namespace sifter {
 namespace {
 
-// Returns true when it capped. Below zero a probability can only be the rounding of a
-// difference near zero (the exact engine's one minus the working states, for rates near
-// 1e-160/h): it is 0.
-bool cap(std::optional<double>& p) {
-  if (p && *p < 0.0) {
+// Rounding leaves a difference near zero (the exact engine's one minus the working states, for
+// rates near 1e-160/h) a few units of 1e-16 below zero, never more than this.
+constexpr double kRoundingBelowZero = -1e-12;
+
+// A probability below zero is shown as 0 and one above 1 as 1. The most negative value lifted
+// is kept in `lowest`, so that a value no rounding explains is reported, not hidden.
+void cap(std::optional<double>& p, double& lowest) {
+  if (!p) return;
+  if (*p < 0.0) {
+    lowest = std::min(lowest, *p);
     p = 0.0;
-    return true;
+  } else if (*p > 1.0) {
+    p = 1.0;
   }
-  if (!p || !(*p > 1.0)) return false;
-  p = 1.0;
-  return true;
 }
 
 }  // namespace
@@ -40,22 +43,23 @@ void cap_probabilities(const Sif& sif, SifResult& r, std::vector<Warning>& warni
     r.assumptions.push_back(m);
     warnings.push_back({sif.pointer, m});
   }
-  cap(r.pfd_avg);
-  cap(r.pfd_avg_simplified);
-  cap(r.credit_pfd);
-  cap(r.pfd_avg_exact);
-  cap(r.required_pfd);
+  double lowest = 0.0;
+  for (auto* p : {&r.pfd_avg, &r.pfd_avg_simplified, &r.credit_pfd, &r.pfd_avg_exact, &r.required_pfd}) cap(*p, lowest);
   if (r.pfd_avg) r.rrf = *r.pfd_avg > 0.0 ? std::optional<double>(1.0 / *r.pfd_avg) : std::nullopt;
-  for (auto& s : r.subsystems) {
-    cap(s.pfd_avg);
-    cap(s.pfd_avg_simplified);
-    cap(s.pfd_avg_exact);
+  for (auto& s : r.subsystems)
+    for (auto* p : {&s.pfd_avg, &s.pfd_avg_simplified, &s.pfd_avg_exact}) cap(*p, lowest);
+  if (lowest < kRoundingBelowZero) {
+    const std::string m = "a PFDavg of " + figure(lowest) +
+                          " came out of the engines, below zero, which no probability is and no rounding explains; "
+                          "shown as 0. Do not rely on this SIF's figures: report the project file as a defect";
+    r.assumptions.push_back(m);
+    warnings.push_back({sif.pointer, m});
   }
   if (r.uncertainty && r.demand_mode == DemandMode::kLow) {
-    r.uncertainty->p50 = std::min(1.0, r.uncertainty->p50);
-    r.uncertainty->mean = std::min(1.0, r.uncertainty->mean);
-    r.uncertainty->p05 = std::min(1.0, r.uncertainty->p05);
-    r.uncertainty->p95 = std::min(1.0, r.uncertainty->p95);
+    r.uncertainty->p50 = std::clamp(r.uncertainty->p50, 0.0, 1.0);
+    r.uncertainty->mean = std::clamp(r.uncertainty->mean, 0.0, 1.0);
+    r.uncertainty->p05 = std::clamp(r.uncertainty->p05, 0.0, 1.0);
+    r.uncertainty->p95 = std::clamp(r.uncertainty->p95, 0.0, 1.0);
   }
 }
 
