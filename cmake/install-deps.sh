@@ -6,7 +6,7 @@
 #   sh cmake/install-deps.sh tests ci   that, and the sanitizer and fuzzing compiler CI uses
 set -eu
 program="cmake g++ ninja-build pkg-config libboost-dev libboost-graph-dev nlohmann-json3-dev libcli11-dev
-libeigen3-dev libxlsxwriter-dev"
+libeigen3-dev libxlsxwriter-dev libsimdjson-dev"
 tests="libgtest-dev libgmock-dev libbenchmark-dev python3 python3-jsonschema python3-openpyxl chromium
 fonts-dejavu-core python3-numpy time python3-icalendar poppler-utils"
 ci="clang-14 libclang-rt-14-dev clang-format-14 clang-tidy-14 clang-format clang-tidy"

@@ -7,6 +7,7 @@
 #include <future>
 #include <sstream>
 
+#include "input/json_tree.hpp"
 #include "input/load_parts.hpp"
 #include "input/load_pressure.hpp"
 #include "input/load_reuse.hpp"
@@ -98,8 +99,9 @@ std::optional<Json> parse_source(LoadContext& ctx, int source, const std::string
   const auto structure = scan_json_structure(text);
   for (const auto& p : structure) report(p.position, p.pointer, p.expected, p.found, p.hint);
   if (!structure.empty()) return std::nullopt;
+  if (auto tree = detail::fast_json_tree(text)) return tree;  // nlohmann's very tree, at parser speed
   try {
-    return Json::parse(text);
+    return Json::parse(text);  // a text simdjson refused or left in doubt: nlohmann's message
   } catch (const Json::parse_error& e) {
     std::string what = e.what();
     // nlohmann's message: "[json.exception.parse_error.101] parse error at line 3, column 5: syntax error ..."

@@ -7,6 +7,7 @@
 #include <string>
 #include <string_view>
 
+#include "input/json_tree.hpp"
 #include "sifter/analysis/report_data.hpp"
 #include "sifter/analysis/verify.hpp"
 #include "sifter/analysis/whatif.hpp"
@@ -135,7 +136,22 @@ enum class Outcome { kRejected, kComputed };
 /// runs the what-ifs, as the program does. A refused input (InputError) is a normal outcome;
 /// every other exception escapes: a non-finite number refused by a writer, a broken
 /// invariant, or any other internal error, is a defect.
+/// The loader's fast parse gives nlohmann's very tree or declines: a tree it builds from text
+/// nlohmann refuses, or one that dumps differently (number types and bits included), is a finding.
+inline void check_fast_tree(std::string_view text) {
+  const auto fast = detail::fast_json_tree(text);
+  if (!fast) return;
+  nlohmann::json slow;
+  try {
+    slow = nlohmann::json::parse(text);
+  } catch (const nlohmann::json::exception&) {
+    throw std::logic_error("the fast parse accepted a text nlohmann refuses");
+  }
+  if (fast->dump() != slow.dump()) throw std::logic_error("the fast parse built another tree than nlohmann's");
+}
+
 inline Outcome run_check_path(std::string_view text, const std::string& base_dir) {
+  check_fast_tree(text);
   std::optional<LoadedProject> loaded;
   ProjectResult result;
   try {

@@ -1,0 +1,93 @@
+// The JSON tree of a text through simdjson, with nlohmann's parse as the arbiter of every doubt.
+#include "input/json_tree.hpp"
+
+#include <simdjson.h>
+
+#include <cstdint>
+#include <string>
+
+namespace sifter::detail {
+namespace {
+
+using Json = nlohmann::json;
+
+// A \u escape of a surrogate (U+D800..U+DFFF): "\ud", then 8..f. A backslash escaped by
+// another backslash ("\\ud8") only makes the check cautious, never wrong.
+bool has_surrogate_escape(std::string_view text) {
+  for (std::size_t i = text.find('\\'); i != std::string_view::npos; i = text.find('\\', i + 1)) {
+    if (i + 3 >= text.size() || text[i + 1] != 'u' || (text[i + 2] != 'd' && text[i + 2] != 'D')) continue;
+    const char c = text[i + 3];
+    if ((c >= '8' && c <= '9') || (c >= 'a' && c <= 'f') || (c >= 'A' && c <= 'F')) return true;
+  }
+  return false;
+}
+
+// Builds the nlohmann value of one simdjson element; false when a doubt sends the text back to
+// nlohmann's parser.
+class TreeBuilder {
+ public:
+  bool build(simdjson::dom::element e, Json& out) {
+    using Type = simdjson::dom::element_type;
+    switch (e.type()) {
+      case Type::OBJECT:
+        return object(e.get_object().value_unsafe(), out);
+      case Type::ARRAY:
+        return array(e.get_array().value_unsafe(), out);
+      case Type::STRING:
+        out = std::string(e.get_string().value_unsafe());
+        return true;
+      case Type::INT64:
+        out = static_cast<std::int64_t>(e.get_int64().value_unsafe());
+        return true;
+      case Type::UINT64:
+        out = static_cast<std::uint64_t>(e.get_uint64().value_unsafe());
+        return true;
+      case Type::DOUBLE:
+        out = e.get_double().value_unsafe();
+        return true;
+      case Type::BOOL:
+        out = e.get_bool().value_unsafe();
+        return true;
+      case Type::NULL_VALUE:
+        out = nullptr;
+        return true;
+    }
+    return false;
+  }
+
+ private:
+  bool object(simdjson::dom::object o, Json& out) {
+    out = Json::object();
+    auto& members = out.get_ref<Json::object_t&>();
+    for (const auto field : o) {
+      Json value;
+      if (!build(field.value, value)) return false;
+      members.insert_or_assign(std::string(field.key), std::move(value));
+    }
+    return true;
+  }
+
+  bool array(simdjson::dom::array a, Json& out) {
+    out = Json::array();
+    auto& items = out.get_ref<Json::array_t&>();
+    items.reserve(a.size());
+    for (const auto element : a)
+      if (!build(element, items.emplace_back())) return false;
+    return true;
+  }
+};
+
+}  // namespace
+
+std::optional<Json> fast_json_tree(std::string_view text) {
+  if (has_surrogate_escape(text)) return std::nullopt;
+  simdjson::dom::parser parser;
+  const simdjson::padded_string padded(text);
+  simdjson::dom::element root;
+  if (parser.parse(padded).get(root) != simdjson::SUCCESS) return std::nullopt;
+  Json out;
+  if (!TreeBuilder().build(root, out)) return std::nullopt;
+  return out;
+}
+
+}  // namespace sifter::detail

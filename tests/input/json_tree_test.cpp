@@ -1,0 +1,155 @@
+// Specification of the loader's first parse: simdjson builds the tree, and it is always the tree
+// nlohmann's parser builds; wherever the two could differ it declines and nlohmann decides (and
+// its messages are the ones reported).
+#include "input/json_tree.hpp"
+
+#include <gtest/gtest.h>
+
+#include <filesystem>
+#include <fstream>
+#include <random>
+#include <sstream>
+#include <string>
+
+namespace sifter {
+namespace {
+
+namespace fs = std::filesystem;
+using nlohmann::json;
+
+std::string read_text(const fs::path& p) {
+  std::ifstream in(p, std::ios::binary);
+  std::stringstream s;
+  s << in.rdbuf();
+  return s.str();
+}
+
+// nlohmann's tree of `text`, or nullopt where it refuses the text.
+std::optional<json> nlohmann_tree(const std::string& text) {
+  try {
+    return json::parse(text);
+  } catch (const json::exception&) {
+    return std::nullopt;
+  }
+}
+
+// The property: a tree from the fast parse is nlohmann's, types of numbers included (dump
+// writes 1 for an integer and 1.0 for a double, and the exact bits of each double).
+void expect_same_or_declined(const std::string& text) {
+  const auto fast = detail::fast_json_tree(text);
+  if (!fast) return;
+  const auto slow = nlohmann_tree(text);
+  ASSERT_TRUE(slow) << "simdjson accepted what nlohmann refuses: " << text.substr(0, 200);
+  EXPECT_EQ(fast->dump(), slow->dump()) << text.substr(0, 200);
+}
+
+TEST(FastJsonTree, EveryShippedAndTestProjectGivesNlohmannsTreeAndTheGoodOnesTakeTheFastPath) {
+  std::size_t files = 0, fast = 0;
+  for (const fs::path& root : {fs::path(SIFTER_SOURCE_DIR) / "examples", fs::path(SIFTER_TEST_DATA)}) {
+    for (const auto& entry : fs::recursive_directory_iterator(root)) {
+      if (entry.path().extension() != ".json") continue;
+      const std::string text = read_text(entry.path());
+      SCOPED_TRACE(entry.path().string());
+      expect_same_or_declined(text);
+      ++files;
+      if (detail::fast_json_tree(text)) ++fast;
+      if (entry.path().parent_path().filename() == "good" || root.filename() == "examples") {
+        EXPECT_TRUE(detail::fast_json_tree(text)) << "a valid project should not need the slow parse";
+      }
+    }
+  }
+  EXPECT_GT(files, 100u);
+  EXPECT_GT(fast, files / 2);
+}
+
+TEST(FastJsonTree, NumbersKeepNlohmannsTypesAndValues) {
+  for (const char* number : {"0",
+                             "-0",
+                             "7",
+                             "-7",
+                             "1.0",
+                             "-0.0",
+                             "1E5",
+                             "1e-5",
+                             "2.5e+3",
+                             "0.1",
+                             "1e-400",
+                             "-1e-400",
+                             "4.9e-324",
+                             "2.2250738585072011e-308",
+                             "1.7976931348623157e308",
+                             "9007199254740993",
+                             "9223372036854775807",
+                             "-9223372036854775808",
+                             "9223372036854775808",
+                             "18446744073709551615",
+                             "18446744073709551616",
+                             "-9223372036854775809",
+                             "123456789012345678901234567890",
+                             "0.30000000000000004",
+                             "1e308",
+                             "1e309",
+                             "3.14159265358979323846264338327950288",
+                             "00",
+                             "01",
+                             "1.",
+                             ".5",
+                             "+1",
+                             "-",
+                             "1e",
+                             "1e+",
+                             "0x10",
+                             "NaN",
+                             "Infinity"}) {
+    SCOPED_TRACE(number);
+    expect_same_or_declined(number);
+    expect_same_or_declined(std::string("{\"x\": [") + number + "]}");
+  }
+  EXPECT_EQ(detail::fast_json_tree("-0")->dump(), "0");
+  EXPECT_EQ(detail::fast_json_tree("1E5")->dump(), "100000.0");
+  EXPECT_EQ(detail::fast_json_tree("18446744073709551615")->dump(), "18446744073709551615");
+}
+
+TEST(FastJsonTree, RandomNumbersParseToTheSameBitsAsNlohmanns) {
+  std::mt19937_64 rng(20261202);
+  std::uniform_int_distribution<int> digits(1, 20), exponent(-330, 330), coin(0, 3);
+  for (int i = 0; i < 20000; ++i) {
+    std::string n = coin(rng) == 0 ? "-" : "";
+    const int d = digits(rng);
+    for (int k = 0; k < d; ++k) n += static_cast<char>('0' + (k == 0 ? 1 + rng() % 9 : rng() % 10));
+    if (coin(rng) != 0) n += "." + std::to_string(rng() % 1000000);
+    if (coin(rng) == 1) n += "e" + std::to_string(exponent(rng));
+    expect_same_or_declined("[" + n + "]");
+  }
+}
+
+TEST(FastJsonTree, StringsAndKeysDecodeAsNlohmannDecodesThem) {
+  for (const char* text : {R"({"b\u0065ta": "5%"})",
+                           R"(["\u00e9\u20ac", "caf\u00e9", "tab\tescaped", "quote\"", "slash\/", "\u0001\u001f"])",
+                           "[\"caf\xc3\xa9\"]", R"({"a": {"b": [true, false, null]}})", R"({"a": 1, "a": 2})", R"([])",
+                           R"({})", R"("just a string")", "  [1]  "}) {
+    SCOPED_TRACE(text);
+    EXPECT_TRUE(detail::fast_json_tree(text)) << "valid text takes the fast path";
+    expect_same_or_declined(text);
+  }
+  EXPECT_EQ(detail::fast_json_tree(R"({"a": 1, "a": 2})")->at("a"), 2) << "the last of a repeated key, as nlohmann";
+}
+
+TEST(FastJsonTree, WhereTheParsersCouldDifferItDeclinesAndNlohmannDecides) {
+  // Surrogate escapes, paired or lone, go to nlohmann.
+  for (const char* text : {R"(["\ud83d\ude00"])", R"(["\ud800"])", R"(["\udc00x"])", R"({"\uDBFF": 1})"})
+    EXPECT_FALSE(detail::fast_json_tree(text)) << text;
+  // A byte-order mark (the loader refuses it before any parse).
+  EXPECT_FALSE(detail::fast_json_tree("\xef\xbb\xbf{}"));
+  // Texts both refuse: simdjson declines, so that the message is nlohmann's.
+  for (const char* text :
+       {"", " ", "{", "[1,]", "{\"a\":1,}", "[1 2]", "{} x", "nul", "[\"\xff\"]", "[\"raw\ttab\"]", "[\"raw\nline\"]",
+        "[\"raw\x01\"]", "{\"raw\rkey\": 1}", "{\"a\" 1}", "[01]", "// comment\n{}"}) {
+    SCOPED_TRACE(text);
+    EXPECT_FALSE(detail::fast_json_tree(text));
+    EXPECT_FALSE(nlohmann_tree(text));
+  }
+}
+
+}  // namespace
+}  // namespace sifter
