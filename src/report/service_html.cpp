@@ -37,14 +37,21 @@ std::string models_table(const ServiceResult& r) {
     rows.push_back({m.model, std::to_string(m.devices.size()), std::to_string(e.failures),
                     plain(e.service_hours / kHoursPerYear), sci_or_dash(e.observed_per_hour),
                     sci_or_dash(e.ci90_low_per_hour) + " .. " + sci_or_dash(e.ci90_high_per_hour),
-                    sci(e.design_per_hour), sci(e.posterior_mean_per_hour), sci(e.posterior_upper90_per_hour),
-                    exceeds});
+                    sci(e.design_per_hour), sci(e.posterior_mean_per_hour),
+                    sci(e.posterior_upper90_per_hour) + (e.posterior_bound_below_mean ? " *" : ""), exceeds});
   }
+  std::string skewed;
+  for (const auto& m : r.models)
+    if (!m.devices.empty() && m.estimate.posterior_bound_below_mean) skewed += (skewed.empty() ? "" : ", ") + m.model;
   return table("Observed lambda_DU per hour by component model, devices pooled; posterior with a prior of " +
                    format_duration(Duration{r.prior_hours}) + " at the design rate",
                {"model", "devices", "failures", "device-years", "observed", "90% interval", "design", "posterior mean",
                 "posterior 90%", "exceeds design"},
-               rows);
+               rows) +
+         (skewed.empty()
+              ? ""
+              : "<p class=\"facts\">* " + esc(skewed) + ": the posterior 90% lies below the posterior mean. " +
+                    esc(kSkewedPosteriorNote) + "</p>\n");
 }
 
 std::string sifs_table(const ServiceResult& r) {

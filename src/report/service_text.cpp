@@ -17,6 +17,15 @@ std::string exceeds_text(const RateEstimate& e) {
   return e.exceeds_design_at_90 ? "90%" : e.exceeds_design_at_70 ? "70%" : "-";
 }
 
+// Said under the table when a model's upper 90 % lies below its mean (see RateEstimate).
+std::string skewed_posterior_note(const ServiceResult& r) {
+  std::string models;
+  for (const auto& m : r.models)
+    if (!m.devices.empty() && m.estimate.posterior_bound_below_mean) models += (models.empty() ? "" : ", ") + m.model;
+  if (models.empty()) return "";
+  return wrap("* " + models + ": the upper 90% lies below the posterior mean. " + kSkewedPosteriorNote, 78, "  ");
+}
+
 std::string models_text(const ServiceResult& r) {
   TextTable observed({"model", "dev", "fail", "dev-yr", "observed", "90% low", "90% high"},
                      {false, true, true, true, true, true, true});
@@ -28,12 +37,13 @@ std::string models_text(const ServiceResult& r) {
     observed.add_row({m.model, std::to_string(m.devices.size()), std::to_string(e.failures),
                       plain(e.service_hours / kHoursPerYear), sci_or_dash(e.observed_per_hour),
                       sci_or_dash(e.ci90_low_per_hour), sci_or_dash(e.ci90_high_per_hour)});
-    design.add_row({m.model, sci(e.design_per_hour), sci(e.posterior_mean_per_hour), sci(e.posterior_upper90_per_hour),
+    design.add_row({m.model, sci(e.design_per_hour), sci(e.posterior_mean_per_hour),
+                    sci(e.posterior_upper90_per_hour) + (e.posterior_bound_below_mean ? "*" : ""),
                     percent(e.probability_above_design), exceeds_text(e)});
   }
   return "Observed lambda_DU per hour by component model (devices in service pooled)\n" + observed.render() +
          "\nAgainst the design rate, per hour (prior: " + plain(r.prior_hours) + " h of service at the design rate)\n" +
-         design.render();
+         design.render() + skewed_posterior_note(r);
 }
 
 std::string sifs_text(const ServiceResult& r) {

@@ -10,7 +10,9 @@
 #include <sstream>
 
 #include "sifter/engines/lopa.hpp"
+#include "sifter/model/format.hpp"
 #include "sifter/report/service.hpp"
+#include "sifter/report/text_table.hpp"
 
 namespace sifter {
 namespace {
@@ -183,6 +185,32 @@ TEST(Service, JsonCarriesTheContractsKeys) {
     EXPECT_TRUE(j["sifs"][0].contains(k)) << k;
   for (const char* k : {"component", "last_test", "interval_h", "next_due", "overdue"})
     EXPECT_TRUE(j["schedule"][0].contains(k)) << k;
+}
+
+// A model with a very low design rate and no failures has a posterior of tiny shape, whose
+// upper 90 % lies below its mean: right (Boost.Math's quantile, tests/engines), and read by a
+// reviewer as an error, so every writer marks it and says why (the text within 80 columns).
+// In the example, LS-40 and the interposing relay (2e-8/h, no failure) weigh 0.02 failures.
+TEST(Service, AnUpperBoundBelowThePosteriorMeanIsMarkedAndExplainedInEveryWriter) {
+  const ServiceResult& r = example().result;
+  const std::string text = report::render_service(r);
+  const nlohmann::json j = report::service_json(r);
+  std::string flagged;
+  for (std::size_t i = 0; i < r.models.size(); ++i) {
+    const RateEstimate& e = r.models[i].estimate;
+    if (r.models[i].devices.empty()) continue;
+    EXPECT_EQ(e.posterior_bound_below_mean, e.posterior_upper90_per_hour < e.posterior_mean_per_hour);
+    EXPECT_EQ(j["models"][i]["posterior_upper90_below_mean"], e.posterior_bound_below_mean);
+    EXPECT_EQ(text.find(sci(e.posterior_upper90_per_hour) + "*") != std::string::npos, e.posterior_bound_below_mean)
+        << r.models[i].model;
+    if (e.posterior_bound_below_mean) flagged += (flagged.empty() ? "" : ", ") + r.models[i].model;
+  }
+  EXPECT_EQ(flagged, "LS-40, interposing-relay");
+  EXPECT_NE(text.find("* " + flagged + ": the upper 90% lies below the posterior mean."), std::string::npos) << text;
+  std::istringstream lines(text);
+  for (std::string line; std::getline(lines, line);) EXPECT_LE(report::display_width(line), 80u) << line;
+  EXPECT_NE(report::service_html(r).find(flagged + ": the posterior 90% lies below the posterior mean."),
+            std::string::npos);
 }
 
 // RFC 5545 3.1: at most 75 octets a line; a continuation starts with one space.

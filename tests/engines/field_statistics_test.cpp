@@ -3,6 +3,7 @@
 
 #include <gtest/gtest.h>
 
+#include <boost/math/distributions/gamma.hpp>
 #include <boost/math/distributions/poisson.hpp>
 #include <cmath>
 
@@ -65,6 +66,24 @@ TEST(FieldStatistics, WithoutServiceTimeThePosteriorIsThePrior) {
   EXPECT_FALSE(e.observed_per_hour);
   EXPECT_FALSE(e.ci90_high_per_hour);
   EXPECT_FALSE(e.exceeds_design_at_70);
+}
+
+// A gamma of shape far below one (a design rate of 5e-9/h weighed as 1e6 h is worth 0.005
+// failures) has its 90 % quantile below its mean: right, and said, since a reviewer reads it
+// as an error. Shape 4 (the hand-worked case above) is the ordinary case.
+TEST(FieldStatistics, AnUpperBoundBelowTheMeanIsFlaggedForTheWriters) {
+  const RateEstimate tiny = estimate_rate(0, 8.76e4, 5.0e-9, 1.0e6);
+  EXPECT_LT(tiny.posterior.shape, 0.01);
+  EXPECT_LT(tiny.posterior_upper90_per_hour, tiny.posterior_mean_per_hour);
+  EXPECT_TRUE(tiny.posterior_bound_below_mean);
+  // Boost.Math's gamma quantile agrees that 90 % of the weight lies below the bound.
+  expect_rel(
+      boost::math::cdf(boost::math::gamma_distribution<double>(tiny.posterior.shape, 1.0 / tiny.posterior.rate_hours),
+                       tiny.posterior_upper90_per_hour),
+      0.90, 1e-9);
+  EXPECT_FALSE(estimate_rate(3, 2.0e6, 1.0e-6, 1.0e6).posterior_bound_below_mean);
+  EXPECT_FALSE(estimate_rate(0, 0.0, 2.5e-7, 1.0e6).posterior_bound_below_mean)
+      << "shape 0.25 still has its bound above";
 }
 
 // Shape 1 is the exponential: P(rate > design) = exp(-b x design) = exp(-1) for the prior alone.

@@ -12,6 +12,13 @@ namespace sifter::report {
 /// The format name of the service JSON.
 inline constexpr const char* kServiceFormat = "sifter-service/1";
 
+/// Said of a model whose posterior upper 90 % lies below its mean (RateEstimate), after the
+/// words naming it.
+inline constexpr const char* kSkewedPosteriorNote =
+    "The prior and the records weigh less than one failure at the design rate together, so the "
+    "posterior puts most of its weight near zero and a long tail above it: its upper 90% says "
+    "little. Read P(>design) and the observed 90% interval instead.";
+
 /// The assessment for a person at an 80-column terminal, with the caution.
 std::string render_service(const ServiceResult& result);
 /// `sifter-service/1`: models[], sifs[], schedule[] (and components[]); every number finite.

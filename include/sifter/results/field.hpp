@@ -34,6 +34,10 @@ struct RateEstimate {
   double posterior_mean_per_hour = 0.0;
   double posterior_upper90_per_hour = 0.0;
   double probability_above_design = 0.0;  ///< P(rate > design | data) under the posterior
+  /// The posterior's 90 % bound lies below its mean: a gamma whose shape (prior and records
+  /// together, counted in failures) is far below one puts most of its weight near zero and a
+  /// long tail above, so the bound, right as it is, says little; the writers say so.
+  bool posterior_bound_below_mean = false;
   /// The classical one-sided lower bound at 70 % (90 %) confidence lies above the design rate;
   /// the same as P(N >= n | design rate) <= 30 % (10 %).
   bool exceeds_design_at_70 = false;
