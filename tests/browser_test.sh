@@ -4,9 +4,11 @@
 # number of pages. Exit 77 (ctest SKIP_RETURN_CODE) where chromium is absent outside CI; in CI
 # (CI set and not "false" or "0") a missing chromium is a failure.
 #
-# usage: browser_test.sh SIFTER PROJECT WORKDIR MIN_PAGES MAX_PAGES [report|srs]
+# usage: browser_test.sh SIFTER PROJECT WORKDIR MIN_PAGES MAX_PAGES [report|srs] [RECORDS]
+# With RECORDS the report holds the in-service section (as of 2026-06-01), whose tables are
+# measured with the summary's.
 set -eu
-sifter=$1 project=$2 work=$3 min_pages=$4 max_pages=$5 document=${6:-report}
+sifter=$1 project=$2 work=$3 min_pages=$4 max_pages=$5 document=${6:-report} records=${7:-}
 
 if ! command -v chromium >/dev/null 2>&1; then
   case "${CI:-}" in
@@ -24,7 +26,11 @@ here=$(cd "$(dirname "$0")" && pwd)
 rm -rf "$work"
 mkdir -p "$work"
 work=$(cd "$work" && pwd)
-"$sifter" "$document" "$project" -o "$work/report.html" || [ $? -eq 1 ]  # 1: a SIF falls short, the report is written
+if [ -n "$records" ]; then
+  "$sifter" "$document" "$project" --records "$records" --as-of 2026-06-01 -o "$work/report.html" || [ $? -eq 1 ]
+else
+  "$sifter" "$document" "$project" -o "$work/report.html" || [ $? -eq 1 ]  # 1: a SIF falls short, the report is written
+fi
 
 # A fresh profile, nothing fetched or synced, no GPU; --no-sandbox because CI runs as root.
 render() {
@@ -48,12 +54,14 @@ python3 "$here/svg_text_check.py" timeout 120 chromium --headless --no-sandbox -
   --virtual-time-budget=5000 -- "$work/report.html" "$work" || { rm -rf "$profile"; exit 1; }
 rm -rf "$profile"
 
-# The summary's tables fit their column on screen and in print (the report only: the SRS has no summary).
+# The summary's and the service section's tables fit their column on screen and in print (the
+# report only: the SRS has neither).
 if [ "$document" = report ]; then
   profile=$(mktemp -d)
   python3 "$here/table_width_check.py" timeout 120 chromium --headless --no-sandbox --disable-gpu --no-first-run \
     --disable-background-networking --disable-component-update --disable-sync --hide-scrollbars \
-    --user-data-dir="$profile" -- "$work/report.html" "$work" || { rm -rf "$profile"; exit 1; }
+    --user-data-dir="$profile" -- "$work/report.html" "$work" '#summary table, #service table' ||
+    { rm -rf "$profile"; exit 1; }
   rm -rf "$profile"
 fi
 

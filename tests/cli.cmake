@@ -22,11 +22,14 @@ set_tests_properties(example_unit40_diff_worsens PROPERTIES WILL_FAIL TRUE)
 add_test(NAME example_unit40_report
          COMMAND sifter report ${PROJECT_SOURCE_DIR}/examples/unit40.json -o ${CMAKE_CURRENT_BINARY_DIR}/unit40.html)
 
-# The example's report rendered in a real browser (headless chromium): a screenshot that shows a
-# page and an A4 print of 8 to 30 pages. Skipped (77) only where chromium is absent outside CI.
+# The example's report with its in-service records rendered in a real browser (headless
+# chromium): a screenshot that shows a page and an A4 print of 8 to 30 pages, the tables of the
+# summary and of the service section within their column. Skipped (77) only where chromium is
+# absent outside CI.
 add_test(NAME browser_renders_the_example_report
          COMMAND sh ${CMAKE_CURRENT_SOURCE_DIR}/browser_test.sh $<TARGET_FILE:sifter>
-                 ${PROJECT_SOURCE_DIR}/examples/unit40.json ${CMAKE_CURRENT_BINARY_DIR}/browser 8 30)
+                 ${PROJECT_SOURCE_DIR}/examples/unit40.json ${CMAKE_CURRENT_BINARY_DIR}/browser 8 30 report
+                 ${PROJECT_SOURCE_DIR}/examples/records/unit40.json)
 set_tests_properties(browser_renders_the_example_report PROPERTIES LABELS browser SKIP_RETURN_CODE 77 TIMEOUT 300)
 
 # The deliverables example: requirements, prior-use devices, data sources and document control.

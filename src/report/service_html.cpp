@@ -13,49 +13,65 @@ std::string verdict(const std::optional<bool>& meets) {
   return !meets ? "not judged" : *meets ? "meets" : "falls short";
 }
 
-// A table: header cells, then rows; a cell starting with "!" is drawn as bad.
+// A table: header cells, then rows; a cell starting with "!" is drawn as bad. Columns marked in
+// `numeric` are right-aligned and never break inside a number ("2.00e-08" would break at "-").
 std::string table(const std::string& caption, const std::vector<std::string>& header,
-                  const std::vector<std::vector<std::string>>& rows) {
+                  const std::vector<std::vector<std::string>>& rows, const std::vector<bool>& numeric = {}) {
+  auto is_numeric = [&](std::size_t column) { return column < numeric.size() && numeric[column]; };
   std::string out = "<table>\n<caption>" + esc(caption) + "</caption>\n<thead><tr>";
-  for (const auto& h : header) out += "<th>" + esc(h) + "</th>";
+  for (std::size_t i = 0; i < header.size(); ++i)
+    out += (is_numeric(i) ? "<th class=\"num\">" : "<th>") + esc(header[i]) + "</th>";
   out += "</tr></thead>\n<tbody>\n";
   for (const auto& row : rows) {
     out += "<tr>";
-    for (const auto& c : row)
-      out += !c.empty() && c[0] == '!' ? "<td class=\"bad\">" + esc(c.substr(1)) + "</td>" : "<td>" + esc(c) + "</td>";
+    for (std::size_t i = 0; i < row.size(); ++i) {
+      const std::string& c = row[i];
+      if (!c.empty() && c[0] == '!')
+        out += "<td class=\"bad\">" + esc(c.substr(1)) + "</td>";
+      else
+        out += (is_numeric(i) ? "<td class=\"num\">" : "<td>") + esc(c) + "</td>";
+    }
     out += "</tr>\n";
   }
   return out + "</tbody>\n</table>\n";
 }
 
+// Two tables, as in the terminal: what was observed, then the rates against the design; each
+// fits the A4 text column (tests/browser_test.sh measures them).
 std::string models_table(const ServiceResult& r) {
-  std::vector<std::vector<std::string>> rows;
+  std::vector<std::vector<std::string>> observed, design;
+  std::string skewed;
   for (const auto& m : r.models) {
     if (m.devices.empty()) continue;
     const RateEstimate& e = m.estimate;
-    const std::string exceeds = e.exceeds_design_at_90 ? "!at 90%" : e.exceeds_design_at_70 ? "!at 70%" : "no";
-    rows.push_back({m.model, std::to_string(m.devices.size()), std::to_string(e.failures),
-                    plain(e.service_hours / kHoursPerYear), sci_or_dash(e.observed_per_hour),
-                    sci_or_dash(e.ci90_low_per_hour) + " .. " + sci_or_dash(e.ci90_high_per_hour),
-                    sci(e.design_per_hour), sci(e.posterior_mean_per_hour),
-                    sci(e.posterior_upper90_per_hour) + (e.posterior_bound_below_mean ? " *" : ""), exceeds});
+    observed.push_back({m.model, std::to_string(m.devices.size()), std::to_string(e.failures),
+                        plain(e.service_hours / kHoursPerYear), sci_or_dash(e.observed_per_hour),
+                        sci_or_dash(e.ci90_low_per_hour), sci_or_dash(e.ci90_high_per_hour)});
+    design.push_back({m.model, sci(e.design_per_hour), sci(e.posterior_mean_per_hour),
+                      sci(e.posterior_upper90_per_hour) + (e.posterior_bound_below_mean ? "*" : ""),
+                      percent(e.probability_above_design),
+                      e.exceeds_design_at_90   ? "!at 90%"
+                      : e.exceeds_design_at_70 ? "!at 70%"
+                                               : "no"});
+    if (e.posterior_bound_below_mean) skewed += (skewed.empty() ? "" : ", ") + m.model;
   }
-  std::string skewed;
-  for (const auto& m : r.models)
-    if (!m.devices.empty() && m.estimate.posterior_bound_below_mean) skewed += (skewed.empty() ? "" : ", ") + m.model;
-  return table("Observed lambda_DU per hour by component model, devices pooled; posterior with a prior of " +
+  return table("Observed lambda_DU per hour by component model, devices in service pooled",
+               {"model", "devices", "failures", "device-years", "observed", "90% low", "90% high"}, observed,
+               {false, true, true, true, true, true, true}) +
+         table("Against the design rate, per hour; posterior with a prior of " +
                    format_duration(Duration{r.prior_hours}) + " at the design rate",
-               {"model", "devices", "failures", "device-years", "observed", "90% interval", "design", "posterior mean",
-                "posterior 90%", "exceeds design"},
-               rows) +
+               {"model", "design", "posterior mean", "posterior 90%", "P(>design)", "exceeds design"}, design,
+               {false, true, true, true, true, false}) +
          (skewed.empty()
               ? ""
               : "<p class=\"facts\">* " + esc(skewed) + ": the posterior 90% lies below the posterior mean. " +
                     esc(kSkewedPosteriorNote) + "</p>\n");
 }
 
+// The SIFs' verdicts with the service rates, then their counts and due dates: two tables, so
+// that each fits the A4 text column.
 std::string sifs_table(const ServiceResult& r) {
-  std::vector<std::vector<std::string>> rows;
+  std::vector<std::vector<std::string>> verdicts, counts;
   for (const auto& s : r.sifs) {
     std::string restore = "-";
     if (s.restore && s.restore->outcome == IntervalOutcome::kFound)
@@ -66,18 +82,18 @@ std::string sifs_table(const ServiceResult& r) {
       std::string t = std::to_string(c.observed) + (c.expected ? " (expected " + plain(*c.expected) + ")" : "");
       return c.flagged ? "!" + t : t;
     };
-    rows.push_back({s.id, sci_or_dash(s.measure_design), sci_or_dash(s.measure_judged),
-                    (s.meets_judged == false ? "!" : "") + verdict(s.meets_judged), s.verdict_changed ? "!yes" : "no",
-                    restore, count(s.demands), count(s.spurious_trips),
-                    s.earliest_due ? (s.any_overdue ? "!" : "") + to_iso(*s.earliest_due) : "-"});
+    verdicts.push_back({s.id, sci_or_dash(s.measure_design), sci_or_dash(s.measure_judged),
+                        (s.meets_judged == false ? "!" : "") + verdict(s.meets_judged),
+                        s.verdict_changed ? "!yes" : "no", restore});
+    counts.push_back({s.id, count(s.demands), count(s.spurious_trips),
+                      s.earliest_due ? (s.any_overdue ? "!" : "") + to_iso(*s.earliest_due) : "-"});
   }
-  return table(
-      "SIFs re-verified with the posterior rates (the engine and judge of check); counts against the "
-      "predicted rates, flagged below " +
-          percent(r.flag_below),
-      {"SIF", "PFDavg / PFH design", "with service", "verdict", "changed", "restored by", "demands", "spurious trips",
-       "earliest due"},
-      rows);
+  return table("SIFs re-verified with the posterior rates (the engine and judge of check)",
+               {"SIF", "PFDavg / PFH design", "with service", "verdict", "changed", "restored by"}, verdicts,
+               {false, true, true, false, false, false}) +
+         table("Demands and spurious trips against the predicted rates, flagged below " + percent(r.flag_below) +
+                   "; the earliest proof test due",
+               {"SIF", "demands", "spurious trips", "earliest due"}, counts);
 }
 
 std::string schedule_table(const ServiceResult& r) {
