@@ -6,6 +6,7 @@
 #include <sstream>
 
 #include "input/json_reader.hpp"
+#include "input/json_tree.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/model/records.hpp"
 
@@ -195,8 +196,9 @@ std::optional<Json> parse_json(detail::LoadContext& ctx) {
   const auto structure = scan_json_structure(text);
   for (const auto& p : structure) report(p.position, p.pointer, p.expected, p.found, p.hint);
   if (!structure.empty()) return std::nullopt;
+  if (auto tree = detail::fast_json_tree(text)) return tree;  // nlohmann's very tree, at parser speed
   try {
-    return Json::parse(text);
+    return Json::parse(text);  // a text simdjson refused or left in doubt: nlohmann's message
   } catch (const Json::exception& e) {
     const std::string what = e.what();
     const auto colon = what.find(": ", what.find("error"));
