@@ -22,6 +22,16 @@ bool has_surrogate_escape(std::string_view text) {
   return false;
 }
 
+// An integer written "-0": nlohmann keeps it signed, simdjson's tree holds a plain 0 and no
+// longer tells. Seen anywhere (inside a string too) it only makes the parse cautious.
+bool has_negative_zero_integer(std::string_view text) {
+  for (std::size_t i = text.find("-0"); i != std::string_view::npos; i = text.find("-0", i + 2)) {
+    const char next = i + 2 < text.size() ? text[i + 2] : '\0';
+    if (next != '.' && next != 'e' && next != 'E' && !(next >= '0' && next <= '9')) return true;
+  }
+  return false;
+}
+
 // Builds the nlohmann value of one simdjson element; false when a doubt sends the text back to
 // nlohmann's parser.
 class TreeBuilder {
@@ -36,9 +46,14 @@ class TreeBuilder {
       case Type::STRING:
         out = std::string(e.get_string().value_unsafe());
         return true;
-      case Type::INT64:
-        out = static_cast<std::int64_t>(e.get_int64().value_unsafe());
+      case Type::INT64: {  // nlohmann keeps a non-negative integer unsigned, a negative one signed
+        const std::int64_t v = e.get_int64().value_unsafe();
+        if (v >= 0)
+          out = static_cast<std::uint64_t>(v);
+        else
+          out = v;
         return true;
+      }
       case Type::UINT64:
         out = static_cast<std::uint64_t>(e.get_uint64().value_unsafe());
         return true;
@@ -80,7 +95,7 @@ class TreeBuilder {
 }  // namespace
 
 std::optional<Json> fast_json_tree(std::string_view text) {
-  if (has_surrogate_escape(text)) return std::nullopt;
+  if (has_surrogate_escape(text) || has_negative_zero_integer(text)) return std::nullopt;
   simdjson::dom::parser parser;
   const simdjson::padded_string padded(text);
   simdjson::dom::element root;

@@ -11,10 +11,11 @@ namespace sifter::detail {
 /// parser made for speed: about ten times faster on a register). Returns nullopt wherever the
 /// two could differ, and then the caller parses with nlohmann, whose messages the loader
 /// reports: any text simdjson refuses (among them a raw control character in a string, which
-/// both refuse), and a string with a \u escape of a surrogate (the two parsers could treat a
-/// lone one differently). Integers
-/// keep nlohmann's types (signed when they fit, else unsigned; a larger integer simdjson
-/// refuses); other numbers are the correctly rounded double of their text, as both parsers
+/// both refuse), a string with a \u escape of a surrogate (the two parsers could treat a lone
+/// one differently), and an integer written -0 (signed in nlohmann's tree, a plain 0 in
+/// simdjson's). Integers keep nlohmann's types (unsigned when not negative, signed
+/// when negative; one beyond 64 bits simdjson refuses); other numbers are the correctly rounded
+/// double of their text, as both parsers
 /// give. A key given twice keeps its last value, as nlohmann keeps it (the loader refuses such
 /// text before parsing).
 std::optional<nlohmann::json> fast_json_tree(std::string_view text);

@@ -33,14 +33,30 @@ std::optional<json> nlohmann_tree(const std::string& text) {
   }
 }
 
-// The property: a tree from the fast parse is nlohmann's, types of numbers included (dump
-// writes 1 for an integer and 1.0 for a double, and the exact bits of each double).
+// The same value types at every place of two trees (dump alone writes 7 for a signed and an
+// unsigned integer alike).
+bool same_types(const json& a, const json& b) {
+  if (a.type() != b.type() || a.size() != b.size()) return false;
+  if (a.is_object()) {
+    for (auto it = a.begin(); it != a.end(); ++it)
+      if (!b.contains(it.key()) || !same_types(it.value(), b.at(it.key()))) return false;
+  } else if (a.is_array()) {
+    for (std::size_t i = 0; i < a.size(); ++i)
+      if (!same_types(a[i], b[i])) return false;
+  }
+  return true;
+}
+
+// The property: a tree from the fast parse is nlohmann's: the same value type at every place
+// (signed, unsigned or double) and the same text (dump writes 1.0 for a double and the exact
+// bits of each double).
 void expect_same_or_declined(const std::string& text) {
   const auto fast = detail::fast_json_tree(text);
   if (!fast) return;
   const auto slow = nlohmann_tree(text);
   ASSERT_TRUE(slow) << "simdjson accepted what nlohmann refuses: " << text.substr(0, 200);
   EXPECT_EQ(fast->dump(), slow->dump()) << text.substr(0, 200);
+  EXPECT_TRUE(same_types(*fast, *slow)) << "another number type: " << text.substr(0, 200);
 }
 
 TEST(FastJsonTree, EveryShippedAndTestProjectGivesNlohmannsTreeAndTheGoodOnesTakeTheFastPath) {
@@ -105,9 +121,12 @@ TEST(FastJsonTree, NumbersKeepNlohmannsTypesAndValues) {
     expect_same_or_declined(number);
     expect_same_or_declined(std::string("{\"x\": [") + number + "]}");
   }
-  EXPECT_EQ(detail::fast_json_tree("-0")->dump(), "0");
+  EXPECT_FALSE(detail::fast_json_tree("[-0]")) << "an integer -0 is nlohmann's to type";
+  EXPECT_TRUE(detail::fast_json_tree("[-0.0, -0e1, 10, -10]")) << "other numbers near it stay fast";
   EXPECT_EQ(detail::fast_json_tree("1E5")->dump(), "100000.0");
   EXPECT_EQ(detail::fast_json_tree("18446744073709551615")->dump(), "18446744073709551615");
+  EXPECT_TRUE(detail::fast_json_tree("7")->is_number_unsigned()) << "as nlohmann keeps it";
+  EXPECT_TRUE(detail::fast_json_tree("-7")->is_number_integer() && !detail::fast_json_tree("-7")->is_number_unsigned());
 }
 
 TEST(FastJsonTree, RandomNumbersParseToTheSameBitsAsNlohmanns) {
