@@ -54,6 +54,11 @@ python3 "$here/svg_text_check.py" timeout 120 chromium --headless --no-sandbox -
   --virtual-time-budget=5000 -- "$work/report.html" "$work" || { rm -rf "$profile"; exit 1; }
 rm -rf "$profile"
 
+if [ -n "$records" ] && ! grep -q 'id="service"' "$work/report.html"; then
+  echo "browser test FAILED: the report has no service section, though records were given" >&2
+  exit 1
+fi
+
 # The summary's and the service section's tables fit their column on screen and in print (the
 # report only: the SRS has neither).
 if [ "$document" = report ]; then

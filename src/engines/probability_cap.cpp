@@ -3,6 +3,7 @@
 
 #include <algorithm>
 #include <cstdio>
+#include <limits>
 
 #include "sifter/model/format.hpp"
 
@@ -48,18 +49,27 @@ void cap_probabilities(const Sif& sif, SifResult& r, std::vector<Warning>& warni
   if (r.pfd_avg) r.rrf = *r.pfd_avg > 0.0 ? std::optional<double>(1.0 / *r.pfd_avg) : std::nullopt;
   for (auto& s : r.subsystems)
     for (auto* p : {&s.pfd_avg, &s.pfd_avg_simplified, &s.pfd_avg_exact}) cap(*p, lowest);
+  if (r.uncertainty) {  // percentiles of a PFD (low demand) or a PFH: never below zero, a PFD at most 1
+    const double top = r.demand_mode == DemandMode::kLow ? 1.0 : std::numeric_limits<double>::max();
+    for (double* v : {&r.uncertainty->p50, &r.uncertainty->mean, &r.uncertainty->p05, &r.uncertainty->p95}) {
+      lowest = std::min(lowest, *v);
+      *v = std::clamp(*v, 0.0, top);
+    }
+  }
   if (lowest < kRoundingBelowZero) {
-    const std::string m = "a PFDavg of " + figure(lowest) +
-                          " came out of the engines, below zero, which no probability is and no rounding explains; "
-                          "shown as 0. Do not rely on this SIF's figures: report the project file as a defect";
+    // No rounding explains it: a defect of sifter. The SIF is judged as falling short and its
+    // scenarios credit it nothing, so that no verdict rests on the figure.
+    r.meets_target = false;
+    r.sil_probability = 0;
+    if (r.credit_pfd) r.credit_pfd = 1.0;
+    r.rrf = std::nullopt;
+    const std::string m =
+        "a probability of " + figure(lowest) +
+        " came out of the engines, below zero, which no probability is and no rounding explains; shown as 0, the "
+        "SIF judged to fall short and credited nothing in its scenarios. This is a defect of sifter: report it "
+        "with the project file";
     r.assumptions.push_back(m);
     warnings.push_back({sif.pointer, m});
-  }
-  if (r.uncertainty && r.demand_mode == DemandMode::kLow) {
-    r.uncertainty->p50 = std::clamp(r.uncertainty->p50, 0.0, 1.0);
-    r.uncertainty->mean = std::clamp(r.uncertainty->mean, 0.0, 1.0);
-    r.uncertainty->p05 = std::clamp(r.uncertainty->p05, 0.0, 1.0);
-    r.uncertainty->p95 = std::clamp(r.uncertainty->p95, 0.0, 1.0);
   }
 }
 

@@ -34,12 +34,18 @@ TEST(ProbabilityCap, RoundingJustBelowZeroIsShownAsZeroWithoutAWord) {
   EXPECT_TRUE(r.assumptions.empty());
 }
 
-TEST(ProbabilityCap, AFigureFarBelowZeroIsShownAsZeroAndWarnedInTheSifsBlock) {
+TEST(ProbabilityCap, AFigureFarBelowZeroIsADefectWarnedInTheSifsBlockAndNeverAPass) {
   SifResult r = a_result(1e-3);
+  r.meets_target = true;  // as the judge saw the figures before the cap
+  r.sil_probability = 2;
+  r.credit_pfd = 1e-3;
   r.subsystems[0].pfd_avg_exact = -2e-4;  // no rounding gives this: a defect somewhere upstream
   std::vector<Warning> warnings;
   cap_probabilities(a_sif(), r, warnings);
   EXPECT_EQ(*r.subsystems[0].pfd_avg_exact, 0.0);
+  EXPECT_EQ(r.meets_target, false) << "no verdict rests on a defective figure";
+  EXPECT_EQ(r.sil_probability, 0);
+  EXPECT_EQ(*r.credit_pfd, 1.0) << "its scenarios credit it nothing";
   ASSERT_EQ(warnings.size(), 1u);
   EXPECT_EQ(warnings[0].where, "/sifs/0");
   EXPECT_NE(warnings[0].message.find("below zero"), std::string::npos) << warnings[0].message;
@@ -56,6 +62,28 @@ TEST(ProbabilityCap, ASumAboveOneIsShownAsOneWithItsReason) {
   EXPECT_EQ(*r.rrf, 1.0);
   ASSERT_EQ(warnings.size(), 1u);
   EXPECT_NE(warnings[0].message.find("outside the validity"), std::string::npos);
+}
+
+TEST(ProbabilityCap, RoundingLeavesAPassingVerdictAlone) {
+  SifResult r = a_result(-1.5e-16);
+  r.meets_target = true;
+  std::vector<Warning> warnings;
+  cap_probabilities(a_sif(), r, warnings);
+  EXPECT_EQ(r.meets_target, true);
+}
+
+TEST(ProbabilityCap, APfhPercentileBelowZeroIsLiftedAndAboveOneKept) {
+  SifResult r = a_result(0.0);
+  r.pfd_avg.reset();
+  r.demand_mode = DemandMode::kHigh;
+  r.uncertainty.emplace();
+  r.uncertainty->p05 = -1e-20;
+  r.uncertainty->p95 = 3.0;  // a rate per hour, not a probability
+  std::vector<Warning> warnings;
+  cap_probabilities(a_sif(), r, warnings);
+  EXPECT_EQ(r.uncertainty->p05, 0.0);
+  EXPECT_EQ(r.uncertainty->p95, 3.0);
+  EXPECT_TRUE(warnings.empty());
 }
 
 TEST(ProbabilityCap, UncertaintyPercentilesStayInsideZeroToOne) {

@@ -15,7 +15,7 @@ inline constexpr const char* kServiceFormat = "sifter-service/1";
 /// Said of a model whose posterior upper 90 % lies below its mean (RateEstimate), after the
 /// words naming it.
 inline constexpr const char* kSkewedPosteriorNote =
-    "The prior and the records weigh less than one failure at the design rate together, so the "
+    "The prior and the records together weigh a small fraction of one failure at the design rate, so the "
     "posterior puts most of its weight near zero and a long tail above it: its upper 90% says "
     "little. Read P(>design) and the observed 90% interval instead.";
 

@@ -28,6 +28,7 @@ struct SrsBlock {
 class ComponentRows {
  public:
   explicit ComponentRows(const std::vector<ComponentDataRow>& rows);
+  explicit ComponentRows(std::vector<ComponentDataRow>&&) = delete;  ///< it keeps views into the rows
   /// The row of `id`, nullptr if none.
   [[nodiscard]] const ComponentDataRow* find(const std::string& id) const;
 
