@@ -117,6 +117,7 @@ std::optional<bool> sif_verdict(const SifTarget& target, std::optional<double> f
     verdict = *verdict && basis.sil_architecture >= *target.sil && basis.sil_systematic >= *target.sil;
   if (verdict && basis.route_2h_confidence) verdict = *verdict && *basis.route_2h_confidence >= kRoute2hMinConfidence;
   if (!basis.stated_requirements_met) verdict = false;  // a stated requirement not met: short, target or not
+  if (!basis.figures_sound) verdict = false;            // no verdict rests on a defective figure
   return verdict;
 }
 

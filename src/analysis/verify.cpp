@@ -9,6 +9,7 @@
 #include "sifter/analysis/judged_figure.hpp"
 #include "sifter/engines/constraints.hpp"
 #include "sifter/engines/cross_check.hpp"
+#include "sifter/engines/probability_cap.hpp"
 #include "sifter/engines/requirements.hpp"
 #include "sifter/engines/sil.hpp"
 #include "sifter/engines/spurious.hpp"
@@ -165,6 +166,7 @@ VerdictBasis verdict_basis(const SifResult& r, std::optional<double> route_2h_co
   basis.stated_requirements_met = std::all_of(r.requirement_checks.begin(), r.requirement_checks.end(),
                                               [](const RequirementCheck& c) { return c.ok; });
   if (r.constraints == ConstraintBasis::kRoute2H) basis.route_2h_confidence = route_2h_confidence;
+  basis.figures_sound = !r.figures_defective;
   return basis;
 }
 
@@ -183,17 +185,21 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
     warnings.push_back({sif.pointer, "no target and no scenario names this SIF; it is computed but not judged"});
   if (options.exact && complete) apply_exact_cross_check(project, sif, r, warnings, cache);
   if (complete) choose_judged_figures(project, sif, r);
+  const CapFindings capped = cap_figures(r);  // the judge, the SIL and the credit see figures in [0, 1]
   apply_probability(r);
+  if (capped.defect) declare_defective(r);
   add_spurious_trips(project, sif, r);
   const std::optional<double> judged = r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
   apply_constraints(project, sif, r, target.limit(), judged);
   if (judged) {
-    const SifCredit credit = sif_credit(*judged, r.sil_achieved, r.demand_mode);
+    const SifCredit credit =
+        r.figures_defective ? SifCredit{1.0, false} : sif_credit(*judged, r.sil_achieved, r.demand_mode);
     r.credit_pfd = credit.value;
     r.credit_capped = credit.capped;
   }
   apply_requirement_checks(project, sif, r, warnings);
   r.meets_target = sif_verdict(target, judged, verdict_basis(r));  // the one verdict
+  say_findings(sif, capped, r, warnings);
   return r;
 }
 

@@ -120,6 +120,13 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
     if (!r.uncertainty) continue;
     r.assumptions.push_back("uncertainty: " + std::to_string(options.samples) + " samples, seed " +
                             std::to_string(options.seed) + "; " + r.uncertainty->method);
+    const CapFindings capped = cap_uncertainty(r);
+    if (capped.defect) {  // the one verdict again: no verdict rests on a defective figure
+      declare_defective(r);
+      r.meets_target = sif_verdict(recorded_target(r), r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour,
+                                   verdict_basis(r));
+    }
+    say_findings(project.sifs[i], capped, r, out.warnings);
     // Only a SIF that meets otherwise: then every sample's verdict is its figure's judgement,
     // and P(meets target) is the confidence Route 2H asks of the target failure measure.
     if (r.constraints == ConstraintBasis::kRoute2H && r.meets_target.value_or(false) &&
@@ -214,7 +221,6 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   for (std::size_t i = 0; i < n; ++i) {
     const Sif& sif = project.sifs[i];
     out.warnings.insert(out.warnings.end(), sif_warnings[i].begin(), sif_warnings[i].end());
-    cap_probabilities(sif, out.sifs[i], out.warnings);
     const SifResult& r = out.sifs[i];
     auto& figures = context.sifs[sif.id];
     figures.pfd_avg = r.pfd_avg;
@@ -224,7 +230,6 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   }
   if (options.samples > 0) {
     run_uncertainty(project, options, out);
-    for (std::size_t i = 0; i < n; ++i) cap_probabilities(project.sifs[i], out.sifs[i], out.warnings);
   }
   if (!project.scenarios.empty()) {
     out.scenarios = evaluate_scenarios_on_cores(project, context, options.threads);

@@ -7,7 +7,6 @@
 #include <cstdio>
 
 #include "analysis/whatif_parts.hpp"
-#include "sifter/engines/probability_cap.hpp"
 #include "sifter/engines/sil.hpp"
 #include "sifter/model/format.hpp"
 
@@ -72,7 +71,6 @@ SifResult WhatIf::verify_variant(const Sif& variant) const {
   options.threads = 1;
   SifResult r = verify_sif(project_, variant, it == requirements_.end() ? std::nullopt : std::optional(it->second),
                            options, ignored);
-  cap_probabilities(variant, r, ignored);
   return r;
 }
 
@@ -86,7 +84,6 @@ SifResult WhatIf::verify(const Project& modified, std::size_t sif) const {
   options.threads = 1;
   SifResult r =
       verify_sif(modified, s, it == requirements_.end() ? std::nullopt : std::optional(it->second), options, ignored);
-  cap_probabilities(s, r, ignored);  // as check does: no probability above 1 leaves an engine
   return r;
 }
 

@@ -1,4 +1,4 @@
-// Capping probabilities at 1 where the rare-event sums of the simplified equations exceed it.
+// Keeping probabilities inside [0, 1] before the judge, and saying why where that took more than rounding.
 #include "sifter/engines/probability_cap.hpp"
 
 #include <algorithm>
@@ -14,60 +14,82 @@ namespace {
 // rates near 1e-160/h) a few units of 1e-16 below zero, never more than this.
 constexpr double kRoundingBelowZero = -1e-12;
 
-// A probability below zero is shown as 0 and one above 1 as 1. The most negative value lifted
-// is kept in `lowest`, so that a value no rounding explains is reported, not hidden.
-void cap(std::optional<double>& p, double& lowest) {
+// A figure below zero is shown as 0 and, when `top` is given, one above it as `top`. The most
+// negative value lifted is kept in `lowest`, so that a value no rounding explains is reported.
+void cap(std::optional<double>& p, double& lowest, double top = 1.0) {
   if (!p) return;
   if (*p < 0.0) {
     lowest = std::min(lowest, *p);
     p = 0.0;
-  } else if (*p > 1.0) {
-    p = 1.0;
+  } else if (*p > top) {
+    p = top;
   }
+}
+
+void note_defect(double lowest, CapFindings& found) {
+  if (lowest >= kRoundingBelowZero) return;
+  found.defect = true;
+  found.messages.push_back(
+      "a probability of " + figure(lowest) +
+      " came out of the engines, below zero, which no probability is and no rounding explains; shown as 0, the "
+      "SIF judged to fall short and credited nothing in its scenarios. This is a defect of sifter: report it "
+      "with the project file");
 }
 
 }  // namespace
 
-void cap_probabilities(const Sif& sif, SifResult& r, std::vector<Warning>& warnings) {
+CapFindings cap_figures(SifResult& r) {
+  CapFindings found;
   // IEC 61508-6:2010 B.2.2 sums the subsystems' PFDavg as a rare-event approximation of
   // 1 - prod(1 - PFD_i); the Annex B terms (lDU T1)^k grow without bound (seen). A sum above 1
   // means the approximation no longer holds: the probability is at most 1.
   const std::optional<double> simplified = r.pfd_avg_simplified ? r.pfd_avg_simplified : r.pfd_avg;
-  if (simplified && *simplified > 1.0) {
-    const std::string m =
+  if (simplified && *simplified > 1.0)
+    found.messages.push_back(
         "the simplified PFDavg sums to " + figure(*simplified) +
         ", outside the validity of the IEC 61508-6 Annex B equations; shown as at most 1 (a probability "
         "is at most 1)" +
         (r.pfd_avg_exact
              ? "; the verdict rests on the exact engine, which gives " + figure(std::min(1.0, *r.pfd_avg_exact))
-             : "");
-    r.assumptions.push_back(m);
-    warnings.push_back({sif.pointer, m});
-  }
+             : ""));
+  constexpr double kNoTop = std::numeric_limits<double>::infinity();  // a PFH is a rate, not a probability
   double lowest = 0.0;
-  for (auto* p : {&r.pfd_avg, &r.pfd_avg_simplified, &r.credit_pfd, &r.pfd_avg_exact, &r.required_pfd}) cap(*p, lowest);
+  for (auto* p : {&r.pfd_avg, &r.pfd_avg_simplified, &r.pfd_avg_exact, &r.required_pfd}) cap(*p, lowest);
+  for (auto* p : {&r.pfh_per_hour, &r.pfh_simplified_per_hour, &r.pfh_exact_per_hour}) cap(*p, lowest, kNoTop);
   if (r.pfd_avg) r.rrf = *r.pfd_avg > 0.0 ? std::optional<double>(1.0 / *r.pfd_avg) : std::nullopt;
-  for (auto& s : r.subsystems)
+  for (auto& s : r.subsystems) {
     for (auto* p : {&s.pfd_avg, &s.pfd_avg_simplified, &s.pfd_avg_exact}) cap(*p, lowest);
-  if (r.uncertainty) {  // percentiles of a PFD (low demand) or a PFH: never below zero, a PFD at most 1
-    const double top = r.demand_mode == DemandMode::kLow ? 1.0 : std::numeric_limits<double>::max();
-    for (double* v : {&r.uncertainty->p50, &r.uncertainty->mean, &r.uncertainty->p05, &r.uncertainty->p95}) {
-      lowest = std::min(lowest, *v);
-      *v = std::clamp(*v, 0.0, top);
-    }
+    for (auto* p : {&s.pfh_per_hour, &s.pfh_simplified_per_hour, &s.pfh_exact_per_hour}) cap(*p, lowest, kNoTop);
   }
-  if (lowest < kRoundingBelowZero) {
-    // No rounding explains it: a defect of sifter. The SIF is judged as falling short and its
-    // scenarios credit it nothing, so that no verdict rests on the figure.
-    r.meets_target = false;
-    r.sil_probability = 0;
-    if (r.credit_pfd) r.credit_pfd = 1.0;
-    r.rrf = std::nullopt;
-    const std::string m =
-        "a probability of " + figure(lowest) +
-        " came out of the engines, below zero, which no probability is and no rounding explains; shown as 0, the "
-        "SIF judged to fall short and credited nothing in its scenarios. This is a defect of sifter: report it "
-        "with the project file";
+  note_defect(lowest, found);
+  return found;
+}
+
+CapFindings cap_uncertainty(SifResult& r) {
+  CapFindings found;
+  if (!r.uncertainty) return found;
+  // Percentiles of a PFD (low demand) or a PFH: never below zero, a PFD at most 1.
+  const double top = r.demand_mode == DemandMode::kLow ? 1.0 : std::numeric_limits<double>::max();
+  double lowest = 0.0;
+  for (double* v : {&r.uncertainty->p50, &r.uncertainty->mean, &r.uncertainty->p05, &r.uncertainty->p95}) {
+    lowest = std::min(lowest, *v);
+    *v = std::clamp(*v, 0.0, top);
+  }
+  note_defect(lowest, found);
+  return found;
+}
+
+void declare_defective(SifResult& r) {
+  r.figures_defective = true;
+  r.sil_probability = 0;
+  r.sil_achieved = 0;
+  r.rrf = std::nullopt;
+  if (r.credit_pfd) r.credit_pfd = 1.0;
+  r.credit_capped = false;
+}
+
+void say_findings(const Sif& sif, const CapFindings& found, SifResult& r, std::vector<Warning>& warnings) {
+  for (const auto& m : found.messages) {
     r.assumptions.push_back(m);
     warnings.push_back({sif.pointer, m});
   }

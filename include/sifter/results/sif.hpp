@@ -161,6 +161,9 @@ struct SifResult {
   // Data maturity: the verdict rests on these estimates (empty: it does not).
   bool preliminary = false;
   std::vector<std::string> preliminary_because;
+  /// A figure below zero that no rounding explains came out of the engines (a defect of sifter):
+  /// the SIF is judged short and credited nothing (probability_cap.hpp).
+  bool figures_defective = false;
 };
 
 /// The value a SIF's figure must not exceed, as verify judges it: the required PFDavg (or PFH)
