@@ -40,7 +40,7 @@ std::string table(const std::string& caption, const std::vector<std::string>& he
 // fits the A4 text column (tests/browser_test.sh measures them).
 std::string models_table(const ServiceResult& r) {
   std::vector<std::vector<std::string>> observed, design;
-  std::string skewed;
+  const std::string skewed = skewed_posterior_models(r);
   for (const auto& m : r.models) {
     if (m.devices.empty()) continue;
     const RateEstimate& e = m.estimate;
@@ -53,7 +53,6 @@ std::string models_table(const ServiceResult& r) {
                       e.exceeds_design_at_90   ? "!at 90%"
                       : e.exceeds_design_at_70 ? "!at 70%"
                                                : "no"});
-    if (e.posterior_bound_below_mean) skewed += (skewed.empty() ? "" : ", ") + m.model;
   }
   return table("Observed lambda_DU per hour by component model, devices in service pooled",
                {"model", "devices", "failures", "device-years", "observed", "90% low", "90% high"}, observed,

@@ -134,7 +134,8 @@ std::string service_csv(const ServiceResult& r) {
                                    "posterior_upper90_per_h",
                                    "design_rate_per_h",
                                    "exceeds_design_at_70",
-                                   "exceeds_design_at_90"};
+                                   "exceeds_design_at_90",
+                                   "posterior_upper90_below_mean"};
   std::string out;
   for (const char* c : kColumns) out += std::string(out.empty() ? "" : ",") + c;
   out += "\r\n";

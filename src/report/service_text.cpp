@@ -19,9 +19,7 @@ std::string exceeds_text(const RateEstimate& e) {
 
 // Said under the table when a model's upper 90 % lies below its mean (see RateEstimate).
 std::string skewed_posterior_note(const ServiceResult& r) {
-  std::string models;
-  for (const auto& m : r.models)
-    if (!m.devices.empty() && m.estimate.posterior_bound_below_mean) models += (models.empty() ? "" : ", ") + m.model;
+  const std::string models = skewed_posterior_models(r);
   if (models.empty()) return "";
   return wrap("* " + models + ": the upper 90% lies below the posterior mean. " + kSkewedPosteriorNote, 78, "  ");
 }
@@ -109,6 +107,13 @@ std::string schedule_text(const ServiceResult& r) {
 }
 
 }  // namespace
+
+std::string skewed_posterior_models(const ServiceResult& r) {
+  std::string models;
+  for (const auto& m : r.models)
+    if (!m.devices.empty() && m.estimate.posterior_bound_below_mean) models += (models.empty() ? "" : ", ") + m.model;
+  return models;
+}
 
 std::string render_service(const ServiceResult& r) {
   std::string out = r.title + "\nIn service up to " + to_iso(r.as_of) + ": " + r.records_file + "\n\n";

@@ -178,7 +178,7 @@ TEST(Service, JsonCarriesTheContractsKeys) {
   EXPECT_EQ(j["format"], "sifter-service/1");
   for (const char* k : {"model", "devices", "failures", "service_hours", "observed_rate_per_h", "ci90_low_per_h",
                         "ci90_high_per_h", "posterior_mean_per_h", "posterior_upper90_per_h", "design_rate_per_h",
-                        "exceeds_design_at_70", "exceeds_design_at_90"})
+                        "exceeds_design_at_70", "exceeds_design_at_90", "posterior_upper90_below_mean"})
     EXPECT_TRUE(j["models"][0].contains(k)) << k;
   for (const char* k : {"id", "pfd_avg_judged", "meets_target", "verdict_changed", "demands", "expected_demands",
                         "spurious_trips", "expected_spurious_trips"})

@@ -36,7 +36,8 @@ TEST(ServiceCli, WritesJsonCsvAndICalendarTogether) {
   const std::string csv = slurp(dir / "s.csv");
   EXPECT_EQ(csv.substr(0, csv.find("\r\n")),
             "model,devices,failures,service_hours,observed_rate_per_h,ci90_low_per_h,ci90_high_per_h,"
-            "posterior_mean_per_h,posterior_upper90_per_h,design_rate_per_h,exceeds_design_at_70,exceeds_design_at_90");
+            "posterior_mean_per_h,posterior_upper90_per_h,design_rate_per_h,exceeds_design_at_70,exceeds_design_at_90,"
+            "posterior_upper90_below_mean");
   EXPECT_EQ(slurp(dir / "s.ics").substr(0, 17), "BEGIN:VCALENDAR\r\n");
 }
 

@@ -19,6 +19,11 @@ inline constexpr const char* kSkewedPosteriorNote =
     "posterior puts most of its weight near zero and a long tail above it: its upper 90% says "
     "little. Read P(>design) and the observed 90% interval instead.";
 
+/// The models in service whose posterior upper 90 % lies below the mean, "A, B" in the result's
+/// order; empty when none. Every writer marks their bound with "*" and says, once under its
+/// table, these names and kSkewedPosteriorNote.
+std::string skewed_posterior_models(const ServiceResult& result);
+
 /// The assessment for a person at an 80-column terminal, with the caution.
 std::string render_service(const ServiceResult& result);
 /// `sifter-service/1`: models[], sifs[], schedule[] (and components[]); every number finite.
