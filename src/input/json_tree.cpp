@@ -36,13 +36,15 @@ bool has_negative_zero_integer(std::string_view text) {
 // nlohmann's parser.
 class TreeBuilder {
  public:
+  explicit TreeBuilder(int max_depth) : max_depth_(max_depth) {}
+
   bool build(simdjson::dom::element e, Json& out) {
     using Type = simdjson::dom::element_type;
     switch (e.type()) {
       case Type::OBJECT:
-        return object(e.get_object().value_unsafe(), out);
+        return deeper() && object(e.get_object().value_unsafe(), out) && shallower();
       case Type::ARRAY:
-        return array(e.get_array().value_unsafe(), out);
+        return deeper() && array(e.get_array().value_unsafe(), out) && shallower();
       case Type::STRING:
         out = std::string(e.get_string().value_unsafe());
         return true;
@@ -71,13 +73,20 @@ class TreeBuilder {
   }
 
  private:
+  // A container opened beyond the limit declines, as the structure scan refuses it.
+  bool deeper() { return ++depth_ <= max_depth_; }
+  bool shallower() {
+    --depth_;
+    return true;
+  }
+
+  // A key given twice declines: the structure scan reports it with its place.
   bool object(simdjson::dom::object o, Json& out) {
     out = Json::object();
     auto& members = out.get_ref<Json::object_t&>();
     for (const auto field : o) {
-      Json value;
-      if (!build(field.value, value)) return false;
-      members.insert_or_assign(std::string(field.key), std::move(value));
+      auto [at, fresh] = members.try_emplace(std::string(field.key));
+      if (!fresh || !build(field.value, at->second)) return false;
     }
     return true;
   }
@@ -90,18 +99,21 @@ class TreeBuilder {
       if (!build(element, items.emplace_back())) return false;
     return true;
   }
+
+  int max_depth_;
+  int depth_ = 0;
 };
 
 }  // namespace
 
-std::optional<Json> fast_json_tree(std::string_view text) {
+std::optional<Json> fast_json_tree(std::string_view text, int max_depth) {
   if (has_surrogate_escape(text) || has_negative_zero_integer(text)) return std::nullopt;
   simdjson::dom::parser parser;
   const simdjson::padded_string padded(text);
   simdjson::dom::element root;
   if (parser.parse(padded).get(root) != simdjson::SUCCESS) return std::nullopt;
   Json out;
-  if (!TreeBuilder().build(root, out)) return std::nullopt;
+  if (!TreeBuilder(max_depth).build(root, out)) return std::nullopt;
   return out;
 }
 

@@ -15,9 +15,11 @@ namespace sifter::detail {
 /// one differently), and an integer written -0 (signed in nlohmann's tree, a plain 0 in
 /// simdjson's). Integers keep nlohmann's types (unsigned when not negative, signed
 /// when negative; one beyond 64 bits simdjson refuses); other numbers are the correctly rounded
-/// double of their text, as both parsers
-/// give. A key given twice keeps its last value, as nlohmann keeps it (the loader refuses such
-/// text before parsing).
-std::optional<nlohmann::json> fast_json_tree(std::string_view text);
+/// double of their text, as both parsers give. It also declines a text with a key given twice
+/// in one object or with containers nested more than `max_depth` deep (the root's container is
+/// level 1), the two things the structure scan (`scan_json_structure`) refuses: so a text it
+/// returns a tree for is one the scan passes, and the loader runs the scan only when it
+/// declines.
+std::optional<nlohmann::json> fast_json_tree(std::string_view text, int max_depth);
 
 }  // namespace sifter::detail

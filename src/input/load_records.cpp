@@ -193,10 +193,11 @@ std::optional<Json> parse_json(detail::LoadContext& ctx) {
                     const std::string& hint) {
     ctx.problems.push_back({0, Diagnostic{ctx.sources[0].path, pos.line, pos.column, pointer, expected, found, hint}});
   };
+  // As the project's loader: the fast tree for a text the structure scan would pass.
+  if (auto tree = detail::fast_json_tree(text, kMaxNestingDepth)) return tree;
   const auto structure = scan_json_structure(text);
   for (const auto& p : structure) report(p.position, p.pointer, p.expected, p.found, p.hint);
   if (!structure.empty()) return std::nullopt;
-  if (auto tree = detail::fast_json_tree(text)) return tree;  // nlohmann's very tree, at parser speed
   try {
     return Json::parse(text);  // a text simdjson refused or left in doubt: nlohmann's message
   } catch (const Json::exception& e) {

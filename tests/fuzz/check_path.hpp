@@ -11,6 +11,7 @@
 #include "sifter/analysis/report_data.hpp"
 #include "sifter/analysis/verify.hpp"
 #include "sifter/analysis/whatif.hpp"
+#include "sifter/input/json_source.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/report/csv.hpp"
 #include "sifter/report/html.hpp"
@@ -131,16 +132,15 @@ inline void run_what_ifs(const Project& project) {
 /// What the check path made of one input.
 enum class Outcome { kRejected, kComputed };
 
-/// Loads `text` as a project (libraries resolve against `base_dir`), verifies it and renders
-/// the JSON results, the terminal summary, both CSV files, the HTML and Markdown reports, and
-/// runs the what-ifs, as the program does. A refused input (InputError) is a normal outcome;
-/// every other exception escapes: a non-finite number refused by a writer, a broken
-/// invariant, or any other internal error, is a defect.
 /// The loader's fast parse gives nlohmann's very tree or declines: a tree it builds from text
-/// nlohmann refuses, or one that dumps differently (number types and bits included), is a finding.
+/// nlohmann refuses or the structure scan refuses, or one that dumps differently (number types
+/// and bits included), is a finding.
 inline void check_fast_tree(std::string_view text) {
-  const auto fast = detail::fast_json_tree(text);
+  const auto fast = detail::fast_json_tree(text, kMaxNestingDepth);
   if (!fast) return;
+  // It stands in for the structure scan: a text it takes, the scan passes.
+  if (!scan_json_structure(text).empty())
+    throw std::logic_error("the fast parse took a text the structure scan refuses");
   nlohmann::json slow;
   try {
     slow = nlohmann::json::parse(text);
@@ -152,6 +152,11 @@ inline void check_fast_tree(std::string_view text) {
     throw std::logic_error("the fast parse built another tree than nlohmann's");
 }
 
+/// Loads `text` as a project (libraries resolve against `base_dir`), verifies it and renders
+/// the JSON results, the terminal summary, both CSV files, the HTML and Markdown reports, and
+/// runs the what-ifs, as the program does. A refused input (InputError) is a normal outcome;
+/// every other exception escapes: a non-finite number refused by a writer, a broken
+/// invariant, or any other internal error, is a defect.
 inline Outcome run_check_path(std::string_view text, const std::string& base_dir) {
   check_fast_tree(text);
   std::optional<LoadedProject> loaded;

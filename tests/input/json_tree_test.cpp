@@ -11,6 +11,9 @@
 #include <sstream>
 #include <string>
 
+#include "sifter/input/json_source.hpp"
+#include "sifter/input/load.hpp"
+
 namespace sifter {
 namespace {
 
@@ -51,7 +54,7 @@ bool same_types(const json& a, const json& b) {
 // (signed, unsigned or double) and the same text (dump writes 1.0 for a double and the exact
 // bits of each double).
 void expect_same_or_declined(const std::string& text) {
-  const auto fast = detail::fast_json_tree(text);
+  const auto fast = detail::fast_json_tree(text, kMaxNestingDepth);
   if (!fast) return;
   const auto slow = nlohmann_tree(text);
   ASSERT_TRUE(slow) << "simdjson accepted what nlohmann refuses: " << text.substr(0, 200);
@@ -68,9 +71,9 @@ TEST(FastJsonTree, EveryShippedAndTestProjectGivesNlohmannsTreeAndTheGoodOnesTak
       SCOPED_TRACE(entry.path().string());
       expect_same_or_declined(text);
       ++files;
-      if (detail::fast_json_tree(text)) ++fast;
+      if (detail::fast_json_tree(text, kMaxNestingDepth)) ++fast;
       if (entry.path().parent_path().filename() == "good" || root.filename() == "examples") {
-        EXPECT_TRUE(detail::fast_json_tree(text)) << "a valid project should not need the slow parse";
+        EXPECT_TRUE(detail::fast_json_tree(text, kMaxNestingDepth)) << "a valid project should not need the slow parse";
       }
     }
   }
@@ -121,12 +124,13 @@ TEST(FastJsonTree, NumbersKeepNlohmannsTypesAndValues) {
     expect_same_or_declined(number);
     expect_same_or_declined(std::string("{\"x\": [") + number + "]}");
   }
-  EXPECT_FALSE(detail::fast_json_tree("[-0]")) << "an integer -0 is nlohmann's to type";
-  EXPECT_TRUE(detail::fast_json_tree("[-0.0, -0e1, 10, -10]")) << "other numbers near it stay fast";
-  EXPECT_EQ(detail::fast_json_tree("1E5")->dump(), "100000.0");
-  EXPECT_EQ(detail::fast_json_tree("18446744073709551615")->dump(), "18446744073709551615");
-  EXPECT_TRUE(detail::fast_json_tree("7")->is_number_unsigned()) << "as nlohmann keeps it";
-  EXPECT_TRUE(detail::fast_json_tree("-7")->is_number_integer() && !detail::fast_json_tree("-7")->is_number_unsigned());
+  EXPECT_FALSE(detail::fast_json_tree("[-0]", kMaxNestingDepth)) << "an integer -0 is nlohmann's to type";
+  EXPECT_TRUE(detail::fast_json_tree("[-0.0, -0e1, 10, -10]", kMaxNestingDepth)) << "other numbers near it stay fast";
+  EXPECT_EQ(detail::fast_json_tree("1E5", kMaxNestingDepth)->dump(), "100000.0");
+  EXPECT_EQ(detail::fast_json_tree("18446744073709551615", kMaxNestingDepth)->dump(), "18446744073709551615");
+  EXPECT_TRUE(detail::fast_json_tree("7", kMaxNestingDepth)->is_number_unsigned()) << "as nlohmann keeps it";
+  EXPECT_TRUE(detail::fast_json_tree("-7", kMaxNestingDepth)->is_number_integer() &&
+              !detail::fast_json_tree("-7", kMaxNestingDepth)->is_number_unsigned());
 }
 
 TEST(FastJsonTree, RandomNumbersParseToTheSameBitsAsNlohmanns) {
@@ -143,29 +147,64 @@ TEST(FastJsonTree, RandomNumbersParseToTheSameBitsAsNlohmanns) {
 }
 
 TEST(FastJsonTree, StringsAndKeysDecodeAsNlohmannDecodesThem) {
-  for (const char* text : {R"({"b\u0065ta": "5%"})",
-                           R"(["\u00e9\u20ac", "caf\u00e9", "tab\tescaped", "quote\"", "slash\/", "\u0001\u001f"])",
-                           "[\"caf\xc3\xa9\"]", R"({"a": {"b": [true, false, null]}})", R"({"a": 1, "a": 2})", R"([])",
-                           R"({})", R"("just a string")", "  [1]  "}) {
+  for (const char* text :
+       {R"({"b\u0065ta": "5%"})",
+        R"(["\u00e9\u20ac", "caf\u00e9", "tab\tescaped", "quote\"", "slash\/", "\u0001\u001f"])", "[\"caf\xc3\xa9\"]",
+        R"({"a": {"b": [true, false, null]}})", R"([])", R"({})", R"("just a string")", "  [1]  "}) {
     SCOPED_TRACE(text);
-    EXPECT_TRUE(detail::fast_json_tree(text)) << "valid text takes the fast path";
+    EXPECT_TRUE(detail::fast_json_tree(text, kMaxNestingDepth)) << "valid text takes the fast path";
     expect_same_or_declined(text);
   }
-  EXPECT_EQ(detail::fast_json_tree(R"({"a": 1, "a": 2})")->at("a"), 2) << "the last of a repeated key, as nlohmann";
+}
+
+// The fast parse stands in for the structure scan: it declines exactly where the scan would
+// report, so that the loader can run the scan only then.
+TEST(FastJsonTree, AKeyGivenTwiceOrNestingTooDeepDeclinesSoTheScanReportsIt) {
+  for (const char* text :
+       {R"({"a": 1, "a": 2})", R"({"x": [{"b\u0065ta": 1, "beta": 2}]})", R"([{"k": {}, "k": {}}])"}) {
+    SCOPED_TRACE(text);
+    EXPECT_FALSE(detail::fast_json_tree(text, kMaxNestingDepth));
+    EXPECT_FALSE(scan_json_structure(text).empty()) << "the scan refuses it";
+  }
+  EXPECT_TRUE(detail::fast_json_tree(R"({"a": 1, "b": {"a": 2}})", kMaxNestingDepth)) << "one key in two objects";
+  const auto nested = [](int levels) { return std::string(levels, '[') + std::string(levels, ']'); };
+  for (int levels : {kMaxNestingDepth - 1, kMaxNestingDepth, kMaxNestingDepth + 1, kMaxNestingDepth + 5}) {
+    SCOPED_TRACE(levels);
+    const bool fast = detail::fast_json_tree(nested(levels), kMaxNestingDepth).has_value();
+    EXPECT_EQ(fast, levels <= kMaxNestingDepth);
+    EXPECT_EQ(scan_json_structure(nested(levels)).empty(), fast) << "the scan draws the line at the same level";
+  }
+  EXPECT_FALSE(detail::fast_json_tree(R"({"a": [[1]]})", 2)) << "the root's container is level 1";
+  EXPECT_TRUE(detail::fast_json_tree(R"({"a": [1]})", 2));
+}
+
+TEST(FastJsonTree, TheLoaderStillReportsADuplicateKeyWithItsPlace) {
+  try {
+    (void)load_project_text("{\n  \"format\": \"sifter-project/1\",\n  \"format\": \"sifter-project/1\"\n}", "dup.json",
+                            ".");
+    FAIL() << "a key given twice is refused";
+  } catch (const InputError& e) {
+    ASSERT_FALSE(e.diagnostics().empty());
+    const Diagnostic& d = e.diagnostics().front();
+    EXPECT_EQ(d.line, 3);
+    EXPECT_EQ(d.column, 3);
+    EXPECT_EQ(d.expected, "each key once in an object");
+    EXPECT_EQ(d.found, "\"format\" a second time");
+  }
 }
 
 TEST(FastJsonTree, WhereTheParsersCouldDifferItDeclinesAndNlohmannDecides) {
   // Surrogate escapes, paired or lone, go to nlohmann.
   for (const char* text : {R"(["\ud83d\ude00"])", R"(["\ud800"])", R"(["\udc00x"])", R"({"\uDBFF": 1})"})
-    EXPECT_FALSE(detail::fast_json_tree(text)) << text;
+    EXPECT_FALSE(detail::fast_json_tree(text, kMaxNestingDepth)) << text;
   // A byte-order mark (the loader refuses it before any parse).
-  EXPECT_FALSE(detail::fast_json_tree("\xef\xbb\xbf{}"));
+  EXPECT_FALSE(detail::fast_json_tree("\xef\xbb\xbf{}", kMaxNestingDepth));
   // Texts both refuse: simdjson declines, so that the message is nlohmann's.
   for (const char* text :
        {"", " ", "{", "[1,]", "{\"a\":1,}", "[1 2]", "{} x", "nul", "[\"\xff\"]", "[\"raw\ttab\"]", "[\"raw\nline\"]",
         "[\"raw\x01\"]", "{\"raw\rkey\": 1}", "{\"a\" 1}", "[01]", "// comment\n{}"}) {
     SCOPED_TRACE(text);
-    EXPECT_FALSE(detail::fast_json_tree(text));
+    EXPECT_FALSE(detail::fast_json_tree(text, kMaxNestingDepth));
     EXPECT_FALSE(nlohmann_tree(text));
   }
 }
