@@ -113,6 +113,7 @@ ObjectReader::ObjectReader(LoadContext& ctx, const Json& value, std::string poin
       source_(source),
       what_(std::move(what)),
       is_object_(value.is_object()) {
+  known_.reserve(kKnownKeysReserved);  // one allocation: the list would otherwise grow seven times on a component
   if (!is_object_) ctx_.error(source_, pointer_, what_ + " (a JSON object)", describe(value));
 }
 

@@ -100,7 +100,8 @@ class ObjectReader {
   bool absent_and_optional(const std::string& key, bool required);
   const Json* present(const std::string& key);
 
-  std::vector<std::string> known_;  ///< a few dozen keys at most: a flat list beats a tree
+  std::vector<std::string> known_;                       ///< a few dozen keys at most: a flat list beats a tree
+  static constexpr std::size_t kKnownKeysReserved = 48;  ///< a component's reader asks about 40
 };
 
 }  // namespace sifter::detail
