@@ -2,6 +2,7 @@
 #include "sifter/graph/dependency_graph.hpp"
 
 #include <algorithm>
+#include <array>
 #include <iterator>
 #include <unordered_set>
 
@@ -73,11 +74,43 @@ ScenarioVertices DependencyGraph::add_scenario(const Project& project, const Sce
   return out;
 }
 
+namespace {
+
+// The vertices one walk has met: kept inline while they are few (a SIF, a cause or a layer
+// reaches a handful), in a hash set beyond, so that a walk over a large part of the graph
+// still costs what it reaches.
+class Visited {
+ public:
+  using Vertex = DependencyGraph::Vertex;
+
+  // True when v is met for the first time.
+  bool insert(Vertex v) {
+    if (!many_.empty()) return many_.insert(v).second;
+    if (std::find(few_.begin(), few_.begin() + static_cast<std::ptrdiff_t>(count_), v) !=
+        few_.begin() + static_cast<std::ptrdiff_t>(count_))
+      return false;
+    if (count_ < few_.size()) {
+      few_[count_++] = v;
+      return true;
+    }
+    many_.insert(few_.begin(), few_.end());
+    return many_.insert(v).second;
+  }
+
+ private:
+  std::array<Vertex, 32> few_{};
+  std::size_t count_ = 0;
+  std::unordered_set<Vertex> many_;
+};
+
+}  // namespace
+
 std::vector<DependencyGraph::Vertex> DependencyGraph::reach_devices(Vertex v, bool through_sifs) const {
   // A depth-first walk over out-edges. The visited set is local to the walk, so a query costs
   // what it reaches, not the size of the whole project's graph.
   std::vector<Vertex> devices;
-  std::unordered_set<Vertex> seen{v};
+  Visited seen;
+  seen.insert(v);
   std::vector<Vertex> stack{v};
   while (!stack.empty()) {
     const Vertex u = stack.back();
@@ -86,7 +119,7 @@ std::vector<DependencyGraph::Vertex> DependencyGraph::reach_devices(Vertex v, bo
     if (!through_sifs && u != v && graph_[u].kind == DependencyKind::kSif) continue;
     for (auto [e, end] = boost::out_edges(u, graph_); e != end; ++e) {
       const Vertex w = boost::target(*e, graph_);
-      if (seen.insert(w).second) stack.push_back(w);
+      if (seen.insert(w)) stack.push_back(w);
     }
   }
   return devices;
@@ -100,10 +133,18 @@ std::vector<std::string> DependencyGraph::devices_of(Vertex v) const {
 }
 
 std::vector<std::string> DependencyGraph::common_devices(Vertex a, Vertex b) const {
-  const auto da = devices_of(a);
-  const auto db = devices_of(b);
+  // One vertex per tag (add_device): the vertices are compared, and only the tags in common
+  // (most often none) are copied.
+  auto da = reach_devices(a, true);
+  auto db = reach_devices(b, true);
+  std::sort(da.begin(), da.end());
+  std::sort(db.begin(), db.end());
+  std::vector<Vertex> both;
+  std::set_intersection(da.begin(), da.end(), db.begin(), db.end(), std::back_inserter(both));
   std::vector<std::string> common;
-  std::set_intersection(da.begin(), da.end(), db.begin(), db.end(), std::back_inserter(common));
+  common.reserve(both.size());
+  for (Vertex d : both) common.push_back(graph_[d].name);
+  std::sort(common.begin(), common.end());
   return common;
 }
 

@@ -3,6 +3,8 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
+
 #include "support/lopa_fixtures.hpp"
 
 namespace sifter {
@@ -42,6 +44,31 @@ TEST(DependencyGraph, LayersAndCausesMeetTheSifOnCommonDevices) {
   EXPECT_EQ(g.common_devices(v.layers[0], v.causes[0]), (Tags{"DCS-1"}));
   EXPECT_EQ(g.common_devices(v.layers[0], v.layers[1]), (Tags{"PT-1"}));
   EXPECT_TRUE(g.common_devices(v.layers[1], v.causes[0]).empty());
+}
+
+// A walk that meets more vertices than it keeps inline (32) still meets each once: the set
+// grows beyond them and the answers stay those of a plain walk.
+TEST(DependencyGraph, AWalkOverManyDevicesFindsEachOnceAndTheCommonOnesByTag) {
+  Project p;
+  Tags many, listed;
+  for (int i = 0; i < 80; ++i) many.push_back("TX-" + std::to_string(100 + i));
+  add_sif(p, "SIF-BIG", many);
+  for (int i = 0; i < 80; i += 7) listed.push_back(many[static_cast<std::size_t>(i)]);
+  listed.push_back("DCS-9");
+  listed.push_back(many[0]);  // listed twice: still one device
+  Scenario s;
+  s.id = "S";
+  s.causes = {cause("C1", 0.1, listed)};
+  s.layers = {sif_layer("SIF-BIG")};
+  DependencyGraph g;
+  const auto v = g.add_scenario(p, s);
+  Tags sorted_many = many;
+  std::sort(sorted_many.begin(), sorted_many.end());
+  EXPECT_EQ(g.devices_of(v.layers[0]), sorted_many);
+  Tags expected(listed.begin(), listed.end() - 2);
+  std::sort(expected.begin(), expected.end());
+  EXPECT_EQ(g.common_devices(v.layers[0], v.causes[0]), expected);
+  EXPECT_EQ(g.common_devices(v.causes[0], v.layers[0]), expected) << "the same either way round";
 }
 
 // Issue 4 item 6: devices on which several SIFs or scenarios rely, naming them. A scenario that
