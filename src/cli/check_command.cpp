@@ -80,7 +80,8 @@ void write_files(const CheckOptions& options, const LoadedProject& loaded, const
   if (!options.json_path.empty()) {
     files.json.emplace(options.json_path);
     report::write_results_json(result, files.json->stream(),
-                               options.pretty ? report::JsonLayout::kPretty : report::JsonLayout::kCompact);
+                               options.pretty ? report::JsonLayout::kPretty : report::JsonLayout::kCompact,
+                               options.threads);
     files.json->stream() << "\n";
   }
   if (!options.worksheet_csv_path.empty()) {

@@ -19,7 +19,23 @@ JsonStream::JsonStream(std::ostream& out, JsonLayout layout) : out_(out), pretty
   buffer_.reserve(2 * kFlushBytes);
 }
 
+JsonStream::JsonStream(std::ostream& out, JsonLayout layout, std::size_t array_depth, bool first_element)
+    : JsonStream(out, layout) {
+  assert(array_depth > 0);
+  levels_.assign(array_depth, Level{false, false});
+  levels_.back().empty = first_element;
+}
+
 JsonStream::~JsonStream() { flush(); }
+
+JsonStream& JsonStream::elements(std::string_view written) {
+  assert(!levels_.empty() && !levels_.back().object && !after_key_);
+  if (written.empty()) return *this;
+  buffer_.append(written);
+  levels_.back().empty = false;
+  if (buffer_.size() >= kFlushBytes) flush();
+  return *this;
+}
 
 void JsonStream::flush() {
   out_.write(buffer_.data(), static_cast<std::streamsize>(buffer_.size()));

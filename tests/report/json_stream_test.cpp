@@ -4,6 +4,7 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <limits>
 #include <nlohmann/json.hpp>
 #include <sstream>
@@ -99,6 +100,61 @@ TEST(JsonStream, StreamedResultsOfAnExampleEqualTheTree) {
     std::ostringstream out;
     report::write_results_json(result, out, layout);
     EXPECT_EQ(nlohmann::json::parse(out.str()), tree);
+  }
+}
+
+// Elements written apart, by elements-only streams, and appended: the text of one stream,
+// in both layouts, whether the array already held elements or not.
+TEST(JsonStream, ElementsWrittenApartAreByteForByteThoseOfOneStream) {
+  for (auto layout : {JsonLayout::kCompact, JsonLayout::kPretty}) {
+    const auto one = written(layout, [](JsonStream& w) {
+      w.begin_object().key("list").begin_array();
+      for (int i = 0; i < 5; ++i)
+        w.begin_object().key("i").value(i).key("x").begin_array().value("t").end_array().end_object();
+      w.end_array().key("empty").begin_array().end_array().end_object();
+    });
+    const auto apart = written(layout, [layout](JsonStream& w) {
+      w.begin_object().key("list").begin_array();
+      for (int part = 0; part < 3; ++part) {
+        std::ostringstream text;
+        {
+          JsonStream p(text, layout, w.depth(), part == 0);
+          for (int i = 2 * part; i < std::min(5, 2 * part + 2); ++i)
+            p.begin_object().key("i").value(i).key("x").begin_array().value("t").end_array().end_object();
+        }
+        w.elements(text.str());
+      }
+      w.end_array().key("empty").begin_array().elements("").end_array().end_object();
+    });
+    EXPECT_EQ(apart, one);
+  }
+}
+
+// A register's results are rendered on two cores in blocks of SIFs and scenarios: the text is
+// byte for byte the one-core text, in both layouts, and holds the tree's keys and values.
+TEST(JsonStream, ResultsOfManySifsOnTwoCoresAreTheOneCoreText) {
+  auto result = verify_project(load_project_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40.json"));
+  ASSERT_FALSE(result.sifs.empty());
+  ASSERT_FALSE(result.scenarios.empty());
+  const auto sifs = result.sifs;
+  const auto scenarios = result.scenarios;
+  for (int copy = 1; result.sifs.size() < 700; ++copy) {  // several blocks of 128, the last one partial
+    for (auto s : sifs) {
+      s.id += "-" + std::to_string(copy);
+      result.sifs.push_back(std::move(s));
+    }
+    for (auto s : scenarios) {
+      s.id += "-" + std::to_string(copy);
+      result.scenarios.push_back(std::move(s));
+    }
+  }
+  const auto tree = report::results_json(result);
+  for (auto layout : {JsonLayout::kCompact, JsonLayout::kPretty}) {
+    std::ostringstream one, two;
+    report::write_results_json(result, one, layout, 1);
+    report::write_results_json(result, two, layout, 0);
+    EXPECT_EQ(two.str(), one.str());
+    EXPECT_EQ(nlohmann::json::parse(two.str()), tree);
   }
 }
 

@@ -16,7 +16,9 @@ nlohmann::json results_json(const ProjectResult& result);
 
 /// The same keys and values as results_json(result), streamed without a tree (a register of
 /// thousands of SIFs never sits in memory as JSON); compact unless `layout` asks for indents.
-void write_results_json(const ProjectResult& result, std::ostream& out, JsonLayout layout = JsonLayout::kCompact);
+/// The SIFs and scenarios are rendered on two cores unless `threads` is 1; the text is the same.
+void write_results_json(const ProjectResult& result, std::ostream& out, JsonLayout layout = JsonLayout::kCompact,
+                        int threads = 0);
 
 /// One SIF's results as JSON (also used by the what-if commands).
 nlohmann::json sif_json(const SifResult& sif);

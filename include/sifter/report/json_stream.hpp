@@ -18,6 +18,10 @@ enum class JsonLayout { kCompact, kPretty };
 class JsonStream {
  public:
   explicit JsonStream(std::ostream& out, JsonLayout layout = JsonLayout::kCompact);
+  /// A stream of elements only, for an array `array_depth` levels deep (the array counted),
+  /// after other elements unless `first_element`: its text, given to elements() of the stream
+  /// writing that array, is byte for byte what that stream would write for the same elements.
+  JsonStream(std::ostream& out, JsonLayout layout, std::size_t array_depth, bool first_element);
   ~JsonStream();  ///< flushes what is buffered
   JsonStream(const JsonStream&) = delete;
   JsonStream& operator=(const JsonStream&) = delete;
@@ -46,8 +50,16 @@ class JsonStream {
   /// An array of strings.
   JsonStream& value(const std::vector<std::string>& texts);
 
+  /// Appends elements written apart by an elements-only stream (above) as elements of the
+  /// current array.
+  JsonStream& elements(std::string_view written);
+
   /// Writes out what is buffered.
   void flush();
+
+  [[nodiscard]] JsonLayout layout() const { return pretty_ ? JsonLayout::kPretty : JsonLayout::kCompact; }
+  /// How many arrays and objects are open.
+  [[nodiscard]] std::size_t depth() const { return levels_.size(); }
 
  private:
   void before_value();
