@@ -178,6 +178,31 @@ TEST(FastJsonTree, AKeyGivenTwiceOrNestingTooDeepDeclinesSoTheScanReportsIt) {
   EXPECT_TRUE(detail::fast_json_tree(R"({"a": [1]})", 2));
 }
 
+// A long section directly under the root (4096 elements and more) is built on two cores: the
+// tree is still nlohmann's, and a key given twice or nesting too deep in either half declines.
+TEST(FastJsonTree, ALongSectionBuiltOnTwoCoresIsStillNlohmannsTree) {
+  const auto register_text = [](int n, int odd_one_at, const std::string& odd_one) {
+    std::string text = "{\"format\": \"x\", \"sifs\": [";
+    for (int i = 0; i < n; ++i)
+      text +=
+          (i ? ", " : "") + (i == odd_one_at ? odd_one
+                                             : "{\"id\": \"S" + std::to_string(i) + "\", \"n\": " + std::to_string(i) +
+                                                   ", \"x\": [" + std::to_string(i * 0.25) + ", -3, true, null]}");
+    return text + "], \"tail\": {\"a\": [1, 2]}}";
+  };
+  const std::string good = register_text(5000, -1, "");
+  ASSERT_TRUE(detail::fast_json_tree(good, kMaxNestingDepth));
+  expect_same_or_declined(good);
+  const std::string twice = "{\"id\": 1, \"id\": 2}";
+  const std::string deep = std::string(kMaxNestingDepth, '[') + std::string(kMaxNestingDepth, ']');
+  for (int at : {10, 4990}) {
+    SCOPED_TRACE(at);
+    EXPECT_FALSE(detail::fast_json_tree(register_text(5000, at, twice), kMaxNestingDepth));
+    EXPECT_FALSE(detail::fast_json_tree(register_text(5000, at, deep), kMaxNestingDepth));
+    EXPECT_EQ(scan_json_structure(register_text(5000, at, deep)).empty(), false) << "the scan refuses it too";
+  }
+}
+
 TEST(FastJsonTree, TheLoaderStillReportsADuplicateKeyWithItsPlace) {
   try {
     (void)load_project_text("{\n  \"format\": \"sifter-project/1\",\n  \"format\": \"sifter-project/1\"\n}", "dup.json",
