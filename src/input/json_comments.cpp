@@ -4,6 +4,9 @@
 namespace sifter {
 
 std::optional<CommentProblem> blank_json_comments(std::string& text) {
+  // A comment opens with "//" or "/*": a text with neither has none (a register, most often),
+  // and two searches for them are many times faster than the walk below.
+  if (text.find("//") == std::string::npos && text.find("/*") == std::string::npos) return std::nullopt;
   const std::size_t n = text.size();
   std::size_t i = 0;
   while (i < n) {

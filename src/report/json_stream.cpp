@@ -31,9 +31,9 @@ JsonStream::~JsonStream() { flush(); }
 JsonStream& JsonStream::elements(std::string_view written) {
   assert(!levels_.empty() && !levels_.back().object && !after_key_);
   if (written.empty()) return *this;
-  buffer_.append(written);
+  flush();  // what was written before them, then the elements straight to the output
+  out_.write(written.data(), static_cast<std::streamsize>(written.size()));
   levels_.back().empty = false;
-  if (buffer_.size() >= kFlushBytes) flush();
   return *this;
 }
 
