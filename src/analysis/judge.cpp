@@ -118,6 +118,7 @@ std::optional<bool> sif_verdict(const SifTarget& target, std::optional<double> f
   if (verdict && basis.route_2h_confidence) verdict = *verdict && *basis.route_2h_confidence >= kRoute2hMinConfidence;
   if (!basis.stated_requirements_met) verdict = false;  // a stated requirement not met: short, target or not
   if (!basis.figures_sound) verdict = false;            // no verdict rests on a defective figure
+  if (!basis.judged_within_validity) verdict = false;   // nor on a sum outside the equations' validity
   return verdict;
 }
 

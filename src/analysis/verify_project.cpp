@@ -218,18 +218,18 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
     out.sifs[i] = verify_sif(project, sif, it == requirements.end() ? std::nullopt : std::optional(it->second), options,
                              sif_warnings[i], cache);
   });
-  for (std::size_t i = 0; i < n; ++i) {
-    const Sif& sif = project.sifs[i];
+  for (std::size_t i = 0; i < n; ++i)
     out.warnings.insert(out.warnings.end(), sif_warnings[i].begin(), sif_warnings[i].end());
+  if (options.samples > 0) run_uncertainty(project, options, out);
+  // The scenarios take each SIF's figures and credit as they stand after the Monte Carlo, which
+  // may find a figure only a defect explains and withdraw the credit.
+  for (std::size_t i = 0; i < n; ++i) {
     const SifResult& r = out.sifs[i];
-    auto& figures = context.sifs[sif.id];
+    auto& figures = context.sifs[project.sifs[i].id];
     figures.pfd_avg = r.pfd_avg;
     if (r.pfh_per_hour) figures.pfh = Rate{*r.pfh_per_hour};
     figures.credit = r.credit_pfd;
     figures.credit_capped = r.credit_capped;
-  }
-  if (options.samples > 0) {
-    run_uncertainty(project, options, out);
   }
   if (!project.scenarios.empty()) {
     out.scenarios = evaluate_scenarios_on_cores(project, context, options.threads);

@@ -30,8 +30,9 @@ void note_defect(double lowest, CapFindings& found) {
   if (lowest >= kRoundingBelowZero) return;
   found.defect = true;
   found.messages.push_back(
-      "a probability of " + figure(lowest) +
-      " came out of the engines, below zero, which no probability is and no rounding explains; shown as 0, the "
+      "a figure of " + figure(lowest) +
+      " came out of the engines, below zero, which no probability or rate is and no rounding explains; shown as 0, "
+      "the "
       "SIF judged to fall short and credited nothing in its scenarios. This is a defect of sifter: report it "
       "with the project file");
 }
@@ -40,6 +41,7 @@ void note_defect(double lowest, CapFindings& found) {
 
 CapFindings cap_figures(SifResult& r) {
   CapFindings found;
+  found.judged_above_one = r.pfd_avg && *r.pfd_avg > 1.0;
   // IEC 61508-6:2010 B.2.2 sums the subsystems' PFDavg as a rare-event approximation of
   // 1 - prod(1 - PFD_i); the Annex B terms (lDU T1)^k grow without bound (seen). A sum above 1
   // means the approximation no longer holds: the probability is at most 1.

@@ -54,7 +54,7 @@ std::string read_file_bounded(const std::string& path, LoadContext* ctx, int sou
                    std::to_string(size / (1024 * 1024)) + " MiB", "split the register into several projects");
   std::ifstream in(path, std::ios::binary);
   if (!in) return problem("a readable file", "\"" + path + "\" cannot be opened", "check its permissions");
-  // Read in one piece into a text of the file's size (a stream copy costs a tenth of the parse);
+  // Read in one piece into a text of the file's size (a string stream would copy it twice more);
   // a file that grows meanwhile is read to its end all the same, within the bound.
   std::string text(ec ? 0 : static_cast<std::size_t>(size), '\0');
   in.read(text.data(), static_cast<std::streamsize>(text.size()));
@@ -66,6 +66,9 @@ std::string read_file_bounded(const std::string& path, LoadContext* ctx, int sou
       return problem("a file of at most " + std::to_string(kMaxInputBytes / (1024 * 1024)) + " MiB", "more than that",
                      "split the register into several projects");
   }
+  if (in.bad())  // a read that failed part way: never a text cut short
+    return problem("a readable file", "\"" + path + "\" could not be read to its end",
+                   "check the disk and the file's permissions");
   return text;
 }
 

@@ -1,5 +1,6 @@
 // SHA-256 as specified in FIPS 180-4, section 6.2; on x86-64 processors with the SHA
-// extensions, the compression runs on them (the same function, about ten times faster).
+// extensions, the compression runs on them (the same function; 10 MB in 6 ms against 37-49 ms
+// on the benchmark machine).
 #include "sifter/input/sha256.hpp"
 
 #include <array>
@@ -154,8 +155,11 @@ std::string sha256_hex_extensions(std::string_view bytes) {
 }  // namespace detail
 
 std::string sha256_hex(std::string_view bytes) {
-  static const bool extensions = detail::sha256_extensions_available();
-  return extensions ? detail::sha256_hex_extensions(bytes) : detail::sha256_hex_portable(bytes);
+#ifdef SIFTER_SHA_EXTENSIONS
+  static const bool extensions = detail::sha256_extensions_available();  // cpuid once: it traps in a VM
+  if (extensions) return digest(bytes, compress_blocks_sha_extensions);
+#endif
+  return digest(bytes, compress_blocks);
 }
 
 }  // namespace sifter

@@ -331,7 +331,6 @@ void emit_pressure(W& w, const PressureScreening& p) {
   w.end_object();
 }
 
-// The whole results file; the SIFs and scenarios are written one after another, never held.
 // The elements of a long array (the SIFs, the scenarios) written on two cores: blocks rendered
 // by elements-only streams, two at a time, and appended in order, so that the text is byte for
 // byte one stream's and no more than two blocks are held at once.
@@ -342,10 +341,12 @@ void emit_elements(JsonStream& w, const std::vector<T>& items, Emit emit, int th
     for (const auto& item : items) emit(w, item);
     return;
   }
-  auto render = [&](std::size_t b) {
+  const JsonLayout layout = w.layout();  // read here: the helper thread never touches `w`
+  const std::size_t depth = w.depth();
+  auto render = [&items, &emit, layout, depth](std::size_t b) {
     std::ostringstream text;
     {
-      JsonStream part(text, w.layout(), w.depth(), b == 0);
+      JsonStream part(text, layout, depth, b == 0);
       for (std::size_t i = b * kBlock; i < std::min(items.size(), (b + 1) * kBlock); ++i) emit(part, items[i]);
     }
     return std::move(text).str();
@@ -365,6 +366,7 @@ void emit_elements(TreeSink& w, const std::vector<T>& items, Emit emit, int /*th
   for (const auto& item : items) emit(w, item);
 }
 
+// The whole results file; the SIFs and scenarios go out block by block, never held whole.
 template <typename W>
 void emit_results(W& w, const ProjectResult& r, int threads = 1) {
   w.begin_object();

@@ -189,6 +189,27 @@ TEST(Probabilities, ASimplifiedSumAboveOneIsShownAsOneAndSaysWhy) {
     EXPECT_LE(s["mitigated_frequency_per_yr"].get<double>(), s["frequency_without_sif_per_yr"].get<double>());
 }
 
+// The simplified sum above 1 is shown as 1, and a PFDavg of 1 would meet the required PFD of 1
+// of a scenario that needs no SIF: the judge never passes a sum outside the equations'
+// validity, on the simplified figure alone (no exact cross-check) and whatever the target.
+TEST(Probabilities, AJudgedSumShownAsOneNeverPassesEvenWhereNoSifIsNeeded) {
+  json p = project();
+  p["scenarios"][0]["causes"][0]["frequency"] = "1e-5/yr";  // no SIF needed: required PFD 1
+  p["sifs"][0].erase("target");
+  p["components"][2]["lambda_du"] = "5e-4/h";  // lDU T1 = 4.4 over ten years
+  p["sifs"][0]["subsystems"][2]["proof_test_interval"] = "10 yr";
+  VerifyOptions simplified_only;
+  simplified_only.exact = false;
+  const ProjectResult r = verify_project(load_project_text(p.dump(), "p.json", "."), simplified_only);
+  const SifResult& sif = r.sifs[0];
+  ASSERT_TRUE(sif.required_pfd);
+  EXPECT_EQ(*sif.required_pfd, 1.0);
+  ASSERT_TRUE(sif.pfd_avg);
+  EXPECT_EQ(*sif.pfd_avg, 1.0) << "shown as at most 1";
+  EXPECT_TRUE(sif.judged_beyond_validity);
+  EXPECT_EQ(sif.meets_target, false) << "1 <= 1 would pass; a sum outside the equations never does";
+}
+
 TEST(CrossCheck, TheRatioIsWrittenWholeNeverCutToFiveCharacters) {
   const auto dir = fresh_folder("nsw_ratio");
   json p = project();

@@ -47,7 +47,8 @@ struct VerdictBasis {
   int sil_systematic = 4;
   bool stated_requirements_met = true;
   std::optional<double> route_2h_confidence;  ///< P(figure meets target), Route 2H with a Monte Carlo only
-  bool figures_sound = true;  ///< false: a figure only a defect explains (probability_cap.hpp); never a pass
+  bool figures_sound = true;           ///< false: a figure only a defect explains (probability_cap.hpp); never a pass
+  bool judged_within_validity = true;  ///< false: a judged sum above 1, shown as 1; never a pass
 };
 
 /// Route 2H asks at least this confidence that the target failure measure is met
@@ -58,7 +59,8 @@ inline constexpr double kRoute2hMinConfidence = 0.9;
 /// SC reaching the required SIL, every stated requirement met and, on Route 2H, the confidence.
 /// A stated requirement not met makes the SIF fall short even without a target; without a
 /// target and with every stated requirement met, it is not judged (std::nullopt). A SIF whose
-/// figures are not sound falls short, target or not. verify, every
+/// figures are not sound falls short, target or not, and so does one whose judged PFDavg was a
+/// simplified sum above 1 (shown as 1, which would otherwise meet a required PFD of 1). verify, every
 /// what-if (through verify_sif), each Monte Carlo sample and the writers take this verdict.
 std::optional<bool> sif_verdict(const SifTarget& target, std::optional<double> figure, const VerdictBasis& basis);
 

@@ -14,6 +14,7 @@ namespace sifter {
 struct CapFindings {
   std::vector<std::string> messages;
   bool defect = false;
+  bool judged_above_one = false;  ///< the judged PFDavg was a sum above 1, outside the equations' validity
 };
 
 /// Caps the SIF's and its subsystems' PFDavg figures (judged, simplified, exact, required) at 1

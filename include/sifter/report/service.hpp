@@ -19,9 +19,10 @@ inline constexpr const char* kSkewedPosteriorNote =
     "posterior puts most of its weight near zero and a long tail above it: its upper 90% says "
     "little. Read P(>design) and the observed 90% interval instead.";
 
-/// The models in service whose posterior upper 90 % lies below the mean, "A, B" in the result's
-/// order; empty when none. Every writer marks their bound with "*" and says, once under its
-/// table, these names and kSkewedPosteriorNote.
+/// The models in service (with devices: the terminal and the HTML show no others) whose
+/// posterior upper 90 % lies below the mean, "A, B" in the result's order; empty when none.
+/// Those writers mark the bound with "*" and say, once under the table, these names and
+/// kSkewedPosteriorNote. The JSON and the CSV carry the flag for every model.
 std::string skewed_posterior_models(const ServiceResult& result);
 
 /// The assessment for a person at an 80-column terminal, with the caution.
