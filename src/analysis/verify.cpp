@@ -167,7 +167,7 @@ VerdictBasis verdict_basis(const SifResult& r, std::optional<double> route_2h_co
                                               [](const RequirementCheck& c) { return c.ok; });
   if (r.constraints == ConstraintBasis::kRoute2H) basis.route_2h_confidence = route_2h_confidence;
   basis.figures_sound = !r.figures_defective;
-  basis.judged_within_validity = !r.judged_beyond_validity;
+  basis.judged_within_validity = !r.judged_sum_above_one;
   return basis;
 }
 
@@ -187,7 +187,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   if (options.exact && complete) apply_exact_cross_check(project, sif, r, warnings, cache);
   if (complete) choose_judged_figures(project, sif, r);
   const CapFindings capped = cap_figures(r);  // the judge, the SIL and the credit see figures in [0, 1]
-  r.judged_beyond_validity = capped.judged_above_one;
+  r.judged_sum_above_one = capped.judged_above_one;
   apply_probability(r);
   if (capped.defect) declare_defective(r);
   add_spurious_trips(project, sif, r);

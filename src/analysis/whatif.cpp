@@ -91,6 +91,16 @@ std::optional<double> sif_measure(const SifResult& r) {
   return r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
 }
 
+namespace {
+
+// What the interval solver holds against the allowed value: the SIF's figure, or the sum above
+// 1 that the judge never passes (the figure shown as 1 would meet a required PFD of 1).
+std::optional<double> solver_measure(const SifResult& r) {
+  return r.judged_sum_above_one ? r.judged_sum_above_one : sif_measure(r);
+}
+
+}  // namespace
+
 std::optional<Requirement> governing_requirement(const SifResult& r) {
   Requirement q;
   q.mode = r.demand_mode;
@@ -135,6 +145,16 @@ void solve_interval(IntervalResult& out, const Measure& measure_at, double allow
   out.measure_at_zero = measure_at(0.0);
   const double at_top = measure_at(top);
   const char* m = out.requirement.mode == DemandMode::kLow ? "PFDavg" : "PFH";
+  if (out.requirement.mode == DemandMode::kLow && out.measure_at_zero > 1.0) {
+    // A sum above 1 over the subsystems (solver_measure): shown as 1, never a pass.
+    out.outcome = IntervalOutcome::kNone;
+    out.notes.push_back("even with an interval of zero the subsystems' PFDavg sum to " +
+                        sifter::figure(out.measure_at_zero) +
+                        ", outside the validity of the rare-event sum (shown as 1): the SIF is judged short "
+                        "whatever the interval");
+    out.measure_at_zero = 1.0;
+    return;
+  }
   if (out.measure_at_zero > allowed) {
     out.outcome = IntervalOutcome::kNone;
     out.notes.push_back("even with an interval of zero the SIF's " + std::string(m) + " is " +
@@ -194,7 +214,7 @@ IntervalResult longest_proof_test_interval(const WhatIf& what_if, std::size_t si
   const auto requirement = governing_requirement(now);
   if (!requirement)
     throw UsageError(s.id + " has no target and no scenario that credits it; there is no requirement to solve against");
-  const auto measure_now = sif_measure(now);
+  const auto measure_now = sif_measure(now);  // as shown; the solver measures solver_measure
   if (!measure_now) throw UsageError(s.id + " cannot be verified (a supplier figure is missing for its demand mode)");
 
   IntervalResult out;
@@ -212,7 +232,7 @@ IntervalResult longest_proof_test_interval(const WhatIf& what_if, std::size_t si
   Sif variant = s;  // only this SIF's intervals change: the project is not copied per step
   auto measure_at = [&](double hours) {
     for (auto i : vary) variant.subsystems[i].proof_test_interval = Duration{hours};
-    return sif_measure(what_if.verify_variant(variant)).value_or(0.0);
+    return solver_measure(what_if.verify_variant(variant)).value_or(0.0);
   };
   solve_interval(out, measure_at, allowed_for_solver(*requirement, out.allowed));
   add_context_notes(out, s, now);

@@ -5,6 +5,7 @@
 #include <cstdio>
 #include <limits>
 
+#include "sifter/engines/sil.hpp"
 #include "sifter/model/format.hpp"
 
 namespace sifter {
@@ -41,19 +42,28 @@ void note_defect(double lowest, CapFindings& found) {
 
 CapFindings cap_figures(SifResult& r) {
   CapFindings found;
-  found.judged_above_one = r.pfd_avg && *r.pfd_avg > 1.0;
   // IEC 61508-6:2010 B.2.2 sums the subsystems' PFDavg as a rare-event approximation of
   // 1 - prod(1 - PFD_i); the Annex B terms (lDU T1)^k grow without bound (seen). A sum above 1
-  // means the approximation no longer holds: the probability is at most 1.
+  // means the approximation no longer holds: the probability is at most 1. The judged figure
+  // (the sum of the subsystems' judged figures, simplified, exact or the supplier's) is checked
+  // with the judge's tolerance, so that a 1 written as 1 + 1e-16 is not taken for a sum above 1.
+  if (r.pfd_avg && *r.pfd_avg > 1.0 * (1.0 + kEdgeRelTol)) found.judged_above_one = *r.pfd_avg;
+  const char* short_whatever = "; the SIF is judged short whatever its target";
   const std::optional<double> simplified = r.pfd_avg_simplified ? r.pfd_avg_simplified : r.pfd_avg;
   if (simplified && *simplified > 1.0)
     found.messages.push_back(
         "the simplified PFDavg sums to " + figure(*simplified) +
         ", outside the validity of the IEC 61508-6 Annex B equations; shown as at most 1 (a probability "
         "is at most 1)" +
-        (r.pfd_avg_exact
+        (found.judged_above_one ? std::string(short_whatever)
+         : r.pfd_avg_exact
              ? "; the verdict rests on the exact engine, which gives " + figure(std::min(1.0, *r.pfd_avg_exact))
-             : ""));
+             : std::string()));
+  else if (found.judged_above_one)
+    found.messages.push_back("the judged PFDavg sums to " + figure(*found.judged_above_one) +
+                             " over the subsystems, outside the validity of the rare-event sum of IEC 61508-6:2010 "
+                             "B.2.2; shown as 1" +
+                             short_whatever);
   constexpr double kNoTop = std::numeric_limits<double>::infinity();  // a PFH is a rate, not a probability
   double lowest = 0.0;
   for (auto* p : {&r.pfd_avg, &r.pfd_avg_simplified, &r.pfd_avg_exact, &r.required_pfd}) cap(*p, lowest);

@@ -16,6 +16,7 @@
 #include <random>
 
 #include "sifter/analysis/verify.hpp"
+#include "sifter/analysis/whatif.hpp"
 #include "sifter/input/load.hpp"
 #include "sifter/model/printable.hpp"
 #include "sifter/report/json_results.hpp"
@@ -196,7 +197,7 @@ TEST(Probabilities, AJudgedSumShownAsOneNeverPassesEvenWhereNoSifIsNeeded) {
   json p = project();
   p["scenarios"][0]["causes"][0]["frequency"] = "1e-5/yr";  // no SIF needed: required PFD 1
   p["sifs"][0].erase("target");
-  p["components"][2]["lambda_du"] = "5e-4/h";  // lDU T1 = 4.4 over ten years
+  p["components"][2]["lambda_du"] = "5e-4/h";  // lDU T1 = 43.8 over ten years
   p["sifs"][0]["subsystems"][2]["proof_test_interval"] = "10 yr";
   VerifyOptions simplified_only;
   simplified_only.exact = false;
@@ -206,8 +207,38 @@ TEST(Probabilities, AJudgedSumShownAsOneNeverPassesEvenWhereNoSifIsNeeded) {
   EXPECT_EQ(*sif.required_pfd, 1.0);
   ASSERT_TRUE(sif.pfd_avg);
   EXPECT_EQ(*sif.pfd_avg, 1.0) << "shown as at most 1";
-  EXPECT_TRUE(sif.judged_beyond_validity);
+  ASSERT_TRUE(sif.judged_sum_above_one);
+  EXPECT_GT(*sif.judged_sum_above_one, 1.0);
   EXPECT_EQ(sif.meets_target, false) << "1 <= 1 would pass; a sum outside the equations never does";
+  bool said = false;
+  for (const auto& w : sif.warnings) said = said || w.find("judged short whatever its target") != std::string::npos;
+  EXPECT_TRUE(said) << "the SIF's block says why it falls short";
+}
+
+// Two supplier figures whose sum exceeds 1, where no SIF is needed: check finds the SIF short,
+// and so does the longest-interval solver, which measures the sum, not the 1 it is shown as
+// (no interval of the valve can bring it down).
+TEST(Probabilities, TheIntervalSolverAgreesThatASumAboveOneFallsShort) {
+  json p = project();
+  p["scenarios"][0]["causes"][0]["frequency"] = "1e-5/yr";  // no SIF needed: required PFD 1
+  p["sifs"][0].erase("target");
+  for (int i : {0, 1})
+    p["sifs"][0]["subsystems"][i] = {{"name", i == 0 ? "sensor" : "logic"},
+                                     {"role", i == 0 ? "sensor" : "logic"},
+                                     {"pfd_avg", 0.6},
+                                     {"hft", 0},
+                                     {"systematic_capability", 3}};
+  const LoadedProject loaded = load_project_text(p.dump(), "p.json", ".");
+  const ProjectResult checked_result = verify_project(loaded);
+  ASSERT_TRUE(checked_result.sifs[0].judged_sum_above_one);
+  EXPECT_EQ(checked_result.sifs[0].meets_target, false);
+  const WhatIf what_if(loaded.project);
+  const IntervalResult interval = longest_proof_test_interval(what_if, 0, std::nullopt, 0.0);
+  EXPECT_EQ(interval.outcome, IntervalOutcome::kNone) << "not 'every interval meets it'";
+  EXPECT_EQ(interval.measure_at_zero, 1.0) << "never a probability above 1 in what is shown";
+  EXPECT_LE(interval.measure_now, 1.0);
+  ASSERT_FALSE(interval.notes.empty());
+  EXPECT_NE(interval.notes[0].find("judged short whatever the interval"), std::string::npos) << interval.notes[0];
 }
 
 TEST(CrossCheck, TheRatioIsWrittenWholeNeverCutToFiveCharacters) {

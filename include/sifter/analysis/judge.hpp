@@ -60,7 +60,7 @@ inline constexpr double kRoute2hMinConfidence = 0.9;
 /// A stated requirement not met makes the SIF fall short even without a target; without a
 /// target and with every stated requirement met, it is not judged (std::nullopt). A SIF whose
 /// figures are not sound falls short, target or not, and so does one whose judged PFDavg was a
-/// simplified sum above 1 (shown as 1, which would otherwise meet a required PFD of 1). verify, every
+/// sum above 1 over its subsystems (shown as 1, which would otherwise meet a required PFD of 1). verify, every
 /// what-if (through verify_sif), each Monte Carlo sample and the writers take this verdict.
 std::optional<bool> sif_verdict(const SifTarget& target, std::optional<double> figure, const VerdictBasis& basis);
 

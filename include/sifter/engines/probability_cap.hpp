@@ -2,6 +2,7 @@
 /// No probability outside [0, 1] reaches the judge: where the simplified equations of
 /// IEC 61508-6 Annex B (a rare-event sum) give a PFDavg above 1 they are outside their validity,
 /// and a figure below zero that no rounding explains is a defect of sifter.
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -14,7 +15,9 @@ namespace sifter {
 struct CapFindings {
   std::vector<std::string> messages;
   bool defect = false;
-  bool judged_above_one = false;  ///< the judged PFDavg was a sum above 1, outside the equations' validity
+  /// The judged PFDavg as summed over the subsystems, where it was above 1 (beyond rounding):
+  /// outside the validity of the rare-event sum.
+  std::optional<double> judged_above_one;
 };
 
 /// Caps the SIF's and its subsystems' PFDavg figures (judged, simplified, exact, required) at 1

@@ -164,9 +164,10 @@ struct SifResult {
   /// A figure below zero that no rounding explains came out of the engines (a defect of sifter):
   /// the SIF is judged short and credited nothing (probability_cap.hpp).
   bool figures_defective = false;
-  /// The judged PFDavg was a simplified sum above 1, outside the validity of the equations, and
-  /// is shown as 1: the judge never passes it, whatever the target (probability_cap.hpp).
-  bool judged_beyond_validity = false;
+  /// The judged PFDavg as summed over the subsystems, where it was above 1: outside the validity
+  /// of the rare-event sum, it is shown as 1, and the judge never passes it, whatever the target
+  /// (probability_cap.hpp). The longest-interval solver measures this sum.
+  std::optional<double> judged_sum_above_one;
 };
 
 /// The value a SIF's figure must not exceed, as verify judges it: the required PFDavg (or PFH)
