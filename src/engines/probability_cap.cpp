@@ -32,10 +32,9 @@ void note_defect(double lowest, CapFindings& found) {
   found.defect = true;
   found.messages.push_back(
       "a figure of " + figure(lowest) +
-      " came out of the engines, below zero, which no probability or rate is and no rounding explains; shown as 0, "
-      "the "
-      "SIF judged to fall short and credited nothing in its scenarios. This is a defect of sifter: report it "
-      "with the project file");
+      " came out of the engines, below zero, which no probability or rate is and no rounding explains; "
+      "shown as 0, the SIF judged to fall short and credited nothing in its scenarios. This is a defect "
+      "of sifter: report it with the project file");
 }
 
 }  // namespace

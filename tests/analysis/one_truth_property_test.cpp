@@ -236,6 +236,73 @@ TEST(OneTruthProperty, ThreeHundredGeneratedProjectsKeepTheVerdictTheCreditAndTh
   EXPECT_GE(with_monte_carlo, 40);
 }
 
+// ---- The cap before the judge, and the interval solver against check -----------------------
+
+// Generated projects pushed outside the equations' validity (valves of high rates tested
+// rarely, at times a logic solver's supplier figure of 0.3 to 0.9) and at times needing no SIF:
+// whatever check decides, every figure it shows is a probability, a judged sum above 1 never
+// passes, and the longest-interval solver agrees with check at the current intervals.
+TEST(OneTruthProperty, SumsAboveOneNeverPassAndTheIntervalSolverAgreesWithCheck) {
+  std::mt19937 rng(20261203);
+  int above_one = 0, solved = 0;
+  for (int trial = 0; trial < 120; ++trial) {
+    json p = generated_project(rng, 1);  // trial 1: no uncertainty, so no Monte Carlo
+    std::uniform_real_distribution<double> u(0.0, 1.0);
+    p["components"][4]["lambda_du"] = text(std::pow(10.0, -6 + 3.5 * u(rng))) + "/h";
+    if (u(rng) < 0.4)
+      p["sifs"][0]["subsystems"][1] = {{"name", "logic"},
+                                       {"role", "logic"},
+                                       {"pfd_avg", 0.3 + 0.6 * u(rng)},
+                                       {"hft", 0},
+                                       {"systematic_capability", 3}};
+    if (u(rng) < 0.5) {  // a scenario that needs no SIF: required PFD 1
+      p["scenarios"][0]["causes"][0]["frequency"] = "1e-6/yr";
+      p["sifs"][0].erase("target");
+      p["sifs"][0].erase("demand_mode");
+    }
+    LoadedProject loaded;
+    ProjectResult result;
+    try {
+      loaded = load_project_text(p.dump(), "generated.json", ".");
+      result = verify_project(loaded);
+    } catch (const InputError&) {
+      continue;  // a stated mode the LOPA contradicts is refused: not a verdict to check
+    }
+    const SifResult& sif = result.sifs[0];
+    const std::string name = "trial " + std::to_string(trial);
+    for (const auto& v : {sif.pfd_avg, sif.pfd_avg_simplified, sif.pfd_avg_exact, sif.credit_pfd})
+      if (v) {
+        EXPECT_TRUE(*v >= 0.0 && *v <= 1.0) << name << ": " << *v;
+      }
+    if (sif.judged_sum_above_one) {
+      ++above_one;
+      EXPECT_EQ(sif.meets_target, false) << name;
+    }
+    if (sif.demand_mode != DemandMode::kLow || !sif.meets_target.has_value()) continue;
+    const WhatIf what_if(loaded.project);
+    IntervalResult interval;
+    try {
+      interval = longest_proof_test_interval(what_if, 0, std::nullopt, 0.0);
+    } catch (const UsageError&) {
+      continue;
+    }
+    ++solved;
+    EXPECT_LE(interval.measure_at_zero, 1.0) << name;
+    EXPECT_LE(interval.measure_now, 1.0) << name;
+    // The figure alone decides the interval (check also weighs architecture and SC), and it
+    // grows with the interval. A SIF whose sum is above 1 at its current intervals cannot be
+    // told that intervals as long as all of them meet the requirement.
+    if (sif.judged_sum_above_one) {
+      const bool some_current_longer =
+          std::any_of(interval.current_intervals.begin(), interval.current_intervals.end(),
+                      [&](const Duration& d) { return d.hours > interval.longest.hours * (1.0 + 1e-9); });
+      EXPECT_TRUE(interval.outcome == IntervalOutcome::kNone || some_current_longer) << name;
+    }
+  }
+  EXPECT_GE(above_one, 5) << "the generator should leave the equations' validity often";
+  EXPECT_GE(solved, 40);
+}
+
 // ---- Sensitivity against check on the edited file ---------------------------------------
 
 // A 1oo2 of two different transmitters (invented rates), a logic solver and a valve bypassed
