@@ -16,9 +16,9 @@ work="${3:-$(mktemp -d)}"
 mkdir -p "$work/corpus" "$work/findings"
 # The seeds: the examples, every test project (good and bad), earlier findings, and the
 # shipped component library. Only the first folder (the work corpus) is written to.
-# Per input at most 30 s: the seed tests/data/good/one_minute_proof_test.json (175,200 proof
-# tests over the mission, a bounded-work case whose release time a unit test holds under a
-# second) takes 10-20 s through the whole check path under the sanitizer and coverage
+# Per input at most 30 s: the seed tests/data/good/one_minute_proof_test.json (a one-minute
+# proof test over the mission, a bounded-work case whose release time a unit test holds under
+# a second) takes 10-20 s through the whole check path under the sanitizer and coverage
 # instrumentation, and a limit of 10 s flagged it as slow in one of two CI runs.
 status=0
 "$binary" -max_total_time="$seconds" -timeout=30 -report_slow_units=30 -rss_limit_mb=2048 -max_len=16384 -print_final_stats=1 \
