@@ -4,15 +4,12 @@
 #include <algorithm>
 #include <array>
 #include <iterator>
+#include <string_view>
+#include <unordered_map>
 #include <unordered_set>
+#include <utility>
 
 namespace sifter {
-
-DependencyGraph::DependencyGraph(const Project& project) {
-  for (const auto& c : project.components) add_component(c.id);
-  for (const auto& s : project.sifs) add_sif(project, s);
-  for (const auto& sc : project.scenarios) add_scenario(project, sc);
-}
 
 DependencyGraph::Vertex DependencyGraph::add_vertex(DependencyKind kind, const std::string& name) {
   return boost::add_vertex(Node{kind, name}, graph_);
@@ -148,49 +145,78 @@ std::vector<std::string> DependencyGraph::common_devices(Vertex a, Vertex b) con
   return common;
 }
 
-std::vector<SharedDevice> DependencyGraph::shared_devices() const {
-  // Walk forward once from every user and invert, by vertex index: cheaper than a backward
-  // walk per device, and no device's name is copied unless two parties rely on it.
-  const std::size_t n = boost::num_vertices(graph_);
-  std::vector<std::vector<Vertex>> users_of(n);  // device vertex -> users, in the order met
-  std::vector<std::size_t> walked(n, 0);         // the walk (1-based) that last reached a vertex
-  std::vector<Vertex> stack;
-  std::size_t walk = 0;
-  auto collect = [&](DependencyKind kind) {
-    for (auto [v, end] = boost::vertices(graph_); v != end; ++v) {
-      if (graph_[*v].kind != kind) continue;
-      ++walk;
-      walked[*v] = walk;
-      stack.assign(1, *v);
-      while (!stack.empty()) {  // the walk of reach_devices(v, false), with marks kept between walks
-        const Vertex u = stack.back();
-        stack.pop_back();
-        if (graph_[u].kind == DependencyKind::kDevice) users_of[u].push_back(*v);
-        if (u != *v && graph_[u].kind == DependencyKind::kSif) continue;
-        for (auto [e, e_end] = boost::out_edges(u, graph_); e != e_end; ++e) {
-          const Vertex w = boost::target(*e, graph_);
-          if (walked[w] != walk) {
-            walked[w] = walk;
-            stack.push_back(w);
-          }
-        }
-      }
-    }
-  };
-  // SIFs first, then scenarios, each in the order they were added (project order).
-  collect(DependencyKind::kSif);
-  collect(DependencyKind::kScenario);
-  std::vector<SharedDevice> shared;
-  for (Vertex d = 0; d < n; ++d) {
-    if (users_of[d].size() < 2) continue;
-    SharedDevice device{graph_[d].name, {}};
-    for (Vertex u : users_of[d]) device.users.push_back(graph_[u].name);
-    shared.push_back(std::move(device));
+namespace {
+
+// The devices of a project by number: a component's device is the component's own index (its
+// tag is its id), and a tag no component has is numbered after them on first use.
+class DeviceNumbers {
+ public:
+  explicit DeviceNumbers(const Project& project) {
+    index_.reserve(project.components.size() * 2);
+    for (const auto& c : project.components) number(c.id);
   }
+  std::size_t number(std::string_view tag) {
+    auto [it, inserted] = index_.try_emplace(tag, tags_.size());
+    if (inserted) tags_.push_back(tag);
+    return it->second;
+  }
+  [[nodiscard]] std::string_view tag(std::size_t d) const { return tags_[d]; }
+  [[nodiscard]] std::size_t size() const { return tags_.size(); }
+
+ private:
+  std::unordered_map<std::string_view, std::size_t> index_;
+  std::vector<std::string_view> tags_;
+};
+
+}  // namespace
+
+// Each party's devices are one step away (a SIF's through its components, a scenario's as its
+// causes and layers list them; a scenario does not count the devices of a SIF it credits), so
+// no walk is needed: every (device, party) pair is listed once, in party order, and counted.
+// The same reliance as the graph's edges above, without building a graph of the whole project.
+std::vector<SharedDevice> shared_devices(const Project& project) {
+  DeviceNumbers devices(project);
+  std::vector<std::pair<std::size_t, std::size_t>> uses;  // (device, party), parties in order
+  std::vector<std::size_t> last_party;                    // per device: 1 + the last party listed
+  std::size_t party = 0;
+  auto use = [&](std::size_t d) {
+    if (d >= last_party.size()) last_party.resize(devices.size(), 0);
+    if (last_party[d] == party + 1) return;  // listed twice by one party: one use
+    last_party[d] = party + 1;
+    uses.emplace_back(d, party);
+  };
+  const std::size_t n_components = project.components.size();
+  for (const auto& sif : project.sifs) {
+    for (const auto& sub : sif.subsystems)
+      for (const auto& channel : sub.channels)
+        for (std::size_t index : channel.components)
+          if (index < n_components) use(index);
+    ++party;
+  }
+  for (const auto& scenario : project.scenarios) {
+    for (const auto& cause : scenario.causes)
+      for (const auto& tag : cause.devices) use(devices.number(tag));
+    for (const auto& layer : scenario.layers)
+      for (const auto& tag : layer.devices) use(devices.number(tag));
+    ++party;
+  }
+  std::vector<std::size_t> count(devices.size(), 0);
+  for (const auto& [d, p] : uses) ++count[d];
+  std::vector<std::size_t> slot(devices.size(), 0);
+  std::vector<SharedDevice> shared;
+  for (std::size_t d = 0; d < devices.size(); ++d) {
+    if (count[d] < 2) continue;
+    slot[d] = shared.size();
+    shared.push_back({std::string(devices.tag(d)), {}});
+    shared.back().users.reserve(count[d]);
+  }
+  auto party_name = [&](std::size_t p) -> const std::string& {
+    return p < project.sifs.size() ? project.sifs[p].id : project.scenarios[p - project.sifs.size()].id;
+  };
+  for (const auto& [d, p] : uses)
+    if (count[d] >= 2) shared[slot[d]].users.push_back(party_name(p));
   std::sort(shared.begin(), shared.end(), [](const SharedDevice& a, const SharedDevice& b) { return a.tag < b.tag; });
   return shared;
 }
-
-std::vector<SharedDevice> shared_devices(const Project& project) { return DependencyGraph(project).shared_devices(); }
 
 }  // namespace sifter

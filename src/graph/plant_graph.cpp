@@ -1,9 +1,12 @@
 // The signal-flow graph of the SIFs: construction, validation and shared components.
 #include "sifter/graph/plant_graph.hpp"
 
-#include <map>
+#include <algorithm>
 #include <set>
+#include <string_view>
+#include <tuple>
 #include <unordered_map>
+#include <utility>
 
 #include "sifter/model/diagnostics.hpp"
 
@@ -36,6 +39,7 @@ void PlantGraph::add_sif(const Project& project, std::size_t s) {
       const Channel& ch = sub.channels[c];
       for (std::size_t e = 0; e < ch.component_ids.size(); ++e) {
         auto it = by_id.find(ch.component_ids[e]);
+        resolved_.push_back(it == by_id.end() ? kUnresolved : it->second);
         if (it == by_id.end()) {
           if (ids.empty())
             for (const auto& comp : project.components) ids.push_back(comp.id);
@@ -57,10 +61,9 @@ void PlantGraph::check_groups(const Project& project) {
     if (pv.kind != VertexKind::kGroup) continue;
     const Subsystem& sub = project.sifs[pv.sif].subsystems[pv.subsystem];
     if (sub.is_vendor()) continue;
-    std::vector<PlantGraphType::vertex_descriptor> channels;
+    int n_channels = 0;
     for (auto e : boost::make_iterator_range(boost::out_edges(v, graph_)))
-      if (graph_[boost::target(e, graph_)].kind == VertexKind::kChannel) channels.push_back(boost::target(e, graph_));
-    const auto n_channels = static_cast<int>(channels.size());
+      if (graph_[boost::target(e, graph_)].kind == VertexKind::kChannel) ++n_channels;
     if (n_channels == 0) {
       problems_.push_back({sub.pointer, "a subsystem with channels, or a vendor \"pfd_avg\" or \"pfh\"", "no channels",
                            "list the component ids under \"channels\""});
@@ -73,18 +76,43 @@ void PlantGraph::check_groups(const Project& project) {
       problems_.push_back({sub.pointer + "/channels",
                            std::to_string(sub.vote.n) + " channels for vote " + sub.vote.text(),
                            std::to_string(n_channels) + " channels", "make the vote's N equal to the channel count"});
-    // A component used twice in the group is reported where it is written the second time.
-    std::map<std::string, std::string> first_use;
-    for (const auto& ch : sub.channels)
-      for (std::size_t e = 0; e < ch.component_ids.size(); ++e) {
-        const std::string place = ch.component_ids.size() > 1 ? ch.pointer + "/" + std::to_string(e) : ch.pointer;
-        auto [at, fresh] = first_use.emplace(ch.component_ids[e], place);
-        if (!fresh)
-          problems_.push_back({place, "each component once in a group",
-                               "\"" + ch.component_ids[e] + "\" again (first at " + at->second + ")",
-                               "redundant channels need their own devices"});
-      }
+    report_repeated_components(sub);
   }
+}
+
+void PlantGraph::report_repeated_components(const Subsystem& sub) {
+  // A component used twice in the group is reported where it is written the second time, in
+  // the order written. The ids are sorted (stably, so the first use of each leads its run) and
+  // places are written out only for a repeat.
+  struct Use {
+    std::string_view id;
+    std::size_t channel;
+    std::size_t element;
+  };
+  std::vector<Use> uses;
+  for (std::size_t c = 0; c < sub.channels.size(); ++c)
+    for (std::size_t e = 0; e < sub.channels[c].component_ids.size(); ++e)
+      uses.push_back({sub.channels[c].component_ids[e], c, e});
+  std::stable_sort(uses.begin(), uses.end(), [](const Use& a, const Use& b) { return a.id < b.id; });
+  std::vector<std::pair<Use, Use>> repeats;  // (repeat, first use)
+  for (std::size_t i = 1, first = 0; i < uses.size(); ++i) {
+    if (uses[i].id != uses[first].id) {
+      first = i;
+      continue;
+    }
+    repeats.emplace_back(uses[i], uses[first]);
+  }
+  std::sort(repeats.begin(), repeats.end(), [](const auto& a, const auto& b) {
+    return std::tie(a.first.channel, a.first.element) < std::tie(b.first.channel, b.first.element);
+  });
+  auto place = [&sub](const Use& u) {
+    const Channel& ch = sub.channels[u.channel];
+    return ch.component_ids.size() > 1 ? ch.pointer + "/" + std::to_string(u.element) : ch.pointer;
+  };
+  for (const auto& [repeat, first] : repeats)
+    problems_.push_back({place(repeat), "each component once in a group",
+                         "\"" + std::string(repeat.id) + "\" again (first at " + place(first) + ")",
+                         "redundant channels need their own devices"});
 }
 
 std::vector<SharedComponent> PlantGraph::shared_components() const {
@@ -128,12 +156,16 @@ std::vector<GraphProblem> adopt_project_graph(Project& project, std::shared_ptr<
   const PlantGraph& graph = *built;
   if (!graph.problems().empty()) return graph.problems();
   if (keep) *keep = std::move(built);
-  // Resolve ids into indices now that every one is known (the graph's index of them).
+  // Resolve ids into indices now that every one is known: the graph resolved them as it was
+  // built, in this order.
+  std::size_t next = 0;
   for (auto& sif : project.sifs)
     for (auto& sub : sif.subsystems)
       for (auto& ch : sub.channels) {
-        ch.components.clear();
-        for (const auto& id : ch.component_ids) ch.components.push_back(graph.component_index(id));
+        ch.components.assign(
+            graph.resolved_ids().begin() + static_cast<std::ptrdiff_t>(next),
+            graph.resolved_ids().begin() + static_cast<std::ptrdiff_t>(next + ch.component_ids.size()));
+        next += ch.component_ids.size();
       }
   return {};
 }

@@ -4,6 +4,9 @@
 #include <gtest/gtest.h>
 
 #include <algorithm>
+#include <map>
+#include <random>
+#include <string>
 
 #include "support/lopa_fixtures.hpp"
 
@@ -97,7 +100,7 @@ TEST(DependencyGraph, SharedDevicesNameEverySifAndScenarioRelyingOnThem) {
   EXPECT_EQ(shared[2].users, (Tags{"SIF-1", "SIF-2"}));
 }
 
-TEST(DependencyGraph, WholeProjectGraphHoldsEveryParty) {
+TEST(DependencyGraph, AScenarioCreditingASifHoldsEveryParty) {
   Project p;
   add_sif(p, "SIF-1", {"PT-1"});
   Scenario s;
@@ -105,10 +108,78 @@ TEST(DependencyGraph, WholeProjectGraphHoldsEveryParty) {
   s.causes = {cause("C1", 0.1, {"PT-1"})};
   s.layers = {sif_layer("SIF-1")};
   p.scenarios = {s};
-  const DependencyGraph g(p);
+  DependencyGraph g;
+  const auto v = g.add_scenario(p, s);
   // device PT-1, component PT-1, SIF-1, scenario S1, cause, layer
   EXPECT_EQ(g.vertex_count(), 6u);
-  EXPECT_EQ(g.shared_devices().size(), 1u);
+  EXPECT_EQ(g.common_devices(v.causes[0], v.layers[0]), (Tags{"PT-1"}));
+  EXPECT_EQ(shared_devices(p).size(), 1u) << "PT-1: SIF-1 through its component, S1 through its cause";
+}
+
+// shared_devices counts the reliance without a graph of the whole project. Held here against
+// the graph's own walks on generated projects: each SIF's devices as devices_of its vertex, each
+// scenario's as devices_of its vertex with its SIF layers' credit removed (a scenario does not
+// count the devices of a SIF it credits). Tags are drawn from a small pool so that components,
+// causes and layers share them often, and a party lists some tags twice.
+TEST(DependencyGraph, SharedDevicesAreThoseTheGraphsWalksReachFromTwoParties) {
+  std::mt19937 rng(20261203);
+  auto pick = [&rng](int n) { return static_cast<std::size_t>(std::uniform_int_distribution<int>(0, n - 1)(rng)); };
+  for (int round = 0; round < 40; ++round) {
+    Project p;
+    const int pool = 6 + static_cast<int>(pick(20));
+    auto tag = [&](std::size_t i) { return "T-" + std::to_string(i); };
+    for (int c = 0; c < pool; ++c)
+      p.components.push_back([&] {
+        Component k;
+        k.id = tag(static_cast<std::size_t>(c));
+        return k;
+      }());
+    for (int i = 0, n = 1 + static_cast<int>(pick(8)); i < n; ++i) {
+      Sif sif;
+      sif.id = "SIF-" + std::to_string(i);
+      for (int g = 0, groups = 1 + static_cast<int>(pick(3)); g < groups; ++g) {
+        Subsystem sub;
+        for (int ch = 0, channels = 1 + static_cast<int>(pick(3)); ch < channels; ++ch) {
+          Channel channel;
+          for (int e = 0, elements = 1 + static_cast<int>(pick(2)); e < elements; ++e)
+            channel.components.push_back(pick(pool));
+          sub.channels.push_back(channel);
+        }
+        sif.subsystems.push_back(sub);
+      }
+      p.sifs.push_back(sif);
+    }
+    auto tags = [&](int most) {  // tags of components and tags only scenarios list
+      Tags out;
+      for (int i = 0, n = static_cast<int>(pick(most + 1)); i < n; ++i) out.push_back(tag(pick(pool + 5)));
+      return out;
+    };
+    for (int i = 0, n = static_cast<int>(pick(7)); i < n; ++i) {
+      Scenario s;
+      s.id = "S-" + std::to_string(i);
+      s.causes = {cause("C1", 0.1, tags(3))};
+      s.layers = {layer("IPL-1", LayerKind::kBpcsFunction, 0.1, tags(3))};
+      if (pick(2) == 0) s.layers.push_back(sif_layer(p.sifs[pick(static_cast<int>(p.sifs.size()))].id));
+      p.scenarios.push_back(s);
+    }
+    std::map<std::string, Tags> expected;  // tag -> users, in party order
+    DependencyGraph g;
+    for (const auto& sif : p.sifs)
+      for (const auto& t : g.devices_of(g.add_sif(p, sif))) expected[t].push_back(sif.id);
+    for (auto s : p.scenarios) {
+      for (auto& l : s.layers) l.sif.clear();
+      for (const auto& t : g.devices_of(g.add_scenario(p, s).scenario)) expected[t].push_back(s.id);
+    }
+    std::vector<SharedDevice> want;
+    for (const auto& [t, users] : expected)
+      if (users.size() >= 2) want.push_back({t, users});
+    const auto got = shared_devices(p);
+    ASSERT_EQ(got.size(), want.size()) << "round " << round;
+    for (std::size_t i = 0; i < got.size(); ++i) {
+      EXPECT_EQ(got[i].tag, want[i].tag) << "round " << round;
+      EXPECT_EQ(got[i].users, want[i].users) << "round " << round << ", device " << want[i].tag;
+    }
+  }
 }
 
 }  // namespace

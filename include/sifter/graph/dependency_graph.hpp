@@ -39,8 +39,6 @@ class DependencyGraph {
 
   /// An empty graph; add parties with the add_* functions.
   DependencyGraph() = default;
-  /// The graph of the whole project: every component, SIF and scenario.
-  explicit DependencyGraph(const Project& project);
 
   /// The device vertex of a tag, created on first use.
   Vertex add_device(const std::string& tag);
@@ -57,10 +55,6 @@ class DependencyGraph {
   [[nodiscard]] std::vector<std::string> devices_of(Vertex v) const;
   /// Device tags reachable from both vertices, sorted.
   [[nodiscard]] std::vector<std::string> common_devices(Vertex a, Vertex b) const;
-  /// Devices on which at least two SIFs or scenarios rely. A SIF relies on the devices of its
-  /// components; a scenario on those its causes and layers list (not on those of a SIF it
-  /// credits, which would only repeat the SIF's own use). Sorted by tag.
-  [[nodiscard]] std::vector<SharedDevice> shared_devices() const;
 
   /// What a vertex stands for and its name (tag, id, or "scenario/cause" for causes and layers).
   [[nodiscard]] DependencyKind kind(Vertex v) const { return graph_[v].kind; }
@@ -86,8 +80,11 @@ class DependencyGraph {
   std::unordered_map<std::string, Vertex> sifs_;
 };
 
-/// The devices of a project on which several SIFs or scenarios rely (see
-/// DependencyGraph::shared_devices).
+/// Devices on which at least two SIFs or scenarios of a project rely, sorted by tag, each with
+/// its users (SIFs in project order, then scenarios). A SIF relies on the devices of its
+/// components; a scenario on those its causes and layers list (not on those of a SIF it
+/// credits, which would only repeat the SIF's own use). The reliance is the graph's edges one
+/// step deep, counted without building the whole project's graph.
 std::vector<SharedDevice> shared_devices(const Project& project);
 
 }  // namespace sifter

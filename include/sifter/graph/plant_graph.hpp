@@ -48,16 +48,23 @@ class PlantGraph {
   /// The index in Project::components of a component id the graph resolved (throws
   /// std::out_of_range for an id it did not: ask only when problems() is empty).
   [[nodiscard]] std::size_t component_index(const std::string& id) const { return component_index_.at(id); }
+  /// The index in Project::components of every channel's component ids, in the order of the
+  /// SIFs, subsystems, channels and ids (meaningful only when problems() is empty).
+  [[nodiscard]] const std::vector<std::size_t>& resolved_ids() const { return resolved_; }
 
  private:
   void add_sif(const Project& project, std::size_t s);
   void check_groups(const Project& project);
+  void report_repeated_components(const Subsystem& sub);
+
+  static constexpr std::size_t kUnresolved = static_cast<std::size_t>(-1);
 
   PlantGraphType graph_;
   std::unordered_map<std::string, std::size_t> component_index_;
   std::vector<PlantGraphType::vertex_descriptor> component_vertex_;
   std::vector<PlantGraphType::vertex_descriptor> sif_vertex_;
   std::vector<GraphProblem> problems_;
+  std::vector<std::size_t> resolved_;  // see resolved_ids()
 };
 
 /// Validates the SIF structure and resolves every channel's component ids into indices. When

@@ -1,0 +1,101 @@
+// Specification of the signal-flow graph: how it resolves component ids, what it refuses, and
+// what it finds shared.
+#include "sifter/graph/plant_graph.hpp"
+
+#include <gtest/gtest.h>
+
+#include <memory>
+#include <string>
+#include <vector>
+
+namespace sifter {
+namespace {
+
+using Ids = std::vector<std::string>;
+
+Component component(const std::string& id) {
+  Component c;
+  c.id = id;
+  return c;
+}
+
+// One group of a SIF, its channels written as lists of component ids, the pointers as the
+// loader sets them.
+Subsystem group(const std::string& pointer, const std::vector<Ids>& channels) {
+  Subsystem sub;
+  sub.pointer = pointer;
+  for (std::size_t c = 0; c < channels.size(); ++c) {
+    Channel ch;
+    ch.pointer = pointer + "/channels/" + std::to_string(c);
+    ch.component_ids = channels[c];
+    sub.channels.push_back(ch);
+  }
+  sub.vote.n = static_cast<int>(channels.size());
+  return sub;
+}
+
+Project two_sifs() {
+  Project p;
+  for (const char* id : {"PT-1", "PT-2", "LS-1", "XV-1", "XV-2"}) p.components.push_back(component(id));
+  Sif a;
+  a.id = "SIF-A";
+  a.subsystems = {group("/sifs/0/subsystems/0", {{"PT-1"}, {"PT-2"}}), group("/sifs/0/subsystems/1", {{"XV-1"}})};
+  Sif b;
+  b.id = "SIF-B";
+  b.subsystems = {group("/sifs/1/subsystems/0", {{"LS-1"}}), group("/sifs/1/subsystems/1", {{"XV-2", "XV-1"}})};
+  p.sifs = {a, b};
+  return p;
+}
+
+TEST(PlantGraph, ResolvesEveryChannelsIdsIntoComponentIndices) {
+  Project p = two_sifs();
+  std::shared_ptr<const PlantGraph> kept;
+  ASSERT_TRUE(validate_project_graph(p, &kept).empty());
+  ASSERT_TRUE(kept);
+  EXPECT_EQ(p.sifs[0].subsystems[0].channels[1].components, (std::vector<std::size_t>{1}));
+  EXPECT_EQ(p.sifs[1].subsystems[1].channels[0].components, (std::vector<std::size_t>{4, 3}))
+      << "a channel of two elements in series keeps their order";
+  EXPECT_EQ(kept->signal_order(1), (std::vector<std::size_t>{0, 1}));
+}
+
+TEST(PlantGraph, FindsTheComponentsTwoSifsShare) {
+  Project p = two_sifs();
+  const PlantGraph g(p);
+  const auto shared = g.shared_components();
+  ASSERT_EQ(shared.size(), 1u);
+  EXPECT_EQ(shared[0].component, "XV-1");
+  EXPECT_EQ(shared[0].sifs, (Ids{"SIF-A", "SIF-B"}));
+}
+
+// A repeat is reported where it is written again, in the order written, each against the
+// first use; a channel of several elements names the element.
+TEST(PlantGraph, ReportsEachRepeatedComponentWhereItIsWrittenAgain) {
+  Project p = two_sifs();
+  p.sifs[0].subsystems[0] = group("/sifs/0/subsystems/0", {{"PT-2"}, {"PT-1", "PT-2"}, {"PT-1"}, {"PT-2"}, {"LS-1"}});
+  const PlantGraph g(p);
+  std::vector<std::string> places, founds;
+  for (const auto& problem : g.problems()) {
+    places.push_back(problem.pointer);
+    founds.push_back(problem.found);
+  }
+  EXPECT_EQ(places, (Ids{"/sifs/0/subsystems/0/channels/1/1", "/sifs/0/subsystems/0/channels/2",
+                         "/sifs/0/subsystems/0/channels/3"}));
+  EXPECT_EQ(founds, (Ids{"\"PT-2\" again (first at /sifs/0/subsystems/0/channels/0)",
+                         "\"PT-1\" again (first at /sifs/0/subsystems/0/channels/1/0)",
+                         "\"PT-2\" again (first at /sifs/0/subsystems/0/channels/0)"}));
+  Project refused = p;
+  EXPECT_EQ(validate_project_graph(refused).size(), 3u) << "and the ids are left unresolved";
+  EXPECT_TRUE(refused.sifs[0].subsystems[0].channels[0].components.empty());
+}
+
+TEST(PlantGraph, AnUnknownIdIsAProblemWithTheNearestKnownOne) {
+  Project p = two_sifs();
+  p.sifs[1].subsystems[0].channels[0].component_ids = {"LS-2"};
+  const PlantGraph g(p);
+  ASSERT_EQ(g.problems().size(), 1u);
+  EXPECT_EQ(g.problems()[0].pointer, "/sifs/1/subsystems/0/channels/0");
+  EXPECT_EQ(g.problems()[0].hint, "did you mean \"LS-1\"?");
+}
+
+}  // namespace
+}  // namespace sifter
