@@ -17,6 +17,7 @@
 #include "sifter/engines/uncertainty.hpp"
 #include "sifter/graph/plant_graph.hpp"
 #include "sifter/input/plausibility.hpp"
+#include "sifter/model/cores.hpp"
 #include "sifter/model/format.hpp"
 
 namespace sifter {
@@ -41,39 +42,6 @@ std::map<std::string, SifRequirement> requirements_from(const std::vector<Scenar
     out.emplace(std::move(id), std::move(req));
   }
   return out;
-}
-
-// Runs body(i) for i in [0, n) on up to `threads` threads (0 = every core); blocks until done.
-// An exception thrown by body is re-raised here.
-void parallel_for(std::size_t n, int threads, const std::function<void(std::size_t)>& body) {
-  const unsigned cores = std::max(1u, std::thread::hardware_concurrency());
-  const std::size_t workers = std::min<std::size_t>(n, threads > 0 ? static_cast<std::size_t>(threads) : cores);
-  if (workers <= 1) {
-    for (std::size_t i = 0; i < n; ++i) body(i);
-    return;
-  }
-  std::atomic<std::size_t> next{0};
-  std::exception_ptr failure;
-  std::size_t failure_index = n;  // the failure of the first item in order, whatever the threads did
-  std::mutex failure_mutex;
-  auto work = [&] {
-    for (std::size_t i = next++; i < n; i = next++) {
-      try {
-        body(i);
-      } catch (...) {
-        std::lock_guard<std::mutex> lock(failure_mutex);
-        if (i < failure_index) {
-          failure = std::current_exception();
-          failure_index = i;
-        }
-      }
-    }
-  };
-  std::vector<std::thread> pool;
-  for (std::size_t w = 1; w < workers; ++w) pool.emplace_back(work);
-  work();
-  for (auto& t : pool) t.join();
-  if (failure) std::rethrow_exception(failure);
 }
 
 // The Monte Carlo of every judged SIF on one plan, so that a library model's factor is the
@@ -197,12 +165,9 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   // The risk analysis first: it sets each SIF's requirement and demand mode, which do not
   // depend on the SIF's own figures; then the SIFs; then the scenarios again with the SIFs'
   // computed PFDavg (or PFH) for the mitigated frequencies.
-  // Who shares which device depends on no figure: found on a second core from the start, so
-  // that the project's dependency graph is freed before the results grow.
+  // Who shares which device depends on no figure: found on a second core from the start.
   std::future<std::vector<SharedDevice>> devices;
-  if (!project.scenarios.empty())
-    devices = std::async(options.threads == 1 ? std::launch::deferred : std::launch::async,
-                         [&project] { return shared_devices(project); });
+  if (!project.scenarios.empty()) devices = alongside(options.threads, [&project] { return shared_devices(project); });
   LopaContext context = lopa_context_from_project(project);
   const auto requirements = lopa_requirements_on_cores(project, out.warnings, options.threads);
   refuse_mode_mismatches_from_lopa(project, requirements);

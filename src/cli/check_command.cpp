@@ -10,6 +10,7 @@
 #include "sifter/analysis/maturity.hpp"
 #include "sifter/analysis/verify.hpp"
 #include "sifter/input/load.hpp"
+#include "sifter/model/cores.hpp"
 #include "sifter/model/printable.hpp"
 #include "sifter/report/csv.hpp"
 #include "sifter/report/json_results.hpp"
@@ -115,10 +116,9 @@ int run_check(const CheckOptions& options) {
   terminal.width = terminal_width();
   terminal.sifs = options.sifs;
   terminal.summary = options.summary;
-  auto summary_text = std::async(
-      summary_to_stdout && options.threads != 1 ? std::launch::async : std::launch::deferred, [&]() -> std::string {
-        return summary_to_stdout ? escape_controls(report::render_terminal(result, terminal)) : "";
-      });
+  auto summary_text = alongside(summary_to_stdout ? options.threads : 1, [&]() -> std::string {
+    return summary_to_stdout ? escape_controls(report::render_terminal(result, terminal)) : "";
+  });
   CheckFiles files;
   write_files(options, loaded, result, files);
   const std::string summary = summary_text.get();

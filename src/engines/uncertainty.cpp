@@ -17,6 +17,7 @@
 #include <utility>
 
 #include "sifter/engines/sil.hpp"
+#include "sifter/model/cores.hpp"
 
 namespace sifter {
 
@@ -226,8 +227,7 @@ constexpr int kChunkSamples = 4096;
 constexpr auto kProgressPeriod = std::chrono::milliseconds(100);
 
 int worker_count(int requested, int chunks) {
-  int threads = requested > 0 ? requested : static_cast<int>(std::thread::hardware_concurrency());
-  return std::clamp(threads, 1, std::max(chunks, 1));
+  return std::clamp(static_cast<int>(thread_budget(requested)), 1, std::max(chunks, 1));
 }
 
 // Where each sample's factors come from: the plan's table when it was drawn for this seed and

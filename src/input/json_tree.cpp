@@ -6,8 +6,9 @@
 #include <cstdint>
 #include <future>
 #include <string>
-#include <thread>
 #include <vector>
+
+#include "sifter/model/cores.hpp"
 
 namespace sifter::detail {
 namespace {
@@ -122,7 +123,7 @@ class TreeBuilder {
       return true;
     };
     const std::size_t half = elements.size() / 2;
-    auto first = std::async(std::launch::async, part, std::size_t{0}, half);
+    auto first = alongside(0, [&part, half] { return part(0, half); });
     const bool second = part(half, elements.size());
     return first.get() && second;
   }
@@ -143,7 +144,7 @@ std::optional<Json> fast_json_tree(std::string_view text, int max_depth) {
   simdjson::dom::element root;
   if (parser.parse(padded).get(root) != simdjson::SUCCESS) return std::nullopt;
   Json out;
-  if (!TreeBuilder(max_depth, 0, std::thread::hardware_concurrency() > 1).build(root, out)) return std::nullopt;
+  if (!TreeBuilder(max_depth, 0, thread_budget(0) > 1).build(root, out)) return std::nullopt;
   return out;
 }
 

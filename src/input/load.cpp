@@ -14,6 +14,7 @@
 #include "sifter/input/json_comments.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/input/sha256.hpp"
+#include "sifter/model/cores.hpp"
 
 namespace sifter {
 namespace fs = std::filesystem;
@@ -182,7 +183,7 @@ void read_components_and_sifs(LoadContext& ctx, Json& root, const detail::ModelI
   sif_ctx.problems_not_kept = ctx.problems_not_kept;
   const std::size_t kept_before = ctx.problems.size();
   const std::size_t counted_before = ctx.problems_not_kept;
-  auto sifs = std::async(std::launch::async, [&] { detail::read_sifs(sif_ctx, root, project); });
+  auto sifs = alongside(0, [&] { detail::read_sifs(sif_ctx, root, project); });
   detail::read_components(ctx, root, models, project);  // touches project.components only
   sifs.get();                                           // read_sifs touches project.sifs only
   for (std::size_t i = kept_before; i < sif_ctx.problems.size(); ++i) {
@@ -202,7 +203,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   project.file = ctx.sources[0].path;
   // The digest of the bytes as read is computed on a second core while the text is parsed (the
   // parse blanks comments in place, so the thread hashes its own copy).
-  auto digest = std::async(std::launch::async, [bytes = ctx.sources[0].text] { return sha256_hex(bytes); });
+  auto digest = alongside(0, [bytes = ctx.sources[0].text] { return sha256_hex(bytes); });
   auto root = parse_source(ctx, 0, "");
   if (!root) throw InputError(ctx.located());
   ObjectReader top(ctx, *root, "", 0, "a project");
@@ -223,7 +224,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   detail::name_templated_subsystems(reuse, project);
   // The signal-flow graph needs only the components and SIFs, complete from here on: built on
   // the second core while the rest is read (which writes scenarios and pressure data only).
-  auto plant = std::async(std::launch::async, [&project] { return std::make_shared<const PlantGraph>(project); });
+  auto plant = alongside(0, [&project] { return std::make_shared<const PlantGraph>(project); });
   root->erase("components");
   root->erase("sifs");
   top.member("risk_criteria");

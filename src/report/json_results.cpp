@@ -4,8 +4,8 @@
 #include <algorithm>
 #include <future>
 #include <sstream>
-#include <thread>
 
+#include "sifter/model/cores.hpp"
 #include "sifter/model/format.hpp"
 #include "sifter/report/json_stream.hpp"
 
@@ -337,7 +337,7 @@ void emit_pressure(W& w, const PressureScreening& p) {
 template <typename T, typename Emit>
 void emit_elements(JsonStream& w, const std::vector<T>& items, Emit emit, int threads) {
   constexpr std::size_t kBlock = 128;
-  if (threads == 1 || items.size() <= kBlock || std::thread::hardware_concurrency() < 2) {
+  if (items.size() <= kBlock || thread_budget(threads) < 2) {
     for (const auto& item : items) emit(w, item);
     return;
   }
@@ -354,7 +354,7 @@ void emit_elements(JsonStream& w, const std::vector<T>& items, Emit emit, int th
   const std::size_t blocks = (items.size() + kBlock - 1) / kBlock;
   for (std::size_t b = 0; b < blocks; b += 2) {
     std::future<std::string> next;
-    if (b + 1 < blocks) next = std::async(std::launch::async, render, b + 1);
+    if (b + 1 < blocks) next = alongside(threads, [&render, b] { return render(b + 1); });
     w.elements(render(b));
     if (next.valid()) w.elements(next.get());
   }

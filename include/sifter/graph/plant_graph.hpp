@@ -29,7 +29,8 @@ struct PlantVertex {
 
 /// Directed graph: edges follow the signal from the process input to the final elements
 /// (SIF -> first group -> next group ...) and from each group down to what it is made of.
-using PlantGraphType = boost::adjacency_list<boost::vecS, boost::vecS, boost::bidirectionalS, PlantVertex>;
+using PlantGraphType = boost::adjacency_list<boost::vecS, boost::vecS, boost::bidirectionalS, PlantVertex,
+                                             boost::no_property, boost::no_property, boost::vecS>;
 
 /// The graph of a project's SIFs.
 class PlantGraph {
