@@ -6,12 +6,11 @@
 #include <fstream>
 #include <future>
 
-#include "input/json_tree.hpp"
 #include "input/load_parts.hpp"
 #include "input/load_pressure.hpp"
 #include "input/load_reuse.hpp"
+#include "input/parse_source.hpp"
 #include "sifter/graph/plant_graph.hpp"
-#include "sifter/input/json_comments.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/input/sha256.hpp"
 #include "sifter/model/cores.hpp"
@@ -71,71 +70,6 @@ std::string read_file_bounded(const std::string& path, LoadContext* ctx, int sou
     return problem("a readable file", "\"" + path + "\" could not be read to its end",
                    "check the disk and the file's permissions");
   return text;
-}
-
-// The parser quotes the bytes it read last; bytes outside printable ASCII are shown as \xNN,
-// so that a message about invalid UTF-8 is not itself invalid UTF-8.
-std::string printable(const std::string& text) {
-  std::string out;
-  for (unsigned char c : text) {
-    if (c >= 0x20 && c < 0x7F) {
-      out += static_cast<char>(c);
-    } else {
-      char buf[5];
-      std::snprintf(buf, sizeof buf, "\\x%02X", c);
-      out += buf;
-    }
-  }
-  return out;
-}
-
-// Parses text already read into ctx.sources[source]; problems go to ctx. Returns null on failure.
-std::optional<Json> parse_source(LoadContext& ctx, int source, const std::string& pointer_in_parent) {
-  std::string& text = ctx.sources[static_cast<std::size_t>(source)].text;
-  const std::string& path = ctx.sources[static_cast<std::size_t>(source)].path;
-  auto report = [&](TextPosition pos, const std::string& pointer, const std::string& expected, const std::string& found,
-                    const std::string& hint) {
-    Diagnostic d{path, pos.line, pos.column, pointer, expected, found, hint};
-    ctx.problems.push_back({source, d});
-  };
-  (void)pointer_in_parent;
-  if (text.size() >= 3 && static_cast<unsigned char>(text[0]) == 0xEF && static_cast<unsigned char>(text[1]) == 0xBB &&
-      static_cast<unsigned char>(text[2]) == 0xBF) {
-    report({1, 1}, "", "JSON text without a byte-order mark", "a UTF-8 byte-order mark",
-           "save the file as UTF-8 without BOM");
-    return std::nullopt;
-  }
-  if (auto comment = blank_json_comments(text)) {  // the one place comments are handled, before any parser
-    report(comment->position, "", comment->expected, comment->found, comment->hint);
-    return std::nullopt;
-  }
-  // nlohmann's very tree at parser speed, for a text the structure scan would pass; the scan
-  // and nlohmann's parser report the problems of any other.
-  if (auto tree = detail::fast_json_tree(text, kMaxNestingDepth)) return tree;
-  const auto structure = scan_json_structure(text);
-  for (const auto& p : structure) report(p.position, p.pointer, p.expected, p.found, p.hint);
-  if (!structure.empty()) return std::nullopt;
-  try {
-    return Json::parse(text);  // a text simdjson refused or left in doubt: nlohmann's message
-  } catch (const Json::parse_error& e) {
-    std::string what = e.what();
-    // nlohmann's message: "[json.exception.parse_error.101] parse error at line 3, column 5: syntax error ..."
-    const auto colon = what.find(": ", what.find("parse error"));
-    std::string detail = printable(colon == std::string::npos ? what : what.substr(colon + 2));
-    const std::size_t offset = e.byte == 0 ? 0 : e.byte - 1;
-    report(position_of_offset(text, offset), "", "valid JSON", detail,
-           "check for a missing comma, quote or bracket near this place");
-    return std::nullopt;
-  } catch (const Json::out_of_range& e) {
-    // nlohmann: "number overflow parsing '1e400'": locate the number in the text.
-    const std::string what = e.what();
-    const auto q1 = what.find('\''), q2 = what.rfind('\'');
-    const std::string token = q1 != std::string::npos && q2 > q1 ? what.substr(q1 + 1, q2 - q1 - 1) : "";
-    const auto at = token.empty() ? std::string::npos : text.find(token);
-    report(position_of_offset(text, at == std::string::npos ? 0 : at), "", "numbers within the range of finite values",
-           token.empty() ? "a number out of range" : "the number " + token, "write a finite number");
-    return std::nullopt;
-  }
 }
 
 void read_defaults(LoadContext& ctx, const Json& root, Project& project) {
@@ -204,7 +138,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   // The digest of the bytes as read is computed on a second core while the text is parsed (the
   // parse blanks comments in place, so the thread hashes its own copy).
   auto digest = alongside(0, [bytes = ctx.sources[0].text] { return sha256_hex(bytes); });
-  auto root = parse_source(ctx, 0, "");
+  auto root = detail::parse_source(ctx, 0);
   if (!root) throw InputError(ctx.located());
   ObjectReader top(ctx, *root, "", 0, "a project");
   if (!top.is_object()) throw InputError(ctx.located());
@@ -281,7 +215,7 @@ void read_libraries(LoadContext& ctx, ObjectReader& owner, const std::string& ba
     if (text.empty()) continue;
     const int source = static_cast<int>(ctx.sources.size());
     ctx.sources.push_back({resolved.string(), text});
-    auto lib = parse_source(ctx, source, pointer);
+    auto lib = detail::parse_source(ctx, source);
     if (!lib) continue;
     ObjectReader r(ctx, *lib, "", source, "a component library");
     if (!r.is_object()) continue;

@@ -6,7 +6,7 @@
 #include <sstream>
 
 #include "input/json_reader.hpp"
-#include "input/json_tree.hpp"
+#include "input/parse_source.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/model/records.hpp"
 
@@ -187,31 +187,6 @@ const char* key_of(Field f) {
   return "";
 }
 
-std::optional<Json> parse_json(detail::LoadContext& ctx) {
-  const std::string& text = ctx.sources[0].text;
-  auto report = [&](TextPosition pos, const std::string& pointer, const std::string& expected, const std::string& found,
-                    const std::string& hint) {
-    ctx.problems.push_back({0, Diagnostic{ctx.sources[0].path, pos.line, pos.column, pointer, expected, found, hint}});
-  };
-  // As the project's loader: the fast tree for a text the structure scan would pass.
-  if (auto tree = detail::fast_json_tree(text, kMaxNestingDepth)) return tree;
-  const auto structure = scan_json_structure(text);
-  for (const auto& p : structure) report(p.position, p.pointer, p.expected, p.found, p.hint);
-  if (!structure.empty()) return std::nullopt;
-  try {
-    return Json::parse(text);  // a text simdjson refused or left in doubt: nlohmann's message
-  } catch (const Json::exception& e) {
-    const std::string what = e.what();
-    const auto colon = what.find(": ", what.find("error"));
-    std::size_t offset = 0;
-    if (const auto* pe = dynamic_cast<const Json::parse_error*>(&e)) offset = pe->byte == 0 ? 0 : pe->byte - 1;
-    report(position_of_offset(text, offset), "", "valid JSON",
-           colon == std::string::npos ? what : what.substr(colon + 2),
-           "check for a missing comma, quote or bracket near this place");
-    return std::nullopt;
-  }
-}
-
 void read_json_in_service(detail::LoadContext& ctx, const Json& root, const RecordChecker& checker,
                           std::map<std::size_t, CivilDate>& in_service) {
   auto it = root.find("in_service_since");
@@ -273,7 +248,7 @@ ServiceRecords load_json(const std::string& text, const std::string& name, const
   ServiceRecords out;
   out.file = name;
   out.as_of = as_of;
-  auto root = parse_json(ctx);
+  auto root = detail::parse_source(ctx, 0);
   if (!root) throw InputError(ctx.located());
   detail::ObjectReader top(ctx, *root, "", 0, "a records file");
   if (!top.is_object()) throw InputError(ctx.located());

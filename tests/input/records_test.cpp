@@ -92,6 +92,33 @@ TEST(Records, FailuresTheDiagnosticsFoundDoNotCountAsUndetected) {
   EXPECT_EQ(r.events[3].result, EventResult::kFailSafe);
 }
 
+// A records file is parsed as a project file is (one parse for every JSON input): comments
+// are allowed, a byte-order mark is refused at line 1, column 1, and a syntax error is placed.
+TEST(Records, AreParsedAsProjectsAreCommentsAndAllAndRefusedAsTheyAre) {
+  const std::string text = R"({"format": "sifter-records/1", // tests of the last turnaround
+    "in_service_since": {"PT-402A": "2019-01-01"},
+    /* one proof test */ "events": [
+      {"date": "2020-01-01", "component": "PT-402A", "event": "proof_test", "result": "pass"}]})";
+  EXPECT_EQ(load_records_text(text, "commented.json", unit40(), kAsOf).events.size(), 1u);
+  auto refusal = [](const std::string& bad) {
+    try {
+      load_records_text(bad, "bad.json", unit40(), kAsOf);
+    } catch (const InputError& e) {
+      return std::string(e.what());
+    }
+    return std::string("accepted");
+  };
+  EXPECT_NE(refusal("\xEF\xBB\xBF" + text).find("bad.json:1:1: expected JSON text without a byte-order mark"),
+            std::string::npos)
+      << refusal("\xEF\xBB\xBF" + text);
+  EXPECT_NE(refusal(R"({"format": "sifter-records/1",
+    "events": [}])")
+                .find("bad.json:2:16: expected valid JSON"),
+            std::string::npos)
+      << refusal(R"({"format": "sifter-records/1",
+    "events": [}])");
+}
+
 TEST(Records, InServiceDatesMayComeFromTheProject) {
   Project project = unit40();
   project.components[0].in_service_since = "2019-05-01";  // LT-401A
