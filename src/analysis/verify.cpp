@@ -171,6 +171,15 @@ VerdictBasis verdict_basis(const SifResult& r, std::optional<double> route_2h_co
   return basis;
 }
 
+void apply_credit(SifResult& r) {
+  const std::optional<double> judged = r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
+  if (!judged) return;
+  const SifCredit credit =
+      r.figures_defective ? SifCredit{1.0, false} : sif_credit(*judged, r.sil_achieved, r.demand_mode);
+  r.credit_pfd = credit.value;
+  r.credit_capped = credit.capped;
+}
+
 SifResult verify_sif(const Project& project, const Sif& sif, const std::optional<SifRequirement>& lopa,
                      const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache) {
   SifResult r = start_result(project, sif, lopa);
@@ -193,12 +202,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   add_spurious_trips(project, sif, r);
   const std::optional<double> judged = r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
   apply_constraints(project, sif, r, target.limit(), judged);
-  if (judged) {
-    const SifCredit credit =
-        r.figures_defective ? SifCredit{1.0, false} : sif_credit(*judged, r.sil_achieved, r.demand_mode);
-    r.credit_pfd = credit.value;
-    r.credit_capped = credit.capped;
-  }
+  apply_credit(r);
   apply_requirement_checks(project, sif, r, warnings);
   r.meets_target = sif_verdict(target, judged, verdict_basis(r));  // the one verdict
   say_findings(sif, capped, r, warnings);

@@ -91,6 +91,7 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
     const CapFindings capped = cap_uncertainty(r);
     if (capped.defect) {  // the one verdict again: no verdict rests on a defective figure
       declare_defective(r);
+      apply_credit(r);
       r.meets_target = sif_verdict(recorded_target(r), r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour,
                                    verdict_basis(r));
     }

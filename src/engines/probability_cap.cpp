@@ -95,8 +95,6 @@ void declare_defective(SifResult& r) {
   r.sil_probability = 0;
   r.sil_achieved = 0;
   r.rrf = std::nullopt;
-  if (r.credit_pfd) r.credit_pfd = 1.0;
-  r.credit_capped = false;
 }
 
 void say_findings(const Sif& sif, const CapFindings& found, SifResult& r, std::vector<Warning>& warnings) {

@@ -5,6 +5,7 @@
 #include <gtest/gtest.h>
 
 #include "sifter/analysis/judge.hpp"
+#include "sifter/analysis/verify.hpp"
 
 namespace sifter {
 namespace {
@@ -28,6 +29,7 @@ SifResult a_result(double pfd) {
 SifResult capped_and_judged(SifResult r, std::vector<Warning>& warnings) {
   const CapFindings found = cap_figures(r);
   if (found.defect) declare_defective(r);
+  apply_credit(r);
   SifTarget target;
   target.mode = r.demand_mode;
   target.sil = 2;

@@ -35,6 +35,10 @@ SifTarget recorded_target(const SifResult& r);
 /// What the verdict of a verified SIF rests on besides its figure (architecture, SC, the stated
 /// requirement checks; `route_2h_confidence` from the Monte Carlo where the SIF is on Route 2H).
 VerdictBasis verdict_basis(const SifResult& r, std::optional<double> route_2h_confidence = std::nullopt);
+/// The PFD a verified SIF is credited with in its scenarios, set from its figures as they stand:
+/// sif_credit of its judged figure, or none (a credit of 1) when its figures are defective. A
+/// SIF without a judged figure is left without a credit. The one place the credit is set.
+void apply_credit(SifResult& r);
 
 /// Verifies one SIF: PFDavg or PFH of every subsystem and of the SIF, RRF, the SIL from
 /// probability, the target and the verdict, with the assumptions applied.

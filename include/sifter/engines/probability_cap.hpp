@@ -29,9 +29,9 @@ CapFindings cap_figures(SifResult& r);
 /// The same for the Monte Carlo percentiles, after the sampling: never below zero, a PFD at most 1.
 CapFindings cap_uncertainty(SifResult& r);
 
-/// A SIF whose figures only a defect explains: marked, its SIL from probability 0, no RRF, and
-/// credited nothing in its scenarios (a credit PFD of 1). The judge then finds it short
-/// (VerdictBasis::figures_sound).
+/// A SIF whose figures only a defect explains: marked, its SIL from probability 0 and no RRF.
+/// The judge then finds it short (VerdictBasis::figures_sound) and apply_credit credits it
+/// nothing in its scenarios (a credit PFD of 1).
 void declare_defective(SifResult& r);
 
 /// Says the findings in the SIF's assumptions and, at the SIF's place, in `warnings`.
