@@ -74,7 +74,6 @@ RateEstimate estimate_rate(int failures, double hours, double design_per_hour, d
   e.posterior_mean_per_hour = e.posterior.mean();
   e.posterior_upper90_per_hour = gamma_quantile(e.posterior, 0.90);
   e.probability_above_design = gamma_probability_above(e.posterior, design_per_hour);
-  e.posterior_bound_below_mean = e.posterior_upper90_per_hour < e.posterior_mean_per_hour;
   return e;
 }
 

@@ -48,7 +48,7 @@ std::string models_table(const ServiceResult& r) {
                         plain(e.service_hours / kHoursPerYear), sci_or_dash(e.observed_per_hour),
                         sci_or_dash(e.ci90_low_per_hour), sci_or_dash(e.ci90_high_per_hour)});
     design.push_back({m.model, sci(e.design_per_hour), sci(e.posterior_mean_per_hour),
-                      sci(e.posterior_upper90_per_hour) + (e.posterior_bound_below_mean ? "*" : ""),
+                      sci(e.posterior_upper90_per_hour) + (e.posterior_bound_below_mean() ? "*" : ""),
                       percent(e.probability_above_design),
                       e.exceeds_design_at_90   ? "!at 90%"
                       : e.exceeds_design_at_70 ? "!at 70%"

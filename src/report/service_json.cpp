@@ -25,7 +25,7 @@ json estimate_json(const RateEstimate& e) {
           {"exceeds_design_at_70", e.exceeds_design_at_70},
           {"exceeds_design_at_90", e.exceeds_design_at_90},
           {"posterior_probability_above_design", checked(e.probability_above_design, "probability")},
-          {"posterior_upper90_below_mean", e.posterior_bound_below_mean}};
+          {"posterior_upper90_below_mean", e.posterior_bound_below_mean()}};
 }
 
 json count_json(const CountCheck& c) {

@@ -36,7 +36,7 @@ std::string models_text(const ServiceResult& r) {
                       plain(e.service_hours / kHoursPerYear), sci_or_dash(e.observed_per_hour),
                       sci_or_dash(e.ci90_low_per_hour), sci_or_dash(e.ci90_high_per_hour)});
     design.add_row({m.model, sci(e.design_per_hour), sci(e.posterior_mean_per_hour),
-                    sci(e.posterior_upper90_per_hour) + (e.posterior_bound_below_mean ? "*" : ""),
+                    sci(e.posterior_upper90_per_hour) + (e.posterior_bound_below_mean() ? "*" : ""),
                     percent(e.probability_above_design), exceeds_text(e)});
   }
   return "Observed lambda_DU per hour by component model (devices in service pooled)\n" + observed.render() +
@@ -111,7 +111,7 @@ std::string schedule_text(const ServiceResult& r) {
 std::string skewed_posterior_models(const ServiceResult& r) {
   std::string models;
   for (const auto& m : r.models)
-    if (!m.devices.empty() && m.estimate.posterior_bound_below_mean) models += (models.empty() ? "" : ", ") + m.model;
+    if (!m.devices.empty() && m.estimate.posterior_bound_below_mean()) models += (models.empty() ? "" : ", ") + m.model;
   return models;
 }
 

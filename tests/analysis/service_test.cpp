@@ -199,11 +199,10 @@ TEST(Service, AnUpperBoundBelowThePosteriorMeanIsMarkedAndExplainedInEveryWriter
   for (std::size_t i = 0; i < r.models.size(); ++i) {
     const RateEstimate& e = r.models[i].estimate;
     if (r.models[i].devices.empty()) continue;
-    EXPECT_EQ(e.posterior_bound_below_mean, e.posterior_upper90_per_hour < e.posterior_mean_per_hour);
-    EXPECT_EQ(j["models"][i]["posterior_upper90_below_mean"], e.posterior_bound_below_mean);
-    EXPECT_EQ(text.find(sci(e.posterior_upper90_per_hour) + "*") != std::string::npos, e.posterior_bound_below_mean)
+    EXPECT_EQ(j["models"][i]["posterior_upper90_below_mean"], e.posterior_bound_below_mean());
+    EXPECT_EQ(text.find(sci(e.posterior_upper90_per_hour) + "*") != std::string::npos, e.posterior_bound_below_mean())
         << r.models[i].model;
-    if (e.posterior_bound_below_mean) flagged += (flagged.empty() ? "" : ", ") + r.models[i].model;
+    if (e.posterior_bound_below_mean()) flagged += (flagged.empty() ? "" : ", ") + r.models[i].model;
   }
   EXPECT_EQ(flagged, "LS-40, interposing-relay");
   EXPECT_NE(text.find("* " + flagged + ": the upper 90% lies below the posterior mean."), std::string::npos) << text;

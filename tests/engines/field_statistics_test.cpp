@@ -75,14 +75,14 @@ TEST(FieldStatistics, AnUpperBoundBelowTheMeanIsFlaggedForTheWriters) {
   const RateEstimate tiny = estimate_rate(0, 8.76e4, 5.0e-9, 1.0e6);
   EXPECT_LT(tiny.posterior.shape, 0.01);
   EXPECT_LT(tiny.posterior_upper90_per_hour, tiny.posterior_mean_per_hour);
-  EXPECT_TRUE(tiny.posterior_bound_below_mean);
+  EXPECT_TRUE(tiny.posterior_bound_below_mean());
   // Boost.Math's gamma quantile agrees that 90 % of the weight lies below the bound.
   expect_rel(
       boost::math::cdf(boost::math::gamma_distribution<double>(tiny.posterior.shape, 1.0 / tiny.posterior.rate_hours),
                        tiny.posterior_upper90_per_hour),
       0.90, 1e-9);
-  EXPECT_FALSE(estimate_rate(3, 2.0e6, 1.0e-6, 1.0e6).posterior_bound_below_mean);
-  EXPECT_FALSE(estimate_rate(0, 0.0, 2.5e-7, 1.0e6).posterior_bound_below_mean)
+  EXPECT_FALSE(estimate_rate(3, 2.0e6, 1.0e-6, 1.0e6).posterior_bound_below_mean());
+  EXPECT_FALSE(estimate_rate(0, 0.0, 2.5e-7, 1.0e6).posterior_bound_below_mean())
       << "shape 0.25 still has its bound above";
 }
 

@@ -37,7 +37,7 @@ struct RateEstimate {
   /// The posterior's 90 % bound lies below its mean: a gamma whose shape (prior and records
   /// together, counted in failures) is far below one puts most of its weight near zero and a
   /// long tail above, so the bound, right as it is, says little; the writers say so.
-  bool posterior_bound_below_mean = false;
+  [[nodiscard]] bool posterior_bound_below_mean() const { return posterior_upper90_per_hour < posterior_mean_per_hour; }
   /// The classical one-sided lower bound at 70 % (90 %) confidence lies above the design rate;
   /// the same as P(N >= n | design rate) <= 30 % (10 %).
   bool exceeds_design_at_70 = false;
