@@ -147,25 +147,29 @@ std::vector<std::string> DependencyGraph::common_devices(Vertex a, Vertex b) con
 
 namespace {
 
-// The devices of a project by number: a component's device is the component's own index (its
-// tag is its id), and a tag no component has is numbered after them on first use.
+// The devices of a project by number, one per tag: a component's device is the one of its id,
+// and a tag no component has is numbered on first use.
 class DeviceNumbers {
  public:
   explicit DeviceNumbers(const Project& project) {
     index_.reserve(project.components.size() * 2);
-    for (const auto& c : project.components) number(c.id);
+    of_component_.reserve(project.components.size());
+    for (const auto& c : project.components) of_component_.push_back(number(c.id));
   }
   std::size_t number(std::string_view tag) {
     auto [it, inserted] = index_.try_emplace(tag, tags_.size());
     if (inserted) tags_.push_back(tag);
     return it->second;
   }
+  // The device of Project::components[c]; components with the same id share one.
+  [[nodiscard]] std::size_t of_component(std::size_t c) const { return of_component_[c]; }
   [[nodiscard]] std::string_view tag(std::size_t d) const { return tags_[d]; }
   [[nodiscard]] std::size_t size() const { return tags_.size(); }
 
  private:
   std::unordered_map<std::string_view, std::size_t> index_;
   std::vector<std::string_view> tags_;
+  std::vector<std::size_t> of_component_;
 };
 
 }  // namespace
@@ -186,11 +190,13 @@ std::vector<SharedDevice> shared_devices(const Project& project) {
     uses.emplace_back(d, party);
   };
   const std::size_t n_components = project.components.size();
+  std::unordered_set<std::string_view> sif_ids;  // a SIF id given twice is one party, as in the graph
   for (const auto& sif : project.sifs) {
-    for (const auto& sub : sif.subsystems)
-      for (const auto& channel : sub.channels)
-        for (std::size_t index : channel.components)
-          if (index < n_components) use(index);
+    if (sif_ids.insert(sif.id).second)
+      for (const auto& sub : sif.subsystems)
+        for (const auto& channel : sub.channels)
+          for (std::size_t index : channel.components)
+            if (index < n_components) use(devices.of_component(index));
     ++party;
   }
   for (const auto& scenario : project.scenarios) {

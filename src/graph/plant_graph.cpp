@@ -3,6 +3,7 @@
 
 #include <algorithm>
 #include <set>
+#include <stdexcept>
 #include <string_view>
 #include <tuple>
 #include <unordered_map>
@@ -157,16 +158,19 @@ std::vector<GraphProblem> adopt_project_graph(Project& project, std::shared_ptr<
   if (!graph.problems().empty()) return graph.problems();
   if (keep) *keep = std::move(built);
   // Resolve ids into indices now that every one is known: the graph resolved them as it was
-  // built, in this order.
+  // built, in this order. A graph of another project is a defect of the caller.
+  const auto& resolved = graph.resolved_ids();
   std::size_t next = 0;
   for (auto& sif : project.sifs)
     for (auto& sub : sif.subsystems)
       for (auto& ch : sub.channels) {
-        ch.components.assign(
-            graph.resolved_ids().begin() + static_cast<std::ptrdiff_t>(next),
-            graph.resolved_ids().begin() + static_cast<std::ptrdiff_t>(next + ch.component_ids.size()));
+        if (next + ch.component_ids.size() > resolved.size())
+          throw std::logic_error("adopt_project_graph: a graph built from another project");
+        ch.components.assign(resolved.begin() + static_cast<std::ptrdiff_t>(next),
+                             resolved.begin() + static_cast<std::ptrdiff_t>(next + ch.component_ids.size()));
         next += ch.component_ids.size();
       }
+  if (next != resolved.size()) throw std::logic_error("adopt_project_graph: a graph built from another project");
   return {};
 }
 

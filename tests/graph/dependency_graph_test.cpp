@@ -116,11 +116,29 @@ TEST(DependencyGraph, AScenarioCreditingASifHoldsEveryParty) {
   EXPECT_EQ(shared_devices(p).size(), 1u) << "PT-1: SIF-1 through its component, S1 through its cause";
 }
 
+// A SIF id given twice is one party, as one vertex of the graph: the first SIF of that id.
+TEST(DependencyGraph, ASifIdGivenTwiceIsOnePartyAsInTheGraph) {
+  Project p;
+  add_sif(p, "SIF-1", {"PT-1"});
+  add_sif(p, "SIF-1", {"XV-1"});
+  add_sif(p, "SIF-2", {"XV-1"});
+  p.sifs[1].subsystems[0].channels[0].components.push_back(0);  // the second SIF-1 uses PT-1 too
+  Scenario s;
+  s.id = "S1";
+  s.causes = {cause("C1", 0.1, {"PT-1"})};
+  p.scenarios = {s};
+  const auto shared = shared_devices(p);
+  ASSERT_EQ(shared.size(), 1u);
+  EXPECT_EQ(shared[0].tag, "PT-1");
+  EXPECT_EQ(shared[0].users, (Tags{"SIF-1", "S1"}));
+}
+
 // shared_devices counts the reliance without a graph of the whole project. Held here against
 // the graph's own walks on generated projects: each SIF's devices as devices_of its vertex, each
 // scenario's as devices_of its vertex with its SIF layers' credit removed (a scenario does not
 // count the devices of a SIF it credits). Tags are drawn from a small pool so that components,
-// causes and layers share them often, and a party lists some tags twice.
+// causes and layers share them often, and a party lists some tags twice; one project in four
+// has a component id given twice (the loader refuses it, a project built in code may not).
 TEST(DependencyGraph, SharedDevicesAreThoseTheGraphsWalksReachFromTwoParties) {
   std::mt19937 rng(20261203);
   auto pick = [&rng](int n) { return static_cast<std::size_t>(std::uniform_int_distribution<int>(0, n - 1)(rng)); };
@@ -128,12 +146,17 @@ TEST(DependencyGraph, SharedDevicesAreThoseTheGraphsWalksReachFromTwoParties) {
     Project p;
     const int pool = 6 + static_cast<int>(pick(20));
     auto tag = [&](std::size_t i) { return "T-" + std::to_string(i); };
-    for (int c = 0; c < pool; ++c)
-      p.components.push_back([&] {
-        Component k;
-        k.id = tag(static_cast<std::size_t>(c));
-        return k;
-      }());
+    for (int c = 0; c < pool; ++c) {
+      Component k;
+      k.id = tag(static_cast<std::size_t>(c));
+      p.components.push_back(k);
+    }
+    if (round % 4 == 0) {  // the loader refuses an id given twice; the count must still be right
+      Component again;
+      again.id = tag(pick(pool));
+      p.components.push_back(again);
+    }
+    const int components = static_cast<int>(p.components.size());
     for (int i = 0, n = 1 + static_cast<int>(pick(8)); i < n; ++i) {
       Sif sif;
       sif.id = "SIF-" + std::to_string(i);
@@ -142,7 +165,7 @@ TEST(DependencyGraph, SharedDevicesAreThoseTheGraphsWalksReachFromTwoParties) {
         for (int ch = 0, channels = 1 + static_cast<int>(pick(3)); ch < channels; ++ch) {
           Channel channel;
           for (int e = 0, elements = 1 + static_cast<int>(pick(2)); e < elements; ++e)
-            channel.components.push_back(pick(pool));
+            channel.components.push_back(pick(components));
           sub.channels.push_back(channel);
         }
         sif.subsystems.push_back(sub);

@@ -5,6 +5,7 @@
 #include <gtest/gtest.h>
 
 #include <memory>
+#include <stdexcept>
 #include <string>
 #include <vector>
 
@@ -86,6 +87,18 @@ TEST(PlantGraph, ReportsEachRepeatedComponentWhereItIsWrittenAgain) {
   Project refused = p;
   EXPECT_EQ(validate_project_graph(refused).size(), 3u) << "and the ids are left unresolved";
   EXPECT_TRUE(refused.sifs[0].subsystems[0].channels[0].components.empty());
+}
+
+// The ids are resolved by position, as the graph met them: a graph of another project is a
+// defect of the caller, refused rather than read past its end.
+TEST(PlantGraph, AGraphOfAnotherProjectIsNotAdopted) {
+  Project built_from = two_sifs();
+  Project other = two_sifs();
+  other.sifs[1].subsystems[1].channels[0].component_ids.push_back("PT-1");
+  EXPECT_THROW(adopt_project_graph(other, std::make_shared<const PlantGraph>(built_from)), std::logic_error);
+  Project fewer = two_sifs();
+  fewer.sifs.pop_back();
+  EXPECT_THROW(adopt_project_graph(fewer, std::make_shared<const PlantGraph>(built_from)), std::logic_error);
 }
 
 TEST(PlantGraph, AnUnknownIdIsAProblemWithTheNearestKnownOne) {

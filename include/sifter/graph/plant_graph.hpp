@@ -46,9 +46,6 @@ class PlantGraph {
   /// The groups of a SIF in signal order (sensor -> logic -> final as written).
   [[nodiscard]] std::vector<std::size_t> signal_order(std::size_t sif) const;
   [[nodiscard]] const PlantGraphType& graph() const { return graph_; }
-  /// The index in Project::components of a component id the graph resolved (throws
-  /// std::out_of_range for an id it did not: ask only when problems() is empty).
-  [[nodiscard]] std::size_t component_index(const std::string& id) const { return component_index_.at(id); }
   /// The index in Project::components of every channel's component ids, in the order of the
   /// SIFs, subsystems, channels and ids (meaningful only when problems() is empty).
   [[nodiscard]] const std::vector<std::size_t>& resolved_ids() const { return resolved_; }
