@@ -134,10 +134,6 @@ std::vector<ScheduleRow> schedule_of(const Project& project, const ServiceRecord
   return out;
 }
 
-std::optional<double> measure_of(const SifResult& r) {
-  return r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
-}
-
 // The longest proof-test interval (all the SIF's tested subsystems together) with which the SIF
 // meets its requirement again, from the what-if engine on the project with the posterior rates
 // (one engine for every SIF that needs the advice).
@@ -222,8 +218,8 @@ SifService assess_sif(const Project& project, std::size_t i, const ServiceRecord
   SifService s;
   s.id = sif.id;
   s.demand_mode = v.judged.sifs[i].demand_mode;
-  s.measure_design = measure_of(v.design.sifs[i]);
-  s.measure_judged = measure_of(v.judged.sifs[i]);
+  s.measure_design = v.design.sifs[i].judged_figure();
+  s.measure_judged = v.judged.sifs[i].judged_figure();
   s.meets_design = v.design.sifs[i].meets_target;
   s.meets_judged = v.judged.sifs[i].meets_target;
   s.verdict_changed = s.meets_design != s.meets_judged;

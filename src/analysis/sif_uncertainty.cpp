@@ -73,7 +73,7 @@ UncertaintyResult sif_uncertainty(const Project& project, const Sif& sif, const 
   // The SIF's judged figure may be its exact one (judged_figure.hpp): carry each sample onto it.
   double subsystem_sum = 0.0;
   for (const auto& s : verified.subsystems) subsystem_sum += (low ? s.pfd_avg : s.pfh_per_hour).value_or(0.0);
-  const std::optional<double> judged = low ? verified.pfd_avg : verified.pfh_per_hour;
+  const std::optional<double> judged = verified.judged_figure();
   const double sif_scale = judged && subsystem_sum > 0.0 ? *judged / subsystem_sum : 1.0;
   // Each sample takes the SIF's one verdict (sif_verdict): its figure judged against the
   // target, with the architecture, SC and stated requirements the point verdict rests on.

@@ -172,7 +172,7 @@ VerdictBasis verdict_basis(const SifResult& r, std::optional<double> route_2h_co
 }
 
 void apply_credit(SifResult& r) {
-  const std::optional<double> judged = r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
+  const std::optional<double> judged = r.judged_figure();
   if (!judged) return;
   const SifCredit credit =
       r.figures_defective ? SifCredit{1.0, false} : sif_credit(*judged, r.sil_achieved, r.demand_mode);
@@ -200,7 +200,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   apply_probability(r);
   if (capped.defect) declare_defective(r);
   add_spurious_trips(project, sif, r);
-  const std::optional<double> judged = r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
+  const std::optional<double> judged = r.judged_figure();
   apply_constraints(project, sif, r, target.limit(), judged);
   apply_credit(r);
   apply_requirement_checks(project, sif, r, warnings);

@@ -3,7 +3,6 @@
 #include <algorithm>
 #include <atomic>
 #include <cstdio>
-#include <future>
 #include <map>
 #include <mutex>
 #include <thread>
@@ -92,8 +91,7 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
     if (capped.defect) {  // the one verdict again: no verdict rests on a defective figure
       declare_defective(r);
       apply_credit(r);
-      r.meets_target = sif_verdict(recorded_target(r), r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour,
-                                   verdict_basis(r));
+      r.meets_target = sif_verdict(recorded_target(r), r.judged_figure(), verdict_basis(r));
     }
     say_findings(project.sifs[i], capped, r, out.warnings);
     // Only a SIF that meets otherwise: then every sample's verdict is its figure's judgement,
@@ -101,8 +99,8 @@ void run_uncertainty(const Project& project, const VerifyOptions& options, Proje
     if (r.constraints == ConstraintBasis::kRoute2H && r.meets_target.value_or(false) &&
         r.uncertainty->probability_meets_target < kRoute2hMinConfidence) {
       // The one verdict again, now with the Monte Carlo's confidence (it is below 90 %: short).
-      r.meets_target = sif_verdict(recorded_target(r), r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour,
-                                   verdict_basis(r, r.uncertainty->probability_meets_target));
+      r.meets_target =
+          sif_verdict(recorded_target(r), r.judged_figure(), verdict_basis(r, r.uncertainty->probability_meets_target));
       r.limits.push_back({"probability", std::nullopt, std::nullopt, r.sil_probability,
                           "Route 2H asks for at least 90% confidence that the target failure measure is met "
                           "(IEC 61508-2:2010 7.4.4.3.1); the Monte Carlo gives " +
@@ -166,9 +164,6 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   // The risk analysis first: it sets each SIF's requirement and demand mode, which do not
   // depend on the SIF's own figures; then the SIFs; then the scenarios again with the SIFs'
   // computed PFDavg (or PFH) for the mitigated frequencies.
-  // Who shares which device depends on no figure: found on a second core from the start.
-  std::future<std::vector<SharedDevice>> devices;
-  if (!project.scenarios.empty()) devices = alongside(options.threads, [&project] { return shared_devices(project); });
   LopaContext context = lopa_context_from_project(project);
   const auto requirements = lopa_requirements_on_cores(project, out.warnings, options.threads);
   refuse_mode_mismatches_from_lopa(project, requirements);
@@ -199,7 +194,7 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   }
   if (!project.scenarios.empty()) {
     out.scenarios = evaluate_scenarios_on_cores(project, context, options.threads);
-    out.shared_devices = devices.get();
+    out.shared_devices = shared_devices(project);  // who shares which device: no figure needed
   }
   out.pressure = loaded.pressure;
   mark_preliminary(project, out);

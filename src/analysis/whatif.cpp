@@ -87,16 +87,12 @@ SifResult WhatIf::verify(const Project& modified, std::size_t sif) const {
   return r;
 }
 
-std::optional<double> sif_measure(const SifResult& r) {
-  return r.demand_mode == DemandMode::kLow ? r.pfd_avg : r.pfh_per_hour;
-}
-
 namespace {
 
 // What the interval solver holds against the allowed value: the SIF's figure, or the sum above
 // 1 that the judge never passes (the figure shown as 1 would meet a required PFD of 1).
 std::optional<double> solver_measure(const SifResult& r) {
-  return r.judged_sum_above_one ? r.judged_sum_above_one : sif_measure(r);
+  return r.judged_sum_above_one ? r.judged_sum_above_one : r.judged_figure();
 }
 
 }  // namespace
@@ -214,7 +210,7 @@ IntervalResult longest_proof_test_interval(const WhatIf& what_if, std::size_t si
   const auto requirement = governing_requirement(now);
   if (!requirement)
     throw UsageError(s.id + " has no target and no scenario that credits it; there is no requirement to solve against");
-  const auto measure_now = sif_measure(now);  // as shown; the solver measures solver_measure
+  const auto measure_now = now.judged_figure();  // as shown; the solver measures solver_measure
   if (!measure_now) throw UsageError(s.id + " cannot be verified (a supplier figure is missing for its demand mode)");
 
   IntervalResult out;

@@ -145,7 +145,7 @@ SensitivityInput vary(const WhatIf& what_if, std::size_t sif, const Probe& probe
   auto at = [&](double v) {
     Project p = what_if.project();
     probe.set(p, v);
-    return sif_measure(what_if.verify(p, sif)).value_or(0.0);
+    return what_if.verify(p, sif).judged_figure().value_or(0.0);
   };
   in.at_low = at(in.low_value);
   in.at_high = at(in.high_value);
@@ -195,7 +195,7 @@ SensitivityResult sensitivity(const WhatIf& what_if, std::size_t sif, double fac
   check_factor(factor);
   const Project& base = what_if.project();
   const SifResult now = what_if.baseline(sif);
-  const auto measure_now = sif_measure(now);
+  const auto measure_now = now.judged_figure();
   if (!measure_now) throw UsageError(now.id + " cannot be verified (a supplier figure is missing for its demand mode)");
   SensitivityResult out;
   out.sif = now.id;

@@ -51,7 +51,7 @@ std::string limit_words(const SifResult& s) {
 
 // The figure the verdict rests on, with its unit.
 std::string figure_text(const SifResult& s) {
-  return s.demand_mode == DemandMode::kLow ? sci_or_dash(s.pfd_avg) : sci_or_dash(s.pfh_per_hour) + "/h";
+  return sci_or_dash(s.judged_figure()) + (s.demand_mode == DemandMode::kLow ? "" : "/h");
 }
 
 std::string sif_lines(const ProjectResult& r, std::size_t width) {
@@ -115,8 +115,8 @@ std::string subsystem_table(const SifResult& s, std::size_t width) {
                sub.systematic_capability ? std::to_string(*sub.systematic_capability) : "-"});
   }
   t.add_rule();
-  t.add_row({"SIF", "", "", sci_or_dash(low ? s.pfd_avg : s.pfh_per_hour),
-             sci_or_dash(low ? s.pfd_avg_exact : s.pfh_exact_per_hour), percent(1.0), "", "", ""});
+  t.add_row({"SIF", "", "", sci_or_dash(s.judged_figure()), sci_or_dash(low ? s.pfd_avg_exact : s.pfh_exact_per_hour),
+             percent(1.0), "", "", ""});
   return t.render("  ", width);
 }
 

@@ -3,6 +3,8 @@
 
 #include <gtest/gtest.h>
 
+#include "sifter/results/sif.hpp"
+
 namespace sifter {
 namespace {
 
@@ -30,6 +32,20 @@ TEST(Judge, TheRequiredValueAndTheBandBothApply) {
   EXPECT_EQ(judge(t, 9.0e-4), true);
   t.required_pfd = 1.0 / 5000.0;
   EXPECT_EQ(judge(t, 9.0e-4), false);  // SIL 3 band but above the required value
+}
+
+// The figure every engine judges and credits is the one of the SIF's demand mode
+// (IEC 61511-1:2016 Tables 4 and 5 [seen]: PFDavg in low demand, PFH in high); the other
+// mode's figure, even when computed, is never the one judged.
+TEST(Judge, TheJudgedFigureIsThePfdInLowDemandAndThePfhInHigh) {
+  SifResult r;
+  r.pfd_avg = 2e-3;
+  r.pfh_per_hour = 4e-7;
+  EXPECT_EQ(r.judged_figure(), 2e-3);
+  r.demand_mode = DemandMode::kHigh;
+  EXPECT_EQ(r.judged_figure(), 4e-7);
+  r.pfh_per_hour.reset();  // no PFH: nothing to judge in high demand, whatever the PFDavg
+  EXPECT_FALSE(r.judged_figure().has_value());
 }
 
 TEST(Judge, NoRequiredSilIsNotJudged) { EXPECT_FALSE(judge(SifTarget{}, 0.5).has_value()); }

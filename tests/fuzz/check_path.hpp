@@ -124,7 +124,7 @@ inline void run_what_ifs(const Project& project) {
     request.to = 2.0;
     request.steps = 3;
     for (const auto& p : sweep(what_if, request).points)
-      if (auto m = sif_measure(p.result)) figure(*m, p.result.demand_mode == DemandMode::kLow, "sweep figure");
+      if (auto m = p.result.judged_figure()) figure(*m, p.result.demand_mode == DemandMode::kLow, "sweep figure");
   } catch (const UsageError&) {
   }
 }

@@ -40,10 +40,6 @@ class WhatIf {
   std::map<std::string, SifRequirement> requirements_;
 };
 
-/// The SIF's figure in its demand mode: PFDavg (low) or PFH per hour (high); empty when a
-/// subsystem gives no figure for that mode.
-std::optional<double> sif_measure(const SifResult& result);
-
 // ---- Longest proof-test interval -------------------------------------------------------
 
 /// Solves for the longest proof-test interval of one subsystem (or of every subsystem with

@@ -168,6 +168,10 @@ struct SifResult {
   /// of the rare-event sum, it is shown as 1, and the judge never passes it, whatever the target
   /// (probability_cap.hpp). The longest-interval solver measures this sum.
   std::optional<double> judged_sum_above_one;
+
+  /// The figure the SIF is judged on in its demand mode: PFDavg (low) or PFH per hour (high);
+  /// empty when a subsystem gives no figure for that mode. Every engine and writer asks here.
+  std::optional<double> judged_figure() const { return demand_mode == DemandMode::kLow ? pfd_avg : pfh_per_hour; }
 };
 
 /// The value a SIF's figure must not exceed, as verify judges it: the required PFDavg (or PFH)
