@@ -16,41 +16,6 @@ namespace {
 
 std::string esc(const std::string& text) { return escape_html(text); }
 
-const char* tone_class(Tone tone) {
-  switch (tone) {
-    case Tone::kGood:
-      return "good";
-    case Tone::kBad:
-      return "bad";
-    case Tone::kNeutral:
-      return "neutral";
-    case Tone::kPlain:
-      return "";
-  }
-  return "";
-}
-
-std::string table_html(const Table& t) {
-  std::string out = "<table>\n<caption>" + esc(t.caption) + "</caption>\n<thead><tr>";
-  for (std::size_t i = 0; i < t.header.size(); ++i) {
-    const bool num = i < t.numeric.size() && t.numeric[i];
-    out += std::string(num ? "<th class=\"num\">" : "<th>") + esc(t.header[i]) + "</th>";
-  }
-  out += "</tr></thead>\n<tbody>\n";
-  for (const auto& row : t.rows) {
-    out += "<tr>";
-    for (std::size_t i = 0; i < row.size(); ++i) {
-      const bool key = t.keys.empty() ? i == 0 : i < t.keys.size() && t.keys[i];
-      std::string cls = i < t.numeric.size() && t.numeric[i] ? "num" : key ? "key" : "";
-      const std::string tone = tone_class(row[i].tone);
-      if (!tone.empty()) cls += (cls.empty() ? "" : " ") + tone;
-      out += (cls.empty() ? "<td>" : "<td class=\"" + cls + "\">") + esc(row[i].text) + "</td>";
-    }
-    out += "</tr>\n";
-  }
-  return out + "</tbody>\n</table>\n";
-}
-
 std::string figure_html(const std::string& svg, const std::string& caption) {
   return "<figure>" + svg + "<figcaption>" + esc(caption) + "</figcaption></figure>\n";
 }
@@ -102,9 +67,9 @@ std::string cover(const ProjectResult& r, const ReportData& d) {
 
 std::string summary(const ProjectResult& r, const ReportData& d) {
   std::string out = "<section id=\"summary\">\n<h2>Summary</h2>\n";
-  out += table_html(sif_summary_table(r, d));
-  if (!r.scenarios.empty()) out += table_html(scenario_summary_table(r));
-  if (!r.risk_criteria.empty()) out += table_html(risk_criteria_table(r.risk_criteria));
+  out += html_table(sif_summary_table(r, d));
+  if (!r.scenarios.empty()) out += html_table(scenario_summary_table(r));
+  if (!r.risk_criteria.empty()) out += html_table(risk_criteria_table(r.risk_criteria));
   return out + "</section>\n";
 }
 
@@ -123,7 +88,7 @@ std::string probability_figures(const SifResult& s, const SifReportData& d) {
     out += figure_html(interval_svg(s, *d.interval_sweep),
                        "Every proof-test interval of the SIF multiplied by the same factor, the verification re-run "
                        "at each factor; the longest allowed factor keeps PFDavg at or below the required PFD.");
-    out += table_html(interval_table(*d.interval_sweep));
+    out += html_table(interval_table(*d.interval_sweep));
   } else {
     out += absent("Not drawn: the SIF has no required PFD in low demand.");
   }
@@ -138,10 +103,10 @@ std::string further_figures(const SifResult& s, const SifReportData& d) {
     out += figure_html(sensitivity_svg(s, d.sensitivity),
                        "Sensitivity ranking: PFDavg with one input at its low and at its high value; largest swing "
                        "first.");
-    out += table_html(sensitivity_table(d.sensitivity));
+    out += html_table(sensitivity_table(d.sensitivity));
   }
   if (s.uncertainty)
-    out += table_html(uncertainty_table(*s.uncertainty));
+    out += html_table(uncertainty_table(*s.uncertainty));
   else
     out += absent("Uncertainty: not run; the figures above use the stated failure data as point values.");
   return out;
@@ -159,14 +124,14 @@ std::string sif_section(const SifResult& s, const SifReportData& d, std::size_t 
   out += figure_html(architecture_svg(s),
                      "Subsystems in signal order, each boxed with its vote; channels in parallel between the rails, "
                      "the elements of a channel in series.");
-  out += table_html(sil_table(s, d));
+  out += html_table(sil_table(s, d));
   if (!s.limits.empty()) {
     out += "<h3>What keeps it below its target</h3>\n";
     std::vector<std::string> items;
     for (const auto& l : s.limits) items.push_back(l.kind + ": " + l.message);
     out += list_html(items, "limits");
   }
-  out += table_html(subsystem_table(s)) + sif_requirements_html(s, d.deliverable);
+  out += html_table(subsystem_table(s)) + sif_requirements_html(s, d.deliverable);
   // The register (compact) leaves out the drawings whose numbers the tables above already hold.
   if (d.compact) return out + "</section>\n";
   out += figure_html(contribution_svg(s), "Share of each subsystem in the SIF's figure, with its own value.");
@@ -194,7 +159,7 @@ std::string scenario_section(const ScenarioResult& s, std::size_t i) {
     facts += " Demand on the SIF " + sci(*s.demand_rate_per_yr) + "/yr (" +
              to_string(s.demand_mode.value_or(DemandMode::kLow)) + " demand).";
   out += "<p class=\"facts\">" + esc(facts) + "</p>\n";
-  out += table_html(worksheet_table(s));
+  out += html_table(worksheet_table(s));
   out += figure_html(staircase_svg(s),
                      "The frequency of each cause after each step, then all causes and, per consequence, after the "
                      "modifiers, without and with the SIF; the dashed line is the tolerable frequency.");
@@ -209,9 +174,9 @@ std::string closing(const ProjectResult& r, const ReportData& d) {
     if (!s.assumptions.empty()) out += "<p><strong>" + esc(s.id) + "</strong></p>\n" + list_html(s.assumptions);
   for (const auto& s : r.scenarios)
     if (!s.assumptions.empty()) out += "<p><strong>" + esc(s.id) + "</strong></p>\n" + list_html(s.assumptions);
-  out += "<h3>Equations</h3>\n" + table_html(equations_table(r, d));
+  out += "<h3>Equations</h3>\n" + html_table(equations_table(r, d));
   const Table shared = shared_table(r);
-  if (!shared.rows.empty()) out += "<h3>Shared equipment</h3>\n" + table_html(shared);
+  if (!shared.rows.empty()) out += "<h3>Shared equipment</h3>\n" + html_table(shared);
   out += "<h3>Warnings</h3>\n";
   std::vector<std::string> warnings;
   for (const auto& w : r.warnings) warnings.push_back(place_name(r, d.deliverable, w.where) + ": " + w.message);

@@ -11,6 +11,19 @@ namespace {
 
 std::string esc(const std::string& text) { return escape_html(text); }
 
+// "/sifs/12/subsystems/1" -> {12, "/subsystems/1"}; nullopt when `where` does not start with `head`.
+std::optional<std::pair<std::size_t, std::string>> index_after(const std::string& where, const std::string& head) {
+  if (where.rfind(head, 0) != 0) return std::nullopt;
+  const std::size_t start = head.size();
+  std::size_t end = start;
+  while (end < where.size() && where[end] >= '0' && where[end] <= '9') ++end;
+  if (end == start || end - start > 9) return std::nullopt;
+  return std::pair{static_cast<std::size_t>(std::strtoul(where.substr(start, end - start).c_str(), nullptr, 10)),
+                   where.substr(end)};
+}
+
+}  // namespace
+
 const char* tone_class(Tone tone) {
   switch (tone) {
     case Tone::kGood:
@@ -24,19 +37,6 @@ const char* tone_class(Tone tone) {
   }
   return "";
 }
-
-// "/sifs/12/subsystems/1" -> {12, "/subsystems/1"}; nullopt when `where` does not start with `head`.
-std::optional<std::pair<std::size_t, std::string>> index_after(const std::string& where, const std::string& head) {
-  if (where.rfind(head, 0) != 0) return std::nullopt;
-  const std::size_t start = head.size();
-  std::size_t end = start;
-  while (end < where.size() && where[end] >= '0' && where[end] <= '9') ++end;
-  if (end == start || end - start > 9) return std::nullopt;
-  return std::pair{static_cast<std::size_t>(std::strtoul(where.substr(start, end - start).c_str(), nullptr, 10)),
-                   where.substr(end)};
-}
-
-}  // namespace
 
 std::string html_table(const Table& t) {
   std::string out = "<table>\n<caption>" + esc(t.caption) + "</caption>\n<thead><tr>";

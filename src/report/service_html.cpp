@@ -1,5 +1,6 @@
 // The report's "service" section: the plant in service against its design.
 #include "sifter/model/format.hpp"
+#include "sifter/report/html_deliverable.hpp"
 #include "sifter/report/service.hpp"
 #include "sifter/report/svg.hpp"
 #include "sifter/results/sif.hpp"
@@ -13,27 +14,18 @@ std::string verdict(const std::optional<bool>& meets) {
   return !meets ? "not judged" : *meets ? "meets" : "falls short";
 }
 
-// A table: header cells, then rows; a cell starting with "!" is drawn as bad. Columns marked in
-// `numeric` are right-aligned and never break inside a number ("2.00e-08" would break at "-").
+// A table drawn as every table of the report (html_table): a cell starting with "!" is drawn
+// as bad. Columns marked in `numeric` are right-aligned and never break inside a number
+// ("2.00e-08" would break at "-"); no column is drawn as a key, as this section always was.
 std::string table(const std::string& caption, const std::vector<std::string>& header,
                   const std::vector<std::vector<std::string>>& rows, const std::vector<bool>& numeric = {}) {
-  auto is_numeric = [&](std::size_t column) { return column < numeric.size() && numeric[column]; };
-  std::string out = "<table>\n<caption>" + esc(caption) + "</caption>\n<thead><tr>";
-  for (std::size_t i = 0; i < header.size(); ++i)
-    out += (is_numeric(i) ? "<th class=\"num\">" : "<th>") + esc(header[i]) + "</th>";
-  out += "</tr></thead>\n<tbody>\n";
+  Table t{caption, header, numeric, {}, std::vector<bool>(header.size(), false)};
   for (const auto& row : rows) {
-    out += "<tr>";
-    for (std::size_t i = 0; i < row.size(); ++i) {
-      const std::string& c = row[i];
-      if (!c.empty() && c[0] == '!')
-        out += "<td class=\"bad\">" + esc(c.substr(1)) + "</td>";
-      else
-        out += (is_numeric(i) ? "<td class=\"num\">" : "<td>") + esc(c) + "</td>";
-    }
-    out += "</tr>\n";
+    t.rows.emplace_back();
+    for (const auto& c : row)
+      t.rows.back().push_back(!c.empty() && c[0] == '!' ? Cell{c.substr(1), Tone::kBad} : Cell{c, Tone::kPlain});
   }
-  return out + "</tbody>\n</table>\n";
+  return html_table(t);
 }
 
 // Two tables, as in the terminal: what was observed, then the rates against the design; each

@@ -137,6 +137,20 @@ TEST(Service, TheSkippedTestOfPt402bIsOverdueAndMarksItsSif) {
   EXPECT_EQ(sif("SIF-402").earliest_due_component, "PT-402B");
 }
 
+// The service section of the report draws its tables as every HTML table is drawn
+// (report::html_table): the overdue test of PT-402B in a cell marked bad, the rates in
+// right-aligned cells, every text escaped (common practice of the report's style).
+TEST(Service, TheReportsServiceTablesAreDrawnAsEveryTableWithTheOverdueTestMarkedBad) {
+  const std::string html = report::service_html(example().result);
+  EXPECT_NE(html.find("<tr><td>PT-402B</td><td>2023-09-20</td><td>1 yr</td><td class=\"bad\">2024-09-20</td>"
+                      "<td class=\"bad\">overdue</td></tr>"),
+            std::string::npos)
+      << html;
+  EXPECT_NE(html.find("<th class=\"num\">posterior mean</th>"), std::string::npos);
+  EXPECT_EQ(html.find("<td class=\"key"), std::string::npos);  // no column kept on one line here
+  EXPECT_EQ(html.find("!"), std::string::npos);                // the mark of a bad cell never shows
+}
+
 TEST(Service, ASixMonthTestInJanuaryIsDueInJuly) {
   const ScheduleRow& r = row("SOV-401");
   EXPECT_EQ(r.last_test, (CivilDate{2025, 1, 15}));

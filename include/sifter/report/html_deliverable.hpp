@@ -8,7 +8,9 @@
 
 namespace sifter::report {
 
-/// A table as the report draws it (caption, header, tone classes), every text escaped.
+/// The style class of a cell's tone ("good", "bad", "neutral"; empty when plain).
+const char* tone_class(Tone tone);
+/// A table as every HTML document draws it (caption, header, tone classes), every text escaped.
 std::string html_table(const Table& table);
 /// The extra style rules of these parts (signature block, print footer, open items).
 const char* deliverable_css();
