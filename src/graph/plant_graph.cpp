@@ -2,7 +2,6 @@
 #include "sifter/graph/plant_graph.hpp"
 
 #include <algorithm>
-#include <set>
 #include <stdexcept>
 #include <string_view>
 #include <tuple>
@@ -13,29 +12,60 @@
 
 namespace sifter {
 
-PlantGraph::PlantGraph(const Project& project) {
-  for (std::size_t c = 0; c < project.components.size(); ++c) component_index_.emplace(project.components[c].id, c);
-  for (std::size_t c = 0; c < project.components.size(); ++c)
-    component_vertex_.push_back(
-        boost::add_vertex(PlantVertex{VertexKind::kComponent, project.components[c].id, 0, 0, c}, graph_));
+namespace {
+
+// The vertices of a project's graph: a component, a SIF, a group and a channel each.
+std::size_t vertex_count(const Project& project) {
+  std::size_t vertices = project.components.size();
+  for (const auto& sif : project.sifs) {
+    ++vertices;
+    for (const auto& sub : sif.subsystems) vertices += 1 + sub.channels.size();
+  }
+  return vertices;
+}
+
+}  // namespace
+
+// Every vertex is known before any edge: the graph is sized once, and the vertices are laid out
+// as they would be added one by one (the components, then each SIF with its groups and their
+// channels).
+PlantGraph::PlantGraph(const Project& project) : graph_(vertex_count(project)) {
+  std::size_t ids = 0;
+  for (const auto& sif : project.sifs)
+    for (const auto& sub : sif.subsystems)
+      for (const auto& ch : sub.channels) ids += ch.component_ids.size();
+  resolved_.reserve(ids);
+  component_index_.reserve(project.components.size());
+  for (std::size_t c = 0; c < project.components.size(); ++c) {
+    component_index_.emplace(project.components[c].id, c);
+    component_vertex_.push_back(c);
+    graph_[c] = PlantVertex{VertexKind::kComponent, project.components[c].id, 0, 0, c};
+  }
+  next_vertex_ = project.components.size();
+  sif_vertex_.reserve(project.sifs.size());
   for (std::size_t s = 0; s < project.sifs.size(); ++s) add_sif(project, s);
   check_groups(project);
+}
+
+PlantGraphType::vertex_descriptor PlantGraph::place_vertex(PlantVertex vertex) {
+  graph_[next_vertex_] = std::move(vertex);
+  return next_vertex_++;
 }
 
 void PlantGraph::add_sif(const Project& project, std::size_t s) {
   const auto& by_id = component_index_;
   std::vector<std::string> ids;
   const Sif& sif = project.sifs[s];
-  const auto sv = boost::add_vertex(PlantVertex{VertexKind::kSif, sif.id, s, 0, s}, graph_);
+  const auto sv = place_vertex(PlantVertex{VertexKind::kSif, sif.id, s, 0, s});
   sif_vertex_.push_back(sv);
   auto previous = sv;
   for (std::size_t g = 0; g < sif.subsystems.size(); ++g) {
     const Subsystem& sub = sif.subsystems[g];
-    const auto gv = boost::add_vertex(PlantVertex{VertexKind::kGroup, {}, s, g, g}, graph_);
+    const auto gv = place_vertex(PlantVertex{VertexKind::kGroup, {}, s, g, g});
     boost::add_edge(previous, gv, graph_);  // the signal passes from one subsystem to the next
     previous = gv;
     for (std::size_t c = 0; c < sub.channels.size(); ++c) {
-      const auto cv = boost::add_vertex(PlantVertex{VertexKind::kChannel, {}, s, g, c}, graph_);
+      const auto cv = place_vertex(PlantVertex{VertexKind::kChannel, {}, s, g, c});
       boost::add_edge(gv, cv, graph_);
       const Channel& ch = sub.channels[c];
       for (std::size_t e = 0; e < ch.component_ids.size(); ++e) {
@@ -117,15 +147,26 @@ void PlantGraph::report_repeated_components(const Subsystem& sub) {
 }
 
 std::vector<SharedComponent> PlantGraph::shared_components() const {
+  // Each (component, SIF) pair once, from the channels' edges to their components: sorted by
+  // component, then SIF, they give each component's SIFs in order.
+  std::vector<std::pair<std::size_t, std::size_t>> uses;
+  for (auto v : boost::make_iterator_range(boost::vertices(graph_))) {
+    if (graph_[v].kind != VertexKind::kChannel) continue;
+    for (auto e : boost::make_iterator_range(boost::out_edges(v, graph_)))
+      uses.emplace_back(graph_[boost::target(e, graph_)].index, graph_[v].sif);
+  }
+  std::sort(uses.begin(), uses.end());
+  uses.erase(std::unique(uses.begin(), uses.end()), uses.end());
   std::vector<SharedComponent> out;
-  for (auto cv : component_vertex_) {
-    std::set<std::size_t> sifs;
-    for (auto e : boost::make_iterator_range(boost::in_edges(cv, graph_)))
-      sifs.insert(graph_[boost::source(e, graph_)].sif);
-    if (sifs.size() < 2) continue;
-    SharedComponent shared{graph_[cv].label, {}};
-    for (auto s : sifs) shared.sifs.push_back(graph_[sif_vertex_[s]].label);
-    out.push_back(std::move(shared));
+  for (std::size_t i = 0; i < uses.size();) {
+    std::size_t end = i;
+    while (end < uses.size() && uses[end].first == uses[i].first) ++end;
+    if (end - i >= 2) {
+      SharedComponent shared{graph_[component_vertex_[uses[i].first]].label, {}};
+      for (std::size_t j = i; j < end; ++j) shared.sifs.push_back(graph_[sif_vertex_[uses[j].second]].label);
+      out.push_back(std::move(shared));
+    }
+    i = end;
   }
   return out;
 }

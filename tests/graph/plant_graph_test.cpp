@@ -68,6 +68,32 @@ TEST(PlantGraph, FindsTheComponentsTwoSifsShare) {
   EXPECT_EQ(shared[0].sifs, (Ids{"SIF-A", "SIF-B"}));
 }
 
+// A SIF counts once however often it uses a component (in two groups, or in series in one
+// channel of another); the SIFs of a shared component come in project order, the components
+// in the order of "components", and an id that is not defined shares nothing. Common practice:
+// a component is shared when a failure of it reaches more than one SIF.
+TEST(PlantGraph, ASharedComponentNamesEachSifOnceInProjectOrder) {
+  Project p = two_sifs();
+  Sif c;
+  c.id = "SIF-C";
+  c.subsystems = {group("/sifs/2/subsystems/0", {{"PT-2"}, {"XV-1", "PT-1"}}),
+                  group("/sifs/2/subsystems/1", {{"XV-1"}, {"NO-SUCH"}})};
+  p.sifs.insert(p.sifs.begin(), c);  // first in the project, so listed first
+  p.sifs[1].subsystems[1] = group("/sifs/1/subsystems/1", {{"XV-1", "XV-2"}, {"PT-2"}});
+  const PlantGraph g(p);
+  const auto shared = g.shared_components();
+  std::vector<std::string> components;
+  for (const auto& s : shared) components.push_back(s.component);
+  EXPECT_EQ(components, (Ids{"PT-1", "PT-2", "XV-1", "XV-2"})) << "LS-1 serves SIF-B alone";
+  ASSERT_EQ(shared.size(), 4u);
+  EXPECT_EQ(shared[0].sifs, (Ids{"SIF-C", "SIF-A"}));
+  EXPECT_EQ(shared[1].sifs, (Ids{"SIF-C", "SIF-A"})) << "SIF-A uses PT-2 in both its groups";
+  EXPECT_EQ(shared[2].sifs, (Ids{"SIF-C", "SIF-A", "SIF-B"})) << "SIF-C uses XV-1 in both its groups";
+  EXPECT_EQ(shared[3].sifs, (Ids{"SIF-A", "SIF-B"}));
+  EXPECT_EQ(g.signal_order(0), (std::vector<std::size_t>{0, 1}));
+  EXPECT_EQ(g.problems().size(), 1u) << "the id that is not defined";
+}
+
 // A repeat is reported where it is written again, in the order written, each against the
 // first use; a channel of several elements names the element.
 TEST(PlantGraph, ReportsEachRepeatedComponentWhereItIsWrittenAgain) {

@@ -29,8 +29,8 @@ struct PlantVertex {
 
 /// Directed graph: edges follow the signal from the process input to the final elements
 /// (SIF -> first group -> next group ...) and from each group down to what it is made of.
-using PlantGraphType = boost::adjacency_list<boost::vecS, boost::vecS, boost::bidirectionalS, PlantVertex,
-                                             boost::no_property, boost::no_property, boost::vecS>;
+/// Out-edges only: what uses a component is found from the channels' edges, never walked back.
+using PlantGraphType = boost::adjacency_list<boost::vecS, boost::vecS, boost::directedS, PlantVertex>;
 
 /// The graph of a project's SIFs.
 class PlantGraph {
@@ -52,6 +52,7 @@ class PlantGraph {
 
  private:
   void add_sif(const Project& project, std::size_t s);
+  PlantGraphType::vertex_descriptor place_vertex(PlantVertex vertex);  // the next of the vertices sized at the start
   void check_groups(const Project& project);
   void report_repeated_components(const Subsystem& sub);
 
@@ -63,6 +64,7 @@ class PlantGraph {
   std::vector<PlantGraphType::vertex_descriptor> sif_vertex_;
   std::vector<GraphProblem> problems_;
   std::vector<std::size_t> resolved_;  // see resolved_ids()
+  std::size_t next_vertex_ = 0;        // the vertex place_vertex fills next
 };
 
 /// Validates the SIF structure and resolves every channel's component ids into indices. When
