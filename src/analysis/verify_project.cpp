@@ -160,7 +160,8 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   out.sha256 = loaded.sha256;
   out.warnings = loaded.warnings;
   out.risk_criteria = project.risk_criteria;
-  out.shared_components = loaded.graph ? loaded.graph->shared_components() : PlantGraph(project).shared_components();
+  out.shared_components =
+      loaded.shared_components ? *loaded.shared_components : PlantGraph(project).shared_components();
   // The risk analysis first: it sets each SIF's requirement and demand mode, which do not
   // depend on the SIF's own figures; then the SIFs; then the scenarios again with the SIFs'
   // computed PFDavg (or PFH) for the mitigated frequencies.

@@ -158,7 +158,11 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   detail::name_templated_subsystems(reuse, project);
   // The signal-flow graph needs only the components and SIFs, complete from here on: built on
   // the second core while the rest is read (which writes scenarios and pressure data only).
-  auto plant = alongside(0, [&project] { return std::make_shared<const PlantGraph>(project); });
+  // It also finds the components several SIFs share, the one thing verification asks of it.
+  auto plant = alongside(0, [&project] {
+    auto graph = std::make_shared<const PlantGraph>(project);
+    return std::pair{graph, graph->shared_components()};
+  });
   root->erase("components");
   root->erase("sifs");
   top.member("risk_criteria");
@@ -173,7 +177,9 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   detail::check_project_plausibility(ctx, project);
   if (ctx.problems.empty()) out.pressure = detail::screen_and_generate(ctx, project);
   if (ctx.problems.empty()) {  // otherwise the graph is dropped unread (its future joins on return)
-    const auto graph_problems = adopt_project_graph(project, plant.get(), &out.graph);
+    auto [graph, shared] = plant.get();
+    const auto graph_problems = adopt_project_graph(project, std::move(graph));
+    if (graph_problems.empty()) out.shared_components = std::move(shared);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
     if (graph_problems.empty()) detail::check_diverse_groups(ctx, project);
   }

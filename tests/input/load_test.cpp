@@ -8,6 +8,7 @@
 #include <fstream>
 #include <sstream>
 
+#include "sifter/graph/plant_graph.hpp"
 #include "support/catalogue_support.hpp"
 
 namespace sifter {
@@ -123,6 +124,24 @@ TEST(Load, ChannelsResolveToComponentIndices) {
   const auto p = load_inline(kMinimal).project;
   ASSERT_EQ(p.sifs[0].subsystems[1].channels.size(), 1u);
   EXPECT_EQ(p.sifs[0].subsystems[1].channels[0].components, std::vector<std::size_t>{2});
+}
+
+// The loader keeps what verification asks of the graph it validated (the components several
+// SIFs share), not the graph: the example's logic solver LS-40 serves SIF-401 and SIF-403, and
+// the list is the one a graph built again from the loaded project finds.
+TEST(Load, TheComponentsSeveralSifsShareAreFoundOnceWhileLoading) {
+  const LoadedProject loaded = load_project_file(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40.json");
+  ASSERT_TRUE(loaded.shared_components.has_value());
+  const auto again = PlantGraph(loaded.project).shared_components();
+  ASSERT_EQ(loaded.shared_components->size(), again.size());
+  bool ls40 = false;
+  for (std::size_t i = 0; i < again.size(); ++i) {
+    EXPECT_EQ((*loaded.shared_components)[i].component, again[i].component);
+    EXPECT_EQ((*loaded.shared_components)[i].sifs, again[i].sifs);
+    ls40 = ls40 || (again[i].component == "LS-40" && again[i].sifs == std::vector<std::string>{"SIF-401", "SIF-403"});
+  }
+  EXPECT_TRUE(ls40);
+  EXPECT_TRUE(load_inline(kMinimal).shared_components->empty()) << "one SIF shares nothing";
 }
 
 TEST(Load, ImplausibleValuesAreWarningsNotErrors) {

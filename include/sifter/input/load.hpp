@@ -1,16 +1,15 @@
 #pragma once
 /// Reading a `sifter-project/1` file (and the libraries it names) into a validated Project.
-#include <memory>
+#include <optional>
 #include <string>
 #include <vector>
 
 #include "sifter/engines/pressure.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/model.hpp"
+#include "sifter/results/project.hpp"
 
 namespace sifter {
-
-class PlantGraph;  // plant_graph.hpp
 
 /// The format names this version reads.
 inline constexpr const char* kProjectFormat = "sifter-project/1";
@@ -22,9 +21,10 @@ struct LoadedProject {
   std::vector<Warning> warnings;
   std::string sha256;               ///< of the project file's bytes, for the report
   std::vector<std::string> inputs;  ///< every file read: the project, then its libraries
-  /// The graph the loader validated, of the project as loaded; verify_project reuses it.
-  /// Reset it when changing the structure (SIFs, groups, channels) of `project`.
-  std::shared_ptr<const PlantGraph> graph;
+  /// The components several SIFs share, found by the graph the loader validated (the graph
+  /// itself is not kept); verify_project reports them. Reset it when changing the structure
+  /// (SIFs, groups, channels) of `project`: verify_project then builds the graph again.
+  std::optional<std::vector<SharedComponent>> shared_components;
   std::optional<PressureScreening> pressure;  ///< the overpressure screening, when the project has one
 };
 
