@@ -140,7 +140,7 @@ void record_target(const SifTarget& t, SifResult& r) {
 // The judged figure's SIL and RRF (the verdict is decided once, by sif_verdict, at the end).
 void apply_probability(SifResult& r) {
   const bool low = r.demand_mode == DemandMode::kLow;
-  const std::optional<double> figure = low ? r.pfd_avg : r.pfh_per_hour;
+  const std::optional<double> figure = r.judged_figure();
   if (!figure) return;
   r.sil_probability = low ? sil_from_pfd_avg(*figure) : sil_from_pfh(*figure);
   if (low) r.rrf = *figure > 0.0 ? std::optional<double>(1.0 / *figure) : std::nullopt;

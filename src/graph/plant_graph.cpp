@@ -44,10 +44,14 @@ PlantGraph::PlantGraph(const Project& project) : graph_(vertex_count(project)) {
   next_vertex_ = project.components.size();
   sif_vertex_.reserve(project.sifs.size());
   for (std::size_t s = 0; s < project.sifs.size(); ++s) add_sif(project, s);
+  if (next_vertex_ != boost::num_vertices(graph_))
+    throw std::logic_error("PlantGraph: fewer vertices than vertex_count counted");
   check_groups(project);
 }
 
 PlantGraphType::vertex_descriptor PlantGraph::place_vertex(PlantVertex vertex) {
+  if (next_vertex_ >= boost::num_vertices(graph_))
+    throw std::logic_error("PlantGraph: more vertices than vertex_count counted");
   graph_[next_vertex_] = std::move(vertex);
   return next_vertex_++;
 }
@@ -189,15 +193,12 @@ std::vector<std::size_t> PlantGraph::signal_order(std::size_t sif) const {
   }
 }
 
-std::vector<GraphProblem> validate_project_graph(Project& project, std::shared_ptr<const PlantGraph>* keep) {
-  return adopt_project_graph(project, std::make_shared<const PlantGraph>(project), keep);
+std::vector<GraphProblem> validate_project_graph(Project& project) {
+  return adopt_project_graph(project, PlantGraph(project));
 }
 
-std::vector<GraphProblem> adopt_project_graph(Project& project, std::shared_ptr<const PlantGraph> built,
-                                              std::shared_ptr<const PlantGraph>* keep) {
-  const PlantGraph& graph = *built;
+std::vector<GraphProblem> adopt_project_graph(Project& project, const PlantGraph& graph) {
   if (!graph.problems().empty()) return graph.problems();
-  if (keep) *keep = std::move(built);
   // Resolve ids into indices now that every one is known: the graph resolved them as it was
   // built, in this order. A graph of another project is a defect of the caller.
   const auto& resolved = graph.resolved_ids();

@@ -5,6 +5,7 @@
 #include <filesystem>
 #include <fstream>
 #include <future>
+#include <memory>
 
 #include "input/load_parts.hpp"
 #include "input/load_pressure.hpp"
@@ -160,8 +161,9 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   // the second core while the rest is read (which writes scenarios and pressure data only).
   // It also finds the components several SIFs share, the one thing verification asks of it.
   auto plant = alongside(0, [&project] {
-    auto graph = std::make_shared<const PlantGraph>(project);
-    return std::pair{graph, graph->shared_components()};
+    auto graph = std::make_unique<const PlantGraph>(project);
+    auto shared = graph->problems().empty() ? graph->shared_components() : std::vector<SharedComponent>{};
+    return std::pair{std::move(graph), std::move(shared)};
   });
   root->erase("components");
   root->erase("sifs");
@@ -178,7 +180,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   if (ctx.problems.empty()) out.pressure = detail::screen_and_generate(ctx, project);
   if (ctx.problems.empty()) {  // otherwise the graph is dropped unread (its future joins on return)
     auto [graph, shared] = plant.get();
-    const auto graph_problems = adopt_project_graph(project, std::move(graph));
+    const auto graph_problems = adopt_project_graph(project, *graph);
     if (graph_problems.empty()) out.shared_components = std::move(shared);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
     if (graph_problems.empty()) detail::check_diverse_groups(ctx, project);

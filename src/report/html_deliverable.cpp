@@ -39,7 +39,8 @@ const char* tone_class(Tone tone) {
 }
 
 std::string html_table(const Table& t) {
-  std::string out = "<table>\n<caption>" + esc(t.caption) + "</caption>\n<thead><tr>";
+  std::string out =
+      t.caption.empty() ? "<table>\n<thead><tr>" : "<table>\n<caption>" + esc(t.caption) + "</caption>\n<thead><tr>";
   for (std::size_t i = 0; i < t.header.size(); ++i) {
     const bool num = i < t.numeric.size() && t.numeric[i];
     out += std::string(num ? "<th class=\"num\">" : "<th>") + esc(t.header[i]) + "</th>";

@@ -4,6 +4,7 @@
 
 #include "sifter/model/format.hpp"
 #include "sifter/model/vocabulary.hpp"
+#include "sifter/report/html_deliverable.hpp"
 #include "sifter/report/options_text.hpp"
 #include "sifter/report/svg.hpp"
 #include "sifter/results/lopa.hpp"
@@ -72,17 +73,22 @@ std::string section(const ScenarioOptions& o) {
          "/yr. Lifecycle cost: capital plus the present value over " + escape_html(format_number(o.mission_years)) +
          " yr at " + escape_html(format_number(100.0 * o.discount_rate)) +
          " %/yr of annual costs, proof tests and spurious trips.</p>\n";
-  out +=
-      "<table>\n<thead><tr><th>rank</th><th>option</th><th>kind</th><th>feasible</th><th>tolerable</th>"
-      "<th>lifecycle cost</th><th>reason</th></tr></thead>\n<tbody>\n";
+  Table t{"",
+          {"rank", "option", "kind", "feasible", "tolerable", "lifecycle cost", "reason"},
+          {},
+          {},
+          std::vector<bool>(7, false)};
   for (std::size_t i = 0; i < o.options.size(); ++i) {
     const auto& r = o.options[i];
-    out += "<tr><td>" + std::to_string(i + 1) + "</td><td>" + escape_html(r.id) + "</td><td>" + to_string(r.kind) +
-           "</td><td>" + (r.feasible ? "yes" : "no") + "</td><td>" + (r.makes_tolerable ? "yes" : "no") + "</td><td>" +
-           money(r.lifecycle_cost) + "</td><td>" + escape_html(r.reason) + (r.preliminary ? " (preliminary)" : "") +
-           "</td></tr>\n";
+    t.rows.push_back({{std::to_string(i + 1)},
+                      {r.id},
+                      {to_string(r.kind)},
+                      {r.feasible ? "yes" : "no"},
+                      {r.makes_tolerable ? "yes" : "no"},
+                      {money(r.lifecycle_cost)},
+                      {r.reason + (r.preliminary ? " (preliminary)" : "")}});
   }
-  out += "</tbody>\n</table>\n<figure>" + comparison_svg(o) + "<figcaption>Lifecycle cost of each option, ranked." +
+  out += html_table(t) + "<figure>" + comparison_svg(o) + "<figcaption>Lifecycle cost of each option, ranked." +
          "</figcaption></figure>\n</section>\n";
   return out;
 }

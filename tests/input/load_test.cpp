@@ -141,7 +141,7 @@ TEST(Load, TheComponentsSeveralSifsShareAreFoundOnceWhileLoading) {
     ls40 = ls40 || (again[i].component == "LS-40" && again[i].sifs == std::vector<std::string>{"SIF-401", "SIF-403"});
   }
   EXPECT_TRUE(ls40);
-  EXPECT_TRUE(load_inline(kMinimal).shared_components->empty()) << "one SIF shares nothing";
+  EXPECT_TRUE(load_inline(kMinimal).shared_components.value().empty()) << "one SIF shares nothing";
 }
 
 TEST(Load, ImplausibleValuesAreWarningsNotErrors) {

@@ -2,7 +2,6 @@
 /// The SIFs as a Boost.Graph of signal flow (SIF -> groups -> channels -> components),
 /// its validation, and the components that several SIFs share.
 #include <boost/graph/adjacency_list.hpp>
-#include <memory>
 #include <string>
 #include <unordered_map>
 #include <vector>
@@ -67,14 +66,12 @@ class PlantGraph {
   std::size_t next_vertex_ = 0;        // the vertex place_vertex fills next
 };
 
-/// Validates the SIF structure and resolves every channel's component ids into indices. When
-/// `keep` is given and there is no problem, the graph built for it is handed over there, so
-/// that verification does not build it again.
-std::vector<GraphProblem> validate_project_graph(Project& project, std::shared_ptr<const PlantGraph>* keep = nullptr);
+/// Validates the SIF structure and resolves every channel's component ids into indices (left
+/// unresolved when there is a problem).
+std::vector<GraphProblem> validate_project_graph(Project& project);
 
 /// validate_project_graph with a graph already built from this project's components and SIFs
 /// (by a caller that built it on another core while reading the rest of the file).
-std::vector<GraphProblem> adopt_project_graph(Project& project, std::shared_ptr<const PlantGraph> built,
-                                              std::shared_ptr<const PlantGraph>* keep = nullptr);
+std::vector<GraphProblem> adopt_project_graph(Project& project, const PlantGraph& built);
 
 }  // namespace sifter

@@ -10,7 +10,8 @@ namespace sifter::report {
 
 /// The style class of a cell's tone ("good", "bad", "neutral"; empty when plain).
 const char* tone_class(Tone tone);
-/// A table as every HTML document draws it (caption, header, tone classes), every text escaped.
+/// A table as every HTML document draws it (caption, header, tone classes), every text escaped;
+/// a table without a caption has no caption element.
 std::string html_table(const Table& table);
 /// The extra style rules of these parts (signature block, print footer, open items).
 const char* deliverable_css();

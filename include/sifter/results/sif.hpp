@@ -169,8 +169,9 @@ struct SifResult {
   /// (probability_cap.hpp). The longest-interval solver measures this sum.
   std::optional<double> judged_sum_above_one;
 
-  /// The figure the SIF is judged on in its demand mode: PFDavg (low) or PFH per hour (high);
-  /// empty when a subsystem gives no figure for that mode. Every engine and writer asks here.
+  /// The measure the SIF is judged on in its demand mode: PFDavg (low) or PFH per hour (high);
+  /// empty when a subsystem gives no figure for that mode. The SIL from probability, the verdict,
+  /// the credit, the Monte Carlo, the what-ifs and the service ask here.
   std::optional<double> judged_figure() const { return demand_mode == DemandMode::kLow ? pfd_avg : pfh_per_hour; }
 };
 
