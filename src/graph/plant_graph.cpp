@@ -193,15 +193,22 @@ std::vector<std::size_t> PlantGraph::signal_order(std::size_t sif) const {
   }
 }
 
-std::vector<GraphProblem> validate_project_graph(Project& project) {
-  return adopt_project_graph(project, PlantGraph(project));
+PlantFindings plant_findings(const Project& project) {
+  const PlantGraph graph(project);
+  PlantFindings out{graph.problems(), graph.resolved_ids(), {}};
+  if (out.problems.empty()) out.shared = graph.shared_components();
+  return out;
 }
 
-std::vector<GraphProblem> adopt_project_graph(Project& project, const PlantGraph& graph) {
-  if (!graph.problems().empty()) return graph.problems();
+std::vector<GraphProblem> validate_project_graph(Project& project) {
+  return adopt_project_graph(project, plant_findings(project));
+}
+
+std::vector<GraphProblem> adopt_project_graph(Project& project, const PlantFindings& findings) {
+  if (!findings.problems.empty()) return findings.problems;
   // Resolve ids into indices now that every one is known: the graph resolved them as it was
   // built, in this order. A graph of another project is a defect of the caller.
-  const auto& resolved = graph.resolved_ids();
+  const auto& resolved = findings.resolved;
   std::size_t next = 0;
   for (auto& sif : project.sifs)
     for (auto& sub : sif.subsystems)

@@ -5,7 +5,6 @@
 #include <filesystem>
 #include <fstream>
 #include <future>
-#include <memory>
 
 #include "input/load_parts.hpp"
 #include "input/load_pressure.hpp"
@@ -159,12 +158,9 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   detail::name_templated_subsystems(reuse, project);
   // The signal-flow graph needs only the components and SIFs, complete from here on: built on
   // the second core while the rest is read (which writes scenarios and pressure data only).
-  // It also finds the components several SIFs share, the one thing verification asks of it.
-  auto plant = alongside(0, [&project] {
-    auto graph = std::make_unique<const PlantGraph>(project);
-    auto shared = graph->problems().empty() ? graph->shared_components() : std::vector<SharedComponent>{};
-    return std::pair{std::move(graph), std::move(shared)};
-  });
+  // It also finds the components several SIFs share, the one thing verification asks of it,
+  // and is freed on that core.
+  auto plant = alongside(0, [&project] { return plant_findings(project); });
   root->erase("components");
   root->erase("sifs");
   top.member("risk_criteria");
@@ -179,9 +175,9 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   detail::check_project_plausibility(ctx, project);
   if (ctx.problems.empty()) out.pressure = detail::screen_and_generate(ctx, project);
   if (ctx.problems.empty()) {  // otherwise the graph is dropped unread (its future joins on return)
-    auto [graph, shared] = plant.get();
-    const auto graph_problems = adopt_project_graph(project, *graph);
-    if (graph_problems.empty()) out.shared_components = std::move(shared);
+    PlantFindings findings = plant.get();
+    const auto graph_problems = adopt_project_graph(project, findings);
+    if (graph_problems.empty()) out.shared_components = std::move(findings.shared);
     for (const auto& p : graph_problems) ctx.error(0, p.pointer, p.expected, p.found, p.hint);
     if (graph_problems.empty()) detail::check_diverse_groups(ctx, project);
   }

@@ -119,10 +119,10 @@ TEST(PlantGraph, AGraphOfAnotherProjectIsNotAdopted) {
   Project built_from = two_sifs();
   Project other = two_sifs();
   other.sifs[1].subsystems[1].channels[0].component_ids.push_back("PT-1");
-  EXPECT_THROW(adopt_project_graph(other, PlantGraph(built_from)), std::logic_error);
+  EXPECT_THROW(adopt_project_graph(other, plant_findings(built_from)), std::logic_error);
   Project fewer = two_sifs();
   fewer.sifs.pop_back();
-  EXPECT_THROW(adopt_project_graph(fewer, PlantGraph(built_from)), std::logic_error);
+  EXPECT_THROW(adopt_project_graph(fewer, plant_findings(built_from)), std::logic_error);
 }
 
 TEST(PlantGraph, AnUnknownIdIsAProblemWithTheNearestKnownOne) {
@@ -132,6 +132,9 @@ TEST(PlantGraph, AnUnknownIdIsAProblemWithTheNearestKnownOne) {
   ASSERT_EQ(g.problems().size(), 1u);
   EXPECT_EQ(g.problems()[0].pointer, "/sifs/1/subsystems/0/channels/0");
   EXPECT_EQ(g.problems()[0].hint, "did you mean \"LS-1\"?");
+  const PlantFindings findings = plant_findings(p);
+  EXPECT_EQ(findings.problems.size(), 1u);
+  EXPECT_TRUE(findings.shared.empty()) << "XV-1 is shared, but nothing is reported of a graph with a problem";
 }
 
 }  // namespace

@@ -66,12 +66,25 @@ class PlantGraph {
   std::size_t next_vertex_ = 0;        // the vertex place_vertex fills next
 };
 
+/// What validation keeps of a project's graph, which it then drops: its problems, every
+/// channel's component indices (PlantGraph::resolved_ids) and the components several SIFs share
+/// (found only when there is no problem).
+struct PlantFindings {
+  std::vector<GraphProblem> problems;
+  std::vector<std::size_t> resolved;
+  std::vector<SharedComponent> shared;
+};
+
+/// Builds the graph of a project's components and SIFs, keeps its findings and frees it, all on
+/// the caller's thread (the loader runs it on another core while it reads the rest).
+PlantFindings plant_findings(const Project& project);
+
 /// Validates the SIF structure and resolves every channel's component ids into indices (left
 /// unresolved when there is a problem).
 std::vector<GraphProblem> validate_project_graph(Project& project);
 
-/// validate_project_graph with a graph already built from this project's components and SIFs
-/// (by a caller that built it on another core while reading the rest of the file).
-std::vector<GraphProblem> adopt_project_graph(Project& project, const PlantGraph& built);
+/// validate_project_graph with the findings of a graph already built from this project's
+/// components and SIFs. Findings of another project are a defect of the caller (logic_error).
+std::vector<GraphProblem> adopt_project_graph(Project& project, const PlantFindings& findings);
 
 }  // namespace sifter
