@@ -157,7 +157,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   read_components_and_sifs(ctx, *root, models, project);
   detail::name_templated_subsystems(reuse, project);
   // The signal-flow graph needs only the components and SIFs, complete from here on: built on
-  // the second core while the rest is read (which writes scenarios and pressure data only).
+  // the second core while the rest is read (which writes no components or SIFs).
   // It also finds the components several SIFs share, the one thing verification asks of it,
   // and is freed on that core.
   auto plant = alongside(0, [&project] { return plant_findings(project); });
@@ -174,7 +174,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.finish();
   detail::check_project_plausibility(ctx, project);
   if (ctx.problems.empty()) out.pressure = detail::screen_and_generate(ctx, project);
-  if (ctx.problems.empty()) {  // otherwise the graph is dropped unread (its future joins on return)
+  if (ctx.problems.empty()) {  // otherwise the findings are dropped unread (the future joins on return or throw)
     PlantFindings findings = plant.get();
     const auto graph_problems = adopt_project_graph(project, findings);
     if (graph_problems.empty()) out.shared_components = std::move(findings.shared);
