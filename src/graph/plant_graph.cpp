@@ -38,7 +38,6 @@ PlantGraph::PlantGraph(const Project& project) : graph_(vertex_count(project)) {
   component_index_.reserve(project.components.size());
   for (std::size_t c = 0; c < project.components.size(); ++c) {
     component_index_.emplace(project.components[c].id, c);
-    component_vertex_.push_back(c);
     graph_[c] = PlantVertex{VertexKind::kComponent, project.components[c].id, 0, 0, c};
   }
   next_vertex_ = project.components.size();
@@ -84,7 +83,7 @@ void PlantGraph::add_sif(const Project& project, std::size_t s) {
                                near.empty() ? "add it to \"components\"" : "did you mean \"" + near + "\"?"});
           continue;
         }
-        boost::add_edge(cv, component_vertex_[it->second], graph_);
+        boost::add_edge(cv, it->second, graph_);  // component c is vertex c
       }
     }
   }
@@ -166,7 +165,7 @@ std::vector<SharedComponent> PlantGraph::shared_components() const {
     std::size_t end = i;
     while (end < uses.size() && uses[end].first == uses[i].first) ++end;
     if (end - i >= 2) {
-      SharedComponent shared{graph_[component_vertex_[uses[i].first]].label, {}};
+      SharedComponent shared{graph_[uses[i].first].label, {}};
       for (std::size_t j = i; j < end; ++j) shared.sifs.push_back(graph_[sif_vertex_[uses[j].second]].label);
       out.push_back(std::move(shared));
     }

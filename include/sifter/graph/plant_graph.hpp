@@ -59,7 +59,6 @@ class PlantGraph {
 
   PlantGraphType graph_;
   std::unordered_map<std::string, std::size_t> component_index_;
-  std::vector<PlantGraphType::vertex_descriptor> component_vertex_;
   std::vector<PlantGraphType::vertex_descriptor> sif_vertex_;
   std::vector<GraphProblem> problems_;
   std::vector<std::size_t> resolved_;  // see resolved_ids()
