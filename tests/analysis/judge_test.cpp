@@ -35,7 +35,7 @@ TEST(Judge, TheRequiredValueAndTheBandBothApply) {
 }
 
 // The figure every engine judges and credits is the one of the SIF's demand mode
-// (IEC 61511-1:2016 Tables 4 and 5 [seen]: PFDavg in low demand, PFH in high); the other
+// (IEC 61511-1:2016 Tables 4 and 5, from memory: PFDavg in low demand, PFH in high); the other
 // mode's figure, even when computed, is never the one judged.
 TEST(Judge, TheJudgedFigureIsThePfdInLowDemandAndThePfhInHigh) {
   SifResult r;
