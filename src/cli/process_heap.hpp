@@ -1,0 +1,37 @@
+#pragma once
+// How the program sets up its heap before any work (the library leaves the allocator alone).
+#include <cstddef>
+#include <cstdint>
+
+namespace sifter::cli {
+
+/// What prepare_process_heap did, for tests and for the curious.
+struct HeapSetup {
+  bool glibc = false;              ///< built against glibc, whose allocator the settings are for
+  std::uintptr_t reserved_at = 0;  ///< where the reserved part of the main heap begins
+  std::size_t reserved = 0;        ///< bytes of the main heap reserved and advised for huge pages
+  bool huge_page_advice = false;   ///< the kernel took the advice (madvise returned 0)
+};
+
+/// Sets up glibc's allocator for a run over a large register, once, at the start of main.
+///
+/// Why: on the virtualised 2-core machine of the benchmarks, the first touch of a page costs
+/// about 5 microseconds (a fault into the kernel), and a run over a 10,000-SIF register touched
+/// 65,000 pages of 4 KiB: about a quarter of its wall time. Measured in tests/bench/RESULTS.md.
+///
+/// What: memory the program frees is kept for reuse rather than handed back and faulted in
+/// again; and the main heap is grown once, by `reserve` bytes of address space (no memory is
+/// backed until touched), which is advised for transparent huge pages, so that a first touch
+/// maps 2 MiB rather than 4 KiB. Threads other than the main one allocate from glibc's own
+/// per-thread heaps, which this leaves as they are.
+///
+/// Every step is optional: with another allocator (a sanitizer's), a kernel that refuses the
+/// advice or a heap that cannot grow, the allocator is left working as before and the run is
+/// only slower. Nothing here changes a result.
+HeapSetup prepare_process_heap(std::size_t reserve);
+
+/// The reservation main asks for: 2 GiB less 2 MiB (glibc's padding setting is an int), or half
+/// the physical memory when that is less, so that the kernel's overcommit check never refuses it.
+std::size_t default_heap_reserve();
+
+}  // namespace sifter::cli

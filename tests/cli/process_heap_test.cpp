@@ -1,0 +1,95 @@
+// Specification of the program's heap setup (src/cli/process_heap.cpp): the main heap is grown
+// once and advised for transparent huge pages, and what is freed stays in the heap for reuse.
+// The settings are glibc's (mallopt(3), madvise(2) of the Linux man-pages); a sanitizer brings an
+// allocator of its own, so there is nothing to check under one. These specs run in a process of
+// their own (sifter_heap_tests), whose heap is as fresh at the start as the program's.
+#include "cli/process_heap.hpp"
+
+#include <gtest/gtest.h>
+
+#include <cstdint>
+#include <cstdlib>
+#include <cstring>
+#include <fstream>
+#include <sstream>
+#include <string>
+
+#if defined(__GLIBC__)
+#include <unistd.h>
+#endif
+
+#if defined(__SANITIZE_ADDRESS__)
+#define SIFTER_OWN_ALLOCATOR 1
+#elif defined(__has_feature)
+#if __has_feature(address_sanitizer)
+#define SIFTER_OWN_ALLOCATOR 1
+#endif
+#endif
+
+namespace sifter::cli {
+namespace {
+
+constexpr std::size_t kMiB = std::size_t{1} << 20;
+
+/// The VmFlags line of the mapping of /proc/self/smaps that holds `address` ("" when none does).
+std::string mapping_flags(std::uintptr_t address) {
+  std::ifstream smaps("/proc/self/smaps");
+  std::string line;
+  bool inside = false;
+  while (std::getline(smaps, line)) {
+    std::uintptr_t lo = 0;
+    std::uintptr_t hi = 0;
+    char dash = 0;
+    std::istringstream head(line);
+    if (head >> std::hex >> lo >> dash >> hi && dash == '-') {
+      inside = lo <= address && address < hi;
+      continue;
+    }
+    if (inside && line.rfind("VmFlags:", 0) == 0) return line;
+  }
+  return {};
+}
+
+TEST(ProcessHeap, TheReservationIsAtMostHalfThePhysicalMemoryAndFitsGlibcsPadding) {
+  const std::size_t reserve = default_heap_reserve();
+  EXPECT_GT(reserve, 0u);
+  EXPECT_LE(reserve, std::size_t{2048} * kMiB) << "M_TOP_PAD is an int";
+#if defined(__GLIBC__)
+  const auto physical =
+      static_cast<std::size_t>(sysconf(_SC_PHYS_PAGES)) * static_cast<std::size_t>(sysconf(_SC_PAGESIZE));
+  EXPECT_LE(reserve, physical / 2);
+#endif
+}
+
+TEST(ProcessHeap, TheMainHeapGrowsOnceByTheReservationAdvisedForHugePagesAndKeepsIt) {
+#if !defined(__GLIBC__) || defined(SIFTER_OWN_ALLOCATOR)
+  GTEST_SKIP() << "glibc's allocator is not the one in use";
+#else
+  const HeapSetup setup = prepare_process_heap(64 * kMiB);
+  ASSERT_TRUE(setup.glibc);
+  // Whole huge pages of what the break moved by: at least the reservation less a huge page at
+  // each end for the alignment.
+  EXPECT_GE(setup.reserved, 60 * kMiB);
+  EXPECT_LE(setup.reserved, 66 * kMiB);
+  EXPECT_EQ(setup.reserved_at % (2 * kMiB), 0u);
+  // The probe was freed, and the heap was not trimmed back: the break is still beyond it.
+  const auto brk_now = reinterpret_cast<std::uintptr_t>(sbrk(0));
+  EXPECT_GE(brk_now, setup.reserved_at + setup.reserved);
+  ASSERT_TRUE(setup.huge_page_advice) << "madvise(MADV_HUGEPAGE) refused";
+  const std::string flags = mapping_flags(setup.reserved_at);
+  EXPECT_NE(flags.find(" hg"), std::string::npos) << "the mapping is not advised: " << flags;
+  // The next block of a few MiB comes out of what the break moved by (which begins less than a
+  // huge page before the advised part), and freeing it gives nothing back.
+  void* block = std::malloc(4 * kMiB);
+  ASSERT_NE(block, nullptr);
+  std::memset(block, 1, 4 * kMiB);
+  const auto at = reinterpret_cast<std::uintptr_t>(block);
+  EXPECT_GE(at, setup.reserved_at - 2 * kMiB);
+  EXPECT_LE(at + 4 * kMiB, setup.reserved_at + setup.reserved);
+  std::free(block);
+  EXPECT_EQ(reinterpret_cast<std::uintptr_t>(sbrk(0)), brk_now);
+#endif
+}
+
+}  // namespace
+}  // namespace sifter::cli
