@@ -6,11 +6,13 @@
 #include "commands.hpp"
 #include "help_format.hpp"
 #include "process_heap.hpp"
+#include "sifter/model/cores.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/printable.hpp"
 
 int main(int argc, char** argv) {
   sifter::cli::prepare_process_heap(sifter::cli::default_heap_reserve());
+  sifter::set_thread_start([] { sifter::cli::advise_thread_heap(); });
   CLI::App app{"sifter: LOPA and SIL verification of safety instrumented functions (IEC 61511 / IEC 61508)"};
   app.set_version_flag("--version", std::string("sifter ") + SIFTER_VERSION);
   app.require_subcommand(1);

@@ -1,8 +1,9 @@
 // Specification of the program's heap setup (src/cli/process_heap.cpp): the main heap is grown
-// once and advised for transparent huge pages, and what is freed stays in the heap for reuse.
-// The settings are glibc's (mallopt(3), madvise(2) of the Linux man-pages); a sanitizer brings an
-// allocator of its own, so there is nothing to check under one. These specs run in a process of
-// their own (sifter_heap_tests), whose heap is as fresh at the start as the program's.
+// once and advised for transparent huge pages, a thread's heap is writable whole and advised
+// too, and what is freed stays in the heap for reuse. The settings are glibc's (mallopt(3),
+// madvise(2), end(3) of the Linux man-pages); a sanitizer brings an allocator of its own, so
+// there is nothing to check under one. Each spec runs in a process of its own (the runner
+// sifter_heap_tests, one ctest test per spec), whose heap is as fresh as the program's at start.
 #include "cli/process_heap.hpp"
 
 #include <gtest/gtest.h>
@@ -13,6 +14,7 @@
 #include <fstream>
 #include <sstream>
 #include <string>
+#include <thread>
 
 #if defined(__GLIBC__)
 #include <unistd.h>
@@ -31,10 +33,17 @@ namespace {
 
 constexpr std::size_t kMiB = std::size_t{1} << 20;
 
-/// The VmFlags line of the mapping of /proc/self/smaps that holds `address` ("" when none does).
-std::string mapping_flags(std::uintptr_t address) {
+/// The mapping of /proc/self/smaps that holds an address: its bounds and its VmFlags line.
+struct Mapping {
+  std::uintptr_t lo = 0;
+  std::uintptr_t hi = 0;
+  std::string flags;
+};
+
+Mapping mapping_of(std::uintptr_t address) {
   std::ifstream smaps("/proc/self/smaps");
   std::string line;
+  Mapping found;
   bool inside = false;
   while (std::getline(smaps, line)) {
     std::uintptr_t lo = 0;
@@ -43,11 +52,12 @@ std::string mapping_flags(std::uintptr_t address) {
     std::istringstream head(line);
     if (head >> std::hex >> lo >> dash >> hi && dash == '-') {
       inside = lo <= address && address < hi;
+      if (inside) found = {lo, hi, {}};
       continue;
     }
-    if (inside && line.rfind("VmFlags:", 0) == 0) return line;
+    if (inside && line.rfind("VmFlags:", 0) == 0) found.flags = line;
   }
-  return {};
+  return found;
 }
 
 TEST(ProcessHeap, TheReservationIsAtMostHalfThePhysicalMemoryAndFitsGlibcsPadding) {
@@ -76,7 +86,7 @@ TEST(ProcessHeap, TheMainHeapGrowsOnceByTheReservationAdvisedForHugePagesAndKeep
   const auto brk_now = reinterpret_cast<std::uintptr_t>(sbrk(0));
   EXPECT_GE(brk_now, setup.reserved_at + setup.reserved);
   ASSERT_TRUE(setup.huge_page_advice) << "madvise(MADV_HUGEPAGE) refused";
-  const std::string flags = mapping_flags(setup.reserved_at);
+  const std::string flags = mapping_of(setup.reserved_at).flags;
   EXPECT_NE(flags.find(" hg"), std::string::npos) << "the mapping is not advised: " << flags;
   // The next block of a few MiB comes out of what the break moved by (which begins less than a
   // huge page before the advised part), and freeing it gives nothing back.
@@ -88,6 +98,29 @@ TEST(ProcessHeap, TheMainHeapGrowsOnceByTheReservationAdvisedForHugePagesAndKeep
   EXPECT_LE(at + 4 * kMiB, setup.reserved_at + setup.reserved);
   std::free(block);
   EXPECT_EQ(reinterpret_cast<std::uintptr_t>(sbrk(0)), brk_now);
+#endif
+}
+
+TEST(ProcessHeap, AThreadsOwnHeapIsWritableWholeAndAdvisedForHugePagesAndTheMainThreadsIsNot) {
+#if !defined(__GLIBC__) || defined(SIFTER_OWN_ALLOCATOR)
+  GTEST_SKIP() << "glibc's allocator is not the one in use";
+#else
+  prepare_process_heap(0);  // the settings without a reservation of the main heap
+  EXPECT_FALSE(advise_thread_heap()) << "the main thread's heap is the reservation's business";
+  bool advised = false;
+  Mapping heap;
+  std::thread([&] {
+    advised = advise_thread_heap();
+    void* block = std::malloc(64);
+    heap = mapping_of(reinterpret_cast<std::uintptr_t>(block));
+    std::free(block);
+  }).join();
+  EXPECT_TRUE(advised);
+  EXPECT_NE(heap.flags.find(" hg"), std::string::npos) << "the thread's heap is not advised: " << heap.flags;
+  // The heap is one writable mapping of 64 MiB (glibc's HEAP_MAX_SIZE on 64 bits), made so
+  // when the thread's arena was created, rather than a few pages grown at a time.
+  EXPECT_EQ(heap.hi - heap.lo, 64 * kMiB);
+  EXPECT_NE(heap.flags.find(" wr"), std::string::npos) << heap.flags;
 #endif
 }
 

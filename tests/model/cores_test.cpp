@@ -5,6 +5,7 @@
 #include <gtest/gtest.h>
 
 #include <atomic>
+#include <mutex>
 #include <set>
 #include <stdexcept>
 #include <string>
@@ -61,6 +62,50 @@ TEST(Cores, AnExceptionOfATaskAlongsideComesFromItsResult) {
     auto task = alongside(threads, []() -> int { throw std::logic_error("late"); });
     EXPECT_THROW(task.get(), std::logic_error) << threads << " threads";
   }
+}
+
+namespace started {
+std::atomic<int> count{0};
+std::mutex mutex;
+std::set<std::thread::id> threads;
+void record() {
+  ++count;
+  std::lock_guard<std::mutex> lock(mutex);
+  threads.insert(std::this_thread::get_id());
+}
+}  // namespace started
+
+TEST(Cores, EveryThreadSifterStartsRunsTheThreadStartFirstAndTheCallersCoreNever) {
+  set_thread_start(&started::record);
+  const auto caller = std::this_thread::get_id();
+  // Two threads for a loop: the caller's and one started, which runs the start once.
+  std::set<std::thread::id> workers;
+  std::mutex workers_mutex;
+  parallel_for(64, 2, [&](std::size_t) {
+    std::lock_guard<std::mutex> lock(workers_mutex);
+    workers.insert(std::this_thread::get_id());
+  });
+  EXPECT_EQ(started::count.load(), 1);
+  // A task alongside on a core of its own runs it before the task; one deferred to the caller's
+  // core does not.
+  auto beside = alongside(2, [] {
+    std::lock_guard<std::mutex> lock(started::mutex);
+    return started::threads.count(std::this_thread::get_id()) == 1;
+  });
+  EXPECT_TRUE(beside.get()) << "the start ran on the task's thread before the task";
+  EXPECT_EQ(started::count.load(), 2);
+  auto later = alongside(1, [] { return 0; });
+  later.get();
+  EXPECT_EQ(started::count.load(), 2);
+  EXPECT_EQ(started::threads.count(caller), 0u);
+  for (const auto& id : workers) {
+    if (id != caller) {
+      EXPECT_EQ(started::threads.count(id), 1u) << "a worker of the loop did not run it";
+    }
+  }
+  set_thread_start(nullptr);
+  parallel_for(8, 2, [](std::size_t) {});
+  EXPECT_EQ(started::count.load(), 2) << "with no start set, a thread runs nothing first";
 }
 
 }  // namespace
