@@ -5,6 +5,7 @@
 #include <climits>
 #include <cstdint>
 #include <cstdlib>
+#include <string_view>
 
 #if defined(__GLIBC__)
 #include <malloc.h>
@@ -49,6 +50,11 @@ void reserve_main_heap(std::size_t reserve, HeapSetup& setup) {
 #endif
 
 }  // namespace
+
+bool plain_heap_requested() {
+  const char* plain = std::getenv("SIFTER_PLAIN_HEAP");
+  return plain != nullptr && *plain != '\0' && std::string_view(plain) != "0";
+}
 
 std::size_t default_heap_reserve() {
   std::size_t reserve = static_cast<std::size_t>(INT_MAX) + 1 - kHugePage;

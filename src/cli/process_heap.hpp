@@ -43,6 +43,10 @@ HeapSetup prepare_process_heap(std::size_t reserve);
 /// An advice on memory that is not a heap only changes the size of its pages.
 bool advise_thread_heap();
 
+/// Whether the environment asks to leave glibc's allocator as it is: SIFTER_PLAIN_HEAP set to
+/// anything but "" or "0". For comparing the two, or ruling the setup out when hunting a problem.
+bool plain_heap_requested();
+
 /// The reservation main asks for: 2 GiB less 2 MiB (glibc's padding setting is an int), or half
 /// the physical memory when that is less, so that the kernel's overcommit check never refuses it.
 std::size_t default_heap_reserve();

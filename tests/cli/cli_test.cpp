@@ -101,6 +101,22 @@ TEST(Cli, TheShippedExampleMeetsEveryTargetAndExitsZero) {
   EXPECT_NE(r.out.find("LS-40: SIF-401, SIF-403"), std::string::npos);  // a shared logic solver
 }
 
+// The program sets up its heap for speed (src/cli/process_heap.hpp): huge pages, memory kept for
+// reuse. An allocator's settings must never change a result: every example's results and text,
+// on two threads, are the same byte for byte with the setup and with SIFTER_PLAIN_HEAP=1.
+TEST(Cli, TheHeapSetupChangesNoResult) {
+  for (const char* example :
+       {"examples/unit40.json", "examples/unit50_shortfall.json", "examples/unit70_booster.json"}) {
+    const std::string args = std::string("check ") + example + " --threads 2 --json -";
+    const auto tuned = run_sifter(args);
+    const auto plain = run_sifter(args, "SIFTER_PLAIN_HEAP=1");
+    EXPECT_EQ(tuned.exit_code, plain.exit_code) << example;
+    EXPECT_EQ(tuned.out, plain.out) << example;
+    EXPECT_EQ(tuned.err, plain.err) << example;
+    EXPECT_NE(tuned.out.find("\"sifs\""), std::string::npos) << example << ": no results to compare";
+  }
+}
+
 TEST(Cli, JsonResultsCarryTheContractKeys) {
   const auto r = run_sifter("check examples/unit40.json --json -");
   ASSERT_EQ(r.exit_code, 0) << r.err;

@@ -24,13 +24,14 @@ inline std::string slurp(const std::filesystem::path& p) {
   return s.str();
 }
 
-/// Runs `sifter ARGS` from the source folder; stdout and stderr are kept apart.
-inline RunResult run_sifter(const std::string& args) {
+/// Runs `sifter ARGS` from the source folder; stdout and stderr are kept apart. `environment`
+/// is put before the program on the shell's command line ("NAME=value ...").
+inline RunResult run_sifter(const std::string& args, const std::string& environment = "") {
   static int counter = 0;
   const auto err_file = std::filesystem::temp_directory_path() /
                         ("sifter_cli_err_" + std::to_string(::getpid()) + "_" + std::to_string(counter++));
-  const std::string cmd = std::string("cd '") + SIFTER_SOURCE_DIR + "' && '" + SIFTER_BINARY + "' " + args + " 2>'" +
-                          err_file.string() + "'";
+  const std::string cmd = std::string("cd '") + SIFTER_SOURCE_DIR + "' && " + environment + " '" + SIFTER_BINARY +
+                          "' " + args + " 2>'" + err_file.string() + "'";
   RunResult r;
   FILE* pipe = ::popen(cmd.c_str(), "r");
   if (!pipe) return r;
