@@ -12,10 +12,9 @@
 
 int main(int argc, char** argv) {
   // The heap is set up for speed before any work (src/cli/process_heap.hpp); it changes no result.
-  if (!sifter::cli::plain_heap_requested()) {
-    sifter::cli::prepare_process_heap(sifter::cli::default_heap_reserve());
+  if (!sifter::cli::plain_heap_requested() &&
+      sifter::cli::prepare_process_heap(sifter::cli::default_heap_reserve()).reserved > 0)
     sifter::set_thread_start([] { sifter::cli::advise_thread_heap(); });
-  }
   CLI::App app{"sifter: LOPA and SIL verification of safety instrumented functions (IEC 61511 / IEC 61508)"};
   app.set_version_flag("--version", std::string("sifter ") + SIFTER_VERSION);
   app.require_subcommand(1);

@@ -2,8 +2,10 @@
 // once and advised for transparent huge pages, a thread's heap is writable whole and advised
 // too, and what is freed stays in the heap for reuse. The settings are glibc's (mallopt(3),
 // madvise(2), end(3) of the Linux man-pages); a sanitizer brings an allocator of its own, so
-// there is nothing to check under one. Each spec runs in a process of its own (the runner
-// sifter_heap_tests, one ctest test per spec), whose heap is as fresh as the program's at start.
+// there is nothing to check under one. Each spec needs a heap as fresh as the program's at
+// start: ctest runs each in a process of its own (the runner sifter_heap_tests); by hand, run
+// one at a time (--gtest_filter), since the reservation of one leaves the next a heap already
+// grown.
 #include "cli/process_heap.hpp"
 
 #include <gtest/gtest.h>
@@ -15,6 +17,7 @@
 #include <sstream>
 #include <string>
 #include <thread>
+#include <utility>
 
 #if defined(__GLIBC__)
 #include <unistd.h>
@@ -71,10 +74,21 @@ TEST(ProcessHeap, TheReservationIsAtMostHalfThePhysicalMemoryAndFitsGlibcsPaddin
 #endif
 }
 
-TEST(ProcessHeap, TheMainHeapGrowsOnceByTheReservationAdvisedForHugePagesAndKeepsIt) {
+/// Why a spec of the setup cannot run here, or "" when it can.
+std::string cannot_run() {
 #if !defined(__GLIBC__) || defined(SIFTER_OWN_ALLOCATOR)
-  GTEST_SKIP() << "glibc's allocator is not the one in use";
+  return "glibc's allocator is not the one in use";
 #else
+  if (!std::ifstream("/sys/kernel/mm/transparent_hugepage/enabled")) return "this kernel has no transparent huge pages";
+  std::ifstream overcommit("/proc/sys/vm/overcommit_memory");
+  int mode = 0;
+  if (overcommit >> mode && mode == 2) return "strict overcommit: the setup reserves nothing";
+  return {};
+#endif
+}
+
+TEST(ProcessHeap, TheMainHeapGrowsOnceByTheReservationAdvisedForHugePagesAndKeepsIt) {
+  if (const auto why = cannot_run(); !why.empty()) GTEST_SKIP() << why;
   const HeapSetup setup = prepare_process_heap(64 * kMiB);
   ASSERT_TRUE(setup.glibc);
   // Whole huge pages of what the break moved by: at least the reservation less a huge page at
@@ -85,7 +99,6 @@ TEST(ProcessHeap, TheMainHeapGrowsOnceByTheReservationAdvisedForHugePagesAndKeep
   // The probe was freed, and the heap was not trimmed back: the break is still beyond it.
   const auto brk_now = reinterpret_cast<std::uintptr_t>(sbrk(0));
   EXPECT_GE(brk_now, setup.reserved_at + setup.reserved);
-  ASSERT_TRUE(setup.huge_page_advice) << "madvise(MADV_HUGEPAGE) refused";
   const std::string flags = mapping_of(setup.reserved_at).flags;
   EXPECT_NE(flags.find(" hg"), std::string::npos) << "the mapping is not advised: " << flags;
   // The next block of a few MiB comes out of what the break moved by (which begins less than a
@@ -98,15 +111,11 @@ TEST(ProcessHeap, TheMainHeapGrowsOnceByTheReservationAdvisedForHugePagesAndKeep
   EXPECT_LE(at + 4 * kMiB, setup.reserved_at + setup.reserved);
   std::free(block);
   EXPECT_EQ(reinterpret_cast<std::uintptr_t>(sbrk(0)), brk_now);
-#endif
 }
 
-TEST(ProcessHeap, AThreadsOwnHeapIsWritableWholeAndAdvisedForHugePagesAndTheMainThreadsIsNot) {
-#if !defined(__GLIBC__) || defined(SIFTER_OWN_ALLOCATOR)
-  GTEST_SKIP() << "glibc's allocator is not the one in use";
-#else
-  prepare_process_heap(0);  // the settings without a reservation of the main heap
-  EXPECT_FALSE(advise_thread_heap()) << "the main thread's heap is the reservation's business";
+/// The mapping that holds a small block a new thread allocates, and whether the thread's
+/// advise_thread_heap was taken.
+std::pair<Mapping, bool> new_threads_heap() {
   bool advised = false;
   Mapping heap;
   std::thread([&] {
@@ -115,13 +124,28 @@ TEST(ProcessHeap, AThreadsOwnHeapIsWritableWholeAndAdvisedForHugePagesAndTheMain
     heap = mapping_of(reinterpret_cast<std::uintptr_t>(block));
     std::free(block);
   }).join();
+  return {heap, advised};
+}
+
+TEST(ProcessHeap, AThreadsOwnHeapIsWritableWholeAndAdvisedForHugePagesAndTheMainThreadsIsNot) {
+  if (const auto why = cannot_run(); !why.empty()) GTEST_SKIP() << why;
+  ASSERT_GT(prepare_process_heap(64 * kMiB).reserved, 0u);
+  EXPECT_FALSE(advise_thread_heap()) << "the main thread's heap is the reservation's business";
+  const auto [heap, advised] = new_threads_heap();
   EXPECT_TRUE(advised);
   EXPECT_NE(heap.flags.find(" hg"), std::string::npos) << "the thread's heap is not advised: " << heap.flags;
   // The heap is one writable mapping of 64 MiB (glibc's HEAP_MAX_SIZE on 64 bits), made so
   // when the thread's arena was created, rather than a few pages grown at a time.
   EXPECT_EQ(heap.hi - heap.lo, 64 * kMiB);
   EXPECT_NE(heap.flags.find(" wr"), std::string::npos) << heap.flags;
-#endif
+}
+
+TEST(ProcessHeap, WithoutAReservationAThreadsHeapGrowsAsGlibcMakesIt) {
+  if (const auto why = cannot_run(); !why.empty()) GTEST_SKIP() << why;
+  const HeapSetup setup = prepare_process_heap(0);  // below two huge pages: nothing reserved
+  EXPECT_EQ(setup.reserved, 0u);
+  const Mapping heap = new_threads_heap().first;
+  EXPECT_LT(heap.hi - heap.lo, 64 * kMiB) << "a thread's heap made writable whole for nothing";
 }
 
 }  // namespace

@@ -66,46 +66,51 @@ TEST(Cores, AnExceptionOfATaskAlongsideComesFromItsResult) {
 
 namespace started {
 std::atomic<int> count{0};
+thread_local bool ran_here = false;  // set by the start on the thread it runs on
 std::mutex mutex;
 std::set<std::thread::id> threads;
 void record() {
   ++count;
+  ran_here = true;
   std::lock_guard<std::mutex> lock(mutex);
   threads.insert(std::this_thread::get_id());
 }
 }  // namespace started
 
 TEST(Cores, EveryThreadSifterStartsRunsTheThreadStartFirstAndTheCallersCoreNever) {
+  started::count = 0;
+  started::threads.clear();
   set_thread_start(&started::record);
   const auto caller = std::this_thread::get_id();
-  // Two threads for a loop: the caller's and one started, which runs the start once.
-  std::set<std::thread::id> workers;
-  std::mutex workers_mutex;
+  // Two threads for a loop: the caller's and one started, which runs the start once, before
+  // its first item.
+  std::atomic<int> items_before_start{0};
   parallel_for(64, 2, [&](std::size_t) {
-    std::lock_guard<std::mutex> lock(workers_mutex);
-    workers.insert(std::this_thread::get_id());
+    if (std::this_thread::get_id() != caller && !started::ran_here) ++items_before_start;
   });
   EXPECT_EQ(started::count.load(), 1);
+  EXPECT_EQ(items_before_start.load(), 0);
   // A task alongside on a core of its own runs it before the task; one deferred to the caller's
   // core does not.
-  auto beside = alongside(2, [] {
-    std::lock_guard<std::mutex> lock(started::mutex);
-    return started::threads.count(std::this_thread::get_id()) == 1;
-  });
+  auto beside = alongside(2, [] { return started::ran_here; });
   EXPECT_TRUE(beside.get()) << "the start ran on the task's thread before the task";
   EXPECT_EQ(started::count.load(), 2);
-  auto later = alongside(1, [] { return 0; });
-  later.get();
+  auto later = alongside(1, [] { return started::ran_here; });
+  EXPECT_FALSE(later.get());
   EXPECT_EQ(started::count.load(), 2);
   EXPECT_EQ(started::threads.count(caller), 0u);
-  for (const auto& id : workers) {
-    if (id != caller) {
-      EXPECT_EQ(started::threads.count(id), 1u) << "a worker of the loop did not run it";
-    }
-  }
   set_thread_start(nullptr);
   parallel_for(8, 2, [](std::size_t) {});
   EXPECT_EQ(started::count.load(), 2) << "with no start set, a thread runs nothing first";
+}
+
+TEST(Cores, ATaskAlongsideThatReturnsAReferenceGivesThatReference) {
+  int value = 1;
+  for (int threads : {1, 2}) {
+    auto task = alongside(threads, [&value]() -> int& { return value; });
+    int& got = task.get();
+    EXPECT_EQ(&got, &value) << "threads " << threads;
+  }
 }
 
 }  // namespace
