@@ -6,15 +6,13 @@
 #include "commands.hpp"
 #include "help_format.hpp"
 #include "process_heap.hpp"
-#include "sifter/model/cores.hpp"
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/printable.hpp"
 
 int main(int argc, char** argv) {
-  // The heap is set up for speed before any work (src/cli/process_heap.hpp); it changes no result.
-  if (!sifter::cli::plain_heap_requested() &&
-      sifter::cli::prepare_process_heap(sifter::cli::default_heap_reserve()).reserved > 0)
-    sifter::set_thread_start([] { sifter::cli::advise_thread_heap(); });
+  // First, before any work: glibc's heap set up for speed (src/cli/process_heap.hpp). It
+  // changes no result.
+  sifter::cli::restart_with_heap_tunables(argv);
   CLI::App app{"sifter: LOPA and SIL verification of safety instrumented functions (IEC 61511 / IEC 61508)"};
   app.set_version_flag("--version", std::string("sifter ") + SIFTER_VERSION);
   app.require_subcommand(1);

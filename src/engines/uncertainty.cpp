@@ -344,10 +344,7 @@ UncertaintySummary run_monte_carlo(const UncertaintyPlan& plan, const MonteCarlo
   std::vector<std::thread> workers;
   workers.reserve(static_cast<std::size_t>(threads));
   for (int t = 0; t < threads; ++t)
-    workers.emplace_back([&, t] {
-      on_thread_start();
-      work(run, static_cast<std::size_t>(t), source, evaluate, values);
-    });
+    workers.emplace_back([&, t] { work(run, static_cast<std::size_t>(t), source, evaluate, values); });
   wait_reporting_progress(run, options.progress);
   for (auto& w : workers) w.join();
   rethrow_first(run.errors);

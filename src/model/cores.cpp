@@ -10,16 +10,6 @@
 
 namespace sifter {
 
-namespace {
-std::atomic<ThreadStart> thread_start{nullptr};
-}  // namespace
-
-void set_thread_start(ThreadStart start) { thread_start.store(start); }
-
-void on_thread_start() {
-  if (const ThreadStart start = thread_start.load()) start();
-}
-
 unsigned thread_budget(int requested) {
   if (requested > 0) return static_cast<unsigned>(requested);
   return std::max(1u, std::thread::hardware_concurrency());
@@ -49,11 +39,7 @@ void parallel_for(std::size_t n, int threads, const std::function<void(std::size
     }
   };
   std::vector<std::thread> pool;
-  for (std::size_t w = 1; w < workers; ++w)
-    pool.emplace_back([&work] {
-      on_thread_start();
-      work();
-    });
+  for (std::size_t w = 1; w < workers; ++w) pool.emplace_back(work);
   work();
   for (auto& t : pool) t.join();
   if (failure) std::rethrow_exception(failure);

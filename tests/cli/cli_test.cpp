@@ -101,10 +101,9 @@ TEST(Cli, TheShippedExampleMeetsEveryTargetAndExitsZero) {
   EXPECT_NE(r.out.find("LS-40: SIF-401, SIF-403"), std::string::npos);  // a shared logic solver
 }
 
-// The program sets up its heap for speed (src/cli/process_heap.hpp): huge pages, memory kept for
-// reuse. An allocator's settings must never change a result: every example's results and
-// warnings, on two threads, are the same byte for byte with the setup and with
-// SIFTER_PLAIN_HEAP=1.
+// The program restarts itself under glibc's heap tunables for speed (src/cli/process_heap.hpp):
+// huge pages, heaps grown 64 MiB at a time. An allocator's settings must never change a result: every example's results
+// and warnings, on two threads, are the same byte for byte with the setup and with SIFTER_PLAIN_HEAP=1.
 TEST(Cli, TheHeapSetupChangesNoResult) {
   std::vector<std::string> examples;
   for (const auto& entry : std::filesystem::directory_iterator(std::string(SIFTER_SOURCE_DIR) + "/examples"))

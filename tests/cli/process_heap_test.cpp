@@ -1,11 +1,8 @@
-// Specification of the program's heap setup (src/cli/process_heap.cpp): the main heap is grown
-// once and advised for transparent huge pages, a thread's heap is writable whole and advised
-// too, and what is freed stays in the heap for reuse. The settings are glibc's (mallopt(3),
-// madvise(2), end(3) of the Linux man-pages); a sanitizer brings an allocator of its own, so
-// there is nothing to check under one. Each spec needs a heap as fresh as the program's at
-// start: ctest runs each in a process of its own (the runner sifter_heap_tests); by hand, run
-// one at a time (--gtest_filter), since the reservation of one leaves the next a heap already
-// grown.
+// Specification of the program's heap setup (src/cli/process_heap.cpp): the program restarts
+// itself once under glibc's heap tunables, which glibc then applies (glibc manual, "Memory
+// Allocation Tunables"; /proc/self/smaps of proc(5), whose VmFlags "hg" marks a mapping advised
+// for huge pages). The restart spec restarts this runner itself, so the runner has a main of
+// its own that keeps the arguments; ctest runs each spec in a process of its own.
 #include "cli/process_heap.hpp"
 
 #include <gtest/gtest.h>
@@ -17,24 +14,29 @@
 #include <sstream>
 #include <string>
 #include <thread>
-#include <utility>
+#include <vector>
 
-#if defined(__GLIBC__)
-#include <unistd.h>
-#endif
+namespace {
 
-#if defined(__SANITIZE_ADDRESS__)
-#define SIFTER_OWN_ALLOCATOR 1
-#elif defined(__has_feature)
-#if __has_feature(address_sanitizer)
-#define SIFTER_OWN_ALLOCATOR 1
-#endif
-#endif
+std::vector<char*> runner_argv;  // this runner's arguments as given (gtest takes its own out of argv)
+
+}  // namespace
 
 namespace sifter::cli {
 namespace {
 
 constexpr std::size_t kMiB = std::size_t{1} << 20;
+
+TEST(ProcessHeap, TheProgramRestartsOnlyWhenNeitherThePlainHeapNorTunablesOfItsOwnAreAsked) {
+  if (!heap_restart_wanted(nullptr, nullptr)) GTEST_SKIP() << "glibc's allocator (2.35 or later) is not the one in use";
+  EXPECT_TRUE(heap_restart_wanted("0", nullptr));
+  EXPECT_TRUE(heap_restart_wanted("", nullptr)) << "only 1 asks for the plain heap";
+  EXPECT_FALSE(heap_restart_wanted("1", nullptr));
+  EXPECT_FALSE(heap_restart_wanted(nullptr, "glibc.malloc.arena_max=1")) << "the user's own tunables stand";
+  EXPECT_FALSE(heap_restart_wanted(nullptr, "")) << "set, even empty, is the user's";
+  const std::string ours(kHeapTunables);
+  EXPECT_FALSE(heap_restart_wanted(nullptr, ours.c_str())) << "after the restart, never again";
+}
 
 /// The mapping of /proc/self/smaps that holds an address: its bounds and its VmFlags line.
 struct Mapping {
@@ -43,7 +45,8 @@ struct Mapping {
   std::string flags;
 };
 
-Mapping mapping_of(std::uintptr_t address) {
+Mapping mapping_of(const void* block) {
+  const auto address = reinterpret_cast<std::uintptr_t>(block);
   std::ifstream smaps("/proc/self/smaps");
   std::string line;
   Mapping found;
@@ -63,90 +66,51 @@ Mapping mapping_of(std::uintptr_t address) {
   return found;
 }
 
-TEST(ProcessHeap, TheReservationIsAtMostHalfThePhysicalMemoryAndFitsGlibcsPadding) {
-  const std::size_t reserve = default_heap_reserve();
-  EXPECT_GT(reserve, 0u);
-  EXPECT_LE(reserve, std::size_t{2048} * kMiB) << "M_TOP_PAD is an int";
-#if defined(__GLIBC__)
-  const auto physical =
-      static_cast<std::size_t>(sysconf(_SC_PHYS_PAGES)) * static_cast<std::size_t>(sysconf(_SC_PAGESIZE));
-  EXPECT_LE(reserve, physical / 2);
-#endif
-}
-
-/// Why a spec of the setup cannot run here, or "" when it can.
-std::string cannot_run() {
-#if !defined(__GLIBC__) || defined(SIFTER_OWN_ALLOCATOR)
-  return "glibc's allocator is not the one in use";
-#else
-  if (!std::ifstream("/sys/kernel/mm/transparent_hugepage/enabled")) return "this kernel has no transparent huge pages";
-  std::ifstream overcommit("/proc/sys/vm/overcommit_memory");
-  int mode = 0;
-  if (overcommit >> mode && mode == 2) return "strict overcommit: the setup reserves nothing";
+/// The kernel's mode of transparent huge pages: "always", "madvise", "never", or "" without.
+std::string huge_page_mode() {
+  std::ifstream enabled("/sys/kernel/mm/transparent_hugepage/enabled");
+  std::string word;
+  while (enabled >> word)
+    if (word.size() > 2 && word.front() == '[') return word.substr(1, word.size() - 2);
   return {};
-#endif
 }
 
-TEST(ProcessHeap, TheMainHeapGrowsOnceByTheReservationAdvisedForHugePagesAndKeepsIt) {
-  if (const auto why = cannot_run(); !why.empty()) GTEST_SKIP() << why;
-  const HeapSetup setup = prepare_process_heap(64 * kMiB);
-  ASSERT_TRUE(setup.glibc);
-  // Whole huge pages of what the break moved by: at least the reservation less a huge page at
-  // each end for the alignment.
-  EXPECT_GE(setup.reserved, 60 * kMiB);
-  EXPECT_LE(setup.reserved, 66 * kMiB);
-  EXPECT_EQ(setup.reserved_at % (2 * kMiB), 0u);
-  // The probe was freed, and the heap was not trimmed back: the break is still beyond it.
-  const auto brk_now = reinterpret_cast<std::uintptr_t>(sbrk(0));
-  EXPECT_GE(brk_now, setup.reserved_at + setup.reserved);
-  const std::string flags = mapping_of(setup.reserved_at).flags;
-  EXPECT_NE(flags.find(" hg"), std::string::npos) << "the mapping is not advised: " << flags;
-  // The next block of a few MiB comes out of what the break moved by (which begins less than a
-  // huge page before the advised part), and freeing it gives nothing back.
-  void* block = std::malloc(4 * kMiB);
+// The first run of this spec restarts the runner (the same arguments: ctest's filter runs this
+// spec alone again); the restarted run checks what glibc made of the tunables. An exec that
+// failed would leave the first run here without them.
+TEST(ProcessHeap, TheRestartedProgramRunsUnderGlibcsTunablesWithItsHeapsAdvisedForHugePages) {
+  if (!heap_restart_wanted(nullptr, nullptr)) GTEST_SKIP() << "glibc's allocator (2.35 or later) is not the one in use";
+  if (!heap_restart_wanted(std::getenv("SIFTER_PLAIN_HEAP"), nullptr)) GTEST_SKIP() << "SIFTER_PLAIN_HEAP=1 here";
+  restart_with_heap_tunables(runner_argv.data());
+  const char* tunables = std::getenv("GLIBC_TUNABLES");
+  ASSERT_NE(tunables, nullptr) << "no restart";
+  if (tunables != kHeapTunables) GTEST_SKIP() << "GLIBC_TUNABLES of the user's own: " << tunables;
+  // glibc advises what it maps only when the kernel gives huge pages on advice alone.
+  if (huge_page_mode() != "madvise") GTEST_SKIP() << "transparent huge pages not in madvise mode";
+  void* block = std::malloc(64 << 10);  // a heap block (below the mmap threshold)
   ASSERT_NE(block, nullptr);
-  std::memset(block, 1, 4 * kMiB);
-  const auto at = reinterpret_cast<std::uintptr_t>(block);
-  EXPECT_GE(at, setup.reserved_at - 2 * kMiB);
-  EXPECT_LE(at + 4 * kMiB, setup.reserved_at + setup.reserved);
+  const Mapping main_heap = mapping_of(block);
+  EXPECT_NE(main_heap.flags.find(" hg"), std::string::npos) << "the main heap is not advised: " << main_heap.flags;
+  EXPECT_GE(main_heap.hi - main_heap.lo, 64 * kMiB) << "the heap grew by less than the padding";
   std::free(block);
-  EXPECT_EQ(reinterpret_cast<std::uintptr_t>(sbrk(0)), brk_now);
-}
-
-/// The mapping that holds a small block a new thread allocates, and whether the thread's
-/// advise_thread_heap was taken.
-std::pair<Mapping, bool> new_threads_heap() {
-  bool advised = false;
-  Mapping heap;
-  std::thread([&] {
-    advised = advise_thread_heap();
-    void* block = std::malloc(64);
-    heap = mapping_of(reinterpret_cast<std::uintptr_t>(block));
-    std::free(block);
+  // A thread's heap: advised, and writable by the padding at once rather than a page at a time.
+  Mapping thread_heap;
+  std::thread([&thread_heap] {
+    void* small = std::malloc(64);
+    thread_heap = mapping_of(small);
+    std::free(small);
   }).join();
-  return {heap, advised};
-}
-
-TEST(ProcessHeap, AThreadsOwnHeapIsWritableWholeAndAdvisedForHugePagesAndTheMainThreadsIsNot) {
-  if (const auto why = cannot_run(); !why.empty()) GTEST_SKIP() << why;
-  ASSERT_GT(prepare_process_heap(64 * kMiB).reserved, 0u);
-  EXPECT_FALSE(advise_thread_heap()) << "the main thread's heap is the reservation's business";
-  const auto [heap, advised] = new_threads_heap();
-  EXPECT_TRUE(advised);
-  EXPECT_NE(heap.flags.find(" hg"), std::string::npos) << "the thread's heap is not advised: " << heap.flags;
-  // The heap is one writable mapping of 64 MiB (glibc's HEAP_MAX_SIZE on 64 bits), made so
-  // when the thread's arena was created, rather than a few pages grown at a time.
-  EXPECT_EQ(heap.hi - heap.lo, 64 * kMiB);
-  EXPECT_NE(heap.flags.find(" wr"), std::string::npos) << heap.flags;
-}
-
-TEST(ProcessHeap, WithoutAReservationAThreadsHeapGrowsAsGlibcMakesIt) {
-  if (const auto why = cannot_run(); !why.empty()) GTEST_SKIP() << why;
-  const HeapSetup setup = prepare_process_heap(0);  // below two huge pages: nothing reserved
-  EXPECT_EQ(setup.reserved, 0u);
-  const Mapping heap = new_threads_heap().first;
-  EXPECT_LT(heap.hi - heap.lo, 64 * kMiB) << "a thread's heap made writable whole for nothing";
+  EXPECT_NE(thread_heap.flags.find(" hg"), std::string::npos)
+      << "a thread's heap is not advised: " << thread_heap.flags;
+  EXPECT_NE(thread_heap.flags.find(" wr"), std::string::npos) << thread_heap.flags;
+  EXPECT_GE(thread_heap.hi - thread_heap.lo, 32 * kMiB);
 }
 
 }  // namespace
 }  // namespace sifter::cli
+
+int main(int argc, char** argv) {
+  runner_argv.assign(argv, argv + argc + 1);  // with the null that ends it
+  ::testing::InitGoogleTest(&argc, argv);
+  return RUN_ALL_TESTS();
+}

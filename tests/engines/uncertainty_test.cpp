@@ -4,7 +4,6 @@
 #include <gtest/gtest.h>
 
 #include <algorithm>
-#include <atomic>
 #include <boost/math/distributions/chi_squared.hpp>
 #include <boost/math/distributions/lognormal.hpp>
 #include <boost/math/distributions/normal.hpp>
@@ -17,7 +16,6 @@
 #include <vector>
 
 #include "sifter/engines/simplified.hpp"
-#include "sifter/model/cores.hpp"
 #include "support/tolerance.hpp"
 
 namespace sifter {
@@ -312,31 +310,6 @@ TEST(MonteCarlo, SameSeedGivesIdenticalResultsOnOneTwoAndThreeThreads) {
   const auto one = run_monte_carlo(plan, {30000, 5, 1, {}, {}}, one_oo_one_pfd, required);
   expect_identical(one, run_monte_carlo(plan, {30000, 5, 2, {}, {}}, one_oo_one_pfd, required));
   expect_identical(one, run_monte_carlo(plan, {30000, 5, 3, {}, {}}, one_oo_one_pfd, required));
-}
-
-namespace worker_start {
-std::atomic<int> count{0};
-thread_local bool ran_here = false;
-void record() {
-  ++count;
-  ran_here = true;
-}
-}  // namespace worker_start
-
-// Every thread sifter starts runs the program's thread start first (model/cores.hpp); the
-// Monte Carlo starts its workers itself, so it says so too.
-TEST(MonteCarlo, EveryWorkerRunsTheThreadStartBeforeItsFirstSample) {
-  worker_start::count = 0;
-  set_thread_start(&worker_start::record);
-  std::atomic<int> samples_before_start{0};
-  const SampleEvaluator evaluate = [&](std::span<const double> factors) {
-    if (!worker_start::ran_here) ++samples_before_start;
-    return one_oo_one_pfd(factors);
-  };
-  run_monte_carlo(one_source(kErrorFactor), {30000, 5, 3, {}, {}}, evaluate, 1.0e-3);
-  set_thread_start(nullptr);
-  EXPECT_EQ(worker_start::count.load(), 3) << "three workers, each started once";
-  EXPECT_EQ(samples_before_start.load(), 0);
 }
 
 TEST(MonteCarlo, DifferentSeedsGiveDifferentResults) {

@@ -5,7 +5,6 @@
 #include <gtest/gtest.h>
 
 #include <atomic>
-#include <mutex>
 #include <set>
 #include <stdexcept>
 #include <string>
@@ -62,46 +61,6 @@ TEST(Cores, AnExceptionOfATaskAlongsideComesFromItsResult) {
     auto task = alongside(threads, []() -> int { throw std::logic_error("late"); });
     EXPECT_THROW(task.get(), std::logic_error) << threads << " threads";
   }
-}
-
-namespace started {
-std::atomic<int> count{0};
-thread_local bool ran_here = false;  // set by the start on the thread it runs on
-std::mutex mutex;
-std::set<std::thread::id> threads;
-void record() {
-  ++count;
-  ran_here = true;
-  std::lock_guard<std::mutex> lock(mutex);
-  threads.insert(std::this_thread::get_id());
-}
-}  // namespace started
-
-TEST(Cores, EveryThreadSifterStartsRunsTheThreadStartFirstAndTheCallersCoreNever) {
-  started::count = 0;
-  started::threads.clear();
-  set_thread_start(&started::record);
-  const auto caller = std::this_thread::get_id();
-  // Two threads for a loop: the caller's and one started, which runs the start once, before
-  // its first item.
-  std::atomic<int> items_before_start{0};
-  parallel_for(64, 2, [&](std::size_t) {
-    if (std::this_thread::get_id() != caller && !started::ran_here) ++items_before_start;
-  });
-  EXPECT_EQ(started::count.load(), 1);
-  EXPECT_EQ(items_before_start.load(), 0);
-  // A task alongside on a core of its own runs it before the task; one deferred to the caller's
-  // core does not.
-  auto beside = alongside(2, [] { return started::ran_here; });
-  EXPECT_TRUE(beside.get()) << "the start ran on the task's thread before the task";
-  EXPECT_EQ(started::count.load(), 2);
-  auto later = alongside(1, [] { return started::ran_here; });
-  EXPECT_FALSE(later.get());
-  EXPECT_EQ(started::count.load(), 2);
-  EXPECT_EQ(started::threads.count(caller), 0u);
-  set_thread_start(nullptr);
-  parallel_for(8, 2, [](std::size_t) {});
-  EXPECT_EQ(started::count.load(), 2) << "with no start set, a thread runs nothing first";
 }
 
 TEST(Cores, ATaskAlongsideThatReturnsAReferenceGivesThatReference) {

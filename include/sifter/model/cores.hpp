@@ -17,27 +17,12 @@ unsigned thread_budget(int requested);
 /// whatever the order the threads ran in.
 void parallel_for(std::size_t n, int threads, const std::function<void(std::size_t)>& body);
 
-/// What every thread sifter starts does first: nothing, unless the program sets a function
-/// here, once, before any thread starts (the sifter program sets up the thread's heap with it;
-/// the library leaves the allocator alone). Setting it while threads run is no data race (it
-/// is atomic), but a thread already started keeps what it saw.
-using ThreadStart = void (*)();
-void set_thread_start(ThreadStart start);
-/// Runs the function set by set_thread_start, if any; every thread sifter starts calls it first.
-void on_thread_start();
-
 /// Starts `task` on another core when the budget allows two threads; otherwise it runs on the
 /// caller's core when its result is asked for. Either way its result (or its exception) comes
 /// from the future's get(); a future dropped unasked joins a started task, or never runs it.
 template <typename Task>
 auto alongside(int threads, Task&& task) {
-  if (thread_budget(threads) > 1)
-    return std::async(std::launch::async, [task = std::forward<Task>(task)]() mutable -> decltype(auto) {
-      on_thread_start();
-      return task();
-    });
-  return std::async(std::launch::deferred,
-                    [task = std::forward<Task>(task)]() mutable -> decltype(auto) { return task(); });
+  return std::async(thread_budget(threads) > 1 ? std::launch::async : std::launch::deferred, std::forward<Task>(task));
 }
 
 }  // namespace sifter
