@@ -10,8 +10,9 @@
 #include "sifter/model/printable.hpp"
 
 int main(int argc, char** argv) {
-  // First, before any work: glibc's heap set up for speed (src/cli/process_heap.hpp). It
-  // changes no result.
+  // First of all: this call may replace the process by the same program under glibc's heap
+  // tunables (src/cli/process_heap.hpp) and returns only when it does not, so nothing may read
+  // or write before it. It changes no result.
   sifter::cli::restart_with_heap_tunables(argv);
   CLI::App app{"sifter: LOPA and SIL verification of safety instrumented functions (IEC 61511 / IEC 61508)"};
   app.set_version_flag("--version", std::string("sifter ") + SIFTER_VERSION);

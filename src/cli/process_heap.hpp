@@ -1,35 +1,55 @@
 #pragma once
 // How the program has glibc set up its heap before any work (the library leaves the allocator
 // alone).
-#include <string_view>
 
 namespace sifter::cli {
 
 /// The glibc tunables the program runs under (glibc manual, "Memory Allocation Tunables"):
-/// - `glibc.malloc.hugetlb=1` (glibc 2.35 and later): every heap glibc grows or maps is advised
-///   for transparent huge pages, so that a first touch maps 2 MiB rather than 4 KiB;
-/// - `glibc.malloc.top_pad=67108864`: a heap grows by 64 MiB at a time, so that the advice
-///   covers whole huge pages and a thread's heap is not grown a few pages at a time.
+/// - `glibc.malloc.hugetlb=1` (glibc 2.35 and later): glibc advises the heaps it maps and grows
+///   for transparent huge pages (`madvise(MADV_HUGEPAGE)`, madvise(2)), so that a first touch
+///   maps 2 MiB rather than 4 KiB. From memory of glibc's source: it does so only when the
+///   kernel's mode is "madvise" (in mode "always" the kernel does it unasked), and it advises a
+///   thread's heap once, when it creates it;
+/// - `glibc.malloc.top_pad=67108864`: a heap grows by 64 MiB at a time, so that a thread's heap
+///   is writable and advised whole (64 MiB, glibc's size for it on 64 bits, from memory) when it
+///   is created. Setting it also fixes glibc's mmap threshold at 128 KiB (mallopt(3),
+///   M_TOP_PAD); keeping blocks up to 32 MiB in a heap as well measured no better.
 ///
 /// Why: on the virtualised 2-core machine of the benchmarks, the first touch of a page costs
 /// about 5 microseconds, and a run over a 10,000-SIF register touched 65,000 pages of 4 KiB;
 /// perf put a fifth of its CPU samples in the page-fault path (tests/bench/RESULTS.md).
-inline constexpr std::string_view kHeapTunables = "glibc.malloc.hugetlb=1:glibc.malloc.top_pad=67108864";
+inline constexpr char kHeapTunables[] = "glibc.malloc.hugetlb=1:glibc.malloc.top_pad=67108864";
 
-/// Whether the program should restart itself under kHeapTunables, given the environment's
-/// SIFTER_PLAIN_HEAP and GLIBC_TUNABLES (nullptr when unset). Not when SIFTER_PLAIN_HEAP is 1
-/// (for comparing, for valgrind's tools, or for ruling the setup out), nor when GLIBC_TUNABLES
-/// is set already (the user's own settings stand; after the restart, they are these), nor where
-/// glibc's allocator is not the one in use or lacks the tunables (a sanitizer's build, another
-/// C library, glibc before 2.35).
-bool heap_restart_wanted(const char* plain_heap, const char* glibc_tunables);
+/// The marker the program sets for its restarted self: never a second restart, whatever glibc
+/// does with GLIBC_TUNABLES (a secure-mode process has it removed).
+inline constexpr char kHeapRestartMarker[] = "SIFTER_HEAP_RESTARTED";
 
-/// Restarts the program with GLIBC_TUNABLES set to kHeapTunables when heap_restart_wanted says
-/// so: the same executable (/proc/self/exe) with the same arguments, standard streams and
-/// environment. glibc reads its tunables only when a process starts, so main calls this first,
-/// before it reads or writes anything. Returns only when it did not restart: not wanted, or the
-/// exec failed (no /proc, say); the run then goes on under glibc's defaults, only slower.
-/// Nothing here changes a result.
+/// What decides the restart, read from the process (current_heap_environment) or set by a test.
+struct HeapEnvironment {
+  bool plain_heap_asked = false;       ///< SIFTER_PLAIN_HEAP=1: glibc's heap as it comes
+  bool restarted = false;              ///< kHeapRestartMarker is set: this is the restarted program
+  bool own_tunables = false;           ///< GLIBC_TUNABLES is set: the user's settings stand
+  bool preloaded = false;              ///< LD_PRELOAD is set: another allocator, or valgrind's tools
+  bool secure = false;                 ///< a setuid or file-capability start (getauxval(3), AT_SECURE)
+  bool strict_overcommit = false;      ///< vm.overcommit_memory = 2: each 64 MiB heap charged at once
+  bool started_by_its_loader = false;  ///< no interpreter in the program's own headers: run as
+                                       ///< `ld.so sifter ...` (or linked statically)
+};
+
+/// The environment of this process.
+HeapEnvironment current_heap_environment();
+
+/// Whether the program should restart itself under kHeapTunables: only where glibc's allocator
+/// is the one in use and has the tunables (not in a sanitizer's build, another C library, glibc
+/// before 2.35), and none of HeapEnvironment's reasons against holds.
+bool heap_restart_wanted(const HeapEnvironment& environment);
+
+/// Restarts the program under kHeapTunables when heap_restart_wanted says so: the same
+/// executable (the path /proc/self/exe links to, so that the process keeps its name), the same
+/// arguments, standard streams and environment, plus GLIBC_TUNABLES and kHeapRestartMarker.
+/// glibc reads its tunables only when a process starts, so main calls this before anything
+/// else. Returns only when it did not restart: not wanted, or the exec failed; the run then goes
+/// on under glibc's defaults, only slower. Nothing here changes a result.
 void restart_with_heap_tunables(char** argv);
 
 }  // namespace sifter::cli

@@ -102,8 +102,9 @@ TEST(Cli, TheShippedExampleMeetsEveryTargetAndExitsZero) {
 }
 
 // The program restarts itself under glibc's heap tunables for speed (src/cli/process_heap.hpp):
-// huge pages, heaps grown 64 MiB at a time. An allocator's settings must never change a result: every example's results
-// and warnings, on two threads, are the same byte for byte with the setup and with SIFTER_PLAIN_HEAP=1.
+// huge pages, heaps grown 64 MiB at a time. An allocator's settings must never change a
+// result: every example's results and warnings, on two threads, are the same byte for byte
+// with the setup and with SIFTER_PLAIN_HEAP=1.
 TEST(Cli, TheHeapSetupChangesNoResult) {
   std::vector<std::string> examples;
   for (const auto& entry : std::filesystem::directory_iterator(std::string(SIFTER_SOURCE_DIR) + "/examples"))
@@ -111,13 +112,30 @@ TEST(Cli, TheHeapSetupChangesNoResult) {
   ASSERT_GE(examples.size(), 6u);
   for (const auto& example : examples) {
     const std::string args = "check " + example + " --threads 2 --json -";
-    const auto tuned = run_sifter(args);
-    const auto plain = run_sifter(args, "SIFTER_PLAIN_HEAP=1");
+    const auto tuned = run_sifter(args, "env -u GLIBC_TUNABLES -u SIFTER_HEAP_RESTARTED -u SIFTER_PLAIN_HEAP");
+    const auto plain = run_sifter(args, "env -u GLIBC_TUNABLES SIFTER_PLAIN_HEAP=1");
     EXPECT_EQ(tuned.exit_code, plain.exit_code) << example;
     EXPECT_EQ(tuned.out, plain.out) << example;
     EXPECT_EQ(tuned.err, plain.err) << example;
     EXPECT_NE(tuned.out.find("\"sifs\""), std::string::npos) << example << ": no results to compare";
   }
+}
+
+// Started through its loader (`ld.so sifter ...`, as some packaged installs do), /proc/self/exe
+// is the loader: the program must not restart that (the loader would take the subcommand for a
+// program to run) but run as usual. A sanitizer's build never restarts: nothing to check.
+TEST(Cli, StartedThroughItsLoaderTheProgramRunsAsUsual) {
+#if defined(__SANITIZE_ADDRESS__)
+  GTEST_SKIP() << "a sanitizer's build does not restart";
+#endif
+  const std::string loader = "/lib64/ld-linux-x86-64.so.2";  // x86-64's (System V ABI)
+  if (!std::filesystem::exists(loader)) GTEST_SKIP() << "no " << loader << " here";
+  const std::string args = "check examples/unit40.json --json -";
+  const auto usual = run_sifter(args);
+  const auto loaded = run_sifter(args, "env -u GLIBC_TUNABLES -u SIFTER_HEAP_RESTARTED " + loader);
+  EXPECT_EQ(loaded.exit_code, usual.exit_code) << loaded.err;
+  EXPECT_EQ(loaded.out, usual.out);
+  EXPECT_NE(loaded.out.find("\"sifs\""), std::string::npos);
 }
 
 TEST(Cli, JsonResultsCarryTheContractKeys) {

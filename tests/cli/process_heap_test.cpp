@@ -9,11 +9,12 @@
 
 #include <cstdint>
 #include <cstdlib>
-#include <cstring>
 #include <fstream>
 #include <sstream>
 #include <string>
+#include <string_view>
 #include <thread>
+#include <utility>
 #include <vector>
 
 namespace {
@@ -27,15 +28,32 @@ namespace {
 
 constexpr std::size_t kMiB = std::size_t{1} << 20;
 
-TEST(ProcessHeap, TheProgramRestartsOnlyWhenNeitherThePlainHeapNorTunablesOfItsOwnAreAsked) {
-  if (!heap_restart_wanted(nullptr, nullptr)) GTEST_SKIP() << "glibc's allocator (2.35 or later) is not the one in use";
-  EXPECT_TRUE(heap_restart_wanted("0", nullptr));
-  EXPECT_TRUE(heap_restart_wanted("", nullptr)) << "only 1 asks for the plain heap";
-  EXPECT_FALSE(heap_restart_wanted("1", nullptr));
-  EXPECT_FALSE(heap_restart_wanted(nullptr, "glibc.malloc.arena_max=1")) << "the user's own tunables stand";
-  EXPECT_FALSE(heap_restart_wanted(nullptr, "")) << "set, even empty, is the user's";
-  const std::string ours(kHeapTunables);
-  EXPECT_FALSE(heap_restart_wanted(nullptr, ours.c_str())) << "after the restart, never again";
+/// Whether this build can restart under the tunables at all (glibc 2.35 or later, no sanitizer).
+bool can_restart() { return heap_restart_wanted(HeapEnvironment{}); }
+
+TEST(ProcessHeap, TheProgramRestartsOnlyWhenNothingSpeaksAgainstIt) {
+  if (!can_restart()) GTEST_SKIP() << "glibc's allocator (2.35 or later) is not the one in use";
+  const std::pair<const char*, bool HeapEnvironment::*> against[] = {
+      {"SIFTER_PLAIN_HEAP=1", &HeapEnvironment::plain_heap_asked},
+      {"already restarted: never twice", &HeapEnvironment::restarted},
+      {"the user's own GLIBC_TUNABLES stand", &HeapEnvironment::own_tunables},
+      {"LD_PRELOAD: another allocator or valgrind", &HeapEnvironment::preloaded},
+      {"secure mode: glibc drops GLIBC_TUNABLES", &HeapEnvironment::secure},
+      {"strict overcommit", &HeapEnvironment::strict_overcommit},
+      {"started by its loader, whose /proc/self/exe is the loader", &HeapEnvironment::started_by_its_loader},
+  };
+  for (const auto& [why, reason] : against) {
+    HeapEnvironment e;
+    e.*reason = true;
+    EXPECT_FALSE(heap_restart_wanted(e)) << why;
+  }
+}
+
+TEST(ProcessHeap, ThisRunnerStartedNormallyFindsItsInterpreterAndNoSecureMode) {
+  if (!can_restart()) GTEST_SKIP() << "glibc's allocator (2.35 or later) is not the one in use";
+  const HeapEnvironment e = current_heap_environment();
+  EXPECT_FALSE(e.started_by_its_loader) << "a dynamically linked runner started by the kernel has PT_INTERP";
+  EXPECT_FALSE(e.secure);
 }
 
 /// The mapping of /proc/self/smaps that holds an address: its bounds and its VmFlags line.
@@ -77,33 +95,40 @@ std::string huge_page_mode() {
 
 // The first run of this spec restarts the runner (the same arguments: ctest's filter runs this
 // spec alone again); the restarted run checks what glibc made of the tunables. An exec that
-// failed would leave the first run here without them.
+// failed would leave the first run here without the marker. Run by hand, select this spec alone
+// (--gtest_filter): a restart runs every selected spec again.
 TEST(ProcessHeap, TheRestartedProgramRunsUnderGlibcsTunablesWithItsHeapsAdvisedForHugePages) {
-  if (!heap_restart_wanted(nullptr, nullptr)) GTEST_SKIP() << "glibc's allocator (2.35 or later) is not the one in use";
-  if (!heap_restart_wanted(std::getenv("SIFTER_PLAIN_HEAP"), nullptr)) GTEST_SKIP() << "SIFTER_PLAIN_HEAP=1 here";
+  if (!can_restart()) GTEST_SKIP() << "glibc's allocator (2.35 or later) is not the one in use";
+  if (::testing::UnitTest::GetInstance()->test_to_run_count() != 1)
+    GTEST_SKIP() << "select this spec alone: the restart runs every selected spec again";
+  ASSERT_FALSE(runner_argv.empty());
+  const HeapEnvironment before = current_heap_environment();
+  if (!before.restarted && !heap_restart_wanted(before))
+    GTEST_SKIP() << "this process asks for no restart (SIFTER_PLAIN_HEAP, GLIBC_TUNABLES, LD_PRELOAD, overcommit)";
   restart_with_heap_tunables(runner_argv.data());
+  ASSERT_NE(std::getenv(kHeapRestartMarker), nullptr) << "no restart";
   const char* tunables = std::getenv("GLIBC_TUNABLES");
-  ASSERT_NE(tunables, nullptr) << "no restart";
-  if (tunables != kHeapTunables) GTEST_SKIP() << "GLIBC_TUNABLES of the user's own: " << tunables;
-  // glibc advises what it maps only when the kernel gives huge pages on advice alone.
-  if (huge_page_mode() != "madvise") GTEST_SKIP() << "transparent huge pages not in madvise mode";
+  ASSERT_NE(tunables, nullptr);
+  EXPECT_EQ(std::string_view(tunables), kHeapTunables);
   void* block = std::malloc(64 << 10);  // a heap block (below the mmap threshold)
   ASSERT_NE(block, nullptr);
   const Mapping main_heap = mapping_of(block);
-  EXPECT_NE(main_heap.flags.find(" hg"), std::string::npos) << "the main heap is not advised: " << main_heap.flags;
-  EXPECT_GE(main_heap.hi - main_heap.lo, 64 * kMiB) << "the heap grew by less than the padding";
   std::free(block);
-  // A thread's heap: advised, and writable by the padding at once rather than a page at a time.
+  EXPECT_GE(main_heap.hi - main_heap.lo, 64 * kMiB) << "the heap grew by less than the padding";
+  // A thread's heap: writable by the padding at once rather than a page at a time.
   Mapping thread_heap;
   std::thread([&thread_heap] {
     void* small = std::malloc(64);
     thread_heap = mapping_of(small);
     std::free(small);
   }).join();
-  EXPECT_NE(thread_heap.flags.find(" hg"), std::string::npos)
-      << "a thread's heap is not advised: " << thread_heap.flags;
   EXPECT_NE(thread_heap.flags.find(" wr"), std::string::npos) << thread_heap.flags;
   EXPECT_GE(thread_heap.hi - thread_heap.lo, 32 * kMiB);
+  // glibc advises what it maps only when the kernel gives huge pages on advice alone.
+  if (huge_page_mode() != "madvise") GTEST_SKIP() << "transparent huge pages not in madvise mode: advice not checked";
+  EXPECT_NE(main_heap.flags.find(" hg"), std::string::npos) << "the main heap is not advised: " << main_heap.flags;
+  EXPECT_NE(thread_heap.flags.find(" hg"), std::string::npos)
+      << "a thread's heap is not advised: " << thread_heap.flags;
 }
 
 }  // namespace
