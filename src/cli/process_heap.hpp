@@ -32,8 +32,8 @@ struct HeapEnvironment {
   bool preloaded = false;              ///< LD_PRELOAD is set: another allocator, or valgrind's tools
   bool secure = false;                 ///< a setuid or file-capability start (getauxval(3), AT_SECURE)
   bool strict_overcommit = false;      ///< vm.overcommit_memory = 2: each 64 MiB heap charged at once
-  bool started_by_its_loader = false;  ///< no interpreter in the program's own headers: run as
-                                       ///< `ld.so sifter ...` (or linked statically)
+  bool started_by_its_loader = false;  ///< /proc/self/exe is the program's interpreter (run as
+                                       ///< `ld.so sifter ...`), or it has none (linked statically)
 };
 
 /// The environment of this process.
