@@ -102,13 +102,13 @@ class Visited {
 
 }  // namespace
 
-std::vector<DependencyGraph::Vertex> DependencyGraph::reach_devices(Vertex v, bool through_sifs) const {
+DependencyGraph::Reached DependencyGraph::reach_devices(Vertex v, bool through_sifs) const {
   // A depth-first walk over out-edges. The visited set is local to the walk, so a query costs
   // what it reaches, not the size of the whole project's graph.
-  std::vector<Vertex> devices;
+  Reached devices;
   Visited seen;
   seen.insert(v);
-  std::vector<Vertex> stack{v};
+  Reached stack{v};
   while (!stack.empty()) {
     const Vertex u = stack.back();
     stack.pop_back();
@@ -136,7 +136,7 @@ std::vector<std::string> DependencyGraph::common_devices(Vertex a, Vertex b) con
   auto db = reach_devices(b, true);
   std::sort(da.begin(), da.end());
   std::sort(db.begin(), db.end());
-  std::vector<Vertex> both;
+  Reached both;
   std::set_intersection(da.begin(), da.end(), db.begin(), db.end(), std::back_inserter(both));
   std::vector<std::string> common;
   common.reserve(both.size());

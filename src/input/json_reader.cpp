@@ -113,44 +113,61 @@ ObjectReader::ObjectReader(LoadContext& ctx, const Json& value, std::string poin
       source_(source),
       what_(std::move(what)),
       is_object_(value.is_object()) {
-  known_.reserve(kKnownKeysReserved);  // one allocation: the list would otherwise grow seven times on a component
   if (!is_object_) ctx_.error(source_, pointer_, what_ + " (a JSON object)", describe(value));
 }
 
-std::string ObjectReader::at(const std::string& key) const { return pointer_ + "/" + escape_pointer_token(key); }
+// One allocation for the pointer when the key needs no escape: its size is known in advance.
+std::string ObjectReader::at(std::string_view key) const {
+  std::string out;
+  out.reserve(pointer_.size() + 1 + key.size());
+  out += pointer_;
+  out += '/';
+  if (key.find_first_of("~/") == std::string_view::npos)
+    out += key;
+  else
+    out += escape_pointer_token(key);
+  return out;
+}
 
-bool ObjectReader::has(const std::string& key) const { return is_object_ && value_.contains(key); }
+bool ObjectReader::has(std::string_view key) const { return is_object_ && value_.contains(key); }
 
-const Json* ObjectReader::member(const std::string& key) {
-  mark_known(key);
-  if (!is_object_) return nullptr;
+const Json* ObjectReader::member(std::string_view key) {
+  if (!is_object_) {
+    mark_known(key);
+    return nullptr;
+  }
   auto it = value_.find(key);
-  return it == value_.end() ? nullptr : &*it;
+  if (it == value_.end()) {
+    mark_known(key);
+    return nullptr;
+  }
+  mark_present(it);
+  return &*it;
 }
 
 // The member, marked known, for the fast paths of the typed reads: a present, valid value is
 // read without building any text for a message (messages are built only on a problem).
-const Json* ObjectReader::present(const std::string& key) {
+const Json* ObjectReader::present(std::string_view key) {
   if (!is_object_) return nullptr;
   auto it = value_.find(key);
   if (it == value_.end()) return nullptr;
-  mark_known(key);
+  mark_present(it);
   return &*it;
 }
 
-const Json* ObjectReader::require(const std::string& key, const std::string& expected) {
+const Json* ObjectReader::require(std::string_view key, const std::string& expected) {
   const Json* v = member(key);
   if (!v && is_object_)
-    ctx_.error(source_, pointer_, "key \"" + key + "\" (" + expected + ") in " + what_, "no such key");
+    ctx_.error(source_, pointer_, "key \"" + std::string(key) + "\" (" + expected + ") in " + what_, "no such key");
   return v;
 }
 
-void ObjectReader::type_error(const std::string& key, const std::string& expected, const Json& found,
+void ObjectReader::type_error(std::string_view key, const std::string& expected, const Json& found,
                               const std::string& hint) {
   ctx_.error(source_, at(key), expected, describe(found), hint);
 }
 
-std::optional<std::string> ObjectReader::string(const std::string& key, bool required) {
+std::optional<std::string> ObjectReader::string(std::string_view key, bool required) {
   const Json* v = required ? require(key, "a string") : member(key);
   if (!v) return std::nullopt;
   if (!v->is_string()) {
@@ -160,7 +177,7 @@ std::optional<std::string> ObjectReader::string(const std::string& key, bool req
   return v->get<std::string>();
 }
 
-std::optional<double> ObjectReader::number(const std::string& key, bool required) {
+std::optional<double> ObjectReader::number(std::string_view key, bool required) {
   const Json* v = required ? require(key, "a number") : member(key);
   if (!v) return std::nullopt;
   if (!v->is_number() || !std::isfinite(v->get<double>())) {
@@ -170,7 +187,7 @@ std::optional<double> ObjectReader::number(const std::string& key, bool required
   return without_negative_zero(v->get<double>());
 }
 
-std::optional<int> ObjectReader::integer(const std::string& key, int lo, int hi, bool required) {
+std::optional<int> ObjectReader::integer(std::string_view key, int lo, int hi, bool required) {
   if (const Json* v = present(key);
       v && v->is_number_integer() && v->get<long long>() >= lo && v->get<long long>() <= hi)
     return static_cast<int>(v->get<long long>());
@@ -185,7 +202,7 @@ std::optional<int> ObjectReader::integer(const std::string& key, int lo, int hi,
   return static_cast<int>(v->get<long long>());
 }
 
-std::optional<bool> ObjectReader::boolean(const std::string& key) {
+std::optional<bool> ObjectReader::boolean(std::string_view key) {
   const Json* v = member(key);
   if (!v) return std::nullopt;
   if (!v->is_boolean()) {
@@ -195,7 +212,7 @@ std::optional<bool> ObjectReader::boolean(const std::string& key) {
   return v->get<bool>();
 }
 
-std::optional<double> ObjectReader::fraction(const std::string& key, bool required) {
+std::optional<double> ObjectReader::fraction(std::string_view key, bool required) {
   if (const Json* v = present(key); v && v->is_number_float()) {
     const double x = v->get<double>();
     if (std::isfinite(x) && x >= 0.0 && x <= 1.0) return without_negative_zero(x);
@@ -214,7 +231,7 @@ std::optional<double> ObjectReader::fraction(const std::string& key, bool requir
   return without_negative_zero(*value);
 }
 
-std::optional<double> ObjectReader::probability(const std::string& key, bool required) {
+std::optional<double> ObjectReader::probability(std::string_view key, bool required) {
   if (const Json* v = present(key); v && v->is_number()) {
     const double x = v->get<double>();
     if (std::isfinite(x) && x >= 0.0 && x <= 1.0) return without_negative_zero(x);
@@ -230,7 +247,7 @@ std::optional<double> ObjectReader::probability(const std::string& key, bool req
   return without_negative_zero(v->get<double>());
 }
 
-std::optional<Rate> ObjectReader::rate(const std::string& key, bool required) {
+std::optional<Rate> ObjectReader::rate(std::string_view key, bool required) {
   if (const Json* v = present(key); v && v->is_string()) {
     auto parsed = parse_rate(v->get_ref<const std::string&>());
     if (parsed.value) return parsed.value;
@@ -251,7 +268,7 @@ std::optional<Rate> ObjectReader::rate(const std::string& key, bool required) {
   return parsed.value;
 }
 
-std::optional<Duration> ObjectReader::duration(const std::string& key, bool required) {
+std::optional<Duration> ObjectReader::duration(std::string_view key, bool required) {
   if (const Json* v = present(key); v && v->is_string()) {
     auto parsed = parse_duration(v->get_ref<const std::string&>());
     if (parsed.value) return parsed.value;
@@ -272,7 +289,7 @@ std::optional<Duration> ObjectReader::duration(const std::string& key, bool requ
   return parsed.value;
 }
 
-std::optional<std::string> ObjectReader::choice(const std::string& key, std::initializer_list<const char*> allowed,
+std::optional<std::string> ObjectReader::choice(std::string_view key, std::initializer_list<const char*> allowed,
                                                 bool required) {
   if (const Json* v = present(key); v && v->is_string())
     for (const char* a : allowed)
@@ -298,7 +315,7 @@ std::optional<std::string> ObjectReader::choice(const std::string& key, std::ini
   return std::nullopt;
 }
 
-std::vector<std::string> ObjectReader::strings(const std::string& key) {
+std::vector<std::string> ObjectReader::strings(std::string_view key) {
   std::vector<std::string> out;
   const Json* v = member(key);
   if (!v) return out;
@@ -318,11 +335,35 @@ std::vector<std::string> ObjectReader::strings(const std::string& key) {
 }
 
 // A key may be marked twice; finish() removes the repeats from its hint.
-void ObjectReader::mark_known(std::string_view key) { known_.emplace_back(key); }
+void ObjectReader::mark_known(std::string_view key) {
+  named_.emplace_back(named_text_.size(), key.size());
+  named_text_.insert(named_text_.end(), key.begin(), key.end());
+}
+
+std::string_view ObjectReader::named(std::size_t i) const {
+  return {named_text_.data() + named_[i].first, named_[i].second};
+}
+
+void ObjectReader::mark_present(const Json::const_iterator& member) { present_.emplace_back(member.key()); }
+
+bool ObjectReader::is_marked(std::string_view key) const {
+  if (std::find(present_.begin(), present_.end(), key) != present_.end()) return true;
+  for (std::size_t i = 0; i < named_.size(); ++i)
+    if (named(i) == key) return true;
+  return false;
+}
+
+std::vector<std::string> ObjectReader::known_keys() const {
+  std::vector<std::string> known(present_.begin(), present_.end());
+  for (std::size_t i = 0; i < named_.size(); ++i) known.emplace_back(named(i));
+  std::sort(known.begin(), known.end());
+  known.erase(std::unique(known.begin(), known.end()), known.end());
+  return known;
+}
 
 // The slow paths of the typed reads build their messages; an optional key that is simply
 // absent needs none, so it is marked known and answered before any text is made.
-bool ObjectReader::absent_and_optional(const std::string& key, bool required) {
+bool ObjectReader::absent_and_optional(std::string_view key, bool required) {
   if (required || (is_object_ && value_.contains(key))) return false;
   mark_known(key);
   return true;
@@ -336,12 +377,9 @@ void ObjectReader::finish() {
   if (!is_object_) return;
   std::vector<std::string> known;  // sorted for the hint, only when a key is unknown
   for (auto it = value_.begin(); it != value_.end(); ++it) {
-    if (std::find(known_.begin(), known_.end(), it.key()) != known_.end()) continue;
-    if (known.empty()) {
-      known = known_;
-      std::sort(known.begin(), known.end());
-      known.erase(std::unique(known.begin(), known.end()), known.end());
-    }
+    const std::string& key = it.key();
+    if (is_marked(key)) continue;
+    if (known.empty()) known = known_keys();
     const auto near = nearest(it.key(), known);
     std::string hint = near.empty() ? "" : "did you mean \"" + near + "\"? ";
     std::string list;

@@ -1,5 +1,6 @@
 #pragma once
 /// Strict reading of JSON objects into model fields, collecting every problem (loader internals).
+#include <boost/container/small_vector.hpp>
 #include <initializer_list>
 #include <nlohmann/json.hpp>
 #include <optional>
@@ -56,31 +57,31 @@ class ObjectReader {
 
   [[nodiscard]] bool is_object() const { return is_object_; }
   [[nodiscard]] const std::string& pointer() const { return pointer_; }
-  [[nodiscard]] std::string at(const std::string& key) const;
-  [[nodiscard]] bool has(const std::string& key) const;
+  [[nodiscard]] std::string at(std::string_view key) const;
+  [[nodiscard]] bool has(std::string_view key) const;
   [[nodiscard]] int source() const { return source_; }
   [[nodiscard]] LoadContext& context() const { return ctx_; }
 
   /// The raw member, marked known; nullptr when absent.
-  const Json* member(const std::string& key);
+  const Json* member(std::string_view key);
   /// Reports the member as missing when required and absent.
-  const Json* require(const std::string& key, const std::string& expected);
+  const Json* require(std::string_view key, const std::string& expected);
 
-  std::optional<std::string> string(const std::string& key, bool required = false);
-  std::optional<double> number(const std::string& key, bool required = false);
-  std::optional<int> integer(const std::string& key, int lo, int hi, bool required = false);
-  std::optional<bool> boolean(const std::string& key);
+  std::optional<std::string> string(std::string_view key, bool required = false);
+  std::optional<double> number(std::string_view key, bool required = false);
+  std::optional<int> integer(std::string_view key, int lo, int hi, bool required = false);
+  std::optional<bool> boolean(std::string_view key);
   /// A fraction 0..1 written 0.05 or "5%".
-  std::optional<double> fraction(const std::string& key, bool required = false);
+  std::optional<double> fraction(std::string_view key, bool required = false);
   /// A probability in [0, 1] (a plain number).
-  std::optional<double> probability(const std::string& key, bool required = false);
-  std::optional<Rate> rate(const std::string& key, bool required = false);
-  std::optional<Duration> duration(const std::string& key, bool required = false);
+  std::optional<double> probability(std::string_view key, bool required = false);
+  std::optional<Rate> rate(std::string_view key, bool required = false);
+  std::optional<Duration> duration(std::string_view key, bool required = false);
   /// A string among the allowed ones.
-  std::optional<std::string> choice(const std::string& key, std::initializer_list<const char*> allowed,
+  std::optional<std::string> choice(std::string_view key, std::initializer_list<const char*> allowed,
                                     bool required = false);
   /// An array of strings (absent = empty).
-  std::vector<std::string> strings(const std::string& key);
+  std::vector<std::string> strings(std::string_view key);
   /// Marks keys that are accepted and ignored (comments, notes kept for people).
   void allow(std::initializer_list<const char*> keys);
 
@@ -88,7 +89,7 @@ class ObjectReader {
   void finish();
 
  private:
-  void type_error(const std::string& key, const std::string& expected, const Json& found, const std::string& hint = {});
+  void type_error(std::string_view key, const std::string& expected, const Json& found, const std::string& hint = {});
 
   LoadContext& ctx_;
   const Json& value_;
@@ -96,12 +97,32 @@ class ObjectReader {
   int source_;
   std::string what_;
   bool is_object_;
+  /// Marks a key asked for and absent (or allowed): kept as text, for the hint of finish().
   void mark_known(std::string_view key);
-  bool absent_and_optional(const std::string& key, bool required);
-  const Json* present(const std::string& key);
+  /// Marks a member asked for and present: its key is kept as a view of the tree's own key,
+  /// which lives as long as the tree the reader reads.
+  void mark_present(const Json::const_iterator& member);
+  bool absent_and_optional(std::string_view key, bool required);
+  const Json* present(std::string_view key);
+  /// The keys asked for, present or not, sorted and without repeats (for a message).
+  [[nodiscard]] std::vector<std::string> known_keys() const;
+  /// A key asked for, present or not, or allowed.
+  [[nodiscard]] bool is_marked(std::string_view key) const;
 
-  std::vector<std::string> known_;                       ///< a few dozen keys at most: a flat list beats a tree
-  static constexpr std::size_t kKnownKeysReserved = 48;  ///< a component's reader asks about 40
+  /// The i-th key marked by text.
+  [[nodiscard]] std::string_view named(std::size_t i) const;
+
+  // The keys asked for, held on the stack: a component's reader asks about 40, and a reader
+  // is made for every object of a register, so lists on the heap would cost allocations per
+  // object, one of more than 1 KiB (the kind that makes glibc sweep its small free blocks).
+  static constexpr std::size_t kPresentKeysHeld = 40;
+  static constexpr std::size_t kNamedKeysHeld = 24;
+  static constexpr std::size_t kNamedTextHeld = 512;                            ///< bytes of key text
+  boost::container::small_vector<std::string_view, kPresentKeysHeld> present_;  ///< views of the tree's keys
+  /// Keys asked for and absent, or allowed: their texts one after another in named_text_,
+  /// each found by its offset and size.
+  boost::container::small_vector<std::pair<std::size_t, std::size_t>, kNamedKeysHeld> named_;
+  boost::container::small_vector<char, kNamedTextHeld> named_text_;
 };
 
 }  // namespace sifter::detail
