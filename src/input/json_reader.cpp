@@ -188,10 +188,10 @@ std::optional<double> ObjectReader::number(std::string_view key, bool required) 
 }
 
 std::optional<int> ObjectReader::integer(std::string_view key, int lo, int hi, bool required) {
-  if (const Json* v = present(key);
-      v && v->is_number_integer() && v->get<long long>() >= lo && v->get<long long>() <= hi)
-    return static_cast<int>(v->get<long long>());
-  if (absent_and_optional(key, required)) return std::nullopt;
+  const Json* found = present(key);
+  if (found && found->is_number_integer() && found->get<long long>() >= lo && found->get<long long>() <= hi)
+    return static_cast<int>(found->get<long long>());
+  if (absent_and_optional(key, found, required)) return std::nullopt;
   const std::string expected = "a whole number from " + std::to_string(lo) + " to " + std::to_string(hi);
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -213,11 +213,12 @@ std::optional<bool> ObjectReader::boolean(std::string_view key) {
 }
 
 std::optional<double> ObjectReader::fraction(std::string_view key, bool required) {
-  if (const Json* v = present(key); v && v->is_number_float()) {
-    const double x = v->get<double>();
+  const Json* found = present(key);
+  if (found && found->is_number_float()) {
+    const double x = found->get<double>();
     if (std::isfinite(x) && x >= 0.0 && x <= 1.0) return without_negative_zero(x);
   }
-  if (absent_and_optional(key, required)) return std::nullopt;
+  if (absent_and_optional(key, found, required)) return std::nullopt;
   const std::string expected = "a fraction from 0 to 1, such as 0.05 or \"5%\"";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -232,11 +233,12 @@ std::optional<double> ObjectReader::fraction(std::string_view key, bool required
 }
 
 std::optional<double> ObjectReader::probability(std::string_view key, bool required) {
-  if (const Json* v = present(key); v && v->is_number()) {
-    const double x = v->get<double>();
+  const Json* found = present(key);
+  if (found && found->is_number()) {
+    const double x = found->get<double>();
     if (std::isfinite(x) && x >= 0.0 && x <= 1.0) return without_negative_zero(x);
   }
-  if (absent_and_optional(key, required)) return std::nullopt;
+  if (absent_and_optional(key, found, required)) return std::nullopt;
   const std::string expected = "a probability from 0 to 1";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -248,11 +250,12 @@ std::optional<double> ObjectReader::probability(std::string_view key, bool requi
 }
 
 std::optional<Rate> ObjectReader::rate(std::string_view key, bool required) {
-  if (const Json* v = present(key); v && v->is_string()) {
-    auto parsed = parse_rate(v->get_ref<const std::string&>());
+  const Json* found = present(key);
+  if (found && found->is_string()) {
+    auto parsed = parse_rate(found->get_ref<const std::string&>());
     if (parsed.value) return parsed.value;
   }
-  if (absent_and_optional(key, required)) return std::nullopt;
+  if (absent_and_optional(key, found, required)) return std::nullopt;
   const std::string expected = "a rate with its unit";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -269,11 +272,12 @@ std::optional<Rate> ObjectReader::rate(std::string_view key, bool required) {
 }
 
 std::optional<Duration> ObjectReader::duration(std::string_view key, bool required) {
-  if (const Json* v = present(key); v && v->is_string()) {
-    auto parsed = parse_duration(v->get_ref<const std::string&>());
+  const Json* found = present(key);
+  if (found && found->is_string()) {
+    auto parsed = parse_duration(found->get_ref<const std::string&>());
     if (parsed.value) return parsed.value;
   }
-  if (absent_and_optional(key, required)) return std::nullopt;
+  if (absent_and_optional(key, found, required)) return std::nullopt;
   const std::string expected = "a duration with its unit";
   const Json* v = required ? require(key, expected) : member(key);
   if (!v) return std::nullopt;
@@ -291,10 +295,11 @@ std::optional<Duration> ObjectReader::duration(std::string_view key, bool requir
 
 std::optional<std::string> ObjectReader::choice(std::string_view key, std::initializer_list<const char*> allowed,
                                                 bool required) {
-  if (const Json* v = present(key); v && v->is_string())
+  const Json* found = present(key);
+  if (found && found->is_string())
     for (const char* a : allowed)
-      if (v->get_ref<const std::string&>() == a) return v->get<std::string>();
-  if (absent_and_optional(key, required)) return std::nullopt;
+      if (found->get_ref<const std::string&>() == a) return found->get<std::string>();
+  if (absent_and_optional(key, found, required)) return std::nullopt;
   std::string list;
   std::vector<std::string> names;
   for (const char* a : allowed) {
@@ -363,8 +368,8 @@ std::vector<std::string> ObjectReader::known_keys() const {
 
 // The slow paths of the typed reads build their messages; an optional key that is simply
 // absent needs none, so it is marked known and answered before any text is made.
-bool ObjectReader::absent_and_optional(std::string_view key, bool required) {
-  if (required || (is_object_ && value_.contains(key))) return false;
+bool ObjectReader::absent_and_optional(std::string_view key, const Json* found, bool required) {
+  if (required || found) return false;
   mark_known(key);
   return true;
 }

@@ -102,7 +102,9 @@ class ObjectReader {
   /// Marks a member asked for and present: its key is kept as a view of the tree's own key,
   /// which lives as long as the tree the reader reads.
   void mark_present(const Json::const_iterator& member);
-  bool absent_and_optional(std::string_view key, bool required);
+  /// True, with the key marked known, when the key is optional and `found` (what present()
+  /// gave) is null: absent, or the reader's value is not an object (reported already).
+  bool absent_and_optional(std::string_view key, const Json* found, bool required);
   const Json* present(std::string_view key);
   /// The keys asked for, present or not, sorted and without repeats (for a message).
   [[nodiscard]] std::vector<std::string> known_keys() const;
