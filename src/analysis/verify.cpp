@@ -3,6 +3,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <utility>
 
 #include "analysis/verify_parts.hpp"
 #include "sifter/analysis/judge.hpp"
@@ -22,18 +23,18 @@ namespace {
 // three results (IEC 61508-2:2010 7.4.4, 7.4.3; IEC 61511-1:2016 11.4), and the verdict needs all three.
 void apply_constraints(const Project& project, const Sif& sif, SifResult& r, const std::optional<double>& required,
                        const std::optional<double>& achieved) {
-  const SifConstraints c = sif_constraints(sif, project.components, r.constraints, r.demand_mode);
+  SifConstraints c = sif_constraints(sif, project.components, r.constraints, r.demand_mode);
   r.sil_architecture = c.sil_architecture;
   r.sil_systematic = c.sil_systematic;
   r.sil_achieved = std::min({r.sil_probability, r.sil_architecture, r.sil_systematic});
   for (std::size_t i = 0; i < c.subsystems.size() && i < r.subsystems.size(); ++i) {
-    const auto& sc = c.subsystems[i];
+    auto& sc = c.subsystems[i];
     auto& sub = r.subsystems[i];
     sub.hft = sc.hft;
     sub.sff = sc.sff;
     sub.sil_architecture = sc.sil_architecture;
     sub.systematic_capability = sc.systematic_capability;
-    sub.constraint_notes = sc.findings;
+    sub.constraint_notes = std::move(sc.findings);  // limits_for below reads the elements, not the findings
     for (const auto& e : sc.elements)
       sub.systematic_basis.push_back(
           {e.component,
