@@ -34,7 +34,7 @@ void apply_constraints(const Project& project, const Sif& sif, SifResult& r, con
     sub.sff = sc.sff;
     sub.sil_architecture = sc.sil_architecture;
     sub.systematic_capability = sc.systematic_capability;
-    sub.constraint_notes = std::move(sc.findings);  // limits_for below reads the elements, not the findings
+    sub.constraint_notes = std::move(sc.findings);  // limits_for below reads the caps and elements, not the findings
     for (const auto& e : sc.elements)
       sub.systematic_basis.push_back(
           {e.component,

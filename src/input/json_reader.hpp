@@ -50,7 +50,8 @@ struct LoadContext {
 std::string describe(const Json& value);
 
 /// Reads the members of one JSON object; every read marks a key as known, and finish()
-/// reports the keys nobody asked for, with the nearest known key as a hint.
+/// reports the keys nobody asked for, with the nearest known key as a hint. It holds the keys
+/// it has read as views of the tree: see mark_present for what that asks of the caller.
 class ObjectReader {
  public:
   ObjectReader(LoadContext& ctx, const Json& value, std::string pointer, int source, std::string what);
@@ -100,7 +101,9 @@ class ObjectReader {
   /// Marks a key asked for and absent (or allowed): kept as text, for the hint of finish().
   void mark_known(std::string_view key);
   /// Marks a member asked for and present: its key is kept as a view of the tree's own key,
-  /// which lives as long as the tree the reader reads.
+  /// which lives as long as that member stays in the object. So while a reader lives, no
+  /// member it has read may be erased and its object may not be assigned anew; mark a key
+  /// that is to be erased with allow(), which keeps its text.
   void mark_present(const Json::const_iterator& member);
   /// True, with the key marked known, when the key is optional and `found` (what present()
   /// gave) is null: absent, or the reader's value is not an object (reported already).

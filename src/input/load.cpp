@@ -152,8 +152,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   // Each section's JSON is released once it is read, so that a large register is never held
   // twice (as JSON and as structs) at its full size.
   detail::ReuseRecord reuse = detail::expand_reuse(ctx, *root, top);
-  top.member("components");
-  top.member("sifs");
+  top.allow({"components", "sifs"});  // known by name: erased from the tree below, they must not be held as views
   read_components_and_sifs(ctx, *root, models, project);
   detail::name_templated_subsystems(reuse, project);
   // The signal-flow graph needs only the components and SIFs, complete from here on: built on

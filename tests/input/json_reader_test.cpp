@@ -35,6 +35,34 @@ TEST(ObjectReader, AKeyAskedForPresentOrAbsentOrAllowedIsKnownAndOnlyTheOthersAr
                                       "thing are: interval, mode, note, rate"}));
 }
 
+TEST(ObjectReader, EveryTypedReadOfAnAbsentOptionalKeyAnswersNothingAndKnowsTheKey) {
+  LoadContext ctx;
+  const Json object = Json::parse(R"({"extra": 1, "mode": "low"})");
+  ObjectReader r(ctx, object, "/a", 0, "a thing");
+  EXPECT_FALSE(r.integer("count", 1, 4));
+  EXPECT_FALSE(r.fraction("coverage"));
+  EXPECT_FALSE(r.probability("pfd"));
+  EXPECT_FALSE(r.rate("lambda"));
+  EXPECT_FALSE(r.duration("interval"));
+  EXPECT_FALSE(r.choice("kind", {"x", "y"}));
+  r.allow({"mode"});
+  EXPECT_EQ(r.choice("mode", {"low", "high"}), "low");  // allowed and read: listed once
+  r.finish();
+  EXPECT_EQ(problems_of(ctx), (std::vector<std::string>{"/a/extra: unknown key \"extra\" | the keys of a thing are: "
+                                                        "count, coverage, interval, kind, lambda, mode, pfd"}));
+}
+
+TEST(ObjectReader, AValueThatIsNotAnObjectIsReportedOnceAndItsReadsAnswerNothing) {
+  LoadContext ctx;
+  const Json array = Json::parse("[1, 2]");
+  ObjectReader r(ctx, array, "/b", 0, "a thing");
+  EXPECT_FALSE(r.number("rate"));
+  EXPECT_FALSE(r.fraction("coverage", true));
+  EXPECT_FALSE(r.member("x"));
+  r.finish();
+  EXPECT_EQ(problems_of(ctx), (std::vector<std::string>{"/b: an array | "}));
+}
+
 TEST(ObjectReader, ManyLongKeysReadAsFewShortOnes) {
   // 60 members read and 40 absent keys asked for, each name 28 bytes: more than the reader
   // holds inline (40 present keys, 24 absent ones, 512 bytes of their text).

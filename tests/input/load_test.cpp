@@ -154,6 +154,22 @@ TEST(Load, ImplausibleValuesAreWarningsNotErrors) {
             "lambda_du = 1.20e-01/h lies outside the usual 1e-10..1e-3 per hour; check the unit");
 }
 
+// The sections read and released while loading ("components", "sifs") are still known keys
+// of a project when its unknown keys are reported, and named in the hint.
+TEST(Load, AnUnknownTopLevelKeyIsReportedWithEveryKeyOfAProjectAsItsHint) {
+  std::string text = kMinimal;
+  text.replace(text.find("\"sifs\""), 6, "\"note\": \"kept\", \"sifz\": 1, \"sifs\"");
+  const std::string message = error_of(text);
+  EXPECT_NE(message.find("expected a key of a project, found unknown key \"sifz\""), std::string::npos) << message;
+  const auto keys = message.find("the keys of a project are: ");
+  ASSERT_NE(keys, std::string::npos) << message;
+  const std::string list = message.substr(keys);
+  EXPECT_NE(list.find(" components, "), std::string::npos) << list;
+  EXPECT_NE(list.find(", sifs"), std::string::npos) << list;
+  EXPECT_NE(message.find("did you mean \"sifs\"?"), std::string::npos) << message;
+  EXPECT_EQ(message.find("unknown key \"note\""), std::string::npos) << message;
+}
+
 TEST(Load, EveryProblemIsReportedAtOnceNotOnlyTheFirst) {
   std::string text = kMinimal;
   text.replace(text.find("\"1oo1\""), 6, "\"1o1\"");
