@@ -385,12 +385,12 @@ void ObjectReader::finish() {
     const std::string& key = it.key();
     if (is_marked(key)) continue;
     if (known.empty()) known = known_keys();
-    const auto near = nearest(it.key(), known);
+    const auto near = nearest(key, known);
     std::string hint = near.empty() ? "" : "did you mean \"" + near + "\"? ";
     std::string list;
     for (const auto& k : known) list += (list.empty() ? "" : ", ") + k;
     hint += "the keys of " + what_ + " are: " + list;
-    ctx_.error(source_, at(it.key()), "a key of " + what_, "unknown key \"" + it.key() + "\"", hint);
+    ctx_.error(source_, at(key), "a key of " + what_, "unknown key \"" + key + "\"", hint);
   }
 }
 

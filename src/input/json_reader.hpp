@@ -102,8 +102,8 @@ class ObjectReader {
   void mark_known(std::string_view key);
   /// Marks a member asked for and present: its key is kept as a view of the tree's own key,
   /// which lives as long as that member stays in the object. So while a reader lives, no
-  /// member it has read may be erased and its object may not be assigned anew; mark a key
-  /// that is to be erased with allow(), which keeps its text.
+  /// member it has read may be erased and its object may not be assigned anew; to release a
+  /// large member's value early, assign null to it (the key stays), as the loader does.
   void mark_present(const Json::const_iterator& member);
   /// True, with the key marked known, when the key is optional and `found` (what present()
   /// gave) is null: absent, or the reader's value is not an object (reported already).

@@ -5,6 +5,7 @@
 
 #include <cstdint>
 #include <future>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -137,12 +138,26 @@ class TreeBuilder {
 
 }  // namespace
 
-std::optional<Json> fast_json_tree(std::string_view text, int max_depth) {
+static_assert(kParserPadding >= simdjson::SIMDJSON_PADDING, "the padding simdjson reads past a text");
+
+void reserve_parser_padding(std::string& text) {
+  const std::size_t size = text.size();
+  text.reserve(size + kParserPadding);
+  text.append(kParserPadding, '\0');  // within the capacity just reserved: no reallocation
+  text.resize(size);
+}
+
+std::optional<Json> fast_json_tree(std::string_view text, int max_depth, std::size_t readable_beyond) {
   if (has_surrogate_escape(text) || has_negative_zero_integer(text)) return std::nullopt;
   simdjson::dom::parser parser;
-  const simdjson::padded_string padded(text);
   simdjson::dom::element root;
-  if (parser.parse(padded).get(root) != simdjson::SUCCESS) return std::nullopt;
+  // A text with its padding is parsed where it lies (a register's text is not copied again).
+  std::optional<simdjson::padded_string> copy;
+  if (readable_beyond < kParserPadding) copy.emplace(text);
+  const auto input = copy ? simdjson::padded_string_view(*copy)
+                          : simdjson::padded_string_view(text.data(), text.size(), text.size() + readable_beyond);
+  const auto parsed = parser.parse(input);
+  if (parsed.get(root) != simdjson::SUCCESS) return std::nullopt;
   Json out;
   if (!TreeBuilder(max_depth, 0, thread_budget(0) > 1).build(root, out)) return std::nullopt;
   return out;

@@ -6,11 +6,13 @@
 #include <fstream>
 #include <future>
 
+#include "input/json_tree.hpp"
 #include "input/load_parts.hpp"
 #include "input/load_pressure.hpp"
 #include "input/load_reuse.hpp"
 #include "input/parse_source.hpp"
 #include "sifter/graph/plant_graph.hpp"
+#include "sifter/input/json_comments.hpp"
 #include "sifter/input/json_source.hpp"
 #include "sifter/input/sha256.hpp"
 #include "sifter/model/cores.hpp"
@@ -56,7 +58,9 @@ std::string read_file_bounded(const std::string& path, LoadContext* ctx, int sou
   if (!in) return problem("a readable file", "\"" + path + "\" cannot be opened", "check its permissions");
   // Read in one piece into a text of the file's size (a string stream would copy it twice more);
   // a file that grows meanwhile is read to its end all the same, within the bound.
-  std::string text(ec ? 0 : static_cast<std::size_t>(size), '\0');
+  std::string text;
+  text.reserve((ec ? 0 : static_cast<std::size_t>(size)) + detail::kParserPadding);  // parsed where it lies
+  text.resize(ec ? 0 : static_cast<std::size_t>(size));
   in.read(text.data(), static_cast<std::streamsize>(text.size()));
   text.resize(static_cast<std::size_t>(in.gcount()));
   char more[65536];
@@ -69,6 +73,7 @@ std::string read_file_bounded(const std::string& path, LoadContext* ctx, int sou
   if (in.bad())  // a read that failed part way: never a text cut short
     return problem("a readable file", "\"" + path + "\" could not be read to its end",
                    "check the disk and the file's permissions");
+  detail::reserve_parser_padding(text);
   return text;
 }
 
@@ -131,14 +136,27 @@ void read_components_and_sifs(LoadContext& ctx, Json& root, const detail::ModelI
   for (auto& w : sif_ctx.warnings) ctx.warnings.push_back(std::move(w));
 }
 
+// The project's tree, and the digest of its bytes as read into `sha256`. The digest is
+// computed on a second core while the text is parsed. The parse blanks comments in place, so a
+// text that may hold some is hashed from a copy, and any other where it lies: padded first, so
+// that the parse does not move it, and the digest is taken before the libraries' texts join the
+// list that holds it.
+std::optional<Json> parse_project(LoadContext& ctx, std::string& sha256) {
+  detail::reserve_parser_padding(ctx.sources[0].text);
+  const std::string& bytes = ctx.sources[0].text;
+  auto digest = may_hold_json_comments(bytes)
+                    ? alongside(0, [copy = bytes] { return sha256_hex(copy); })
+                    : alongside(0, [view = std::string_view(bytes)] { return sha256_hex(view); });
+  auto root = detail::parse_source(ctx, 0);
+  sha256 = digest.get();
+  return root;
+}
+
 LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   LoadedProject out;
   Project& project = out.project;
   project.file = ctx.sources[0].path;
-  // The digest of the bytes as read is computed on a second core while the text is parsed (the
-  // parse blanks comments in place, so the thread hashes its own copy).
-  auto digest = alongside(0, [bytes = ctx.sources[0].text] { return sha256_hex(bytes); });
-  auto root = detail::parse_source(ctx, 0);
+  auto root = parse_project(ctx, out.sha256);
   if (!root) throw InputError(ctx.located());
   ObjectReader top(ctx, *root, "", 0, "a project");
   if (!top.is_object()) throw InputError(ctx.located());
@@ -152,7 +170,8 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   // Each section's JSON is released once it is read, so that a large register is never held
   // twice (as JSON and as structs) at its full size.
   detail::ReuseRecord reuse = detail::expand_reuse(ctx, *root, top);
-  top.allow({"components", "sifs"});  // known by name: erased from the tree below, they must not be held as views
+  top.member("components");
+  top.member("sifs");
   read_components_and_sifs(ctx, *root, models, project);
   detail::name_templated_subsystems(reuse, project);
   // The signal-flow graph needs only the components and SIFs, complete from here on: built on
@@ -160,8 +179,9 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   // It also finds the components several SIFs share, the one thing verification asks of it,
   // and is freed on that core.
   auto plant = alongside(0, [&project] { return plant_findings(project); });
-  root->erase("components");
-  root->erase("sifs");
+  // Released by value, never erased: the reader holds views of the keys it read (json_reader.hpp).
+  (*root)["components"] = nullptr;
+  (*root)["sifs"] = nullptr;
   top.member("risk_criteria");
   top.member("scenarios");
   top.member("lopa");
@@ -184,7 +204,6 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   if (!ctx.problems.empty()) throw InputError(ctx.located(), ctx.follow_ons_suppressed);
   out.warnings = std::move(ctx.warnings);
   for (const auto& source : ctx.sources) out.inputs.push_back(source.path);
-  out.sha256 = digest.get();
   return out;
 }
 

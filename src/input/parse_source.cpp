@@ -50,7 +50,8 @@ std::optional<Json> parse_source(LoadContext& ctx, int source) {
   }
   // nlohmann's very tree at parser speed, for a text the structure scan would pass; the scan
   // and nlohmann's parser report the problems of any other.
-  if (auto tree = detail::fast_json_tree(text, kMaxNestingDepth)) return tree;
+  reserve_parser_padding(text);  // already there for a file the loader read: then nothing moves
+  if (auto tree = detail::fast_json_tree(text, kMaxNestingDepth, text.capacity() - text.size())) return tree;
   const auto structure = scan_json_structure(text);
   for (const auto& p : structure) report(p.position, p.pointer, p.expected, p.found, p.hint);
   if (!structure.empty()) return std::nullopt;

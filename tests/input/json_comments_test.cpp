@@ -24,6 +24,19 @@ TEST(JsonComments, ACommentInsideAStringIsText) {
   EXPECT_EQ(text, before);
 }
 
+// The test that lets the loader hash a text while it is parsed: a text for which it is false
+// is never changed by blanking (a slash alone, as in a unit, is no comment).
+TEST(JsonComments, ATextWithoutASlashPairMayHoldNoCommentAndIsLeftAsItIs) {
+  EXPECT_FALSE(may_hold_json_comments(R"({"rate": "2/yr", "a": [1, 2]})"));
+  EXPECT_TRUE(may_hold_json_comments("{} // end"));
+  EXPECT_TRUE(may_hold_json_comments("/* head */ {}"));
+  EXPECT_TRUE(may_hold_json_comments(R"({"u": "http://example.invalid"})")) << "inside a string it still answers true";
+  std::string text = R"({"rate": "2/yr", "note": "a / b"})";
+  const std::string before = text;
+  ASSERT_FALSE(blank_json_comments(text).has_value());
+  EXPECT_EQ(text, before);
+}
+
 TEST(JsonComments, AnUnclosedBlockCommentIsReportedWhereItOpens) {
   std::string text = "{\n  \"a\": 1 /* never closed\n}";
   const auto problem = blank_json_comments(text);

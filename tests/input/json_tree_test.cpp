@@ -62,6 +62,22 @@ void expect_same_or_declined(const std::string& text) {
   EXPECT_TRUE(same_types(*fast, *slow)) << "another number type: " << text.substr(0, 200);
 }
 
+// A text read by the loader carries the parser's padding in its buffer and is parsed where it
+// lies; the tree is the one parsed from a padded copy, and padding never changes the text.
+TEST(FastJsonTree, ATextWithItsPaddingIsParsedWhereItLiesToTheSameTree) {
+  const std::string text = read_text(fs::path(SIFTER_SOURCE_DIR) / "examples" / "unit40.json");
+  ASSERT_GT(text.size(), 1000u);
+  std::string padded = text;
+  detail::reserve_parser_padding(padded);
+  EXPECT_EQ(padded, text);
+  const std::size_t spare = padded.capacity() - padded.size();
+  ASSERT_GE(spare, detail::kParserPadding);
+  const auto in_place = detail::fast_json_tree(padded, kMaxNestingDepth, spare);
+  const auto copied = detail::fast_json_tree(text, kMaxNestingDepth);
+  ASSERT_TRUE(in_place && copied);
+  EXPECT_EQ(in_place->dump(), copied->dump());
+}
+
 TEST(FastJsonTree, EveryShippedAndTestProjectGivesNlohmannsTreeAndTheGoodOnesTakeTheFastPath) {
   std::size_t files = 0, fast = 0;
   for (const fs::path& root : {fs::path(SIFTER_SOURCE_DIR) / "examples", fs::path(SIFTER_TEST_DATA)}) {

@@ -9,6 +9,7 @@
 #include <sstream>
 
 #include "sifter/graph/plant_graph.hpp"
+#include "sifter/input/sha256.hpp"
 #include "support/catalogue_support.hpp"
 
 namespace sifter {
@@ -168,6 +169,27 @@ TEST(Load, AnUnknownTopLevelKeyIsReportedWithEveryKeyOfAProjectAsItsHint) {
   EXPECT_NE(list.find(", sifs"), std::string::npos) << list;
   EXPECT_NE(message.find("did you mean \"sifs\"?"), std::string::npos) << message;
   EXPECT_EQ(message.find("unknown key \"note\""), std::string::npos) << message;
+}
+
+// The digest in the results is of the file's bytes as read: a text with comments (blanked in
+// place before the parse) and one without (hashed where it lies while it is parsed) alike. The
+// expected digests come from sha256_hex, whose own vectors are in sha256_test.cpp.
+TEST(Load, TheDigestIsOfTheFilesBytesAsReadWithOrWithoutComments) {
+  const fs::path dir = fs::temp_directory_path() / "sifter_load_test_digest";
+  fs::create_directories(dir);
+  std::string plain = kMinimal;  // its library named by its full path, the file being elsewhere
+  plain.replace(plain.find("../data"), 2, SIFTER_SOURCE_DIR);
+  std::string commented = plain;
+  commented.replace(commented.find("\"sifs\""), 6, "// the functions\n  \"sifs\"");
+  for (const std::string& text : {plain, commented}) {
+    const fs::path file = dir / "p.json";
+    std::ofstream(file, std::ios::binary) << text;
+    const LoadedProject loaded = load_project_file(file.string());
+    EXPECT_EQ(loaded.sha256, sha256_hex(text)) << text.substr(0, 60);
+    EXPECT_EQ(loaded.project.sifs.size(), 1u);
+  }
+  EXPECT_NE(sha256_hex(commented), sha256_hex(plain));
+  fs::remove_all(dir);
 }
 
 TEST(Load, EveryProblemIsReportedAtOnceNotOnlyTheFirst) {

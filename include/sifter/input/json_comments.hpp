@@ -2,6 +2,7 @@
 /// Comments in project and library files: blanked out before any JSON parser sees the text.
 #include <optional>
 #include <string>
+#include <string_view>
 
 #include "sifter/input/json_source.hpp"
 
@@ -14,6 +15,10 @@ struct CommentProblem {
   std::string found;
   std::string hint;
 };
+
+/// Whether the text may hold a comment: true when "//" or "/*" occurs anywhere in it (inside
+/// a string too). blank_json_comments changes no byte of a text for which this is false.
+bool may_hold_json_comments(std::string_view text);
 
 /// Replaces every `// …` (to the end of the line) and `/* … */` comment in `text` by spaces,
 /// keeping newlines and every other byte where it was, so that byte offsets, lines and columns
