@@ -2,6 +2,7 @@
 #include <cmath>
 #include <cstdio>
 #include <map>
+#include <memory>
 #include <set>
 #include <unordered_set>
 
@@ -29,7 +30,7 @@ struct ElementFields {
   std::optional<double> data_confidence;
   std::optional<RateUncertainty> uncertainty;
   std::optional<FieldData> field_data;
-  std::optional<DataSource> data_source;
+  std::shared_ptr<const DataSource> data_source;  ///< shared: a model's components copy only the pointer
   std::optional<PriorUse> prior_use;
   std::optional<Duration> response_time;
 
@@ -101,7 +102,7 @@ ElementFields read_element_fields(ObjectReader& r) {
   }
   e.uncertainty = read_uncertainty(r);
   e.field_data = read_field_data(r);
-  e.data_source = read_data_source(r);
+  if (auto source = read_data_source(r)) e.data_source = std::make_shared<const DataSource>(std::move(*source));
   e.prior_use = read_prior_use(r);
   e.response_time = r.duration("response_time");
   if (e.has_split_form() && e.has_total_form())

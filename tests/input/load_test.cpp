@@ -171,6 +171,18 @@ TEST(Load, AnUnknownTopLevelKeyIsReportedWithEveryKeyOfAProjectAsItsHint) {
   EXPECT_EQ(message.find("unknown key \"note\""), std::string::npos) << message;
 }
 
+// A register has thousands of components of a few library models: those that take their data
+// source from one model hold that one source, not a copy each (a component overriding a rate
+// still does).
+TEST(Load, TheComponentsOfOneModelShareItsDataSource) {
+  const auto p = load_inline(kMinimal).project;
+  ASSERT_TRUE(p.components[0].source && p.components[1].source);
+  EXPECT_EQ(p.components[0].source.get(), p.components[1].source.get());
+  EXPECT_EQ(p.components[0].data_source, p.components[1].data_source);
+  EXPECT_FALSE(p.components[0].data_source.empty());
+  EXPECT_FALSE(p.components[2].source) << "XV-1 names no model and no source";
+}
+
 // The digest in the results is of the file's bytes as read: a text with comments (blanked in
 // place before the parse) and one without (hashed where it lies while it is parsed) alike. The
 // expected digests come from sha256_hex, whose own vectors are in sha256_test.cpp.

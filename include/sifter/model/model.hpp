@@ -1,6 +1,7 @@
 #pragma once
 /// The project as plain structs, units resolved: what `load` produces and every engine reads.
 #include <map>
+#include <memory>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -90,9 +91,11 @@ struct Component {
   DataStatus status = DataStatus::kVendor;  ///< maturity of its data
   std::string pointer;                      ///< where it is defined, e.g. "/components/3"
   std::optional<PriorUse> prior_use;        ///< prior-use claim, IEC 61511-1:2016 11.5.3
-  std::optional<DataSource> source;         ///< the data source in full (data_source holds its one line)
-  std::optional<Duration> response_time;    ///< time from demand to its action (a valve's stroke)
-  std::string manufacturer;                 ///< as written on the component or its library model, empty if none
+  /// The data source in full (data_source holds its one line); one for all the components that
+  /// take it from the same library model, since a register has thousands of them.
+  std::shared_ptr<const DataSource> source;
+  std::optional<Duration> response_time;  ///< time from demand to its action (a valve's stroke)
+  std::string manufacturer;               ///< as written on the component or its library model, empty if none
 };
 
 /// A vote: the group works while K of its N channels work. 1oo2D is K=1, N=2 with diagnostics.
