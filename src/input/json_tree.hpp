@@ -23,17 +23,18 @@ namespace sifter::detail {
 /// returns a tree for is one the scan passes, and the loader runs the scan only when it
 /// declines.
 ///
-/// `readable_beyond`: how many bytes after the text, zeroed, may be read too (its buffer's
-/// spare capacity). With at least kParserPadding the text is parsed where it lies; with fewer,
-/// from a padded copy of it.
+/// `readable_beyond`: how many bytes after the text may be read too (its buffer's spare
+/// capacity, of which reserve_parser_padding zeroes the first kParserPadding). With at least
+/// kParserPadding the text is parsed where it lies; with fewer, from a padded copy of it.
 std::optional<nlohmann::json> fast_json_tree(std::string_view text, int max_depth, std::size_t readable_beyond = 0);
 
 /// The bytes the parser may read past the end of a text (simdjson's padding).
 inline constexpr std::size_t kParserPadding = 64;
 
-/// Makes the text's buffer hold kParserPadding zeroed bytes past its end, so that the fast
-/// parse reads it where it lies. Reallocates only when its capacity is short of that (a file
-/// read by the loader never is); never changes the text.
+/// Makes the text's buffer hold kParserPadding zeroed bytes past its end (any spare capacity
+/// beyond them is left as it is), so that the fast parse reads it where it lies. Reallocates
+/// only when its capacity is short of that (a file read by the loader never is); never
+/// changes the text.
 void reserve_parser_padding(std::string& text);
 
 }  // namespace sifter::detail

@@ -180,8 +180,8 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   // and is freed on that core.
   auto plant = alongside(0, [&project] { return plant_findings(project); });
   // Released by value, never erased: the reader holds views of the keys it read (json_reader.hpp).
-  (*root)["components"] = nullptr;
-  (*root)["sifs"] = nullptr;
+  for (const char* section : {"components", "sifs"})
+    if (auto it = root->find(section); it != root->end()) *it = nullptr;
   top.member("risk_criteria");
   top.member("scenarios");
   top.member("lopa");
@@ -233,10 +233,10 @@ void read_libraries(LoadContext& ctx, ObjectReader& owner, const std::string& ba
                 "the cycle " + cycle + fs::path(canonical).filename().string(), "remove one of the includes");
       continue;
     }
-    const std::string text = read_file_bounded(resolved.string(), &ctx, owner_source, pointer);
+    std::string text = read_file_bounded(resolved.string(), &ctx, owner_source, pointer);
     if (text.empty()) continue;
     const int source = static_cast<int>(ctx.sources.size());
-    ctx.sources.push_back({resolved.string(), text});
+    ctx.sources.push_back({resolved.string(), std::move(text)});  // moved: its padding stays with it
     auto lib = detail::parse_source(ctx, source);
     if (!lib) continue;
     ObjectReader r(ctx, *lib, "", source, "a component library");

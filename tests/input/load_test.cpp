@@ -2,11 +2,13 @@
 #include "sifter/input/load.hpp"
 
 #include <gtest/gtest.h>
+#include <unistd.h>
 
 #include <cmath>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
+#include <string>
 
 #include "sifter/graph/plant_graph.hpp"
 #include "sifter/input/sha256.hpp"
@@ -187,7 +189,7 @@ TEST(Load, TheComponentsOfOneModelShareItsDataSource) {
 // place before the parse) and one without (hashed where it lies while it is parsed) alike. The
 // expected digests come from sha256_hex, whose own vectors are in sha256_test.cpp.
 TEST(Load, TheDigestIsOfTheFilesBytesAsReadWithOrWithoutComments) {
-  const fs::path dir = fs::temp_directory_path() / "sifter_load_test_digest";
+  const fs::path dir = fs::temp_directory_path() / ("sifter_load_test_digest_" + std::to_string(::getpid()));
   fs::create_directories(dir);
   std::string plain = kMinimal;  // its library named by its full path, the file being elsewhere
   plain.replace(plain.find("../data"), 2, SIFTER_SOURCE_DIR);
