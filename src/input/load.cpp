@@ -59,7 +59,8 @@ std::string read_file_bounded(const std::string& path, LoadContext* ctx, int sou
   // Read in one piece into a text of the file's size (a string stream would copy it twice more);
   // a file that grows meanwhile is read to its end all the same, within the bound.
   std::string text;
-  text.reserve((ec ? 0 : static_cast<std::size_t>(size)) + detail::kParserPadding);  // parsed where it lies
+  // Room for the parser's padding, which parse_source zeroes: the text is then parsed where it lies.
+  text.reserve((ec ? 0 : static_cast<std::size_t>(size)) + detail::kParserPadding);
   text.resize(ec ? 0 : static_cast<std::size_t>(size));
   in.read(text.data(), static_cast<std::streamsize>(text.size()));
   text.resize(static_cast<std::size_t>(in.gcount()));
@@ -73,7 +74,6 @@ std::string read_file_bounded(const std::string& path, LoadContext* ctx, int sou
   if (in.bad())  // a read that failed part way: never a text cut short
     return problem("a readable file", "\"" + path + "\" could not be read to its end",
                    "check the disk and the file's permissions");
-  detail::reserve_parser_padding(text);
   return text;
 }
 
