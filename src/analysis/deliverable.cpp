@@ -112,7 +112,7 @@ DeliverableData build_deliverable_data(const Project& project, const ProjectResu
     row.type = c.element_type;
     row.systematic_capability = c.systematic_capability;
     row.prior_use = c.prior_use;
-    row.source = c.data_source;
+    row.source = c.data_source_line();
     if (c.source) row.source_kind = c.source->kind;
     if (c.response_time) row.response_time_s = c.response_time->hours * kSecondsPerHour;
     if (auto u = users.find(i); u != users.end()) row.sifs = u->second;

@@ -124,7 +124,7 @@ void compare_component(Changes& c, const Component& a, const Component& b) {
   c.compare(p + "/data_confidence", "data confidence" + of, "", optional_number(a.data_confidence),
             optional_number(b.data_confidence));
   c.text(p + "/model", "library model" + of, a.model, b.model);
-  c.text(p + "/data_source", "data source" + of, a.data_source, b.data_source);
+  c.text(p + "/data_source", "data source" + of, a.data_source_line(), b.data_source_line());
 }
 
 void compare_sif_inputs(Changes& c, const Sif& a, const Sif& b) {

@@ -17,6 +17,19 @@
 #include "sifter/model/format.hpp"
 
 namespace sifter {
+
+std::string to_string(SystematicGround ground) {
+  switch (ground) {
+    case SystematicGround::kSystematicCapability:
+      return "systematic capability";
+    case SystematicGround::kPriorUse:
+      return "prior use";
+    case SystematicGround::kNone:
+      break;
+  }
+  return "none";
+}
+
 namespace {
 
 // Architectural constraints and systematic capability; the achieved SIL is the lowest of the
@@ -38,9 +51,9 @@ void apply_constraints(const Project& project, const Sif& sif, SifResult& r, con
     for (const auto& e : sc.elements)
       sub.systematic_basis.push_back(
           {e.component,
-           e.prior_use && e.prior_use->sil > e.systematic_capability.value_or(0) ? "prior use"
-           : e.systematic_capability                                             ? "systematic capability"
-                                                                                 : "none",
+           e.prior_use && e.prior_use->sil > e.systematic_capability.value_or(0) ? SystematicGround::kPriorUse
+           : e.systematic_capability ? SystematicGround::kSystematicCapability
+                                     : SystematicGround::kNone,
            e.prior_use && e.prior_use->sil > e.systematic_capability.value_or(0) ? std::optional(e.prior_use->sil)
                                                                                  : e.systematic_capability,
            e.prior_use ? e.prior_use->evidence : ""});

@@ -170,7 +170,7 @@ void warn_untraced(const Project& project, const Sif& sif, std::vector<Warning>&
     for (const auto& ch : sub.channels)
       for (auto k : ch.components) {
         const Component& c = project.components[k];
-        if (c.data_source.empty() && !c.field_data &&
+        if (c.data_source_untold() && !c.field_data &&
             std::find(untraced.begin(), untraced.end(), c.id) == untraced.end())
           untraced.push_back(c.id);
       }
@@ -185,7 +185,7 @@ void warn_untraced(const Project& project, const Sif& sif, std::vector<Warning>&
 void describe_prior_use(SifResult& r) {
   for (const auto& sub : r.subsystems)
     for (const auto& e : sub.systematic_basis)
-      if (e.basis == "prior use")
+      if (e.basis == SystematicGround::kPriorUse)
         r.assumptions.push_back(e.component + " ('" + sub.name + "'): systematic result SIL " +
                                 std::to_string(e.sil.value_or(0)) +
                                 " on prior use (IEC 61511-1:2016 11.5.3), evidence: \"" + e.evidence + "\"");

@@ -3,10 +3,13 @@
 
 namespace sifter {
 
-// A comment opens with "//" or "/*": a text with neither has none (a register, most often),
-// and two searches for them are many times faster than the walk of blank_json_comments.
+// A comment opens with "//" or "/*": a text with neither has none (a register, most often).
+// One search from slash to slash (memchr) is many times faster than the walk of
+// blank_json_comments.
 bool may_hold_json_comments(std::string_view text) {
-  return text.find("//") != std::string_view::npos || text.find("/*") != std::string_view::npos;
+  for (std::size_t slash = text.find('/'); slash != std::string_view::npos; slash = text.find('/', slash + 1))
+    if (slash + 1 < text.size() && (text[slash + 1] == '/' || text[slash + 1] == '*')) return true;
+  return false;
 }
 
 std::optional<CommentProblem> blank_json_comments(std::string& text) {

@@ -43,7 +43,7 @@ std::string identity(const Component& c) {
                            " " + std::to_string(c.field_data->confidence)
                      : "-")
     << '\x1f' << (c.prior_use ? c.prior_use->sil : -1) << ' ' << (c.response_time ? c.response_time->hours : -1.0)
-    << '\x1f' << c.data_source;
+    << '\x1f' << c.data_source_line();
   return o.str();
 }
 

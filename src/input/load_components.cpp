@@ -273,7 +273,6 @@ void take_fields(Component& c, ElementFields& fields) {
   c.uncertainty = fields.uncertainty;
   c.field_data = fields.field_data;
   c.source = fields.data_source;
-  c.data_source = fields.data_source ? describe(*fields.data_source) : "";
   c.prior_use = fields.prior_use;
   c.response_time = fields.response_time;
 }

@@ -113,7 +113,7 @@ void emit_subsystem(W& w, const SubsystemResult& s) {
   for (const auto& e : s.systematic_basis) {
     w.begin_object();
     w.key("component").value(e.component);
-    w.key("basis").value(e.basis);
+    w.key("basis").value(to_string(e.basis));
     w.key("sil").value(e.sil);
     w.key("evidence").value(e.evidence);
     w.end_object();

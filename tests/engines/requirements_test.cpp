@@ -169,10 +169,10 @@ TEST(PriorUse, ASifOfPriorUseDevicesReachesTheClaimedSil) {
   EXPECT_EQ(s.sil_achieved, 2);
   EXPECT_EQ(s.meets_target, true);
   ASSERT_EQ(s.subsystems[0].systematic_basis.size(), 1u);
-  EXPECT_EQ(s.subsystems[0].systematic_basis[0].basis, "prior use");
+  EXPECT_EQ(s.subsystems[0].systematic_basis[0].basis, SystematicGround::kPriorUse);
   EXPECT_EQ(s.subsystems[0].systematic_basis[0].sil, 2);
   EXPECT_EQ(s.subsystems[0].systematic_basis[0].evidence, "400 transmitters, 2e6 h in similar service");
-  EXPECT_EQ(s.subsystems[1].systematic_basis[0].basis, "systematic capability");
+  EXPECT_EQ(s.subsystems[1].systematic_basis[0].basis, SystematicGround::kSystematicCapability);
   bool quoted = false;
   for (const auto& a : s.assumptions)
     quoted = quoted || a == "PT-1 ('sensor'): systematic result SIL 2 on prior use (IEC 61511-1:2016 11.5.3), "
@@ -190,8 +190,18 @@ TEST(PriorUse, TheHigherOfTheScAndTheClaimCounts) {
   EXPECT_EQ(r.sifs[0].sil_systematic, 2);
   const auto lower = verify_text(
       prior_use_project(R"("systematic_capability": 3, "prior_use": {"sil": 1, "evidence": "e"}, "data_source": "x")"));
-  EXPECT_EQ(lower.sifs[0].subsystems[2].systematic_basis[0].basis, "systematic capability");
+  EXPECT_EQ(lower.sifs[0].subsystems[2].systematic_basis[0].basis, SystematicGround::kSystematicCapability);
   EXPECT_EQ(lower.sifs[0].subsystems[2].systematic_capability, 3);
+}
+
+// The results file names each ground in words (sifter-results/1, "systematic_basis"/"basis").
+TEST(PriorUse, EachSystematicGroundIsWrittenInTheResultsFilesWords) {
+  EXPECT_EQ(to_string(SystematicGround::kSystematicCapability), "systematic capability");
+  EXPECT_EQ(to_string(SystematicGround::kPriorUse), "prior use");
+  EXPECT_EQ(to_string(SystematicGround::kNone), "none");
+  const auto j = report::results_json(verify_text(prior_use_project(
+      R"("systematic_capability": 3, "prior_use": {"sil": 1, "evidence": "e"}, "data_source": "x")")));
+  EXPECT_EQ(j["sifs"][0]["subsystems"][2]["systematic_basis"][0]["basis"], "systematic capability");
 }
 
 TEST(PriorUse, AnElementWithNeitherIsRefusedWithBothWaysToStateIt) {
@@ -226,7 +236,7 @@ TEST(DataSource, AnObjectSourceReadsAsOneLine) {
   const auto loaded = load_project_text(prior_use_project(R"("systematic_capability": 3, "data_source":
       {"kind": "fmeda", "document": "F-77", "revision": "1.2", "date": "2023-02-01"})"),
                                         "inline.json", ".");
-  EXPECT_EQ(loaded.project.components[2].data_source, "FMEDA: F-77 rev 1.2, 2023-02-01");
+  EXPECT_EQ(loaded.project.components[2].data_source_line(), "FMEDA: F-77 rev 1.2, 2023-02-01");
   EXPECT_EQ(loaded.project.components[2].source->kind, "fmeda");
   EXPECT_THROW(
       load_project_text(prior_use_project(R"("data_source": {"kind": "rumour", "document": "x"})"), "inline.json", "."),

@@ -31,6 +31,11 @@ TEST(JsonComments, ATextWithoutASlashPairMayHoldNoCommentAndIsLeftAsItIs) {
   EXPECT_TRUE(may_hold_json_comments("{} // end"));
   EXPECT_TRUE(may_hold_json_comments("/* head */ {}"));
   EXPECT_TRUE(may_hold_json_comments(R"({"u": "http://example.invalid"})")) << "inside a string it still answers true";
+  EXPECT_FALSE(may_hold_json_comments("{}/")) << "a slash at the very end opens nothing";
+  EXPECT_FALSE(may_hold_json_comments("/ / {} / "));
+  EXPECT_TRUE(may_hold_json_comments("{} / /*"));
+  EXPECT_TRUE(may_hold_json_comments("//"));
+  EXPECT_FALSE(may_hold_json_comments(""));
   std::string text = R"({"rate": "2/yr", "note": "a / b"})";
   const std::string before = text;
   ASSERT_FALSE(blank_json_comments(text).has_value());

@@ -180,8 +180,8 @@ TEST(Load, TheComponentsOfOneModelShareItsDataSource) {
   const auto p = load_inline(kMinimal).project;
   ASSERT_TRUE(p.components[0].source && p.components[1].source);
   EXPECT_EQ(p.components[0].source.get(), p.components[1].source.get());
-  EXPECT_EQ(p.components[0].data_source, p.components[1].data_source);
-  EXPECT_FALSE(p.components[0].data_source.empty());
+  EXPECT_EQ(p.components[0].data_source_line(), p.components[1].data_source_line());
+  EXPECT_FALSE(p.components[0].data_source_line().empty());
   EXPECT_FALSE(p.components[2].source) << "XV-1 names no model and no source";
 }
 

@@ -74,6 +74,9 @@ struct DataSource {
 /// One line of a data source as a reviewer reads it, e.g. "FMEDA: R-123 rev B, 2024-03-01".
 std::string describe(const DataSource& source);
 
+/// Whether describe(source) is the empty line: no kind and no text.
+inline bool says_nothing(const DataSource& source) { return source.kind.empty() && source.text.empty(); }
+
 /// One field device or element (a transmitter, a logic solver, a solenoid, a valve).
 struct Component {
   std::string id;
@@ -85,17 +88,22 @@ struct Component {
   std::optional<double> data_confidence;     ///< confidence of the failure data (Route 2H), 0..1
   std::optional<RateUncertainty> uncertainty;
   std::optional<FieldData> field_data;
-  std::string data_source;                  ///< where the failure data come from (a safety manual, a database)
   bool dangerous_rates_stated = false;      ///< the project or its library states lambda_D (checked in loading)
   std::string in_service_since;             ///< ISO 8601 date the device went into service, empty if not stated
   DataStatus status = DataStatus::kVendor;  ///< maturity of its data
   std::string pointer;                      ///< where it is defined, e.g. "/components/3"
   std::optional<PriorUse> prior_use;        ///< prior-use claim, IEC 61511-1:2016 11.5.3
-  /// The data source in full (data_source holds its one line); one for all the components that
-  /// take it from the same library model, since a register has thousands of them.
+  /// Where the failure data come from (a safety manual, a database), null when not stated; one
+  /// for all the components that take it from the same library model, since a register has
+  /// thousands of them. Its one line is data_source_line(), built when asked for.
   std::shared_ptr<const DataSource> source;
   std::optional<Duration> response_time;  ///< time from demand to its action (a valve's stroke)
   std::string manufacturer;               ///< as written on the component or its library model, empty if none
+
+  /// The data source's one line (describe), empty when none is stated.
+  [[nodiscard]] std::string data_source_line() const { return source ? describe(*source) : std::string(); }
+  /// Whether its failure data name no source: the line would be empty.
+  [[nodiscard]] bool data_source_untold() const { return !source || says_nothing(*source); }
 };
 
 /// A vote: the group works while K of its N channels work. 1oo2D is K=1, N=2 with diagnostics.

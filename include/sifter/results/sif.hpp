@@ -17,10 +17,20 @@ inline constexpr const char* kCaution =
     "and licensed engineering practice take precedence. Failure data must be credible and traceable "
     "to their source.";
 
+/// What an element's systematic result rests on.
+enum class SystematicGround {
+  kSystematicCapability,  ///< its SC (IEC 61508 compliance)
+  kPriorUse,              ///< a prior-use claim above its SC (IEC 61511-1:2016 11.5.3)
+  kNone,                  ///< neither: no systematic result
+};
+
+/// The words of the results file and the report: "systematic capability", "prior use", "none".
+std::string to_string(SystematicGround ground);
+
 /// On what an element's systematic result rests: its SC or a prior-use claim.
 struct SystematicBasis {
   std::string component;
-  std::string basis;       ///< "systematic capability", "prior use" or "none"
+  SystematicGround basis = SystematicGround::kNone;
   std::optional<int> sil;  ///< the SC or the SIL claimed on prior use
   std::string evidence;    ///< the prior-use evidence, quoted
 };
