@@ -48,6 +48,7 @@ void apply_constraints(const Project& project, const Sif& sif, SifResult& r, con
     sub.sil_architecture = sc.sil_architecture;
     sub.systematic_capability = sc.systematic_capability;
     sub.constraint_notes = std::move(sc.findings);  // limits_for below reads the caps and elements, not the findings
+    sub.systematic_basis.reserve(sc.elements.size());
     for (const auto& e : sc.elements)
       sub.systematic_basis.push_back(
           {e.component,
@@ -198,6 +199,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
                      const VerifyOptions& options, std::vector<Warning>& warnings, ExactCache& cache) {
   SifResult r = start_result(project, sif, lopa);
   detail::DefaultsApplied defaults;
+  r.subsystems.reserve(sif.subsystems.size());  // results are held for the whole run: no spare room
   for (const auto& sub : sif.subsystems)
     r.subsystems.push_back(detail::evaluate_subsystem(project, sub, r.demand_mode, r.assumptions, defaults));
   detail::describe_defaults(project, defaults, r.assumptions);
@@ -220,6 +222,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   apply_requirement_checks(project, sif, r, warnings);
   r.meets_target = sif_verdict(target, judged, verdict_basis(r));  // the one verdict
   say_findings(sif, capped, r, warnings);
+  r.assumptions.shrink_to_fit();
   return r;
 }
 

@@ -123,6 +123,7 @@ std::vector<WorksheetRow> build_worksheet(const Scenario& scenario, const LayerA
   for (const auto& c : result.causes) total += c.frequency_without_sif_per_yr;
   rows.push_back({WorksheetStep::kTotal, "", "", "", "sum over causes", std::nullopt, true, "", total, std::nullopt});
   for (const auto& c : result.consequences) consequence_rows(rows, scenario, result, c, total);
+  rows.shrink_to_fit();  // held with the results for the whole run
   return rows;
 }
 

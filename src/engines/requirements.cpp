@@ -195,6 +195,7 @@ void describe_prior_use(SifResult& r) {
 
 std::vector<ResponseTimeStep> response_budget(const Project& project, const Sif& sif) {
   std::vector<ResponseTimeStep> out;
+  out.reserve(sif.subsystems.size());  // held with the results for the whole run
   for (const auto& sub : sif.subsystems) out.push_back(step_of(project, sub));
   return out;
 }

@@ -39,6 +39,7 @@ void read_channels(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
     ctx.error(0, r.at("channels"), "an array of component ids (or arrays of ids in series)", describe(*v));
     return;
   }
+  sub.channels.reserve(v->size());  // held for the whole run: no room beyond what is read
   for (std::size_t i = 0; i < v->size(); ++i) {
     const Json& c = (*v)[i];
     Channel ch;
@@ -46,6 +47,7 @@ void read_channels(LoadContext& ctx, ObjectReader& r, Subsystem& sub) {
     if (c.is_string()) {
       ch.component_ids.push_back(c.get<std::string>());
     } else if (c.is_array() && !c.empty()) {
+      ch.component_ids.reserve(c.size());
       for (std::size_t j = 0; j < c.size(); ++j) {
         if (c[j].is_string())
           ch.component_ids.push_back(c[j].get<std::string>());
@@ -316,6 +318,7 @@ void read_sifs(LoadContext& ctx, const Json& root, Project& project) {
       if (!subs->is_array() || subs->empty()) {
         ctx.error(0, r.at("subsystems"), "a non-empty array of subsystems", describe(*subs));
       } else {
+        sif.subsystems.reserve(subs->size());
         for (std::size_t j = 0; j < subs->size(); ++j)
           sif.subsystems.push_back(
               read_subsystem(ctx, (*subs)[j], r.at("subsystems") + "/" + std::to_string(j), project.defaults));
