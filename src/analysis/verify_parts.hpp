@@ -16,9 +16,9 @@ struct DefaultsApplied {
 /// One subsystem's simplified figure (IEC 61508-6:2010 Annex B) or its supplier's figure, with
 /// the assumptions behind it; the defaults it took are gathered in `defaults`.
 SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub, DemandMode mode,
-                                   std::vector<std::string>& assumptions, DefaultsApplied& defaults);
+                                   Assumptions& assumptions, DefaultsApplied& defaults);
 
 /// One assumption per kind of default applied, naming the subsystems that took it.
-void describe_defaults(const Project& project, const DefaultsApplied& defaults, std::vector<std::string>& assumptions);
+void describe_defaults(const Project& project, const DefaultsApplied& defaults, Assumptions& assumptions);
 
 }  // namespace sifter::detail

@@ -174,11 +174,13 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
   out.sifs.resize(n);
   std::vector<std::vector<Warning>> sif_warnings(n);
   ExactCache cache;
+  TextPool assumptions;  // a register's SIFs state a few dozen distinct assumptions between them
   parallel_for(n, options.threads, [&](std::size_t i) {
     const Sif& sif = project.sifs[i];
     auto it = requirements.find(sif.id);
     out.sifs[i] = verify_sif(project, sif, it == requirements.end() ? std::nullopt : std::optional(it->second), options,
                              sif_warnings[i], cache);
+    assumptions.share(out.sifs[i].assumptions);
   });
   for (std::size_t i = 0; i < n; ++i)
     out.warnings.insert(out.warnings.end(), sif_warnings[i].begin(), sif_warnings[i].end());

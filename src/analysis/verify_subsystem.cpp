@@ -33,7 +33,7 @@ SubsystemResult start_subsystem(const Project& project, const Subsystem& sub) {
 }
 
 // A supplier's figure, taken as its safety manual states it.
-void take_vendor_figure(const Subsystem& sub, SubsystemResult& r, std::vector<std::string>& assumptions) {
+void take_vendor_figure(const Subsystem& sub, SubsystemResult& r, Assumptions& assumptions) {
   r.vote = sub.hft_declared ? "vendor (HFT " + std::to_string(*sub.hft_declared) + ")" : "vendor";
   r.pfd_avg = sub.vendor_pfd_avg;
   if (sub.vendor_pfh) r.pfh_per_hour = sub.vendor_pfh->per_hour;
@@ -43,7 +43,7 @@ void take_vendor_figure(const Subsystem& sub, SubsystemResult& r, std::vector<st
 }
 
 // Each component whose lambda_du comes from field data, once, with the estimate used.
-void describe_field_data(const Project& project, const Subsystem& sub, std::vector<std::string>& assumptions) {
+void describe_field_data(const Project& project, const Subsystem& sub, Assumptions& assumptions) {
   std::vector<std::size_t> seen;
   for (const auto& ch : sub.channels)
     for (auto c : ch.components) {
@@ -94,7 +94,7 @@ void note_defaults(const Subsystem& sub, DefaultsApplied& defaults) {
 // What the group's figure rests on beyond the plain equations: scaled beta, an imperfect proof
 // test, test duration, alarm-only detection, a partial stroke test.
 void describe_group_assumptions(const Project& project, const Subsystem& sub, DemandMode mode,
-                                std::vector<std::string>& assumptions) {
+                                Assumptions& assumptions) {
   if (sub.ccf_scaling == CcfScaling::kIec61508TableD5 && redundant(sub))
     assumptions.push_back(sub.name + ": beta scaled by " +
                           sifter::figure(ccf_multiplier_table_d5(sub.vote.k, sub.vote.n)) + " for " + sub.vote.text() +
@@ -119,7 +119,7 @@ void describe_group_assumptions(const Project& project, const Subsystem& sub, De
 }  // namespace
 
 SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub, DemandMode mode,
-                                   std::vector<std::string>& assumptions, DefaultsApplied& defaults) {
+                                   Assumptions& assumptions, DefaultsApplied& defaults) {
   SubsystemResult r = start_subsystem(project, sub);
   if (sub.is_vendor()) {
     take_vendor_figure(sub, r, assumptions);
@@ -134,7 +134,7 @@ SubsystemResult evaluate_subsystem(const Project& project, const Subsystem& sub,
   return r;
 }
 
-void describe_defaults(const Project& project, const DefaultsApplied& d, std::vector<std::string>& assumptions) {
+void describe_defaults(const Project& project, const DefaultsApplied& d, Assumptions& assumptions) {
   if (!d.interval.empty() && project.defaults.proof_test_interval)
     assumptions.push_back("proof-test interval " + format_duration(*project.defaults.proof_test_interval) +
                           " from the project defaults: " + joined(d.interval));

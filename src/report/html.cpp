@@ -20,10 +20,11 @@ std::string figure_html(const std::string& svg, const std::string& caption) {
   return "<figure>" + svg + "<figcaption>" + esc(caption) + "</figcaption></figure>\n";
 }
 
-std::string list_html(const std::vector<std::string>& items, const char* cls = "") {
+template <typename Texts>  // std::string or SharedText
+std::string list_html(const Texts& items, const char* cls = "") {
   if (items.empty()) return "";
   std::string out = std::string("<ul") + (*cls ? std::string(" class=\"") + cls + "\"" : "") + ">\n";
-  for (const auto& i : items) out += "<li>" + esc(i) + "</li>\n";
+  for (const std::string& i : items) out += "<li>" + esc(i) + "</li>\n";
   return out + "</ul>\n";
 }
 

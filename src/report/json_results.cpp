@@ -32,6 +32,11 @@ class TreeSink {
     return put(json(v));
   }
   TreeSink& value(std::string_view v) { return put(json(std::string(v))); }
+  TreeSink& value(const std::vector<SharedText>& texts) {
+    json list = json::array();
+    for (const auto& t : texts) list.push_back(t.str());
+    return put(std::move(list));
+  }
   TreeSink& value(const std::optional<int>& v) { return put(v ? json(*v) : json(nullptr)); }
   TreeSink& value(const std::optional<bool>& v) { return put(v ? json(*v) : json(nullptr)); }
   TreeSink& number(double v, const char* what = "number") { return put(json(checked(v, what))); }

@@ -213,4 +213,10 @@ JsonStream& JsonStream::value(const std::vector<std::string>& texts) {
   return end_array();
 }
 
+JsonStream& JsonStream::value(const std::vector<SharedText>& texts) {
+  begin_array();
+  for (const auto& t : texts) value(t.str());
+  return end_array();
+}
+
 }  // namespace sifter::report

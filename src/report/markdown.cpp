@@ -12,9 +12,10 @@ namespace {
 
 std::string md(const std::string& text) { return escape_markdown(text); }
 
-std::string list_md(const std::vector<std::string>& items) {
+template <typename Texts>  // std::string or SharedText
+std::string list_md(const Texts& items) {
   std::string out;
-  for (const auto& i : items) out += "- " + md(i) + "\n";
+  for (const std::string& i : items) out += "- " + md(i) + "\n";
   return out.empty() ? out : out + "\n";
 }
 

@@ -203,7 +203,7 @@ std::string render_sif(const SifResult& s, std::size_t width) {
   }
   if (!s.assumptions.empty()) {
     out += "  assumptions\n";
-    for (const auto& a : s.assumptions) out += fit_line("- " + a, prose, "    ");
+    for (const std::string& a : s.assumptions) out += fit_line("- " + a, prose, "    ");
   }
   if (!s.warnings.empty()) {
     out += "  warnings\n";

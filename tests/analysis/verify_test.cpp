@@ -56,6 +56,51 @@ TEST(Verify, TheSifPfdIsTheSumOfItsSubsystems) {
   EXPECT_NEAR(*s.subsystems[2].pfd_avg, 5e-7 * 4388.0, 5e-7 * 4388.0 * kRelTol);
 }
 
+// A register's SIFs state a few dozen distinct assumptions between them (the method, the
+// defaults taken): each is held once per run, in the words verify_sif gives each SIF alone.
+TEST(Verify, TheSifsOfAProjectShareEachAssumptionTheyStateWordForWord) {
+  std::string text = project(R"("target": {"sil": 1})", "1oo1", R"(["XV-1"])");
+  const std::string first = R"({ "id": "S1", )";
+  const auto sif_start = text.find(first);
+  const auto sif_end = text.rfind("] } ]");
+  ASSERT_NE(sif_start, std::string::npos);
+  std::string second = text.substr(sif_start, sif_end + 3 - sif_start);  // the SIF object, "}" included
+  second.replace(0, first.size(), R"({ "id": "S2", )");
+  text.insert(sif_end + 3, ", " + second);
+  const auto r = verify_text(text);
+  ASSERT_EQ(r.sifs.size(), 2u);
+  const auto& a = r.sifs[0].assumptions;
+  const auto& b = r.sifs[1].assumptions;
+  ASSERT_EQ(a.size(), b.size());
+  ASSERT_FALSE(a.empty());
+  for (std::size_t i = 0; i < a.size(); ++i) {
+    EXPECT_EQ(a[i], b[i]);
+    EXPECT_TRUE(a[i].shares_with(b[i])) << "held twice: " << a[i];
+  }
+  const auto loaded = load_project_text(text, "inline.json", std::string(SIFTER_SOURCE_DIR) + "/examples");
+  std::vector<Warning> warnings;
+  const SifResult alone = verify_sif(loaded.project, loaded.project.sifs[0], std::nullopt, VerifyOptions{}, warnings);
+  ASSERT_EQ(alone.assumptions.size(), a.size());
+  for (std::size_t i = 0; i < a.size(); ++i) EXPECT_EQ(alone.assumptions[i], a[i]);
+}
+
+TEST(TextPool, EqualWordsBuiltApartShareOneStringAndKeepTheirOrder) {
+  std::vector<SharedText> one{std::string("MTTR 8 h from the project defaults: sensing"), std::string("beta 10%")};
+  std::vector<SharedText> two{std::string("beta 10%"), std::string("MTTR 8 h from the project defaults: sensing"),
+                              std::string("MRT taken equal to MTTR")};
+  EXPECT_FALSE(one[0].shares_with(two[1]));
+  TextPool pool;
+  pool.share(one);
+  pool.share(two);
+  EXPECT_EQ(pool.size(), 3u);
+  EXPECT_TRUE(one[0].shares_with(two[1]));
+  EXPECT_TRUE(one[1].shares_with(two[0]));
+  EXPECT_EQ(two[0], "beta 10%");
+  EXPECT_EQ(two[1], "MTTR 8 h from the project defaults: sensing");
+  EXPECT_EQ(two[2], std::string("MRT taken equal to MTTR"));
+  EXPECT_FALSE(two[2].shares_with(one[0]));
+}
+
 // IEC 61511-1:2016 Table 6 [seen]: SIL 3 needs HFT 1, so a 1oo1 valve caps the SIF at SIL 2.
 TEST(Verify, TooLittleFaultToleranceLimitsTheArchitecture) {
   const auto r = verify_text(project(R"("target": {"sil": 3})", "1oo1", R"(["XV-1"])"));

@@ -116,7 +116,7 @@ TEST(SpuriousTrips, TheSifTripsWhenAnySubsystemDoesAndCheckReportsIt) {
   expect_relative(s.spurious_trip_rate_per_yr, sensors + valve, kExactRelTol);
   expect_relative(*s.mttf_spurious_yr, 1.0 / (sensors + valve), kExactRelTol);
   bool cited = false;
-  for (const auto& a : s.assumptions)
+  for (const std::string& a : s.assumptions)
     if (a.find("Gruhn & Cheddie") != std::string::npos) {
       cited = true;
       EXPECT_NE(a.find("lambda_dd where detected failures trip: sensors"), std::string::npos) << a;

@@ -89,8 +89,9 @@ inline std::vector<std::string> messages_of(const ScenarioResult& r, FindingKind
   return out;
 }
 
-inline bool has_assumption_containing(const std::vector<std::string>& assumptions, const std::string& text) {
-  for (const auto& a : assumptions)
+template <typename Texts>  // a scenario's (std::string) or a SIF's (SharedText)
+bool has_assumption_containing(const Texts& assumptions, const std::string& text) {
+  for (const std::string& a : assumptions)
     if (a.find(text) != std::string::npos) return true;
   return false;
 }

@@ -8,6 +8,8 @@
 #include <string_view>
 #include <vector>
 
+#include "sifter/results/shared_text.hpp"
+
 namespace sifter::report {
 
 /// Compact (no spaces, one line) or indented by two spaces per level, as nlohmann's dump(2).
@@ -49,6 +51,7 @@ class JsonStream {
   JsonStream& number(const std::optional<double>& v, const char* what) { return v ? number(*v, what) : null(); }
   /// An array of strings.
   JsonStream& value(const std::vector<std::string>& texts);
+  JsonStream& value(const std::vector<SharedText>& texts);
 
   /// Appends elements written apart by an elements-only stream (above) as elements of the
   /// current array.

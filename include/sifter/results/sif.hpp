@@ -7,6 +7,7 @@
 #include "sifter/model/diagnostics.hpp"
 #include "sifter/model/model.hpp"
 #include "sifter/results/constraints.hpp"
+#include "sifter/results/shared_text.hpp"
 
 namespace sifter {
 
@@ -144,7 +145,7 @@ struct SifResult {
   ConstraintBasis constraints = ConstraintBasis::kIec61511;
   std::vector<Limit> limits;
   std::vector<SubsystemResult> subsystems;
-  std::vector<std::string> assumptions;
+  Assumptions assumptions;             ///< each distinct text held once per run (TextPool)
   std::vector<std::string> warnings;   ///< the project's warnings about this SIF, also in `warnings`
   std::vector<std::string> scenarios;  ///< ids of the scenarios that feed it
   // Exact cross-check.
