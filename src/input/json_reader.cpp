@@ -5,6 +5,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "input/json_tree.hpp"
 #include "sifter/input/json_source.hpp"
 
 namespace sifter::detail {
@@ -80,6 +81,11 @@ std::vector<Diagnostic> LoadContext::located() const {
     out.push_back(std::move(more));
   }
   return out;
+}
+
+Json& section_item(const LoadContext& ctx, std::string_view section, Json& items, std::size_t i) {
+  if (ctx.deferred && ctx.deferred->holds(section)) ctx.deferred->build(section, i, items[i]);
+  return items[i];
 }
 
 std::string describe(const Json& value) {

@@ -2,6 +2,7 @@
 /// Strict reading of JSON objects into model fields, collecting every problem (loader internals).
 #include <boost/container/small_vector.hpp>
 #include <initializer_list>
+#include <memory>
 #include <nlohmann/json.hpp>
 #include <optional>
 #include <string>
@@ -27,9 +28,14 @@ struct SourceText {
   std::string text;
 };
 
+class DeferredSections;  // json_tree.hpp
+
 /// What every loading step shares: the texts read, the problems and the warnings found.
 struct LoadContext {
   std::vector<SourceText> sources;
+  /// The project's long sections, built element by element as they are read (section_item);
+  /// null when the project's tree holds them whole.
+  std::shared_ptr<DeferredSections> deferred;
   std::vector<PendingDiagnostic> problems;
   std::vector<Warning> warnings;
   std::size_t problems_not_kept = 0;      ///< beyond kMaxReportedProblems, only counted
@@ -45,6 +51,11 @@ struct LoadContext {
   /// Turns the pending problems into diagnostics with line and column.
   [[nodiscard]] std::vector<Diagnostic> located() const;
 };
+
+/// Element `i` of the project's root section `section` (the array `items`), built into the tree
+/// first when that section is deferred: every reader of a project's "components", "sifs" and
+/// "scenarios" takes its elements through this.
+Json& section_item(const LoadContext& ctx, std::string_view section, Json& items, std::size_t i);
 
 /// "the number 8", "the string \"8 hrs\"", "an object", ... for messages.
 std::string describe(const Json& value);

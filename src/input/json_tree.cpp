@@ -3,6 +3,8 @@
 
 #include <simdjson.h>
 
+#include <algorithm>
+#include <boost/container/small_vector.hpp>
 #include <cstdint>
 #include <future>
 #include <optional>
@@ -37,6 +39,57 @@ bool has_negative_zero_integer(std::string_view text) {
   return false;
 }
 
+// Whether an element's containers, opened with `depth` levels around it, stay within
+// `max_depth` and hold no key twice: what TreeBuilder::build checks, walked without building.
+bool fits(simdjson::dom::element e, int depth, int max_depth) {
+  using Type = simdjson::dom::element_type;
+  if (e.type() == Type::ARRAY) {
+    if (++depth > max_depth) return false;
+    const simdjson::dom::array items = e.get_array().value_unsafe();
+    for (const auto item : items)
+      if (!fits(item, depth, max_depth)) return false;
+    return true;
+  }
+  if (e.type() != Type::OBJECT) return true;
+  if (++depth > max_depth) return false;
+  boost::container::small_vector<std::string_view, 16> keys;
+  const simdjson::dom::object members = e.get_object().value_unsafe();
+  for (const auto field : members) {
+    keys.push_back(field.key);
+    if (!fits(field.value, depth, max_depth)) return false;
+  }
+  std::sort(keys.begin(), keys.end());
+  return std::adjacent_find(keys.begin(), keys.end()) == keys.end();
+}
+
+}  // namespace
+
+struct DeferredSections::Parse {
+  struct Section {
+    std::string name;
+    std::vector<simdjson::dom::element> elements;  // views into `parser`'s document
+    std::vector<char> built;                       // per element: built into the tree already
+  };
+  // The parse's tape and strings, which the elements view: never moved (on the heap). The parser
+  // that filled it, and its index of the text, are gone once the text is parsed.
+  simdjson::dom::document document;
+  int max_depth = 0;
+  std::vector<Section> sections;
+
+  Section* find(std::string_view name) {
+    for (auto& section : sections)
+      if (section.name == name) return &section;
+    return nullptr;
+  }
+  [[nodiscard]] const Section* find(std::string_view name) const {
+    for (const auto& section : sections)
+      if (section.name == name) return &section;
+    return nullptr;
+  }
+};
+
+namespace {
+
 // Builds the nlohmann value of one simdjson element; false when a doubt sends the text back to
 // nlohmann's parser.
 class TreeBuilder {
@@ -45,6 +98,12 @@ class TreeBuilder {
   // under the root is built on two cores (the sub-builders it starts build on one).
   TreeBuilder(int max_depth, int depth, bool on_two_cores)
       : max_depth_(max_depth), depth_(depth), on_two_cores_(on_two_cores) {}
+
+  // The root's arrays named in `sections` become arrays of nulls, their elements kept in `parse`.
+  void defer(std::initializer_list<std::string_view> sections, DeferredSections::Parse* parse) {
+    defer_ = sections;
+    parse_ = parse;
+  }
 
   bool build(simdjson::dom::element e, Json& out) {
     using Type = simdjson::dom::element_type;
@@ -94,8 +153,32 @@ class TreeBuilder {
     auto& members = out.get_ref<Json::object_t&>();
     for (const auto field : o) {
       auto [at, fresh] = members.try_emplace(std::string(field.key));
-      if (!fresh || !build(field.value, at->second)) return false;
+      if (!fresh) return false;
+      if (depth_ == 1 && parse_ != nullptr && field.value.type() == simdjson::dom::element_type::ARRAY &&
+          std::find(defer_.begin(), defer_.end(), field.key) != defer_.end()) {
+        if (!hold_back(field.key, field.value.get_array().value_unsafe(), at->second)) return false;
+        continue;
+      }
+      if (!build(field.value, at->second)) return false;
     }
+    return true;
+  }
+
+  // A section of the root kept as its elements, checked as build would check them; the tree
+  // gets an array of as many nulls.
+  bool hold_back(std::string_view name, simdjson::dom::array a, Json& out) {
+    if (depth_ + 1 > max_depth_) return false;  // the section's own array, as deeper() counts it
+    DeferredSections::Parse::Section section;
+    section.name = std::string(name);
+    section.elements.reserve(a.size());
+    for (const auto element : a) {
+      if (!fits(element, depth_ + 1, max_depth_)) return false;
+      section.elements.push_back(element);
+    }
+    section.built.assign(section.elements.size(), 0);
+    out = Json::array();
+    out.get_ref<Json::array_t&>().resize(section.elements.size());
+    parse_->sections.push_back(std::move(section));
     return true;
   }
 
@@ -134,7 +217,21 @@ class TreeBuilder {
   int max_depth_;
   int depth_;
   bool on_two_cores_;
+  std::initializer_list<std::string_view> defer_;
+  DeferredSections::Parse* parse_ = nullptr;
 };
+
+// Whether simdjson's tree may stand for nlohmann's: see fast_json_tree.
+bool fast_parse_fits(std::string_view text) { return !has_surrogate_escape(text) && !has_negative_zero_integer(text); }
+
+simdjson::padded_string_view padded_input(std::string_view text, std::size_t readable_beyond,
+                                          std::optional<simdjson::padded_string>& copy) {
+  if (readable_beyond < kParserPadding) {
+    copy.emplace(text);
+    return simdjson::padded_string_view(*copy);
+  }
+  return simdjson::padded_string_view(text.data(), text.size(), text.size() + readable_beyond);
+}
 
 }  // namespace
 
@@ -148,18 +245,67 @@ void reserve_parser_padding(std::string& text) {
 }
 
 std::optional<Json> fast_json_tree(std::string_view text, int max_depth, std::size_t readable_beyond) {
-  if (has_surrogate_escape(text) || has_negative_zero_integer(text)) return std::nullopt;
+  if (!fast_parse_fits(text)) return std::nullopt;
   simdjson::dom::parser parser;
   simdjson::dom::element root;
   // A text with its padding is parsed where it lies (a register's text is not copied again).
   std::optional<simdjson::padded_string> copy;
-  if (readable_beyond < kParserPadding) copy.emplace(text);
-  const auto input = copy ? simdjson::padded_string_view(*copy)
-                          : simdjson::padded_string_view(text.data(), text.size(), text.size() + readable_beyond);
-  const auto parsed = parser.parse(input);
-  if (parsed.get(root) != simdjson::SUCCESS) return std::nullopt;
+  if (parser.parse(padded_input(text, readable_beyond, copy)).get(root) != simdjson::SUCCESS) return std::nullopt;
   Json out;
   if (!TreeBuilder(max_depth, 0, thread_budget(0) > 1).build(root, out)) return std::nullopt;
+  return out;
+}
+
+DeferredSections::DeferredSections() : parse_(std::make_unique<Parse>()) {}
+DeferredSections::~DeferredSections() = default;
+
+bool DeferredSections::holds(std::string_view section) const { return parse_->find(section) != nullptr; }
+
+void DeferredSections::build(std::string_view section, std::size_t i, Json& place) {
+  Parse::Section* held = parse_->find(section);
+  if (held == nullptr || i >= held->elements.size() || held->built[i] != 0) return;
+  held->built[i] = 1;
+  // The levels open around an element: the root object and the section's array. fits() passed
+  // it when the text was parsed, so the build cannot decline.
+  [[maybe_unused]] const bool built = TreeBuilder(parse_->max_depth, 2, false).build(held->elements[i], place);
+}
+
+bool DeferredSections::has_item_with(std::string_view section, std::size_t i, std::string_view array_key,
+                                     std::string_view key) const {
+  const Parse::Section* held = parse_->find(section);
+  if (held == nullptr || i >= held->elements.size()) return false;
+  simdjson::dom::object element;
+  simdjson::dom::array items;
+  if (held->elements[i].get(element) != simdjson::SUCCESS || element.at_key(array_key).get(items) != simdjson::SUCCESS)
+    return false;
+  for (const auto item : items) {
+    simdjson::dom::object o;
+    if (item.get(o) == simdjson::SUCCESS && o.at_key(key).error() == simdjson::SUCCESS) return true;
+  }
+  return false;
+}
+
+std::optional<Json> fast_json_tree_deferring(std::string_view text, int max_depth, std::size_t readable_beyond,
+                                             std::initializer_list<std::string_view> sections,
+                                             std::shared_ptr<DeferredSections>& deferred) {
+  deferred.reset();
+  if (!fast_parse_fits(text)) return std::nullopt;
+  auto held = std::make_shared<DeferredSections>();
+  DeferredSections::Parse& parse = *held->parse_;
+  parse.max_depth = max_depth;
+  simdjson::dom::element root;
+  {
+    simdjson::dom::parser parser;
+    std::optional<simdjson::padded_string> copy;  // the document keeps no view of its input
+    const simdjson::padded_string_view input = padded_input(text, readable_beyond, copy);
+    if (parser.parse_into_document(parse.document, input.data(), input.size(), false).get(root) != simdjson::SUCCESS)
+      return std::nullopt;
+  }
+  Json out;
+  TreeBuilder builder(max_depth, 0, thread_budget(0) > 1);
+  builder.defer(sections, &parse);
+  if (!builder.build(root, out)) return std::nullopt;
+  if (!parse.sections.empty()) deferred = std::move(held);
   return out;
 }
 

@@ -118,6 +118,7 @@ void read_header(LoadContext& ctx, ObjectReader& top, Project& project) {
 void read_components_and_sifs(LoadContext& ctx, Json& root, const detail::ModelIndex& models, Project& project) {
   LoadContext sif_ctx;
   for (const auto& source : ctx.sources) sif_ctx.sources.push_back({source.path, {}});  // paths only
+  sif_ctx.deferred = ctx.deferred;  // the SIFs' elements: only this thread builds them
   sif_ctx.problems = ctx.problems;  // a problem of "defaults" is seen by the SIFs that inherit it
   sif_ctx.problems_not_kept = ctx.problems_not_kept;
   const std::size_t kept_before = ctx.problems.size();
@@ -147,7 +148,8 @@ std::optional<Json> parse_project(LoadContext& ctx, std::string& sha256) {
   auto digest = may_hold_json_comments(bytes)
                     ? alongside(0, [copy = bytes] { return sha256_hex(copy); })
                     : alongside(0, [view = std::string_view(bytes)] { return sha256_hex(view); });
-  auto root = detail::parse_source(ctx, 0);
+  // The long sections are built element by element as they are read, never as a whole tree.
+  auto root = detail::parse_source(ctx, 0, {"components", "sifs", "scenarios"});
   sha256 = digest.get();
   return root;
 }
@@ -186,6 +188,7 @@ LoadedProject load_from(LoadContext& ctx, const std::string& base_dir) {
   top.member("scenarios");
   top.member("lopa");
   detail::read_scenarios(ctx, *root, project);
+  ctx.deferred.reset();  // every section is read: the parse's document is freed
   detail::finish_reuse(ctx, reuse, project);
   top.member("pressure");
   top.member("options");

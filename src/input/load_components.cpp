@@ -338,7 +338,8 @@ void read_components(LoadContext& ctx, Json& root, const ModelIndex& models, Pro
   ModelFieldsCache model_fields;
   project.components.reserve(project.components.size() + it->size());
   for (std::size_t i = 0; i < it->size(); ++i) {
-    read_component(ctx, (*it)[i], "/components/" + std::to_string(i), models, model_fields, seen, project);
+    read_component(ctx, section_item(ctx, "components", *it, i), "/components/" + std::to_string(i), models,
+                   model_fields, seen, project);
     (*it)[i] = nullptr;  // its JSON is freed while still in cache, and its memory serves the next component
   }
 }

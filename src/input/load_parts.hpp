@@ -31,10 +31,10 @@ void check_model_entry(LoadContext& ctx, const Json& entry, int source, const st
 std::optional<ConstraintBasis> parse_constraint_basis(const std::optional<std::string>& text);
 
 /// Reads "sifs" into project.sifs, applying the defaults.
-void read_sifs(LoadContext& ctx, const Json& root, Project& project);
+void read_sifs(LoadContext& ctx, Json& root, Project& project);
 
 /// Reads "risk_criteria" and "scenarios".
-void read_scenarios(LoadContext& ctx, const Json& root, Project& project);
+void read_scenarios(LoadContext& ctx, Json& root, Project& project);
 
 /// Checks across sections: demand mode of vendor figures and targets, the SIF's signal path.
 void check_project_plausibility(LoadContext& ctx, const Project& project);

@@ -8,6 +8,7 @@
 #include <tuple>
 #include <unordered_map>
 
+#include "input/json_tree.hpp"
 #include "sifter/input/json_source.hpp"
 
 namespace sifter::detail {
@@ -59,7 +60,11 @@ void expand_templates(LoadContext& ctx, Json& root, ObjectReader& top, ReuseReco
   auto sifs = root.find("sifs");
   if (sifs == root.end() || !sifs->is_array()) return;
   for (std::size_t i = 0; i < sifs->size(); ++i) {
-    Json& sif = (*sifs)[i];
+    // A SIF held back by the parse is built here only when a subsystem of it names a template.
+    if (ctx.deferred && ctx.deferred->holds("sifs") &&
+        !ctx.deferred->has_item_with("sifs", i, "subsystems", "template"))
+      continue;
+    Json& sif = section_item(ctx, "sifs", *sifs, i);
     if (!sif.is_object() || !sif.contains("subsystems") || !sif["subsystems"].is_array()) continue;
     Json& subs = sif["subsystems"];
     for (std::size_t j = 0; j < subs.size(); ++j) {
@@ -117,7 +122,11 @@ void expand_catalogue(LoadContext& ctx, Json& root, ObjectReader& top, ReuseReco
   auto scenarios = root.find("scenarios");
   if (scenarios == root.end() || !scenarios->is_array()) return;
   for (std::size_t i = 0; i < scenarios->size(); ++i) {
-    Json& s = (*scenarios)[i];
+    // A scenario held back by the parse is built here only when a layer of it names an entry.
+    if (ctx.deferred && ctx.deferred->holds("scenarios") &&
+        !ctx.deferred->has_item_with("scenarios", i, "layers", "layer"))
+      continue;
+    Json& s = section_item(ctx, "scenarios", *scenarios, i);
     if (!s.is_object() || !s.contains("layers") || !s["layers"].is_array()) continue;
     Json& layers = s["layers"];
     for (std::size_t j = 0; j < layers.size(); ++j) {

@@ -296,7 +296,7 @@ Scenario read_scenario(LoadContext& ctx, const Json& value, const std::string& p
 
 }  // namespace
 
-void read_scenarios(LoadContext& ctx, const Json& root, Project& project) {
+void read_scenarios(LoadContext& ctx, Json& root, Project& project) {
   read_criteria(ctx, root, project);
   if (auto it = root.find("lopa"); it != root.end()) {
     ObjectReader r(ctx, *it, "/lopa", 0, "the LOPA settings");
@@ -318,7 +318,9 @@ void read_scenarios(LoadContext& ctx, const Json& root, Project& project) {
   std::unordered_set<std::string> sif_ids;  // looked up once per SIF layer: no scan of every SIF
   for (const auto& sif : project.sifs) sif_ids.insert(sif.id);
   for (std::size_t i = 0; i < it->size(); ++i) {
-    Scenario s = read_scenario(ctx, (*it)[i], "/scenarios/" + std::to_string(i), project, sif_ids);
+    Scenario s =
+        read_scenario(ctx, section_item(ctx, "scenarios", *it, i), "/scenarios/" + std::to_string(i), project, sif_ids);
+    (*it)[i] = nullptr;  // its JSON is freed while still in cache, and its memory serves the next scenario
     if (!s.id.empty() && !ids.insert(s.id).second)
       ctx.error(0, s.pointer + "/id", "a scenario id used once", "\"" + s.id + "\" a second time");
     project.scenarios.push_back(std::move(s));

@@ -289,7 +289,48 @@ std::optional<ConstraintBasis> parse_constraint_basis(const std::optional<std::s
   return ConstraintBasis::kIec61511;
 }
 
-void read_sifs(LoadContext& ctx, const Json& root, Project& project) {
+namespace {
+
+// One SIF of the "sifs" section.
+void read_sif(LoadContext& ctx, const Json& value, const std::string& pointer, std::unordered_set<std::string>& ids,
+              Project& project) {
+  ObjectReader r(ctx, value, pointer, 0, "a SIF");
+  Sif sif;
+  sif.pointer = pointer;
+  sif.id = r.string("id", true).value_or("");
+  if (r.has("id") && sif.id.empty() && r.member("id")->is_string())
+    ctx.error(0, r.at("id"), "a SIF id that is not empty", "\"\"", "use the tag of the SIF, e.g. \"SIF-101\"");
+  sif.title = r.string("title").value_or("");
+  sif.path_exception = r.string("path_exception").value_or("");
+  if (auto mode = r.choice("demand_mode", {"low", "high"}))
+    sif.demand_mode_stated = *mode == "low" ? DemandMode::kLow : DemandMode::kHigh;
+  sif.target = read_target(ctx, r);
+  sif.constraints = parse_constraint_basis(r.choice("constraints", {"iec61511", "route_1h", "route_2h"}));
+  r.allow({"note", "tags"});
+  sif.requirements = read_requirements(r);
+  if (const Json* subs = r.require("subsystems", "an array of subsystems")) {
+    if (!subs->is_array() || subs->empty()) {
+      ctx.error(0, r.at("subsystems"), "a non-empty array of subsystems", describe(*subs));
+    } else {
+      sif.subsystems.reserve(subs->size());
+      for (std::size_t j = 0; j < subs->size(); ++j)
+        sif.subsystems.push_back(
+            read_subsystem(ctx, (*subs)[j], r.at("subsystems") + "/" + std::to_string(j), project.defaults));
+    }
+  }
+  r.finish();
+  if (!sif.id.empty() && !ids.insert(sif.id).second)
+    ctx.error(0, r.at("id"), "a SIF id used once", "\"" + sif.id + "\" a second time");
+  std::set<std::string> names;
+  for (const auto& sub : sif.subsystems)
+    if (!sub.name.empty() && !names.insert(sub.name).second)
+      ctx.error(0, sub.pointer + "/name", "a subsystem name used once in the SIF", "\"" + sub.name + "\" again");
+  project.sifs.push_back(std::move(sif));
+}
+
+}  // namespace
+
+void read_sifs(LoadContext& ctx, Json& root, Project& project) {
   auto it = root.find("sifs");
   if (it == root.end()) return;
   if (!it->is_array()) {
@@ -299,39 +340,8 @@ void read_sifs(LoadContext& ctx, const Json& root, Project& project) {
   std::unordered_set<std::string> ids;
   project.sifs.reserve(project.sifs.size() + it->size());
   for (std::size_t i = 0; i < it->size(); ++i) {
-    const std::string pointer = "/sifs/" + std::to_string(i);
-    ObjectReader r(ctx, (*it)[i], pointer, 0, "a SIF");
-    Sif sif;
-    sif.pointer = pointer;
-    sif.id = r.string("id", true).value_or("");
-    if (r.has("id") && sif.id.empty() && r.member("id")->is_string())
-      ctx.error(0, r.at("id"), "a SIF id that is not empty", "\"\"", "use the tag of the SIF, e.g. \"SIF-101\"");
-    sif.title = r.string("title").value_or("");
-    sif.path_exception = r.string("path_exception").value_or("");
-    if (auto mode = r.choice("demand_mode", {"low", "high"}))
-      sif.demand_mode_stated = *mode == "low" ? DemandMode::kLow : DemandMode::kHigh;
-    sif.target = read_target(ctx, r);
-    sif.constraints = parse_constraint_basis(r.choice("constraints", {"iec61511", "route_1h", "route_2h"}));
-    r.allow({"note", "tags"});
-    sif.requirements = read_requirements(r);
-    if (const Json* subs = r.require("subsystems", "an array of subsystems")) {
-      if (!subs->is_array() || subs->empty()) {
-        ctx.error(0, r.at("subsystems"), "a non-empty array of subsystems", describe(*subs));
-      } else {
-        sif.subsystems.reserve(subs->size());
-        for (std::size_t j = 0; j < subs->size(); ++j)
-          sif.subsystems.push_back(
-              read_subsystem(ctx, (*subs)[j], r.at("subsystems") + "/" + std::to_string(j), project.defaults));
-      }
-    }
-    r.finish();
-    if (!sif.id.empty() && !ids.insert(sif.id).second)
-      ctx.error(0, r.at("id"), "a SIF id used once", "\"" + sif.id + "\" a second time");
-    std::set<std::string> names;
-    for (const auto& sub : sif.subsystems)
-      if (!sub.name.empty() && !names.insert(sub.name).second)
-        ctx.error(0, sub.pointer + "/name", "a subsystem name used once in the SIF", "\"" + sub.name + "\" again");
-    project.sifs.push_back(std::move(sif));
+    read_sif(ctx, section_item(ctx, "sifs", *it, i), "/sifs/" + std::to_string(i), ids, project);
+    (*it)[i] = nullptr;  // its JSON is freed while still in cache, and its memory serves the next SIF
   }
 }
 

@@ -30,7 +30,8 @@ std::string printable(const std::string& text) {
 
 }  // namespace
 
-std::optional<Json> parse_source(LoadContext& ctx, int source) {
+std::optional<Json> parse_source(LoadContext& ctx, int source,
+                                 std::initializer_list<std::string_view> deferred_sections) {
   std::string& text = ctx.sources[static_cast<std::size_t>(source)].text;
   const std::string& path = ctx.sources[static_cast<std::size_t>(source)].path;
   auto report = [&](TextPosition pos, const std::string& pointer, const std::string& expected, const std::string& found,
@@ -51,7 +52,13 @@ std::optional<Json> parse_source(LoadContext& ctx, int source) {
   // nlohmann's very tree at parser speed, for a text the structure scan would pass; the scan
   // and nlohmann's parser report the problems of any other.
   reserve_parser_padding(text);  // already there for a file the loader read: then nothing moves
-  if (auto tree = detail::fast_json_tree(text, kMaxNestingDepth, text.capacity() - text.size())) return tree;
+  const std::size_t spare = text.capacity() - text.size();
+  if (deferred_sections.size() > 0) {
+    if (auto tree = detail::fast_json_tree_deferring(text, kMaxNestingDepth, spare, deferred_sections, ctx.deferred))
+      return tree;
+  } else if (auto tree = detail::fast_json_tree(text, kMaxNestingDepth, spare)) {
+    return tree;
+  }
   const auto structure = scan_json_structure(text);
   for (const auto& p : structure) report(p.position, p.pointer, p.expected, p.found, p.hint);
   if (!structure.empty()) return std::nullopt;

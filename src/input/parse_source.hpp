@@ -1,6 +1,8 @@
 #pragma once
 /// The one parse of every JSON input the loaders read (loader internals).
+#include <initializer_list>
 #include <optional>
+#include <string_view>
 
 #include "input/json_reader.hpp"
 
@@ -11,6 +13,10 @@ namespace sifter::detail {
 /// parser); a text the structure scan would pass gets the fast tree, any other the scan's
 /// problems or nlohmann's message. Every problem goes to ctx, located in that source; returns
 /// nothing when there is one.
-std::optional<Json> parse_source(LoadContext& ctx, int source);
+///
+/// `deferred_sections`: root arrays whose elements the fast tree builds only when a reader asks
+/// (ctx.deferred, section_item); a text parsed by nlohmann's parser holds them whole.
+std::optional<Json> parse_source(LoadContext& ctx, int source,
+                                 std::initializer_list<std::string_view> deferred_sections = {});
 
 }  // namespace sifter::detail

@@ -2,8 +2,11 @@
 #include "sifter/report/json_results.hpp"
 
 #include <algorithm>
+#include <array>
 #include <future>
-#include <sstream>
+#include <ostream>
+#include <streambuf>
+#include <string>
 
 #include "sifter/model/cores.hpp"
 #include "sifter/model/format.hpp"
@@ -336,9 +339,31 @@ void emit_pressure(W& w, const PressureScreening& p) {
   w.end_object();
 }
 
+// A stream that appends to a string it does not own: a block's text is rendered into a buffer
+// kept from block to block, so that a register's blocks grow no new buffer each (a fresh one of
+// half a megabyte is fresh pages from the system, grown by copies, at every block).
+class AppendToString : public std::streambuf {
+ public:
+  explicit AppendToString(std::string& to) : to_(to) {}
+
+ protected:
+  std::streamsize xsputn(const char* s, std::streamsize n) override {
+    to_.append(s, static_cast<std::size_t>(n));
+    return n;
+  }
+  int_type overflow(int_type c) override {
+    if (!traits_type::eq_int_type(c, traits_type::eof())) to_ += traits_type::to_char_type(c);
+    return traits_type::not_eof(c);
+  }
+
+ private:
+  std::string& to_;
+};
+
 // The elements of a long array (the SIFs, the scenarios) written on two cores: blocks rendered
 // by elements-only streams, two at a time, and appended in order, so that the text is byte for
-// byte one stream's and no more than two blocks are held at once.
+// byte one stream's and no more than two blocks are held at once. Block b is rendered into
+// buffer b % 2, which is written out before the block after next is rendered into it.
 template <typename T, typename Emit>
 void emit_elements(JsonStream& w, const std::vector<T>& items, Emit emit, int threads) {
   constexpr std::size_t kBlock = 128;
@@ -348,20 +373,24 @@ void emit_elements(JsonStream& w, const std::vector<T>& items, Emit emit, int th
   }
   const JsonLayout layout = w.layout();  // read here: the helper thread never touches `w`
   const std::size_t depth = w.depth();
-  auto render = [&items, &emit, layout, depth](std::size_t b) {
-    std::ostringstream text;
+  std::array<std::string, 2> buffers;
+  auto render = [&items, &emit, &buffers, layout, depth](std::size_t b) -> const std::string& {
+    std::string& text = buffers[b % 2];
+    text.clear();  // keeps its capacity
+    AppendToString sink(text);
+    std::ostream out(&sink);
     {
-      JsonStream part(text, layout, depth, b == 0);
+      JsonStream part(out, layout, depth, b == 0);
       for (std::size_t i = b * kBlock; i < std::min(items.size(), (b + 1) * kBlock); ++i) emit(part, items[i]);
     }
-    return std::move(text).str();
+    return text;
   };
   const std::size_t blocks = (items.size() + kBlock - 1) / kBlock;
   for (std::size_t b = 0; b < blocks; b += 2) {
-    std::future<std::string> next;
-    if (b + 1 < blocks) next = alongside(threads, [&render, b] { return render(b + 1); });
+    std::future<const std::string*> next;
+    if (b + 1 < blocks) next = alongside(threads, [&render, b] { return &render(b + 1); });
     w.elements(render(b));
-    if (next.valid()) w.elements(next.get());
+    if (next.valid()) w.elements(*next.get());
   }
 }
 

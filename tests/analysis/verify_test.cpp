@@ -64,6 +64,7 @@ TEST(Verify, TheSifsOfAProjectShareEachAssumptionTheyStateWordForWord) {
   const auto sif_start = text.find(first);
   const auto sif_end = text.rfind("] } ]");
   ASSERT_NE(sif_start, std::string::npos);
+  ASSERT_NE(sif_end, std::string::npos);
   std::string second = text.substr(sif_start, sif_end + 3 - sif_start);  // the SIF object, "}" included
   second.replace(0, first.size(), R"({ "id": "S2", )");
   text.insert(sif_end + 3, ", " + second);

@@ -1,6 +1,7 @@
 #pragma once
 // The whole `sifter check` path on text in memory, shared by the fuzz target and the replay test.
 #include <cmath>
+#include <memory>
 #include <nlohmann/json.hpp>
 #include <optional>
 #include <stdexcept>
@@ -137,7 +138,25 @@ enum class Outcome { kRejected, kComputed };
 /// and bits included), is a finding.
 inline void check_fast_tree(std::string_view text) {
   const auto fast = detail::fast_json_tree(text, kMaxNestingDepth);
+  // The project's parse, which holds its long sections back and builds them element by element,
+  // declines where the whole parse declines and builds the same tree.
+  std::shared_ptr<detail::DeferredSections> held;
+  auto deferring =
+      detail::fast_json_tree_deferring(text, kMaxNestingDepth, 0, {"components", "sifs", "scenarios"}, held);
+  if (deferring.has_value() != fast.has_value())
+    throw std::logic_error(
+        "the parse that holds sections back declines where the whole parse does not, or the reverse");
+  if (deferring && held) {
+    for (const char* section : {"components", "sifs", "scenarios"}) {
+      if (!held->holds(section)) continue;
+      auto& items = (*deferring)[section];
+      for (std::size_t i = 0; i < items.size(); ++i) held->build(section, i, items[i]);
+    }
+  }
   if (!fast) return;
+  if (deferring->dump() != fast->dump() ||
+      std::hash<nlohmann::json>{}(*deferring) != std::hash<nlohmann::json>{}(*fast))
+    throw std::logic_error("the parse that holds sections back built another tree than the whole parse");
   // It stands in for the structure scan: a text it takes, the scan passes.
   if (!scan_json_structure(text).empty())
     throw std::logic_error("the fast parse took a text the structure scan refuses");

@@ -7,9 +7,11 @@
 
 #include <filesystem>
 #include <fstream>
+#include <memory>
 #include <random>
 #include <sstream>
 #include <string>
+#include <vector>
 
 #include "sifter/input/json_source.hpp"
 #include "sifter/input/load.hpp"
@@ -217,6 +219,139 @@ TEST(FastJsonTree, ALongSectionBuiltOnTwoCoresIsStillNlohmannsTree) {
     EXPECT_FALSE(detail::fast_json_tree(register_text(5000, at, deep), kMaxNestingDepth));
     EXPECT_EQ(scan_json_structure(register_text(5000, at, deep)).empty(), false) << "the scan refuses it too";
   }
+}
+
+// The project's long sections are held back by the parse and built one element at a time. The
+// property: building every held element gives, place by place, the tree the whole parse gives
+// (nlohmann's); and the parse declines exactly where the whole parse declines.
+std::optional<json> deferred_then_built(const std::string& text, std::shared_ptr<detail::DeferredSections>& held) {
+  auto tree = detail::fast_json_tree_deferring(text, kMaxNestingDepth, 0, {"components", "sifs", "scenarios"}, held);
+  if (!tree || !held) return tree;
+  for (const char* section : {"components", "sifs", "scenarios"}) {
+    if (!held->holds(section)) continue;
+    json& items = (*tree)[section];
+    for (std::size_t i = 0; i < items.size(); ++i) {
+      EXPECT_TRUE(items[i].is_null()) << section << " " << i << " is a null until it is asked for";
+      held->build(section, i, items[i]);
+    }
+  }
+  return tree;
+}
+
+void expect_deferring_gives_the_whole_tree(const std::string& text) {
+  const auto whole = detail::fast_json_tree(text, kMaxNestingDepth);
+  std::shared_ptr<detail::DeferredSections> held;
+  const auto built = deferred_then_built(text, held);
+  ASSERT_EQ(built.has_value(), whole.has_value()) << "declines where the whole parse declines";
+  if (!whole) {
+    EXPECT_FALSE(held) << "nothing held when it declines";
+    return;
+  }
+  EXPECT_EQ(built->dump(), whole->dump());
+  EXPECT_TRUE(same_types(*built, *whole));
+}
+
+TEST(DeferredSections, EveryShippedAndTestProjectBuiltElementByElementIsTheWholeTree) {
+  std::size_t held_files = 0;
+  for (const fs::path& root : {fs::path(SIFTER_SOURCE_DIR) / "examples", fs::path(SIFTER_TEST_DATA)}) {
+    for (const auto& entry : fs::recursive_directory_iterator(root)) {
+      if (entry.path().extension() != ".json") continue;
+      const std::string text = read_text(entry.path());
+      SCOPED_TRACE(entry.path().string());
+      expect_deferring_gives_the_whole_tree(text);
+      std::shared_ptr<detail::DeferredSections> held;
+      if (detail::fast_json_tree_deferring(text, kMaxNestingDepth, 0, {"sifs"}, held) && held) ++held_files;
+    }
+  }
+  EXPECT_GT(held_files, 50u) << "most projects have SIFs to hold back";
+}
+
+TEST(DeferredSections, AKeyGivenTwiceOrNestingTooDeepInsideAHeldElementDeclinesAsTheWholeParseDoes) {
+  const auto register_text = [](int n, int odd_one_at, const std::string& odd_one) {
+    std::string text = "{\"format\": \"x\", \"sifs\": [";
+    for (int i = 0; i < n; ++i)
+      text += (i ? ", " : "") + (i == odd_one_at ? odd_one
+                                                 : "{\"id\": \"S" + std::to_string(i) +
+                                                       "\", \"subsystems\": [{\"vote\": \"1oo2\", \"x\": [1.5, -3]}]}");
+    return text + "], \"scenarios\": [{\"id\": \"Z\", \"layers\": [{\"layer\": \"L\"}]}]}";
+  };
+  expect_deferring_gives_the_whole_tree(register_text(50, -1, ""));
+  const std::string twice = R"({"id": "S", "subsystems": [{"vote": "1oo1", "vote": "1oo2"}]})";
+  const std::string deep_inside =
+      "{\"id\": \"S\", \"x\": " + std::string(kMaxNestingDepth - 3, '[') + std::string(kMaxNestingDepth - 3, ']') + "}";
+  const std::string too_deep =
+      "{\"id\": \"S\", \"x\": " + std::string(kMaxNestingDepth - 2, '[') + std::string(kMaxNestingDepth - 2, ']') + "}";
+  for (int at : {0, 25, 49}) {
+    SCOPED_TRACE(at);
+    for (const std::string& odd : {twice, deep_inside, too_deep})
+      expect_deferring_gives_the_whole_tree(register_text(50, at, odd));
+    std::shared_ptr<detail::DeferredSections> held;
+    EXPECT_FALSE(detail::fast_json_tree_deferring(register_text(50, at, twice), kMaxNestingDepth, 0, {"sifs"}, held));
+    EXPECT_FALSE(
+        detail::fast_json_tree_deferring(register_text(50, at, too_deep), kMaxNestingDepth, 0, {"sifs"}, held));
+    EXPECT_TRUE(
+        detail::fast_json_tree_deferring(register_text(50, at, deep_inside), kMaxNestingDepth, 0, {"sifs"}, held))
+        << "the deepest nesting allowed: the root, the section, then the element's own levels";
+  }
+}
+
+TEST(DeferredSections, AnElementIsBuiltOnceAndATemplateIsFoundWithoutBuilding) {
+  const std::string text = R"({"sifs": [{"subsystems": [{"name": "a"}, {"template": "T"}]},
+                                         {"subsystems": [{"name": "b"}]}, 5,
+                                         {"subsystems": {"template": "T"}},
+                                         {"template": "T"}],
+                               "other": [1, 2]})";
+  std::shared_ptr<detail::DeferredSections> held;
+  auto tree = detail::fast_json_tree_deferring(text, kMaxNestingDepth, 0, {"sifs", "scenarios"}, held);
+  ASSERT_TRUE(tree && held);
+  EXPECT_TRUE(held->holds("sifs"));
+  EXPECT_FALSE(held->holds("scenarios")) << "absent from the text";
+  EXPECT_FALSE(held->holds("other")) << "not asked to be held";
+  EXPECT_EQ((*tree)["other"], json::parse("[1, 2]"));
+  const std::vector<bool> names_a_template = {true, false, false, false, false};
+  for (std::size_t i = 0; i < names_a_template.size(); ++i)
+    EXPECT_EQ(held->has_item_with("sifs", i, "subsystems", "template"), names_a_template[i]) << i;
+  EXPECT_FALSE(held->has_item_with("sifs", 99, "subsystems", "template")) << "beyond the section";
+  json& first = (*tree)["sifs"][0];
+  held->build("sifs", 0, first);
+  EXPECT_EQ(first["subsystems"][1]["template"], "T");
+  first["subsystems"][1].erase("template");  // as the template's expansion does
+  held->build("sifs", 0, first);
+  EXPECT_FALSE(first["subsystems"][1].contains("template")) << "built once: what the loader changed stays";
+}
+
+// With the sections held back, the loader reads a register as it read the whole tree: the same
+// project, the same problems in the same order (the whole-file run is the identity check in
+// tests/bench; this is the small case of it).
+TEST(DeferredSections, TheLoaderReportsTheSameProblemsInTheSameOrder) {
+  const std::string text = R"({
+  "format": "sifter-project/1",
+  "subsystem_templates": {"T": {"role": "logic", "pfd_avg": 1e-4, "hft": 0, "systematic_capability": 2}},
+  "components": [{"id": "A", "lambda_du": "1e-6/h"}, {"id": "B", "lambda_du": "fast"}],
+  "sifs": [{"id": "S1", "target": {"sil": 1}, "subsystems": [{"name": "x", "template": "U"}]},
+           {"id": "S2", "target": {"sil": 1}, "subsystems": [{"name": "y", "template": "T", "hft": "one"}]},
+           {"id": "S3", "target": {"sil": 9}, "subsystems": [{"name": "z", "role": "final", "channels": ["A"]}]}],
+  "scenarios": [{"id": "Z1", "frequency": -1}]
+})";
+  std::vector<std::string> problems;
+  try {
+    (void)load_project_text(text, "held.json", ".");
+    FAIL() << "the project has problems";
+  } catch (const InputError& e) {
+    for (const auto& d : e.diagnostics()) problems.push_back(d.pointer + " " + d.expected);
+  }
+  ASSERT_GE(problems.size(), 4u);
+  // The template's problem first (it is read before the sections), then the components', the
+  // SIFs' and the scenarios', in the file's order.
+  EXPECT_NE(problems[0].find("/sifs/0/subsystems/0/template"), std::string::npos) << problems[0];
+  auto at = [&](const std::string& pointer) {
+    for (std::size_t i = 0; i < problems.size(); ++i)
+      if (problems[i].rfind(pointer, 0) == 0) return i;
+    ADD_FAILURE() << pointer << " not reported";
+    return problems.size();
+  };
+  EXPECT_LT(at("/components/1"), at("/sifs/2"));
+  EXPECT_LT(at("/sifs/2"), at("/scenarios/0"));
 }
 
 TEST(FastJsonTree, TheLoaderStillReportsADuplicateKeyWithItsPlace) {

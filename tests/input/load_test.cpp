@@ -7,8 +7,10 @@
 #include <cmath>
 #include <filesystem>
 #include <fstream>
+#include <memory>
 #include <sstream>
 #include <string>
+#include <vector>
 
 #include "sifter/graph/plant_graph.hpp"
 #include "sifter/input/sha256.hpp"
@@ -183,6 +185,33 @@ TEST(Load, TheComponentsOfOneModelShareItsDataSource) {
   EXPECT_EQ(p.components[0].data_source_line(), p.components[1].data_source_line());
   EXPECT_FALSE(p.components[0].data_source_line().empty());
   EXPECT_FALSE(p.components[2].source) << "XV-1 names no model and no source";
+}
+
+// A component's data source is "untold" exactly when its one line would be empty, whatever form
+// the source takes: the requirements engine asks the first, the documents print the second.
+TEST(Load, AComponentsDataSourceIsUntoldExactlyWhenItsLineIsEmpty) {
+  auto with = [](DataSource s) {
+    Component c;
+    c.source = std::make_shared<const DataSource>(std::move(s));
+    return c;
+  };
+  const std::vector<Component> cases = {
+      Component{},  // no source stated
+      with({}),     // a source of no words
+      with({.kind = "", .document = "", .revision = "", .date = "", .text = "vendor letter"}),
+      with({.kind = "fmeda", .document = "", .revision = "", .date = "", .text = ""}),
+      with({.kind = "certificate", .document = "C-9", .revision = "2", .date = "2024-05-01", .text = ""}),
+      with({.kind = "", .document = "R-1", .revision = "", .date = "", .text = ""}),  // a document, no kind
+  };
+  const std::vector<bool> untold = {true, true, false, false, false, true};
+  ASSERT_EQ(cases.size(), untold.size());
+  for (std::size_t i = 0; i < cases.size(); ++i) {
+    EXPECT_EQ(cases[i].data_source_untold(), untold[i]) << "case " << i;
+    EXPECT_EQ(cases[i].data_source_untold(), cases[i].data_source_line().empty())
+        << "case " << i << ": \"" << cases[i].data_source_line() << '"';
+  }
+  EXPECT_EQ(cases[3].data_source_line(), "FMEDA");
+  EXPECT_EQ(cases[4].data_source_line(), "certificate: C-9 rev 2, 2024-05-01");
 }
 
 // The digest in the results is of the file's bytes as read: a text with comments (blanked in

@@ -21,8 +21,11 @@ class SharedText {
       : text_(std::make_shared<const std::string>(std::move(text))) {}
   SharedText(const char* text) : SharedText(std::string(text)) {}  // NOLINT(google-explicit-constructor)
 
-  [[nodiscard]] const std::string& str() const { return text_ ? *text_ : empty(); }
-  operator const std::string&() const { return str(); }  // NOLINT(google-explicit-constructor)
+  [[nodiscard]] const std::string& str() const& { return text_ ? *text_ : empty(); }
+  operator const std::string&() const& { return str(); }  // NOLINT(google-explicit-constructor)
+  // A temporary's string may be its last holder: read it only from a SharedText that lives on.
+  const std::string& str() const&& = delete;
+  operator const std::string&() const&& = delete;
   /// Whether the two hold the very same string (not only equal words).
   [[nodiscard]] bool shares_with(const SharedText& other) const { return text_ == other.text_; }
 

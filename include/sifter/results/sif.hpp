@@ -145,7 +145,8 @@ struct SifResult {
   ConstraintBasis constraints = ConstraintBasis::kIec61511;
   std::vector<Limit> limits;
   std::vector<SubsystemResult> subsystems;
-  Assumptions assumptions;             ///< each distinct text held once per run (TextPool)
+  Assumptions assumptions;             ///< the engines' texts held once per run (TextPool); the
+                                       ///< uncertainty line, added later, is the SIF's own
   std::vector<std::string> warnings;   ///< the project's warnings about this SIF, also in `warnings`
   std::vector<std::string> scenarios;  ///< ids of the scenarios that feed it
   // Exact cross-check.
