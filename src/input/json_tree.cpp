@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "sifter/model/cores.hpp"
+#include "sifter/model/diagnostics.hpp"
 
 namespace sifter::detail {
 namespace {
@@ -67,7 +68,7 @@ bool fits(simdjson::dom::element e, int depth, int max_depth) {
 struct DeferredSections::Parse {
   struct Section {
     std::string name;
-    std::vector<simdjson::dom::element> elements;  // views into `parser`'s document
+    std::vector<simdjson::dom::element> elements;  // views into `document`
     std::vector<char> built;                       // per element: built into the tree already
   };
   // The parse's tape and strings, which the elements view: never moved (on the heap). The parser
@@ -101,7 +102,7 @@ class TreeBuilder {
 
   // The root's arrays named in `sections` become arrays of nulls, their elements kept in `parse`.
   void defer(std::initializer_list<std::string_view> sections, DeferredSections::Parse* parse) {
-    defer_ = sections;
+    defer_.assign(sections.begin(), sections.end());
     parse_ = parse;
   }
 
@@ -217,7 +218,7 @@ class TreeBuilder {
   int max_depth_;
   int depth_;
   bool on_two_cores_;
-  std::initializer_list<std::string_view> defer_;
+  std::vector<std::string_view> defer_;  // views of the caller's names, used within its call
   DeferredSections::Parse* parse_ = nullptr;
 };
 
@@ -266,8 +267,12 @@ void DeferredSections::build(std::string_view section, std::size_t i, Json& plac
   if (held == nullptr || i >= held->elements.size() || held->built[i] != 0) return;
   held->built[i] = 1;
   // The levels open around an element: the root object and the section's array. fits() passed
-  // it when the text was parsed, so the build cannot decline.
-  [[maybe_unused]] const bool built = TreeBuilder(parse_->max_depth, 2, false).build(held->elements[i], place);
+  // it when the text was parsed, so the build cannot decline; if the two ever disagreed, the
+  // element would be half built: an internal error, never a quietly different project.
+  if (!TreeBuilder(parse_->max_depth, 2, false).build(held->elements[i], place))
+    throw Error("internal error: an element of \"" + held->name +
+                    "\" passed the parse's checks but could not be built; please report it",
+                ExitCode::kInternal);
 }
 
 bool DeferredSections::has_item_with(std::string_view section, std::size_t i, std::string_view array_key,
