@@ -43,11 +43,14 @@ def timed(cmd, tmp):
     return wall, cpu, int(fields["Maximum resident set size (kbytes)"]) / 1024.0, code
 
 
-def measure(cmd, runs, tmp):
+def measure(cmd, runs, tmp, accepted=(0, 1)):
+    """sifter exits 1 when a SIF falls short, which a register may: accepted. The peer must exit 0
+    (a Python without numpy exits 1 at once, which would pass for a fast peer)."""
     results = [timed(cmd, tmp) for _ in range(runs)]
     best = min(results, key=lambda r: r[0])
-    if any(r[3] not in (0, 1) for r in results):
-        sys.exit("register_vs_peer: %s exited with %d" % (" ".join(cmd), results[0][3]))
+    failed = [r[3] for r in results if r[3] not in accepted]
+    if failed:
+        sys.exit("register_vs_peer: %s exited with %d" % (" ".join(cmd), failed[0]))
     return {"best": best[0], "median": statistics.median(r[0] for r in results), "cpu": best[1],
             "rss": max(r[2] for r in results)}
 
@@ -81,7 +84,7 @@ def main():
                     ("sifter --json (exact on)", [args.sifter, "check", "--quiet", "--json", out, reg])]
             peer = None
             for name, cmd in runs:
-                m = measure(cmd, args.runs, tmp)
+                m = measure(cmd, args.runs, tmp, accepted=(0,) if cmd[0] == args.python else (0, 1))
                 peer = peer or m["best"]
                 print("| %d | %.1f MB | %s | %.3f | %.3f | %.2f | %.0f | %.1fx | %.2fx |" % (
                     n, size_mb, name, m["best"], m["median"], m["cpu"], m["rss"], m["rss"] / size_mb,
