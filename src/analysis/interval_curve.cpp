@@ -12,7 +12,9 @@ double pfd_avg_with_intervals_scaled(const Project& project, const Sif& sif, dou
   scaled.demand_mode_stated = DemandMode::kLow;
   for (auto& sub : scaled.subsystems) sub.proof_test_interval.hours *= factor;
   std::vector<Warning> ignored;  // the report shows the warnings of the real run, not of these
-  const SifResult r = verify_sif(project, scaled, std::nullopt, VerifyOptions{false, 0, 1, 0, {}}, ignored);
+  VerifyOptions simplified_only;
+  simplified_only.exact = false;
+  const SifResult r = verify_sif(project, scaled, std::nullopt, simplified_only, ignored);
   return r.pfd_avg.value_or(0.0);
 }
 

@@ -124,7 +124,8 @@ std::map<std::string, SifRequirement> lopa_requirements_on_cores(const Project& 
                                                                  int threads) {
   if (project.scenarios.empty()) return {};
   LopaContext context = lopa_context_from_project(project);
-  context.worksheet = false;  // this pass only sets the requirements
+  context.assumptions = false;  // this pass only sets the requirements
+  context.worksheet = false;
   return requirements_from(evaluate_scenarios_on_cores(project, context, threads), warnings);
 }
 
@@ -196,6 +197,7 @@ ProjectResult verify_project(const LoadedProject& loaded, const VerifyOptions& o
     figures.credit_capped = r.credit_capped;
   }
   if (!project.scenarios.empty()) {
+    context.worksheet = options.worksheet_rows;
     out.scenarios = evaluate_scenarios_on_cores(project, context, options.threads);
     out.shared_devices = shared_devices(project);  // who shares which device: no figure needed
   }

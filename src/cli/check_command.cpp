@@ -107,15 +107,21 @@ int run_check(const CheckOptions& options) {
   report::refuse_overwriting_inputs(
       {options.json_path, options.worksheet_csv_path, options.csv_path, options.xlsx_path}, loaded.inputs);
   for (const auto& id : options.sifs) find_sif(loaded.project, id);  // an unknown id is a usage error
-  const ProjectResult& result = keep_until_exit(verify_project(loaded, verify_options(options)));
-  // Render everything before any output is renamed into place, so that a failure leaves no
-  // partial output. The terminal text is rendered on a second core while the files are written
-  // (both only read the results); it is printed after every file is in place.
   const bool summary_to_stdout = !options.quiet && options.json_path != "-";
   report::TerminalOptions terminal;
   terminal.width = terminal_width();
   terminal.sifs = options.sifs;
   terminal.summary = options.summary;
+  VerifyOptions verify = verify_options(options);
+  // The LOPA worksheet rows only where something prints them: the worksheet CSV, the workbook,
+  // or the terminal's full blocks. A register's run (one line per SIF, the results JSON) is
+  // spared building and holding them; nothing else depends on them.
+  verify.worksheet_rows = !options.worksheet_csv_path.empty() || !options.xlsx_path.empty() ||
+                          (summary_to_stdout && report::shows_full_blocks(loaded.project.sifs.size(), terminal));
+  const ProjectResult& result = keep_until_exit(verify_project(loaded, verify));
+  // Render everything before any output is renamed into place, so that a failure leaves no
+  // partial output. The terminal text is rendered on a second core while the files are written
+  // (both only read the results); it is printed after every file is in place.
   auto summary_text = alongside(summary_to_stdout ? options.threads : 1, [&]() -> std::string {
     return summary_to_stdout ? escape_controls(report::render_terminal(result, terminal)) : "";
   });

@@ -325,9 +325,9 @@ ScenarioResult evaluate_scenario(const Project& project, const Scenario& scenari
   for (const auto& rc : rated) r.consequences.push_back(consequence_result(rc, scenario, f));
   summarise(r);
   sil_findings(r);
-  if (!context.worksheet) return r;
+  if (!context.assumptions) return r;
   method_assumptions(r, scenario, a, project.operator_time_multiple);
-  r.worksheet = build_worksheet(scenario, a, r);
+  if (context.worksheet) r.worksheet = build_worksheet(scenario, a, r);
   return r;
 }
 

@@ -84,7 +84,7 @@ std::vector<Diagnostic> LoadContext::located() const {
 }
 
 Json& section_item(const LoadContext& ctx, std::string_view section, Json& items, std::size_t i) {
-  if (ctx.deferred && ctx.deferred->holds(section)) ctx.deferred->build(section, i, items[i]);
+  if (ctx.deferred) ctx.deferred->build(section, i, items[i]);  // nothing for a section not held back
   return items[i];
 }
 

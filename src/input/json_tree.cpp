@@ -77,16 +77,15 @@ struct DeferredSections::Parse {
   int max_depth = 0;
   std::vector<Section> sections;
 
-  Section* find(std::string_view name) {
-    for (auto& section : sections)
+  // One look-up for both finds: `self` is a Parse or a const Parse, and so is the section it gives.
+  template <typename Self>
+  static auto* find_in(Self& self, std::string_view name) {
+    for (auto& section : self.sections)
       if (section.name == name) return &section;
-    return nullptr;
+    return static_cast<decltype(&self.sections.front())>(nullptr);
   }
-  [[nodiscard]] const Section* find(std::string_view name) const {
-    for (const auto& section : sections)
-      if (section.name == name) return &section;
-    return nullptr;
-  }
+  Section* find(std::string_view name) { return find_in(*this, name); }
+  [[nodiscard]] const Section* find(std::string_view name) const { return find_in(*this, name); }
 };
 
 namespace {

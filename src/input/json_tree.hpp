@@ -50,7 +50,8 @@ class DeferredSections {
   /// Whether the root's `section` is held here.
   [[nodiscard]] bool holds(std::string_view section) const;
   /// Builds element `i` of `section` into `place` (its null in the tree), the very tree the
-  /// whole parse would have held there; does nothing if it was built already.
+  /// whole parse would have held there; does nothing if it was built already, or if `section`
+  /// is not held here.
   void build(std::string_view section, std::size_t i, nlohmann::json& place);
   /// Whether element `i` of `section` is an object whose member `array_key` is an array holding
   /// an object with the member `key` (a SIF's subsystem naming a template), read without

@@ -32,6 +32,15 @@ ReuseOrigin merge_into(Json& object, const Json& origin, const std::string& ref_
   return o;
 }
 
+// Whether element `i` of `section` may hold an item of `array_key` with the member `key` (a
+// subsystem naming a template, a layer naming a catalogue entry), so that the expansion must
+// read it: always for a section the tree holds whole; for one held back by the parse, only when
+// its document says so, without building the element.
+bool may_name(const LoadContext& ctx, std::string_view section, std::size_t i, std::string_view array_key,
+              std::string_view key) {
+  return !ctx.deferred || !ctx.deferred->holds(section) || ctx.deferred->has_item_with(section, i, array_key, key);
+}
+
 std::vector<std::string> keys_of(const std::map<std::string, std::string>& m) {
   std::vector<std::string> out;
   for (const auto& [k, _] : m) out.push_back(k);
@@ -61,9 +70,7 @@ void expand_templates(LoadContext& ctx, Json& root, ObjectReader& top, ReuseReco
   if (sifs == root.end() || !sifs->is_array()) return;
   for (std::size_t i = 0; i < sifs->size(); ++i) {
     // A SIF held back by the parse is built here only when a subsystem of it names a template.
-    if (ctx.deferred && ctx.deferred->holds("sifs") &&
-        !ctx.deferred->has_item_with("sifs", i, "subsystems", "template"))
-      continue;
+    if (!may_name(ctx, "sifs", i, "subsystems", "template")) continue;
     Json& sif = section_item(ctx, "sifs", *sifs, i);
     if (!sif.is_object() || !sif.contains("subsystems") || !sif["subsystems"].is_array()) continue;
     Json& subs = sif["subsystems"];
@@ -123,9 +130,7 @@ void expand_catalogue(LoadContext& ctx, Json& root, ObjectReader& top, ReuseReco
   if (scenarios == root.end() || !scenarios->is_array()) return;
   for (std::size_t i = 0; i < scenarios->size(); ++i) {
     // A scenario held back by the parse is built here only when a layer of it names an entry.
-    if (ctx.deferred && ctx.deferred->holds("scenarios") &&
-        !ctx.deferred->has_item_with("scenarios", i, "layers", "layer"))
-      continue;
+    if (!may_name(ctx, "scenarios", i, "layers", "layer")) continue;
     Json& s = section_item(ctx, "scenarios", *scenarios, i);
     if (!s.is_object() || !s.contains("layers") || !s["layers"].is_array()) continue;
     Json& layers = s["layers"];

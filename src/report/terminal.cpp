@@ -212,6 +212,10 @@ std::string render_sif(const SifResult& s, std::size_t width) {
   return out;
 }
 
+bool shows_full_blocks(std::size_t sifs, const TerminalOptions& options) {
+  return !options.sifs.empty() || (!options.summary && sifs <= kSummaryAboveSifs);
+}
+
 std::string render_terminal(const ProjectResult& r, const TerminalOptions& options) {
   const std::size_t width = std::max<std::size_t>(options.width, 20);
   std::string out = fit_line("sifter " SIFTER_VERSION " check: " + r.file, width, "");
@@ -219,7 +223,7 @@ std::string render_terminal(const ProjectResult& r, const TerminalOptions& optio
   out += "\n";
   const std::set<std::string> chosen(options.sifs.begin(), options.sifs.end());
   const bool filtered = !chosen.empty();
-  const bool one_line_each = !filtered && (options.summary || r.sifs.size() > kSummaryAboveSifs);
+  const bool one_line_each = !shows_full_blocks(r.sifs.size(), options);
   if (one_line_each) {
     if (!r.scenarios.empty()) out += scenario_lines(r, width) + "\n";
     out += sif_lines(r, width) + "\n";

@@ -5,6 +5,10 @@
 
 #include <algorithm>
 #include <cmath>
+#include <filesystem>
+
+#include "sifter/input/load.hpp"
+#include "sifter/report/json_results.hpp"
 
 namespace sifter {
 namespace {
@@ -83,6 +87,32 @@ TEST(Verify, TheSifsOfAProjectShareEachAssumptionTheyStateWordForWord) {
   const SifResult alone = verify_sif(loaded.project, loaded.project.sifs[0], std::nullopt, VerifyOptions{}, warnings);
   ASSERT_EQ(alone.assumptions.size(), a.size());
   for (std::size_t i = 0; i < a.size(); ++i) EXPECT_EQ(alone.assumptions[i], a[i]);
+}
+
+// `check` builds the LOPA worksheet rows only when a file that prints them is asked for. Leaving
+// them out must change nothing else: every figure, credit, finding and assumption of the results
+// file stays word for word (common practice: a presentation is derived from the figures, never
+// the other way round).
+TEST(Verify, LeavingOutTheWorksheetRowsChangesNothingElse) {
+  int scenarios = 0;
+  for (const auto& e : std::filesystem::directory_iterator(std::filesystem::path(SIFTER_SOURCE_DIR) / "examples")) {
+    if (e.path().extension() != ".json") continue;
+    const LoadedProject loaded = load_project_file(e.path().string());
+    const ProjectResult with_rows = verify_project(loaded, VerifyOptions{});
+    VerifyOptions without;
+    without.worksheet_rows = false;
+    const ProjectResult without_rows = verify_project(loaded, without);
+    SCOPED_TRACE(e.path().filename().string());
+    EXPECT_EQ(report::results_json(with_rows).dump(), report::results_json(without_rows).dump());
+    ASSERT_EQ(with_rows.scenarios.size(), without_rows.scenarios.size());
+    for (std::size_t i = 0; i < with_rows.scenarios.size(); ++i) {
+      EXPECT_FALSE(with_rows.scenarios[i].worksheet.empty()) << with_rows.scenarios[i].id;
+      EXPECT_TRUE(without_rows.scenarios[i].worksheet.empty()) << with_rows.scenarios[i].id;
+      EXPECT_FALSE(without_rows.scenarios[i].assumptions.empty()) << "the method's assumptions stay";
+      ++scenarios;
+    }
+  }
+  EXPECT_GE(scenarios, 5);
 }
 
 TEST(TextPool, EqualWordsBuiltApartShareOneStringAndKeepTheirOrder) {

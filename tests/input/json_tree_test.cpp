@@ -31,6 +31,23 @@ std::string read_text(const fs::path& p) {
   return s.str();
 }
 
+// Every JSON file of the shipped examples and the test data, good and bad: the projects the
+// parses are compared on.
+std::vector<fs::path> every_project_file() {
+  std::vector<fs::path> files;
+  for (const fs::path& root : {fs::path(SIFTER_SOURCE_DIR) / "examples", fs::path(SIFTER_TEST_DATA)})
+    for (const auto& entry : fs::recursive_directory_iterator(root))
+      if (entry.path().extension() == ".json") files.push_back(entry.path());
+  return files;
+}
+
+// Whether `file` must take the fast parse: a shipped example (at any depth), or a test project
+// meant to load.
+bool meant_to_load(const fs::path& file) {
+  const std::string examples = (fs::path(SIFTER_SOURCE_DIR) / "examples").string() + "/";
+  return file.parent_path().filename() == "good" || file.string().rfind(examples, 0) == 0;
+}
+
 // nlohmann's tree of `text`, or nullopt where it refuses the text.
 std::optional<json> nlohmann_tree(const std::string& text) {
   try {
@@ -83,21 +100,20 @@ TEST(FastJsonTree, ATextWithItsPaddingIsParsedWhereItLiesToTheSameTree) {
 }
 
 TEST(FastJsonTree, EveryShippedAndTestProjectGivesNlohmannsTreeAndTheGoodOnesTakeTheFastPath) {
-  std::size_t files = 0, fast = 0;
-  for (const fs::path& root : {fs::path(SIFTER_SOURCE_DIR) / "examples", fs::path(SIFTER_TEST_DATA)}) {
-    for (const auto& entry : fs::recursive_directory_iterator(root)) {
-      if (entry.path().extension() != ".json") continue;
-      const std::string text = read_text(entry.path());
-      SCOPED_TRACE(entry.path().string());
-      expect_same_or_declined(text);
-      ++files;
-      if (detail::fast_json_tree(text, kMaxNestingDepth)) ++fast;
-      if (entry.path().parent_path().filename() == "good" || root.filename() == "examples") {
-        EXPECT_TRUE(detail::fast_json_tree(text, kMaxNestingDepth)) << "a valid project should not need the slow parse";
-      }
+  std::size_t files = 0, fast = 0, meant = 0;
+  for (const fs::path& file : every_project_file()) {
+    const std::string text = read_text(file);
+    SCOPED_TRACE(file.string());
+    expect_same_or_declined(text);
+    ++files;
+    if (detail::fast_json_tree(text, kMaxNestingDepth)) ++fast;
+    if (meant_to_load(file)) {
+      ++meant;
+      EXPECT_TRUE(detail::fast_json_tree(text, kMaxNestingDepth)) << "a valid project should not need the slow parse";
     }
   }
   EXPECT_GT(files, 100u);
+  EXPECT_GE(meant, 10u) << "the examples (one in a subfolder) and the good test projects";
   EXPECT_GT(fast, files / 2);
 }
 
@@ -255,15 +271,12 @@ void expect_deferring_gives_the_whole_tree(const std::string& text) {
 
 TEST(DeferredSections, EveryShippedAndTestProjectBuiltElementByElementIsTheWholeTree) {
   std::size_t held_files = 0;
-  for (const fs::path& root : {fs::path(SIFTER_SOURCE_DIR) / "examples", fs::path(SIFTER_TEST_DATA)}) {
-    for (const auto& entry : fs::recursive_directory_iterator(root)) {
-      if (entry.path().extension() != ".json") continue;
-      const std::string text = read_text(entry.path());
-      SCOPED_TRACE(entry.path().string());
-      expect_deferring_gives_the_whole_tree(text);
-      std::shared_ptr<detail::DeferredSections> held;
-      if (detail::fast_json_tree_deferring(text, kMaxNestingDepth, 0, {"sifs"}, held) && held) ++held_files;
-    }
+  for (const fs::path& file : every_project_file()) {
+    const std::string text = read_text(file);
+    SCOPED_TRACE(file.string());
+    expect_deferring_gives_the_whole_tree(text);
+    std::shared_ptr<detail::DeferredSections> held;
+    if (detail::fast_json_tree_deferring(text, kMaxNestingDepth, 0, {"sifs"}, held) && held) ++held_files;
   }
   EXPECT_GT(held_files, 50u) << "most projects have SIFs to hold back";
 }
@@ -362,20 +375,17 @@ std::string load_outcome(const std::string& text, const fs::path& dir) {
 // whole tree: the same problems in the same order, or the same warnings and results.
 TEST(DeferredSections, EveryProjectLoadsAsFromTheWholeTree) {
   std::size_t compared = 0, refused = 0;
-  for (const fs::path& root : {fs::path(SIFTER_SOURCE_DIR) / "examples", fs::path(SIFTER_TEST_DATA)}) {
-    for (const auto& entry : fs::recursive_directory_iterator(root)) {
-      if (entry.path().extension() != ".json") continue;
-      const std::string text = read_text(entry.path());
-      if (!detail::fast_json_tree(text, kMaxNestingDepth)) continue;  // whole tree either way
-      const std::string twin = whole_tree_twin(text);
-      if (twin.empty()) continue;
-      ASSERT_FALSE(detail::fast_json_tree(twin, kMaxNestingDepth)) << "the twin takes the whole-tree path";
-      SCOPED_TRACE(entry.path().string());
-      const std::string held = load_outcome(text, entry.path().parent_path());
-      EXPECT_EQ(held, load_outcome(twin, entry.path().parent_path()));
-      ++compared;
-      if (held.find(" | ") != std::string::npos) ++refused;
-    }
+  for (const fs::path& file : every_project_file()) {
+    const std::string text = read_text(file);
+    if (!detail::fast_json_tree(text, kMaxNestingDepth)) continue;  // whole tree either way
+    const std::string twin = whole_tree_twin(text);
+    if (twin.empty()) continue;
+    ASSERT_FALSE(detail::fast_json_tree(twin, kMaxNestingDepth)) << "the twin takes the whole-tree path";
+    SCOPED_TRACE(file.string());
+    const std::string held = load_outcome(text, file.parent_path());
+    EXPECT_EQ(held, load_outcome(twin, file.parent_path()));
+    ++compared;
+    if (held.find(" | ") != std::string::npos) ++refused;
   }
   EXPECT_GT(compared, 100u);
   EXPECT_GT(refused, 20u) << "refused projects compared too";

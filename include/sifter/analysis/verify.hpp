@@ -26,6 +26,10 @@ struct VerifyOptions {
   int samples = 0;    ///< Monte Carlo samples per SIF on the uncertain failure data; 0 = none
   std::uint64_t seed = 1;
   int threads = 0;  ///< 0 = every core
+  /// Build each scenario's LOPA worksheet rows (ScenarioResult::worksheet). Only the worksheet
+  /// writers read them (the worksheet CSV, the workbook, the report's tables and diagrams): a
+  /// run that writes none may leave them out. No figure, credit or verdict depends on them.
+  bool worksheet_rows = true;
   /// Called with (samples done, samples in all) during the Monte Carlo, for a progress bar.
   std::function<void(long long, long long)> progress;
 };

@@ -52,8 +52,11 @@ struct LopaContext {
   /// Position of each SIF in Project::sifs, so that a scenario finds the SIF it credits
   /// without a scan of every SIF (empty: found by a scan).
   std::unordered_map<std::string, std::size_t> sif_index;
-  /// False for a pass that needs only what each scenario asks of its SIF: the worksheet rows
-  /// and the method's assumptions are then left empty.
+  /// False for a pass that needs only what each scenario asks of its SIF: the method's
+  /// assumptions (and the worksheet rows with them) are then left empty.
+  bool assumptions = true;
+  /// False where nothing prints the worksheet rows: they are then left empty, and nothing else
+  /// changes (no figure, finding or assumption is read from them).
   bool worksheet = true;
 };
 

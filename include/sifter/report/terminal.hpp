@@ -19,6 +19,10 @@ struct TerminalOptions {
   bool summary = false;           ///< one line per SIF even on a small project
 };
 
+/// Whether the text of a project of `sifs` SIFs shows full blocks, the scenarios' LOPA worksheets
+/// among them (a small project, or SIFs chosen by id), rather than one line per SIF and scenario.
+bool shows_full_blocks(std::size_t sifs, const TerminalOptions& options);
+
 /// Plain text fitted to `options.width`; verdicts in words so that it reads without colour.
 /// Ends with the counts, the SIFs and scenarios that fall short (of the whole project, also
 /// when filtered) and the caution.
