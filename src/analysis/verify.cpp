@@ -223,6 +223,7 @@ SifResult verify_sif(const Project& project, const Sif& sif, const std::optional
   r.meets_target = sif_verdict(target, judged, verdict_basis(r));  // the one verdict
   say_findings(sif, capped, r, warnings);
   r.assumptions.shrink_to_fit();
+  if (!options.response_budgets) r.response_budget = {};  // read above, printed by no writer of this run
   return r;
 }
 

@@ -118,6 +118,7 @@ int run_check(const CheckOptions& options) {
   // spared building and holding them; nothing else depends on them.
   verify.worksheet_rows = !options.worksheet_csv_path.empty() || !options.xlsx_path.empty() ||
                           (summary_to_stdout && report::shows_full_blocks(loaded.project.sifs.size(), terminal));
+  verify.response_budgets = false;  // printed by the SRS and the report, by no output of check
   const ProjectResult& result = keep_until_exit(verify_project(loaded, verify));
   // Render everything before any output is renamed into place, so that a failure leaves no
   // partial output. The terminal text is rendered on a second core while the files are written

@@ -89,30 +89,40 @@ TEST(Verify, TheSifsOfAProjectShareEachAssumptionTheyStateWordForWord) {
   for (std::size_t i = 0; i < a.size(); ++i) EXPECT_EQ(alone.assumptions[i], a[i]);
 }
 
-// `check` builds the LOPA worksheet rows only when a file that prints them is asked for. Leaving
-// them out must change nothing else: every figure, credit, finding and assumption of the results
-// file stays word for word (common practice: a presentation is derived from the figures, never
-// the other way round).
-TEST(Verify, LeavingOutTheWorksheetRowsChangesNothingElse) {
-  int scenarios = 0;
+// `check` builds the LOPA worksheet rows only when something it writes prints them, and keeps
+// no response-time budget (only the SRS and the report print one). Leaving them out must change
+// nothing else: every figure, credit, finding, check and assumption of the results file stays
+// word for word (common practice: a presentation is derived from the figures, never the other
+// way round).
+TEST(Verify, LeavingOutTheWorksheetRowsAndTheResponseBudgetsChangesNothingElse) {
+  int scenarios = 0, budgets = 0;
   for (const auto& e : std::filesystem::directory_iterator(std::filesystem::path(SIFTER_SOURCE_DIR) / "examples")) {
     if (e.path().extension() != ".json") continue;
     const LoadedProject loaded = load_project_file(e.path().string());
-    const ProjectResult with_rows = verify_project(loaded, VerifyOptions{});
-    VerifyOptions without;
-    without.worksheet_rows = false;
-    const ProjectResult without_rows = verify_project(loaded, without);
+    const ProjectResult kept = verify_project(loaded, VerifyOptions{});
+    VerifyOptions lean;
+    lean.worksheet_rows = false;
+    lean.response_budgets = false;
+    const ProjectResult left_out = verify_project(loaded, lean);
     SCOPED_TRACE(e.path().filename().string());
-    EXPECT_EQ(report::results_json(with_rows).dump(), report::results_json(without_rows).dump());
-    ASSERT_EQ(with_rows.scenarios.size(), without_rows.scenarios.size());
-    for (std::size_t i = 0; i < with_rows.scenarios.size(); ++i) {
-      EXPECT_FALSE(with_rows.scenarios[i].worksheet.empty()) << with_rows.scenarios[i].id;
-      EXPECT_TRUE(without_rows.scenarios[i].worksheet.empty()) << with_rows.scenarios[i].id;
-      EXPECT_FALSE(without_rows.scenarios[i].assumptions.empty()) << "the method's assumptions stay";
+    EXPECT_EQ(report::results_json(kept).dump(), report::results_json(left_out).dump());
+    ASSERT_EQ(kept.scenarios.size(), left_out.scenarios.size());
+    for (std::size_t i = 0; i < kept.scenarios.size(); ++i) {
+      EXPECT_FALSE(kept.scenarios[i].worksheet.empty()) << kept.scenarios[i].id;
+      EXPECT_TRUE(left_out.scenarios[i].worksheet.empty()) << kept.scenarios[i].id;
+      EXPECT_FALSE(left_out.scenarios[i].assumptions.empty()) << "the method's assumptions stay";
       ++scenarios;
+    }
+    ASSERT_EQ(kept.sifs.size(), left_out.sifs.size());
+    for (std::size_t i = 0; i < kept.sifs.size(); ++i) {
+      EXPECT_EQ(kept.sifs[i].response_budget.size(), loaded.project.sifs[i].subsystems.size()) << kept.sifs[i].id;
+      EXPECT_TRUE(left_out.sifs[i].response_budget.empty()) << kept.sifs[i].id;
+      EXPECT_EQ(kept.sifs[i].response_time_s, left_out.sifs[i].response_time_s) << kept.sifs[i].id;
+      if (kept.sifs[i].response_time_s) ++budgets;
     }
   }
   EXPECT_GE(scenarios, 5);
+  EXPECT_GE(budgets, 2) << "SIFs whose response time is summed from their budget";
 }
 
 TEST(TextPool, EqualWordsBuiltApartShareOneStringAndKeepTheirOrder) {

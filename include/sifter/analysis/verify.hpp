@@ -30,6 +30,10 @@ struct VerifyOptions {
   /// writers read them (the worksheet CSV, the workbook, the report's tables and diagrams): a
   /// run that writes none may leave them out. No figure, credit or verdict depends on them.
   bool worksheet_rows = true;
+  /// Keep each SIF's response-time budget (SifResult::response_budget: the subsystems' times and
+  /// the slowest channel's elements). Only the SRS and the report print it; the response time,
+  /// its check and its limit are computed from it either way.
+  bool response_budgets = true;
   /// Called with (samples done, samples in all) during the Monte Carlo, for a progress bar.
   std::function<void(long long, long long)> progress;
 };
