@@ -72,6 +72,11 @@ void check_scenario(FiniteCheck& f, const ScenarioResult& s) {
     f("required PFH", c.required_pfh_per_hour);
     f("mitigated frequency", c.mitigated_frequency_per_yr);
   }
+  // The rows are built only where a writer prints them (VerifyOptions::worksheet_rows). Each of
+  // their values is a figure checked above or below or bounded by one (a cause's frequency, a
+  // probability in (0, 1], a running frequency that only falls, the causes' sum, the required
+  // RRF), so whether an input is refused never depends on which files are asked for. A row value
+  // computed on its own would have to be checked with the figures, not here.
   for (const auto& row : s.worksheet) {
     f("worksheet value", row.value);
     f("worksheet frequency", row.frequency_per_yr);

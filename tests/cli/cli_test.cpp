@@ -2,6 +2,7 @@
 #include <gtest/gtest.h>
 
 #include <cstdlib>
+#include <fstream>
 #include <nlohmann/json.hpp>
 #include <sstream>
 #include <vector>
@@ -190,6 +191,36 @@ TEST(Cli, WorksheetCsvHasOneRowPerStep) {
       0u);
   // A title with a comma is quoted (RFC 4180).
   EXPECT_NE(csv.find("\"high level alarm, operator closes the inlet\""), std::string::npos);
+}
+
+// On a register (more than 20 SIFs) check prints one line per SIF and builds no worksheet rows;
+// a SIF chosen with --sif still gets its scenarios' full worksheets, row for row as on the small
+// project.
+TEST(Cli, ASifChosenOnARegisterShowsItsScenariosWorksheetsInFull) {
+  json big = json::parse(slurp(std::string(SIFTER_SOURCE_DIR) + "/examples/unit40.json"));
+  big["libraries"] = {std::string(SIFTER_SOURCE_DIR) + "/data/components/illustrative.json"};
+  const json last = big["sifs"].back();
+  for (int k = 0; big["sifs"].size() <= 20; ++k) {  // copies no scenario credits
+    json copy = last;
+    copy["id"] = "COPY-" + std::to_string(k);
+    big["sifs"].push_back(copy);
+  }
+  const auto dir = fresh_folder("register_sif");
+  const auto file = dir / "register.json";
+  std::ofstream(file) << big.dump();
+  auto worksheet_of = [](const std::string& text) {  // from the first scenario to the SIF's block
+    const auto from = text.find("\nScenario ");
+    const auto to = text.find("\nSIF-401 ", from);
+    return from == std::string::npos ? std::string() : text.substr(from, to - from);
+  };
+  const auto chosen = run_sifter("check " + file.string() + " --sif SIF-401");
+  const auto small = run_sifter("check examples/unit40.json --sif SIF-401");
+  ASSERT_EQ(chosen.exit_code, small.exit_code) << chosen.err;
+  const std::string rows = worksheet_of(small.out);
+  ASSERT_NE(rows.find("cause C1"), std::string::npos) << small.out;
+  EXPECT_EQ(worksheet_of(chosen.out), rows);
+  const auto lines = run_sifter("check " + file.string());
+  EXPECT_EQ(worksheet_of(lines.out), "") << "one line per scenario on a register";
 }
 
 TEST(Cli, AFunctionThatFallsShortExitsOne) {

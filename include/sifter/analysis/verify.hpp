@@ -26,9 +26,11 @@ struct VerifyOptions {
   int samples = 0;    ///< Monte Carlo samples per SIF on the uncertain failure data; 0 = none
   std::uint64_t seed = 1;
   int threads = 0;  ///< 0 = every core
-  /// Build each scenario's LOPA worksheet rows (ScenarioResult::worksheet). Only the worksheet
-  /// writers read them (the worksheet CSV, the workbook, the report's tables and diagrams): a
-  /// run that writes none may leave them out. No figure, credit or verdict depends on them.
+  /// Build each scenario's LOPA worksheet rows (ScenarioResult::worksheet). Only the writers of
+  /// worksheets read them (the worksheet CSV, the workbook, the terminal's full blocks, the
+  /// report's tables and diagrams), and the finiteness check, whose every row value is also a
+  /// checked figure or bounded by one: a run that prints none may leave them out. No figure,
+  /// credit, verdict or refusal depends on them.
   bool worksheet_rows = true;
   /// Keep each SIF's response-time budget (SifResult::response_budget: the subsystems' times and
   /// the slowest channel's elements). Only the SRS and the report print it; the response time,

@@ -56,7 +56,8 @@ struct LopaContext {
   /// assumptions (and the worksheet rows with them) are then left empty.
   bool assumptions = true;
   /// False where nothing prints the worksheet rows: they are then left empty, and nothing else
-  /// changes (no figure, finding or assumption is read from them).
+  /// changes (no figure, finding or assumption is read from them; the finiteness check reads
+  /// them, but each of their values is a checked figure or bounded by one).
   bool worksheet = true;
 };
 

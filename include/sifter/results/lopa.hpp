@@ -113,6 +113,8 @@ struct ScenarioResult {
   std::vector<CauseResult> causes;
   std::vector<Finding> findings;
   std::vector<std::string> assumptions;
+  /// Empty where the run prints no worksheet (VerifyOptions::worksheet_rows); every figure
+  /// above is the same either way.
   std::vector<WorksheetRow> worksheet;
   bool generated = false;  ///< made by the overpressure screening
   // Data maturity: the verdict rests on these estimates (empty: it does not).

@@ -166,9 +166,11 @@ struct SifResult {
   std::optional<double> mttf_spurious_yr;
   std::optional<UncertaintyResult> uncertainty;
   // Stated requirements (the SRS) and the checks computed against them.
-  std::optional<double> response_time_s;          ///< empty when an element's time is not stated
-  std::optional<double> response_time_limit_s;    ///< fraction x process safety time; empty without one
-  std::vector<ResponseTimeStep> response_budget;  ///< the subsystems in signal order
+  std::optional<double> response_time_s;        ///< empty when an element's time is not stated
+  std::optional<double> response_time_limit_s;  ///< fraction x process safety time; empty without one
+  /// The subsystems in signal order; empty where the run prints no budget (`check`:
+  /// VerifyOptions::response_budgets), the response time above computed from it all the same.
+  std::vector<ResponseTimeStep> response_budget;
   std::vector<RequirementCheck> requirement_checks;
   // Data maturity: the verdict rests on these estimates (empty: it does not).
   bool preliminary = false;
